@@ -1,0 +1,2 @@
+// Placeholder replaced below once the database helpers exist.
+export default async function setup(): Promise<void> {}

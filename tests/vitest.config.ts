@@ -1,0 +1,18 @@
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+
+const root = fileURLToPath(new URL('..', import.meta.url));
+
+// Shared, server and fake tests: everything named *.test.ts outside src/ (Karma runs src/) and tests/e2e/.
+export default defineConfig({
+  root,
+  resolve: { alias: { '@shared': `${root}shared` } },
+  test: {
+    include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'fakes/**/*.test.ts', 'tests/**/*.test.ts'],
+    exclude: ['tests/e2e/**', 'node_modules/**'],
+    globalSetup: ['tests/global-setup.ts'],
+    testTimeout: 20_000,
+    hookTimeout: 30_000,
+    pool: 'forks',
+  },
+});
