@@ -8,7 +8,7 @@ export default defineConfig({
   root,
   resolve: { alias: { '@shared': `${root}shared` } },
   test: {
-    include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'fakes/**/*.test.ts', 'tests/**/*.test.ts'],
+    include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'fakes/**/*.test.ts', 'scripts/**/*.test.ts', 'tests/**/*.test.ts'],
     exclude: ['tests/e2e/**', 'node_modules/**'],
     globalSetup: ['tests/global-setup.ts'],
     testTimeout: 20_000,

@@ -1,0 +1,100 @@
+// Builds the Express app from its dependencies, so that tests build it too; index.ts listens.
+import connectPgSimple from 'connect-pg-simple';
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import morgan from 'morgan';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import { authRouter, createPassport } from './auth/github';
+import type { Config } from './config';
+import type { Database } from './db/client';
+import { apiNotFound, errorHandler } from './http/errors';
+import { xsrfProtection } from './http/xsrf';
+import { healthRouter } from './routes/health';
+import { meRouter } from './routes/me';
+
+export interface AppDependencies {
+  db: Database;
+  config: Config;
+}
+
+export const sessionCookie = 'keyloom.sid';
+
+function securityHeaders(config: Config) {
+  const origin = (url: string) => new URL(url).origin;
+  return helmet({
+    contentSecurityPolicy: {
+      directives: {
+        'default-src': ["'self'"],
+        'script-src': ["'self'"],
+        // Angular writes component styles into <style> elements.
+        'style-src': ["'self'", "'unsafe-inline'"],
+        'font-src': ["'self'", 'data:'],
+        'img-src': ["'self'", 'data:', 'https://avatars.githubusercontent.com', origin(config.github.apiUrl)],
+        'connect-src': ["'self'"],
+        'upgrade-insecure-requests': config.secureCookies ? [] : null,
+      },
+    },
+    strictTransportSecurity: config.secureCookies,
+  });
+}
+
+/** Serves the built app: hashed files for a year, index.html never from a cache, every other path to the app. */
+function builtApp(staticDir: string): express.Router {
+  const router = express.Router();
+  const indexHtml = join(staticDir, 'index.html');
+  router.use(
+    express.static(staticDir, {
+      index: false,
+      setHeaders: (res, path) => {
+        const hashed = /-[A-Z0-9]{8}\.(js|css)$/.test(path) || path.includes('/media/');
+        res.setHeader('Cache-Control', hashed ? 'public, max-age=31536000, immutable' : 'no-cache');
+      },
+    }),
+  );
+  router.get('/{*splat}', (_req, res) => {
+    if (!existsSync(indexHtml)) {
+      res.status(503).type('text/plain').send('The app is not built yet: run `npm start`, which builds it.');
+      return;
+    }
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(indexHtml);
+  });
+  return router;
+}
+
+export function createApp({ db, config }: AppDependencies): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.use(securityHeaders(config));
+  if (config.logRequests) app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
+
+  app.use(healthRouter(db));
+
+  app.use(cookieParser());
+  app.use(express.json({ limit: '1mb' }));
+  const PgStore = connectPgSimple(session);
+  app.use(
+    session({
+      name: sessionCookie,
+      secret: config.sessionSecret,
+      store: new PgStore({ pool: db.$client, tableName: 'sessions', createTableIfMissing: false }),
+      resave: false,
+      saveUninitialized: false,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: 30 * 24 * 3600 * 1000 },
+    }),
+  );
+  const passport = createPassport(db, config);
+  app.use(passport.initialize());
+  app.use(passport.session());
+  app.use(xsrfProtection({ sessionCookie, secure: config.secureCookies }));
+
+  app.use(authRouter(passport));
+  app.use(meRouter());
+  app.use('/api', apiNotFound);
+  app.use(builtApp(config.staticDir));
+  app.use(errorHandler);
+  return app;
+}

@@ -1,0 +1,59 @@
+import { drizzle } from 'drizzle-orm/node-postgres';
+import pg from 'pg';
+import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
+import { applyMigrations, createDatabase, type Database } from './client';
+
+const name = `keyloom_empty_${process.pid}`;
+let admin: pg.Client;
+let db: Database;
+
+beforeAll(async () => {
+  admin = new pg.Client({ connectionString: inject('databaseUrl') });
+  await admin.connect();
+  await admin.query(`DROP DATABASE IF EXISTS ${name}`);
+  await admin.query(`CREATE DATABASE ${name}`);
+  const url = new URL(inject('databaseUrl'));
+  url.pathname = `/${name}`;
+  db = createDatabase(url.href);
+});
+
+afterAll(async () => {
+  await db.$client.end();
+  await admin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+  await admin.end();
+});
+
+describe('migrations', () => {
+  it('apply to an empty database, creating every table of schema version 1', async () => {
+    await applyMigrations(db);
+    const tables = await db.$client.query<{ table_name: string }>(
+      `SELECT table_name FROM information_schema.tables WHERE table_schema = 'public' ORDER BY table_name`,
+    );
+    expect(tables.rows.map((r) => r.table_name)).toEqual([
+      'audit_log', 'bands', 'invites', 'memberships', 'preset_revisions', 'presets', 'sessions', 'share_links',
+      'uploads', 'users',
+    ]);
+  });
+
+  it('are a no-op the second time', async () => {
+    await applyMigrations(db);
+    const applied = await db.$client.query('SELECT count(*)::int AS n FROM drizzle.__drizzle_migrations');
+    expect(applied.rows[0].n).toBe(1);
+  });
+
+  it('protect the data: a revision must belong to a preset, and revision numbers start at 1', async () => {
+    const orphan = db.$client.query(
+      `INSERT INTO preset_revisions (preset_id, revision, document) VALUES (gen_random_uuid(), 1, '{}')`,
+    );
+    await expect(orphan).rejects.toThrow(/foreign key/);
+    const raw = drizzle({ client: db.$client });
+    const user = await raw.$client.query(`INSERT INTO users (github_id, login) VALUES ('1', 'a') RETURNING id`);
+    const preset = await raw.$client.query(
+      `INSERT INTO presets (owner_id, name) VALUES ($1, 'x') RETURNING id`, [user.rows[0].id],
+    );
+    const zero = db.$client.query(
+      `INSERT INTO preset_revisions (preset_id, revision, document) VALUES ($1, 0, '{}')`, [preset.rows[0].id],
+    );
+    await expect(zero).rejects.toThrow(/preset_revisions_revision_positive/);
+  });
+});
