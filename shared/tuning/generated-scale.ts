@@ -1,0 +1,118 @@
+import Fraction from 'fraction.js';
+import { type FieldError, fieldError, type Result, succeed, fail } from '../result';
+import { intervalToString, parseInterval } from './interval';
+import {
+  type IntervalSize,
+  exactSize,
+  reduceIntoPeriod,
+  repeatInterval,
+  sameSizeCents,
+  sizeOf,
+  temperedSize,
+} from './interval-size';
+import type { Scale, ScaleSpec } from './scale';
+import {
+  type UnsortedDegree,
+  largestScale,
+  parsePeriod,
+  sortDegrees,
+  tooManyDegrees,
+} from './scale-degrees';
+
+type GeneratedScaleSpec = Extract<ScaleSpec, { kind: 'generated' }>;
+
+const fractionPattern = /^(\d+)(?:\s*\/\s*(\d+))?$/;
+
+function parseCommaFraction(text: string, path: string): Result<Fraction> {
+  const written = text.trim();
+  const match = fractionPattern.exec(written);
+  if (!match) return fail([fieldError(path, `"${written}" is not a fraction: write one such as 1/4`)]);
+  const denominator = BigInt(match[2] ?? '1');
+  if (denominator === 0n) return fail([fieldError(path, `${written} has a zero denominator`)]);
+  const numerator = BigInt(match[1]);
+  if (numerator === 0n) return fail([fieldError(path, `${written} is not a fraction above 0`)]);
+  return succeed(new Fraction(numerator, denominator));
+}
+
+/**
+ * Narrows the generator by `fraction` of `comma`. The result stays exact when the comma is a ratio and the
+ * fraction a whole number (3/2 narrowed by all of 81/80 is 40/27); otherwise it is tempered, in cents.
+ */
+function temperGenerator(
+  generator: IntervalSize,
+  comma: IntervalSize,
+  fraction: Fraction,
+): IntervalSize {
+  if (generator.ratio && comma.ratio && fraction.d === 1n) {
+    return exactSize(generator.ratio.div(comma.ratio.pow(fraction)));
+  }
+  return temperedSize(generator.cents - fraction.valueOf() * comma.cents);
+}
+
+function parseGenerator(spec: GeneratedScaleSpec): Result<IntervalSize> {
+  const generator = parseInterval(spec.generator, 'scale.generator');
+  if (!spec.temper) return generator.ok ? succeed(sizeOf(generator.value)) : generator;
+  const comma = parseInterval(spec.temper.comma, 'scale.temper.comma');
+  const fraction = parseCommaFraction(spec.temper.fraction, 'scale.temper.fraction');
+  const errors = [generator, comma, fraction].flatMap((read) => (read.ok ? [] : read.errors));
+  if (!generator.ok || !comma.ok || !fraction.ok) return fail(errors);
+  const commaSize = sizeOf(comma.value);
+  if (Math.abs(commaSize.cents) < sameSizeCents) {
+    const written = intervalToString(comma.value);
+    return fail([fieldError('scale.temper.comma', `${written} is a unison, so it tempers nothing`)]);
+  }
+  return succeed(temperGenerator(sizeOf(generator.value), commaSize, fraction.value));
+}
+
+function stackLabel(position: number): string {
+  if (position === 0) return 'the tonic';
+  return `generator ${position > 0 ? '+' : ''}${position}`;
+}
+
+/**
+ * Stacks `up` generators above the tonic and `down` below it, each reduced into the period. Exact generators and
+ * periods give exact degrees however high the stack goes (53 pure fifths reduce to 3^53/2^84).
+ */
+export function buildGeneratedScale(spec: GeneratedScaleSpec): Result<Scale> {
+  const errors: FieldError[] = [];
+  const period = parsePeriod(spec.period, 'scale.period');
+  const generator = parseGenerator(spec);
+  if (!period.ok) errors.push(...period.errors);
+  if (!generator.ok) errors.push(...generator.errors);
+  for (const field of ['up', 'down'] as const) {
+    if (!Number.isInteger(spec[field]) || spec[field] < 0) {
+      errors.push(fieldError(`scale.${field}`, `${spec[field]} is not a whole number of generators`));
+    }
+  }
+  const count = spec.up + spec.down + 1;
+  if (count > largestScale) errors.push(tooManyDegrees('scale.up', count));
+  if (!period.ok || !generator.ok || errors.length > 0) return fail(errors);
+
+  if (reduceIntoPeriod(generator.value, period.value).reduced.cents === 0) {
+    return fail([
+      fieldError(
+        'scale.generator',
+        `${spec.generator} spans a whole number of periods, so every generator lands on the tonic`,
+      ),
+    ]);
+  }
+  const unsorted: UnsortedDegree[] = [];
+  for (let position = -spec.down; position <= spec.up; position++) {
+    const stacked = repeatInterval(generator.value, position);
+    unsorted.push({
+      size: reduceIntoPeriod(stacked, period.value).reduced,
+      stackPosition: position,
+      path: 'scale',
+      written: stackLabel(position),
+      label: stackLabel(position),
+    });
+  }
+  const { degrees, warnings } = sortDegrees(unsorted);
+  return succeed({
+    kind: 'generated',
+    degrees,
+    period: period.value,
+    generator: generator.value,
+    warnings,
+  });
+}

@@ -1,0 +1,51 @@
+import type { FieldError, Result } from '../result';
+import { buildEqualScale } from './equal-scale';
+import { buildGeneratedScale } from './generated-scale';
+import { buildHarmonicScale } from './harmonic-scale';
+import type { IntervalSize } from './interval-size';
+import { buildListScale } from './list-scale';
+import type { ScaleDegree } from './scale-degrees';
+
+/** A scale as the preset document describes it, with its defaults filled in; intervals are still text. */
+export type ScaleSpec =
+  | {
+      kind: 'generated';
+      generator: string;
+      period: string;
+      up: number;
+      down: number;
+      temper?: { comma: string; fraction: string };
+    }
+  | { kind: 'equal'; divisions: number; period: string }
+  | { kind: 'list'; degrees: string[]; period: string }
+  | { kind: 'harmonic'; from: number; to: number; sub: boolean };
+
+export type ScaleKind = ScaleSpec['kind'];
+
+/**
+ * A built scale: its degrees inside one period, sorted from the tonic (degree 0, always unison) upwards.
+ * Degrees that coincide are kept and reported in `warnings` (a musician may be passing through such a stack on the
+ * way to the one they want, and the degree numbers of a key layout must not shift under them).
+ */
+export interface Scale {
+  kind: ScaleKind;
+  degrees: ScaleDegree[];
+  period: IntervalSize;
+  /** The generator as stacked, after any tempering, for generated scales; null for other kinds. */
+  generator: IntervalSize | null;
+  warnings: FieldError[];
+}
+
+/** Builds any kind of scale; every fault names its field under `scale`. */
+export function buildScale(spec: ScaleSpec): Result<Scale> {
+  switch (spec.kind) {
+    case 'generated':
+      return buildGeneratedScale(spec);
+    case 'equal':
+      return buildEqualScale(spec);
+    case 'list':
+      return buildListScale(spec);
+    case 'harmonic':
+      return buildHarmonicScale(spec);
+  }
+}
