@@ -1,23 +1,78 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
+import { provideRouter } from '@angular/router';
 import { App } from './app';
+import { routes } from './app.routes';
 
-describe('App', () => {
+describe('App shell', () => {
+  let http: HttpTestingController;
+
   beforeEach(async () => {
     await TestBed.configureTestingModule({
       imports: [App],
+      providers: [provideRouter(routes), provideHttpClient(), provideHttpClientTesting()],
     }).compileComponents();
+    http = TestBed.inject(HttpTestingController);
   });
 
-  it('should create the app', () => {
-    const fixture = TestBed.createComponent(App);
-    const app = fixture.componentInstance;
-    expect(app).toBeTruthy();
-  });
+  afterEach(() => http.verify());
 
-  it('should render title', async () => {
+  async function render(me: { user: unknown } | 'unreachable') {
     const fixture = TestBed.createComponent(App);
+    fixture.detectChanges();
+    const request = http.expectOne('/api/me');
+    if (me === 'unreachable') request.error(new ProgressEvent('error'), { status: 0 });
+    else request.flush(me);
     await fixture.whenStable();
-    const compiled = fixture.nativeElement as HTMLElement;
-    expect(compiled.querySelector('h1')?.textContent).toContain('Hello, keyloom');
+    fixture.detectChanges();
+    return { fixture, element: fixture.nativeElement as HTMLElement };
+  }
+
+  it('links to Design, Library, Retune and Bands from the main navigation', async () => {
+    const { element } = await render({ user: null });
+    const links = Array.from(element.querySelectorAll<HTMLAnchorElement>('nav[aria-label="Main"] a'));
+    expect(links.map((a) => a.querySelector('.label')?.textContent?.trim())).toEqual(['Design', 'Library', 'Retune', 'Bands']);
+    expect(links.map((a) => a.getAttribute('aria-label'))).toEqual(['Design', 'Library', 'Retune', 'Bands']);
+    expect(links.map((a) => new URL(a.href).pathname)).toEqual(['/design', '/library', '/retune', '/bands']);
+  });
+
+  it('offers sign-in with GitHub to a visitor', async () => {
+    const { element } = await render({ user: null });
+    const signIn = element.querySelector<HTMLAnchorElement>('a.sign-in');
+    expect(signIn?.textContent).toContain('Sign in with GitHub');
+    expect(new URL(signIn!.href).pathname).toBe('/auth/github');
+    expect(element.querySelector('button.member')).toBeNull();
+  });
+
+  it('shows the signed-in member by name and avatar, and signs out', async () => {
+    const avatar = 'data:image/svg+xml,%3Csvg xmlns=%22http://www.w3.org/2000/svg%22/%3E';
+    const member = {
+      id: 'u1', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: avatar, siteRole: 'member',
+    };
+    const { fixture, element } = await render({ user: member });
+    const button = element.querySelector<HTMLButtonElement>('button.member')!;
+    expect(button.textContent).toContain('Mira Vale');
+    expect(button.getAttribute('aria-label')).toContain('Signed in as Mira Vale');
+    expect(button.querySelector('img')?.getAttribute('src')).toBe(avatar);
+    expect(element.querySelector('a.sign-in')).toBeNull();
+
+    button.click();
+    fixture.detectChanges();
+    const signOut = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-menu-panel button')).find((b) =>
+      b.textContent?.includes('Sign out'),
+    )!;
+    signOut.click();
+    const logout = http.expectOne('/auth/logout');
+    expect(logout.request.method).toBe('POST');
+    logout.flush(null, { status: 204, statusText: 'No Content' });
+    await fixture.whenStable();
+    fixture.detectChanges();
+    expect(element.querySelector('a.sign-in')).not.toBeNull();
+  });
+
+  it('says so when the server does not answer', async () => {
+    const { element } = await render('unreachable');
+    expect(element.querySelector('[role="alert"]')?.textContent).toContain('not answering');
   });
 });

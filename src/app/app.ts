@@ -1,12 +1,37 @@
-import { Component, signal } from '@angular/core';
-import { RouterOutlet } from '@angular/router';
+import { Component, OnInit, inject } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatToolbarModule } from '@angular/material/toolbar';
+import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { Session } from './auth/session';
+
+interface Destination {
+  path: string;
+  label: string;
+  icon: string;
+}
 
 @Component({
   selector: 'app-root',
-  imports: [RouterOutlet],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatToolbarModule, MatButtonModule, MatIconModule, MatMenuModule],
   templateUrl: './app.html',
-  styleUrl: './app.scss'
+  styleUrl: './app.scss',
 })
-export class App {
-  protected readonly title = signal('keyloom');
+export class App implements OnInit {
+  protected readonly session = inject(Session);
+  protected readonly destinations: Destination[] = [
+    { path: '/design', label: 'Design', icon: 'tune' },
+    { path: '/library', label: 'Library', icon: 'library_music' },
+    { path: '/retune', label: 'Retune', icon: 'queue_music' },
+    { path: '/bands', label: 'Bands', icon: 'groups' },
+  ];
+
+  ngOnInit(): void {
+    void this.session.refresh();
+  }
+
+  protected signOut(): void {
+    void this.session.signOut();
+  }
 }

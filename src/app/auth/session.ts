@@ -1,0 +1,41 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject, signal } from '@angular/core';
+import { firstValueFrom } from 'rxjs';
+
+export interface Member {
+  id: string;
+  login: string;
+  name: string | null;
+  email: string | null;
+  avatarUrl: string | null;
+  siteRole: 'member' | 'admin';
+}
+
+/** Who is signed in, as the server says; `undefined` until the server has answered. */
+@Injectable({ providedIn: 'root' })
+export class Session {
+  private readonly http = inject(HttpClient);
+  readonly member = signal<Member | null | undefined>(undefined);
+  readonly unreachable = signal(false);
+
+  async refresh(): Promise<void> {
+    try {
+      const answer = await firstValueFrom(this.http.get<{ user: Member | null }>('/api/me'));
+      this.member.set(answer.user);
+      this.unreachable.set(false);
+    } catch {
+      this.member.set(null);
+      this.unreachable.set(true);
+    }
+  }
+
+  /** Sign-in is a full-page trip through the provider, which comes back to the app's start page. */
+  signInUrl(): string {
+    return '/auth/github';
+  }
+
+  async signOut(): Promise<void> {
+    await firstValueFrom(this.http.post('/auth/logout', null));
+    this.member.set(null);
+  }
+}
