@@ -14,7 +14,6 @@ export const pageSecurityPolicy = [
   "img-src 'self' data:",
   "style-src 'unsafe-inline'",
   "base-uri 'none'",
-  "form-action 'self'",
   "frame-ancestors 'none'",
 ].join('; ');
 

@@ -41,6 +41,7 @@ describe('App shell', () => {
     const { element } = await render({ user: null });
     const signIn = element.querySelector<HTMLAnchorElement>('a.sign-in');
     expect(signIn?.textContent).toContain('Sign in with GitHub');
+    expect(signIn?.getAttribute('aria-label')).toBe('Sign in with GitHub');
     expect(new URL(signIn!.href).pathname).toBe('/auth/github');
     expect(element.querySelector('button.member')).toBeNull();
   });

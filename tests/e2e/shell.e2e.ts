@@ -1,0 +1,69 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { isLoopback, launchChromium, screenshot } from './browser';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchChromium();
+});
+afterAll(() => browser.close());
+
+describe('the app shell in Chromium', () => {
+  it('loads with every non-loopback request aborted, attempts none, and has both fonts loaded', async () => {
+    const page = await browser.newPage();
+    const outside: string[] = [];
+    await page.route('**/*', (route) => {
+      const url = route.request().url();
+      if (isLoopback(url)) return route.continue();
+      outside.push(url);
+      return route.abort();
+    });
+    const failures: string[] = [];
+    page.on('requestfailed', (r) => failures.push(`${r.url()} ${r.failure()?.errorText}`));
+    page.on('pageerror', (e) => failures.push(e.message));
+
+    await page.goto(inject('appUrl'));
+    await page.getByRole('link', { name: 'Sign in with GitHub' }).waitFor();
+    const fonts = await page.evaluate(async () => {
+      await document.fonts.ready;
+      const loaded = (family: string) =>
+        [...document.fonts].some((face) => face.family.replace(/"/g, '') === family && face.status === 'loaded');
+      return {
+        roboto: loaded('Roboto') && document.fonts.check('16px Roboto'),
+        symbols: loaded('Material Symbols Outlined') && document.fonts.check('24px "Material Symbols Outlined"'),
+      };
+    });
+    await screenshot(page, 'shell-signed-out');
+
+    expect(outside).toEqual([]);
+    expect(failures).toEqual([]);
+    expect(fonts).toEqual({ roboto: true, symbols: true });
+    expect(new URL(page.url()).pathname).toBe('/design');
+    await page.close();
+  });
+
+  it('navigates between the main destinations, and shows a clear page for an unknown address', async () => {
+    const page = await browser.newPage();
+    await page.goto(`${inject('appUrl')}/design`);
+    for (const [label, heading] of [['Library', 'Library'], ['Retune', 'Retune a song'], ['Bands', 'Bands']]) {
+      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: label }).click();
+      await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe(heading);
+    }
+    expect(await page.title()).toBe('Bands · Keyloom');
+
+    await page.goto(`${inject('appUrl')}/no/such/page`);
+    await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe('Nothing plays on this key');
+    await screenshot(page, 'not-found');
+    await page.close();
+  });
+
+  it('fits a 390 px wide screen without sideways scrolling', async () => {
+    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    await page.goto(`${inject('appUrl')}/design`);
+    await page.getByRole('link', { name: 'Sign in with GitHub' }).waitFor();
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    await screenshot(page, 'shell-390px');
+    expect(overflow).toBeLessThanOrEqual(0);
+    await page.close();
+  });
+});
