@@ -1,14 +1,16 @@
 import { count, eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import { createDatabase, type Database } from '../../server/db/client';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Database } from '../../server/db/client';
+import { createScratchDatabase } from '../../tests/support/scratch-database';
 import { memberships, presetRevisions, presets, users } from '../../server/db/schema';
 import { demoBand, demoPresets, seedDemoData } from './demo-data';
 
 let db: Database;
-beforeAll(() => {
-  db = createDatabase(inject('databaseUrl'));
+let drop: () => Promise<void>;
+beforeAll(async () => {
+  ({ db, drop } = await createScratchDatabase('keyloom_seed', { migrated: true }));
 });
-afterAll(() => db.$client.end());
+afterAll(() => drop());
 
 describe('demo data', () => {
   it('seeds a band with two members of different roles and its presets, and seeding again changes nothing', async () => {
@@ -35,5 +37,21 @@ describe('demo data', () => {
     expect(fifths.revisions.at(-1)!.document['scale']).toMatchObject({ kind: 'generated', generator: '3/2' });
     const row = await db.query.presets.findFirst({ where: eq(presets.name, 'Fen Fifths') });
     expect(row?.latestRevision).toBe(fifths.revisions.length);
+  });
+});
+
+describe('demo data after a demo member signed in first', () => {
+  it('adopts the existing user row instead of failing', async () => {
+    // Simulate Tobias signing in before any seed: his GitHub id exists under another row id.
+    await db.delete(memberships).where(eq(memberships.bandId, demoBand.id));
+    await db.delete(presets);
+    await db.delete(users).where(eq(users.login, 'tobias-reed'));
+    const [early] = await db
+      .insert(users)
+      .values({ githubId: '91002', login: 'tobias-reed', name: 'Tobias Reed' })
+      .returning({ id: users.id });
+    await seedDemoData(db);
+    const tobias = await db.query.memberships.findFirst({ where: eq(memberships.userId, early.id) });
+    expect(tobias?.role).toBe('editor');
   });
 });

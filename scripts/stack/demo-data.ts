@@ -1,5 +1,6 @@
 // Demo data of our own scenario: the band Copper Fen, two of its members and a handful of their presets.
 // Idempotent: fixed ids, and rows that exist already are left as they are (a user's later edits are never undone).
+import { eq } from 'drizzle-orm';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Database } from '../../server/db/client';
@@ -130,16 +131,24 @@ export async function seedDemoData(db: Database): Promise<void> {
     return found;
   };
   await db.transaction(async (tx) => {
+    // A demo member who signed in before the seed ran already has a row: keep it and use its id.
+    const userIds = new Map<string, string>();
     for (const member of demoMembers) {
       const { id, name, email } = identity(member.login);
       await tx
         .insert(users)
         .values({ id: member.id, githubId: String(id), login: member.login, name, email })
         .onConflictDoNothing();
+      const [row] = await tx.select({ id: users.id }).from(users).where(eq(users.githubId, String(id)));
+      userIds.set(member.id, row.id);
     }
-    await tx.insert(bands).values({ ...demoBand, createdBy: ids.mira }).onConflictDoNothing();
+    const userId = (fixedId: string) => userIds.get(fixedId)!;
+    await tx.insert(bands).values({ ...demoBand, createdBy: userId(ids.mira) }).onConflictDoNothing();
     for (const member of demoMembers) {
-      await tx.insert(memberships).values({ bandId: ids.band, userId: member.id, role: member.role }).onConflictDoNothing();
+      await tx
+        .insert(memberships)
+        .values({ bandId: ids.band, userId: userId(member.id), role: member.role })
+        .onConflictDoNothing();
     }
     for (const preset of demoPresets) {
       const latest = preset.revisions.at(-1)!;
@@ -147,7 +156,7 @@ export async function seedDemoData(db: Database): Promise<void> {
         .insert(presets)
         .values({
           id: ids.preset(preset.n),
-          ownerId: preset.owner,
+          ownerId: userId(preset.owner),
           bandId: preset.band ? ids.band : null,
           name: String(latest.document['name']),
           latestRevision: preset.revisions.length,
@@ -161,7 +170,7 @@ export async function seedDemoData(db: Database): Promise<void> {
           revision: index + 1,
           document: revision.document,
           note: revision.note,
-          authorId: preset.owner,
+          authorId: userId(preset.owner),
         })),
       );
     }

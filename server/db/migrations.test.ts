@@ -1,27 +1,15 @@
 import { drizzle } from 'drizzle-orm/node-postgres';
-import pg from 'pg';
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import { applyMigrations, createDatabase, type Database } from './client';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createScratchDatabase } from '../../tests/support/scratch-database';
+import { applyMigrations, type Database } from './client';
 
-const name = `keyloom_empty_${process.pid}`;
-let admin: pg.Client;
 let db: Database;
+let drop: () => Promise<void>;
 
 beforeAll(async () => {
-  admin = new pg.Client({ connectionString: inject('databaseUrl') });
-  await admin.connect();
-  await admin.query(`DROP DATABASE IF EXISTS ${name}`);
-  await admin.query(`CREATE DATABASE ${name}`);
-  const url = new URL(inject('databaseUrl'));
-  url.pathname = `/${name}`;
-  db = createDatabase(url.href);
+  ({ db, drop } = await createScratchDatabase('keyloom_empty', { migrated: false }));
 });
-
-afterAll(async () => {
-  await db.$client.end();
-  await admin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
-  await admin.end();
-});
+afterAll(() => drop());
 
 describe('migrations', () => {
   it('apply to an empty database, creating every table of schema version 1', async () => {
