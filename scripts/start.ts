@@ -17,11 +17,20 @@ const ports = {
 const cluster = await ensureCluster(log);
 let group: ProcessGroup | undefined;
 
-async function stopEverything(code: number): Promise<never> {
-  await group?.stopAll();
-  if (cluster.startedHere) await cluster.stop();
-  else log('PostgreSQL was already running before this start; left running');
-  process.exit(code);
+let stopping: Promise<void> | undefined;
+
+/** Stops what this start started; safe to call again (Ctrl-C also reaches the children directly). */
+function stopEverything(code: number): Promise<void> {
+  stopping ??= (async () => {
+    await group?.stopAll();
+    if (cluster.startedHere) {
+      await cluster.stop().catch((error: Error) => log(`stopping PostgreSQL: ${error.message.split('\n')[0]}`));
+    } else {
+      log('PostgreSQL was already running before this start; left running');
+    }
+    process.exit(code);
+  })();
+  return stopping;
 }
 process.once('SIGINT', () => void stopEverything(0));
 process.once('SIGTERM', () => void stopEverything(0));

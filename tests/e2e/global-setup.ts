@@ -15,6 +15,7 @@ declare module 'vitest' {
     appUrl: string;
     githubUrl: string;
     mailboxUrl: string;
+    mailboxSmtpPort: number;
   }
 }
 
@@ -58,6 +59,7 @@ export default async function setup(project: TestProject) {
   project.provide('appUrl', appUrl);
   project.provide('githubUrl', github.url);
   project.provide('mailboxUrl', mailbox.webUrl);
+  project.provide('mailboxSmtpPort', mailbox.smtpPort);
 
   return async () => {
     await new Promise<void>((resolve) => {
