@@ -2,7 +2,7 @@ import Fraction from 'fraction.js';
 import { fieldError, type Result, succeed, fail } from '../result';
 import { exactSize, temperedSize } from './interval-size';
 import type { Scale, ScaleSpec } from './scale';
-import { largestScale, parsePeriod } from './scale-degrees';
+import { type ScaleDegree, largestScale, parsePeriod } from './scale-degrees';
 
 type EqualScaleSpec = Extract<ScaleSpec, { kind: 'equal' }>;
 
@@ -41,13 +41,14 @@ export function buildEqualScale(spec: EqualScaleSpec): Result<Scale> {
   if (!period.ok || errors.length > 0) return fail(errors);
 
   const power = period.value.ratio ? asPower(period.value.ratio) : null;
-  const degrees = Array.from({ length: divisions }, (_, step) => {
+  const degrees: ScaleDegree[] = [];
+  for (let step = 0; step < divisions; step++) {
     const exactPower = power ? (power.exponent * step) / divisions : NaN;
     const size =
       power && Number.isInteger(exactPower)
         ? exactSize(power.base.pow(exactPower))
         : temperedSize((period.value.cents * step) / divisions);
-    return { ...size, stackPosition: null };
-  });
+    degrees.push({ cents: size.cents, ratio: size.ratio, stackPosition: null });
+  }
   return succeed({ kind: 'equal', degrees, period: period.value, generator: null, warnings: [] });
 }

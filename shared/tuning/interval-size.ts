@@ -42,7 +42,7 @@ export function intervalBetween(lower: IntervalSize, upper: IntervalSize): Inter
 }
 
 export function sameSize(a: IntervalSize, b: IntervalSize): boolean {
-  if (a.ratio && b.ratio) return a.ratio.equals(b.ratio);
+  if (a.ratio && b.ratio) return a.ratio.n === b.ratio.n && a.ratio.d === b.ratio.d;
   return Math.abs(a.cents - b.cents) < sameSizeCents;
 }
 

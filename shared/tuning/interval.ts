@@ -54,17 +54,17 @@ export function parseInterval(text: string, path: string): Result<Interval> {
   return typeof read === 'string' ? fail([fieldError(path, read)]) : succeed(read);
 }
 
-const twoTo53 = 2n ** 53n;
-
 function log2BigInt(value: bigint): number {
-  if (value < twoTo53) return Math.log2(Number(value));
+  const asNumber = Number(value);
+  if (asNumber !== Infinity) return Math.log2(asNumber);
   const extraBits = value.toString(16).length * 4 - 64;
   return Math.log2(Number(value >> BigInt(extraBits))) + extraBits;
 }
 
 /** The size of a positive ratio in cents, 1200 log2(n/d), also for numerators and denominators past 2^1024. */
 export function ratioCents(ratio: Fraction): number {
-  if (ratio.n < twoTo53 && ratio.d < twoTo53) return 1200 * Math.log2(Number(ratio.n) / Number(ratio.d));
+  const [n, d] = [Number(ratio.n), Number(ratio.d)];
+  if (n !== Infinity && d !== Infinity) return 1200 * Math.log2(n / d);
   return 1200 * (log2BigInt(ratio.n) - log2BigInt(ratio.d));
 }
 

@@ -64,9 +64,9 @@ export function sortDegrees(unsorted: UnsortedDegree[]): {
       );
     }
   }
-  const degrees = order.map((index) => ({
-    ...unsorted[index].size,
-    stackPosition: unsorted[index].stackPosition,
-  }));
+  const degrees = order.map((index) => {
+    const { size, stackPosition } = unsorted[index];
+    return { cents: size.cents, ratio: size.ratio, stackPosition };
+  });
   return { degrees, warnings };
 }

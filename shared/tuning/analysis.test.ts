@@ -1,0 +1,68 @@
+import { describe, expect, it } from 'vitest';
+import { analyzeScale } from './analysis';
+import { ratioToString } from './interval';
+import { builtScale } from './scale.testing';
+import { equalTemperedHz } from './twelve-edo';
+
+const fromMiddleC = { rootHz: equalTemperedHz(60, 440), concertA: 440 };
+
+describe('analyzeScale', () => {
+  it('describes each degree of the fifths from F: ratio, step, nearest note and offset', () => {
+    const scale = builtScale({ kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 });
+    const { degrees } = analyzeScale(scale, fromMiddleC);
+    expect(degrees.map((degree) => degree.nearestNote.name)).toEqual([
+      'C4', 'D4', 'E4', 'F4', 'G4', 'A4', 'B4',
+    ]);
+    // REFERENCE.md: arithmetic (pure fifths from equal-tempered C4: E 331.1199 Hz against equal-tempered 329.6276)
+    expect(degrees[2].nearestNote.offsetCents).toBeCloseTo(1200 * Math.log2(331.1199 / 329.6276), 3);
+    // REFERENCE.md: arithmetic (F 348.8341 Hz against equal-tempered 349.2282)
+    expect(degrees[3].nearestNote.offsetCents).toBeCloseTo(1200 * Math.log2(348.8341 / 349.2282), 3);
+    expect(degrees.map((degree) => ratioToString(degree.step.ratio!))).toEqual([
+      '9/8', '9/8', '256/243', '9/8', '9/8', '9/8', '256/243',
+    ]);
+    expect(degrees.every((degree) => degree.approximation === null)).toBe(true);
+    expect(degrees[0].majorThird?.toDegree).toBe(2);
+  });
+
+  it('approximates tempered degrees by simple ratios with their error', () => {
+    const meantone = builtScale({
+      kind: 'generated',
+      generator: '3/2',
+      period: '2/1',
+      up: 4,
+      down: 0,
+      temper: { comma: '81/80', fraction: '1/4' },
+    });
+    const { degrees } = analyzeScale(meantone, fromMiddleC);
+    const third = degrees.find((degree) => degree.stackPosition === 4);
+    // REFERENCE.md: arithmetic (four fifths of 5^(1/4) make 5/1, two octaves above a pure 5/4)
+    expect(third?.approximation && ratioToString(third.approximation.ratio)).toBe('5/4');
+    expect(third?.approximation?.errorCents).toBeCloseTo(0, 9);
+    const fifth = degrees.find((degree) => degree.stackPosition === 1);
+    // REFERENCE.md: standard acoustics texts (quarter-comma meantone fifth 696.5784284662 cents), definition (3/2)
+    expect(fifth?.approximation?.errorCents).toBeCloseTo(696.5784284662 - 701.9550008654, 9);
+  });
+
+  it('lays out the interval matrix from every degree through one period', () => {
+    const scale = builtScale({ kind: 'list', degrees: ['5/4', '3/2'], period: '2/1' });
+    const { intervalMatrix } = analyzeScale(scale, fromMiddleC);
+    const [third, fifth] = [1200 * Math.log2(5 / 4), 1200 * Math.log2(3 / 2)];
+    const expected = [
+      [0, third, fifth, 1200],
+      [0, fifth - third, 1200 - third, 1200],
+      [0, 1200 - fifth, 1200 + third - fifth, 1200],
+    ];
+    intervalMatrix.forEach((row, i) =>
+      row.forEach((cents, j) => expect(cents).toBeCloseTo(expected[i][j], 9)),
+    );
+  });
+
+  it('draws approximations from the odd limit it is given', () => {
+    const scale = builtScale({ kind: 'equal', divisions: 12, period: '2/1' });
+    const seventeen = analyzeScale(scale, fromMiddleC, { oddLimit: 17 });
+    expect(seventeen.oddLimit).toBe(17);
+    expect(ratioToString(seventeen.degrees[1].approximation!.ratio)).toBe('18/17');
+    const fifteen = analyzeScale(scale, fromMiddleC);
+    expect(ratioToString(fifteen.degrees[1].approximation!.ratio)).toBe('16/15');
+  });
+});

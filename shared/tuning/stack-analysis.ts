@@ -1,0 +1,99 @@
+import {
+  type IntervalSize,
+  intervalBetween,
+  reduceIntoPeriod,
+  repeatInterval,
+  sameSizeCents,
+} from './interval-size';
+import type { Scale } from './scale';
+import { isBalanced } from './step-pattern';
+
+/** The largest scale size searched for moments of symmetry. */
+const largestMosSize = 60;
+
+export interface Wolf {
+  /** The degree at the top of the stack, where the off-size generator starts. */
+  from: number;
+  /** The degree at the bottom of the stack, where it ends. */
+  to: number;
+  size: IntervalSize;
+  /** How far the wolf is from the generator (reduced into the period): the comma, with its sign turned. */
+  deviationCents: number;
+}
+
+export interface StackAnalysis {
+  /** The generator as stacked (after tempering). */
+  generator: IntervalSize;
+  /** The generator brought into the period, the size of every generator step between degrees. */
+  reducedGenerator: IntervalSize;
+  /**
+   * What a stack as long as the scale (one generator per degree) misses the tonic by, taken as the smaller way
+   * round: positive when it overshoots. Twelve pure fifths overshoot by the Pythagorean comma.
+   */
+  comma: IntervalSize;
+  /** The one generator step that closes the circle off size; null when the circle closes (comma 0). */
+  wolf: Wolf | null;
+  /** The scale sizes up to 60 at which this generator and period give exactly two step sizes. */
+  mosSizes: number[];
+}
+
+/**
+ * The sizes of stacks (from 2 to 60 generators) whose degrees fall into exactly two step sizes spread evenly.
+ * The evenness matters only for generators that divide the period exactly (700c in 1200c): there the third step
+ * size of the other stacks coincides with one of the two, as 8 fifths of 12 equal give steps of 1 and 2 bunched
+ * as ssLLsLLs.
+ */
+function mosSizes(reducedGeneratorCents: number, periodCents: number): number[] {
+  const sizes: number[] = [];
+  const positions = [0];
+  for (let count = 2; count <= largestMosSize; count++) {
+    const position = ((count - 1) * reducedGeneratorCents) % periodCents;
+    let place = positions.length;
+    while (place > 0 && positions[place - 1] > position) place--;
+    positions.splice(place, 0, position);
+    let [smallest, largest] = [Infinity, -Infinity];
+    const steps = positions.map((lower, index) => (positions[index + 1] ?? periodCents) - lower);
+    for (const step of steps) {
+      smallest = Math.min(smallest, step);
+      largest = Math.max(largest, step);
+    }
+    const twoSizes =
+      smallest > sameSizeCents &&
+      largest - smallest > sameSizeCents &&
+      steps.every((step) => step - smallest < sameSizeCents || largest - step < sameSizeCents);
+    if (twoSizes && isBalanced(steps.map((step) => largest - step < sameSizeCents))) {
+      sizes.push(count);
+    }
+  }
+  return sizes;
+}
+
+/** What a generated scale's stack does: its comma, its wolf, and its sizes of moment of symmetry. */
+export function analyzeStack(scale: Scale): StackAnalysis | null {
+  const { generator, period, degrees } = scale;
+  if (!generator) return null;
+  const size = degrees.length;
+  const reducedGenerator = reduceIntoPeriod(generator, period).reduced;
+  const overshoot = reduceIntoPeriod(repeatInterval(generator, size), period).reduced;
+  const comma =
+    overshoot.cents > period.cents / 2 ? intervalBetween(period, overshoot) : overshoot;
+  const positions = degrees.map((degree) => degree.stackPosition ?? 0);
+  const top = positions.indexOf(Math.max(...positions));
+  const bottom = positions.indexOf(Math.min(...positions));
+  const wolf =
+    size < 2 || Math.abs(comma.cents) < sameSizeCents
+      ? null
+      : {
+          from: top,
+          to: bottom,
+          size: reduceIntoPeriod(repeatInterval(generator, 1 - size), period).reduced,
+          deviationCents: -comma.cents,
+        };
+  return {
+    generator,
+    reducedGenerator,
+    comma,
+    wolf,
+    mosSizes: mosSizes(reducedGenerator.cents, period.cents),
+  };
+}

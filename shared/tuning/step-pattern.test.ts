@@ -1,0 +1,97 @@
+import * as fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { ratioToString } from './interval';
+import { intervalBetween } from './interval-size';
+import type { Scale } from './scale';
+import { builtScale } from './scale.testing';
+import { analyzeStack } from './stack-analysis';
+import { stepPattern } from './step-pattern';
+
+function patternOf(scale: Scale) {
+  const { degrees, period } = scale;
+  return stepPattern(degrees.map((degree, index) => intervalBetween(degree, degrees[index + 1] ?? period)));
+}
+
+describe('stepPattern', () => {
+  it('finds the two steps of the diatonic stack of fifths and calls it a MOS', () => {
+    const pattern = patternOf(
+      builtScale({ kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 }),
+    );
+    expect(pattern.pattern).toBe('LLsLLLs');
+    expect(pattern.isMos).toBe(true);
+    // REFERENCE.md: arithmetic (9/8 is two fifths less an octave; 256/243 is an octave less five fifths)
+    expect(pattern.sizes.map((size) => [size.letter, size.ratio && ratioToString(size.ratio), size.count]))
+      .toEqual([
+        ['L', '9/8', 5],
+        ['s', '256/243', 2],
+      ]);
+  });
+
+  it('names three sizes L, M and s', () => {
+    const pattern = patternOf(
+      builtScale({
+        kind: 'list',
+        degrees: ['9/8', '5/4', '4/3', '3/2', '5/3', '15/8'],
+        period: '2/1',
+      }),
+    );
+    // REFERENCE.md: arithmetic (steps 9/8, 10/9, 16/15 between the listed ratios)
+    expect(pattern.pattern).toBe('LMsLMLs');
+    expect(pattern.sizes.map((size) => size.ratio && ratioToString(size.ratio))).toEqual([
+      '9/8',
+      '10/9',
+      '16/15',
+    ]);
+    expect(pattern.isMos).toBe(false);
+  });
+
+  it('does not call two sizes a MOS when they bunch together', () => {
+    const pattern = patternOf(
+      builtScale({ kind: 'list', degrees: ['300c', '600c', '900c', '1050c'], period: '2/1' }),
+    );
+    expect(pattern.pattern).toBe('LLLss');
+    expect(pattern.isMos).toBe(false);
+  });
+
+  it('gives an equal scale one step size, whatever the period', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 200 }),
+        fc.constantFrom('2/1', '3/1', '3/2', '1200c', '1902.3c', '13/8'),
+        (divisions, period) => {
+          const pattern = patternOf(builtScale({ kind: 'equal', divisions, period }));
+          expect(pattern.sizes).toHaveLength(1);
+          expect(pattern.pattern).toBe('L'.repeat(divisions));
+          expect(pattern.isMos).toBe(false);
+        },
+      ),
+    );
+  });
+
+  it('gives a generated scale of a MOS size exactly two step sizes, spread evenly', () => {
+    const stacks = fc
+      .record({
+        generator: fc.oneof(
+          fc.constantFrom('3/2', '5/4', '7/4', '4/3', '9/7', '11/8'),
+          fc.double({ min: 20, max: 1180, noNaN: true }).map((cents) => `${cents.toFixed(3)}c`),
+        ),
+        period: fc.constantFrom('2/1', '3/1', '1200c'),
+      })
+      .filter(({ generator, period }) =>
+        builtScale({ kind: 'generated', generator, period, up: 1, down: 0 }).warnings.length === 0,
+      );
+    fc.assert(
+      fc.property(stacks, fc.nat(), fc.nat(), ({ generator, period }, pickSize, pickDown) => {
+        const stack = analyzeStack(builtScale({ kind: 'generated', generator, period, up: 1, down: 0 }));
+        const sizes = stack?.mosSizes ?? [];
+        fc.pre(sizes.length > 0);
+        const size = sizes[pickSize % sizes.length];
+        const down = pickDown % size;
+        const scale = builtScale({ kind: 'generated', generator, period, up: size - 1 - down, down });
+        const pattern = patternOf(scale);
+        expect(pattern.sizes).toHaveLength(2);
+        expect(pattern.isMos).toBe(true);
+      }),
+    );
+  });
+});
