@@ -97,7 +97,8 @@ export function buildGeneratedScale(spec: GeneratedScaleSpec): Result<Scale> {
     ]);
   }
   const unsorted: UnsortedDegree[] = [];
-  for (let position = -spec.down; position <= spec.up; position++) {
+  // 0 - down rather than -down: a stack with nothing below starts at 0, not -0
+  for (let position = 0 - spec.down; position <= spec.up; position++) {
     const stacked = repeatInterval(generator.value, position);
     unsorted.push({
       size: reduceIntoPeriod(stacked, period.value).reduced,

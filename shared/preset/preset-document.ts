@@ -1,0 +1,188 @@
+import * as z from 'zod';
+import { type FieldError, fieldError, type Result, succeed, fail } from '../result';
+import { readInterval } from '../tuning/interval';
+import { layoutFaults } from '../tuning/key-table';
+import { buildScale, type ScaleSpec } from '../tuning/scale';
+import { equalTemperedHz } from '../tuning/twelve-edo';
+import { schemaFaults } from './schema-faults';
+import { longestTuningName, tuningNameFrom, tuningNamePattern } from './tuning-name';
+
+/** The one version of the preset document this code reads and writes. */
+const presetVersion = 1;
+
+/** An interval in the syntax of DESIGN.md, as text (a JSON number is read as its text: 2 is 2/1). */
+const interval = z
+  .union([z.string(), z.number()])
+  .transform(String)
+  .superRefine((text, context) => {
+    const read = readInterval(text);
+    if (typeof read === 'string') context.addIssue({ code: 'custom', message: read });
+  });
+
+const generatorCount = z.int().min(0);
+
+const scaleSchema = z.discriminatedUnion('kind', [
+  z.strictObject({
+    kind: z.literal('generated'),
+    generator: interval,
+    period: interval.default('2/1'),
+    up: generatorCount,
+    down: generatorCount.default(0),
+    temper: z
+      .strictObject({ comma: interval, fraction: z.union([z.string(), z.number()]).transform(String) })
+      .optional(),
+  }),
+  z.strictObject({
+    kind: z.literal('equal'),
+    divisions: z.int().min(1),
+    period: interval.default('2/1'),
+  }),
+  z.strictObject({
+    kind: z.literal('list'),
+    degrees: z.array(interval),
+    period: interval.default('2/1'),
+  }),
+  z.strictObject({
+    kind: z.literal('harmonic'),
+    from: z.int().min(1),
+    to: z.int().min(2),
+    sub: z.boolean().default(false),
+  }),
+]);
+
+const midiKey = z.int().min(0).max(127);
+const sevenBit = z.int().min(0).max(127);
+const channel = z.int().min(1).max(16);
+
+const mappingSchema = z
+  .strictObject({
+    rootKey: midiKey,
+    rootHz: z.number().positive().max(20000).optional(),
+    concertA: z.number().min(220).max(880).default(440),
+    keysPerPeriod: z.int().min(1).max(128).optional(),
+    layout: z.array(z.int().min(0).nullable()).min(1).max(128).optional(),
+  })
+  .superRefine((mapping, context) => {
+    const { layout, keysPerPeriod } = mapping;
+    if (layout && keysPerPeriod !== undefined && layout.length !== keysPerPeriod) {
+      context.addIssue({
+        code: 'custom',
+        path: ['layout'],
+        message: `has ${layout.length} entries, but keysPerPeriod is ${keysPerPeriod}`,
+      });
+    }
+  });
+
+const outputSchema = z
+  .strictObject({
+    deviceId: sevenBit.default(127),
+    program: sevenBit.default(0),
+    bank: sevenBit.default(0),
+    tuningName: z
+      .string()
+      .max(longestTuningName)
+      .regex(tuningNamePattern, 'must hold only plain ASCII letters, digits, spaces and punctuation')
+      .optional(),
+    bendRange: z.int().min(1).max(96).default(2),
+    memberChannels: z.tuple([channel, channel]).default([2, 16]),
+  })
+  .superRefine(({ memberChannels: [first, last] }, context) => {
+    if (first > last) {
+      context.addIssue({
+        code: 'custom',
+        path: ['memberChannels'],
+        message: `runs from ${first} down to ${last}; write the lower channel first`,
+      });
+    }
+  });
+
+/** The preset document of DESIGN.md: the contract of the API, imports, exports and forms. */
+export const presetDocumentSchema = z.strictObject({
+  format: z.literal('keyloom.preset'),
+  version: z.literal(presetVersion),
+  name: z.string().trim().min(1).max(200),
+  notes: z.string().max(20000).default(''),
+  scale: scaleSchema,
+  mapping: mappingSchema,
+  output: outputSchema.prefault({}),
+});
+
+/** A preset document as the user wrote it: optional fields may be missing. */
+export type PresetDocument = z.input<typeof presetDocumentSchema>;
+
+/** A preset document checked through and through, with every default of DESIGN.md filled in. */
+export interface ResolvedPreset {
+  format: 'keyloom.preset';
+  version: typeof presetVersion;
+  name: string;
+  notes: string;
+  scale: ScaleSpec;
+  mapping: {
+    rootKey: number;
+    /** The pitch of the root key; when not written, its equal-tempered pitch at `concertA`. */
+    rootHz: number;
+    concertA: number;
+    /** The layout's length; without a layout, the scale size. */
+    keysPerPeriod: number;
+    layout: (number | null)[] | null;
+  };
+  output: {
+    deviceId: number;
+    program: number;
+    bank: number;
+    tuningName: string;
+    bendRange: number;
+    memberChannels: [number, number];
+  };
+}
+
+function versionFault(input: unknown): FieldError | null {
+  if (typeof input !== 'object' || input === null || !('version' in input)) return null;
+  const { version } = input;
+  if (version === presetVersion) return null;
+  return fieldError(
+    'version',
+    `${JSON.stringify(version)} is not a version this Keyloom reads (it reads version ${presetVersion})`,
+  );
+}
+
+/**
+ * Checks a preset document and fills in its defaults. A document of an unknown version is refused before
+ * anything else is read. Every fault names its field; nothing is thrown.
+ */
+export function parsePresetDocument(input: unknown): Result<ResolvedPreset> {
+  const wrongVersion = versionFault(input);
+  if (wrongVersion) return fail([wrongVersion]);
+  const parsed = presetDocumentSchema.safeParse(input, { reportInput: true });
+  if (!parsed.success) return fail(schemaFaults(parsed.error.issues));
+  const { scale: scaleSpec, mapping, output, ...about } = parsed.data;
+
+  const scale = buildScale(scaleSpec);
+  if (!scale.ok) return scale;
+  const size = scale.value.degrees.length;
+  const layout = mapping.layout ?? null;
+  if (layout) {
+    const faults = layoutFaults(layout, size);
+    if (faults.length > 0) return fail(faults);
+  } else if (mapping.keysPerPeriod !== undefined && mapping.keysPerPeriod !== size) {
+    return fail([
+      fieldError(
+        'mapping.keysPerPeriod',
+        `${mapping.keysPerPeriod} differs from the scale's ${size} degrees; give a layout of ` +
+          `${mapping.keysPerPeriod} entries to say which key plays which degree`,
+      ),
+    ]);
+  }
+  return succeed({
+    ...about,
+    scale: scaleSpec,
+    mapping: {
+      rootKey: mapping.rootKey,
+      rootHz: mapping.rootHz ?? equalTemperedHz(mapping.rootKey, mapping.concertA),
+      concertA: mapping.concertA,
+      keysPerPeriod: layout ? layout.length : size,
+      layout,
+    },
+    output: { ...output, tuningName: output.tuningName ?? tuningNameFrom(about.name) },
+  });
+}

@@ -1,0 +1,86 @@
+import type * as z from 'zod';
+import { type FieldError, fieldError } from '../result';
+
+/** Writes a zod path as the field path of the preset document: `scale.degrees[3]`. */
+function fieldPath(path: readonly PropertyKey[]): string {
+  let written = '';
+  for (const part of path) {
+    if (typeof part === 'number') written += `[${part}]`;
+    else written += written === '' ? String(part) : `.${String(part)}`;
+  }
+  return written === '' ? 'document' : written;
+}
+
+const typeWords: Record<string, string> = {
+  string: 'text',
+  number: 'a number',
+  int: 'a whole number',
+  boolean: 'true or false',
+  object: 'an object',
+  array: 'a list',
+  tuple: 'a list',
+};
+
+function bound(issue: { inclusive?: boolean }, inclusiveWord: string, exclusiveWord: string) {
+  return issue.inclusive === false ? exclusiveWord : inclusiveWord;
+}
+
+function countWord(origin: string): string {
+  return origin === 'string' ? 'characters' : 'entries';
+}
+
+/** What the user wrote, when it is short enough to quote. */
+function got(input: unknown): string {
+  const quotable = input === null || ['string', 'number', 'boolean'].includes(typeof input);
+  const quoted = quotable ? JSON.stringify(input) : '';
+  return quoted && quoted.length <= 40 ? ` (got ${quoted})` : '';
+}
+
+/**
+ * The fault of one issue, in plain words and without its path. The preset schema's only plain unions are
+ * intervals (text, or a number that reads as a ratio); its discriminated unions are the kinds of scale.
+ */
+function fault(issue: z.core.$ZodIssue): string {
+  const input = 'input' in issue ? issue.input : undefined;
+  const received = got(input);
+  switch (issue.code) {
+    case 'invalid_type':
+      if (input === undefined) return 'is required';
+      return `must be ${typeWords[issue.expected] ?? issue.expected}${received}`;
+    case 'invalid_union': {
+      if ('discriminator' in issue && typeof issue.discriminator === 'string') {
+        const kind = (input as Record<string, unknown> | undefined)?.[issue.discriminator];
+        if (kind === undefined) return 'is required';
+        const options = 'options' in issue && Array.isArray(issue.options) ? issue.options : [];
+        return `must be one of ${options.map(String).join(', ')}${got(kind)}`;
+      }
+      if (input === undefined) return 'is required';
+      return `must be an interval such as "3/2" or "701.955c"${received}`;
+    }
+    case 'too_small':
+      if (issue.origin === 'number') {
+        return `must be ${bound(issue, 'at least', 'above')} ${issue.minimum}${received}`;
+      }
+      if (issue.origin === 'string' && issue.minimum === 1) return 'must not be empty';
+      return `must have at least ${issue.minimum} ${countWord(issue.origin)}`;
+    case 'too_big':
+      if (issue.origin === 'number') {
+        return `must be ${bound(issue, 'at most', 'below')} ${issue.maximum}${received}`;
+      }
+      return `must have at most ${issue.maximum} ${countWord(issue.origin)}`;
+    case 'invalid_value':
+      if (input === undefined) return 'is required';
+      return `must be ${issue.values.map((value) => JSON.stringify(value)).join(' or ')}${received}`;
+    default:
+      return issue.message;
+  }
+}
+
+/** Turns zod issues into faults that name their field; an unknown key becomes a fault at that key. */
+export function schemaFaults(issues: readonly z.core.$ZodIssue[]): FieldError[] {
+  return issues.flatMap((issue) =>
+    issue.code === 'unrecognized_keys'
+      ? issue.keys.map((key) => fieldError(fieldPath([...issue.path, key]), 'is not a field here'))
+      : [fieldError(fieldPath(issue.path), fault(issue))],
+  );
+}

@@ -1,0 +1,154 @@
+import type { ResolvedPreset } from '../preset/preset-document';
+import { type FieldError, fieldError } from '../result';
+import { analyzeScale } from './analysis';
+import type { Beat } from './beats';
+import { ratioToString } from './interval';
+import type { IntervalSize } from './interval-size';
+import { type KeyTable, mapKeys } from './key-table';
+import { buildScale } from './scale';
+
+/** An interval as JSON: the exact ratio as text ("531441/524288") when there is one, and its cents. */
+export interface SizeJson {
+  ratio: string | null;
+  cents: number;
+}
+
+export interface PreviewDegree extends SizeJson {
+  degree: number;
+  /** For a degree with no exact ratio, the nearest ratio within the odd limit and the degree's distance from it. */
+  approximation: { ratio: string; errorCents: number } | null;
+  step: SizeJson;
+  nearestNote: { name: string; offsetCents: number };
+  /** Generators above (+) or below (-) the tonic, for generated scales. */
+  stackPosition: number | null;
+  fifth: Beat | null;
+  majorThird: Beat | null;
+}
+
+export interface PreviewKey {
+  key: number;
+  degree: number | null;
+  hz: number | null;
+  /** Cents from the root key's pitch (so the root key is 0 and an octave below it -1200). */
+  cents: number | null;
+  centsFrom12: number | null;
+  outOfMtsRange: boolean;
+}
+
+export interface PreviewTable {
+  degrees: PreviewDegree[];
+  analysis: {
+    size: number;
+    period: SizeJson;
+    oddLimit: number;
+    stepPattern: {
+      sizes: (SizeJson & { letter: string; count: number })[];
+      pattern: string;
+      isMos: boolean;
+    };
+    stack: {
+      generator: SizeJson;
+      reducedGenerator: SizeJson;
+      comma: SizeJson;
+      wolf: (SizeJson & { from: number; to: number; deviationCents: number }) | null;
+      mosSizes: number[];
+    } | null;
+    intervalMatrix: number[][];
+  };
+  keys: PreviewKey[];
+  /** Coinciding degrees and keys MTS cannot express: the preview still stands, but the musician should know. */
+  warnings: FieldError[];
+}
+
+function sizeJson(size: IntervalSize): SizeJson {
+  return { ratio: size.ratio ? ratioToString(size.ratio) : null, cents: size.cents };
+}
+
+/** Runs of consecutive keys written compactly: 0-3, 126, 127 becomes "0-3, 126-127". */
+function keyRuns(keys: number[]): string {
+  const runs: [number, number][] = [];
+  for (const key of keys) {
+    const last = runs[runs.length - 1];
+    if (last && last[1] === key - 1) last[1] = key;
+    else runs.push([key, key]);
+  }
+  return runs.map(([first, last]) => (first === last ? `${first}` : `${first}-${last}`)).join(', ');
+}
+
+function mtsRangeWarning(keys: KeyTable): FieldError[] {
+  const outside = keys.filter((entry) => entry.outOfMtsRange).map((entry) => entry.key);
+  if (outside.length === 0) return [];
+  const which = `${outside.length === 1 ? 'key' : 'keys'} ${keyRuns(outside)}`;
+  return [
+    fieldError(
+      'mapping',
+      `${which} lie outside the pitches MTS can express (8.1758 to 13289.6566 Hz)`,
+    ),
+  ];
+}
+
+/**
+ * The body of `POST /api/preview/table`: the scale's degrees with their analysis, the scale-wide analysis and
+ * the 128-key table, all JSON-safe (ratios as text, cents and Hz as numbers). Takes what `parsePresetDocument`
+ * returned; a preset that did not come through it may not build, and then this throws.
+ */
+export function previewTable(preset: ResolvedPreset): PreviewTable {
+  const built = buildScale(preset.scale);
+  if (!built.ok) throw new Error(built.errors.map((error) => error.message).join('; '));
+  const scale = built.value;
+  const analysis = analyzeScale(scale, preset.mapping);
+  const table = mapKeys(scale, preset.mapping);
+  const { stack, stepPattern } = analysis;
+  return {
+    degrees: analysis.degrees.map((degree) => ({
+      degree: degree.degree,
+      ratio: degree.ratio && ratioToString(degree.ratio),
+      cents: degree.cents,
+      approximation: degree.approximation && {
+        ratio: ratioToString(degree.approximation.ratio),
+        errorCents: degree.approximation.errorCents,
+      },
+      step: sizeJson(degree.step),
+      nearestNote: degree.nearestNote,
+      stackPosition: degree.stackPosition,
+      fifth: degree.fifth,
+      majorThird: degree.majorThird,
+    })),
+    analysis: {
+      size: scale.degrees.length,
+      period: sizeJson(scale.period),
+      oddLimit: analysis.oddLimit,
+      stepPattern: {
+        sizes: stepPattern.sizes.map((size) => ({
+          ...sizeJson(size),
+          letter: size.letter,
+          count: size.count,
+        })),
+        pattern: stepPattern.pattern,
+        isMos: stepPattern.isMos,
+      },
+      stack: stack && {
+        generator: sizeJson(stack.generator),
+        reducedGenerator: sizeJson(stack.reducedGenerator),
+        comma: sizeJson(stack.comma),
+        wolf: stack.wolf && {
+          from: stack.wolf.from,
+          to: stack.wolf.to,
+          ...sizeJson(stack.wolf.size),
+          deviationCents: stack.wolf.deviationCents,
+        },
+        mosSizes: stack.mosSizes,
+      },
+      intervalMatrix: analysis.intervalMatrix,
+    },
+    keys: table.map((entry) => ({
+      key: entry.key,
+      degree: entry.degree,
+      hz: entry.hz,
+      cents: entry.centsFromRoot,
+      centsFrom12: entry.centsFrom12,
+      outOfMtsRange: entry.outOfMtsRange,
+    })),
+    warnings: [...scale.warnings, ...mtsRangeWarning(table)],
+  };
+}
