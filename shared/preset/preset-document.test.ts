@@ -138,6 +138,10 @@ describe('parsePresetDocument', () => {
     expect(faults({ ...smallest, scale: { kind: 'generated', generator: [], up: 5 } })).toEqual([
       'scale.generator: must be an interval such as "3/2" or "701.955c"',
     ]);
+    const temper = { comma: '81/80', fraction: { quarter: true } };
+    expect(
+      faults({ ...smallest, scale: { kind: 'generated', generator: '3/2', up: 5, temper } }),
+    ).toEqual(['scale.temper.fraction: must be a fraction such as "1/4"']);
   });
 
   it('names unknown kinds and unknown fields', () => {

@@ -12,7 +12,7 @@ const presetVersion = 1;
 
 /** An interval in the syntax of DESIGN.md, as text (a JSON number is read as its text: 2 is 2/1). */
 const interval = z
-  .union([z.string(), z.number()])
+  .union([z.string(), z.number()], { error: 'must be an interval such as "3/2" or "701.955c"' })
   .transform(String)
   .superRefine((text, context) => {
     const read = readInterval(text);
@@ -29,7 +29,12 @@ const scaleSchema = z.discriminatedUnion('kind', [
     up: generatorCount,
     down: generatorCount.default(0),
     temper: z
-      .strictObject({ comma: interval, fraction: z.union([z.string(), z.number()]).transform(String) })
+      .strictObject({
+        comma: interval,
+        fraction: z
+          .union([z.string(), z.number()], { error: 'must be a fraction such as "1/4"' })
+          .transform(String),
+      })
       .optional(),
   }),
   z.strictObject({

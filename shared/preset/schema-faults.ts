@@ -37,8 +37,8 @@ function got(input: unknown): string {
 }
 
 /**
- * The fault of one issue, in plain words and without its path. The preset schema's only plain unions are
- * intervals (text, or a number that reads as a ratio); its discriminated unions are the kinds of scale.
+ * The fault of one issue, in plain words and without its path. A discriminated union names its options; a plain
+ * union keeps the message its schema gave it.
  */
 function fault(issue: z.core.$ZodIssue): string {
   const input = 'input' in issue ? issue.input : undefined;
@@ -55,7 +55,7 @@ function fault(issue: z.core.$ZodIssue): string {
         return `must be one of ${options.map(String).join(', ')}${got(kind)}`;
       }
       if (input === undefined) return 'is required';
-      return `must be an interval such as "3/2" or "701.955c"${received}`;
+      return `${issue.message}${received}`;
     }
     case 'too_small':
       if (issue.origin === 'number') {

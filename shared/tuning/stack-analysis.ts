@@ -46,24 +46,27 @@ export interface StackAnalysis {
 function mosSizes(reducedGeneratorCents: number, periodCents: number): number[] {
   const sizes: number[] = [];
   const positions = [0];
+  const steps: number[] = [];
   for (let count = 2; count <= largestMosSize; count++) {
     const position = ((count - 1) * reducedGeneratorCents) % periodCents;
     let place = positions.length;
     while (place > 0 && positions[place - 1] > position) place--;
     positions.splice(place, 0, position);
     let [smallest, largest] = [Infinity, -Infinity];
-    const steps = positions.map((lower, index) => (positions[index + 1] ?? periodCents) - lower);
-    for (const step of steps) {
-      smallest = Math.min(smallest, step);
-      largest = Math.max(largest, step);
+    for (let index = 0; index < count; index++) {
+      const step = (index + 1 < count ? positions[index + 1] : periodCents) - positions[index];
+      steps[index] = step;
+      if (step < smallest) smallest = step;
+      if (step > largest) largest = step;
     }
-    const twoSizes =
-      smallest > sameSizeCents &&
-      largest - smallest > sameSizeCents &&
-      steps.every((step) => step - smallest < sameSizeCents || largest - step < sameSizeCents);
-    if (twoSizes && isBalanced(steps.map((step) => largest - step < sameSizeCents))) {
-      sizes.push(count);
+    if (smallest < sameSizeCents || largest - smallest < sameSizeCents) continue;
+    const large: boolean[] = [];
+    let twoSizes = true;
+    for (let index = 0; index < count && twoSizes; index++) {
+      large.push(largest - steps[index] < sameSizeCents);
+      twoSizes = large[index] || steps[index] - smallest < sameSizeCents;
     }
+    if (twoSizes && isBalanced(large)) sizes.push(count);
   }
   return sizes;
 }
