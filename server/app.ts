@@ -14,10 +14,18 @@ import { apiNotFound, errorHandler } from './http/errors';
 import { xsrfProtection } from './http/xsrf';
 import { healthRouter } from './routes/health';
 import { meRouter } from './routes/me';
+import { previewRouter } from './routes/preview';
+import { bandsRouter } from './routes/bands';
+import { invitesRouter } from './routes/invites';
+import { presetsRouter } from './routes/presets';
+import { sharesRouter } from './routes/shares';
+import { rateLimited } from './http/rate-limit';
+import type { Mailer } from './mail/mailer';
 
 export interface AppDependencies {
   db: Database;
   config: Config;
+  mailer: Mailer;
 }
 
 export const sessionCookie = 'keyloom.sid';
@@ -65,7 +73,7 @@ function builtApp(staticDir: string): express.Router {
   return router;
 }
 
-export function createApp({ db, config }: AppDependencies): Express {
+export function createApp({ db, config, mailer }: AppDependencies): Express {
   const app = express();
   app.disable('x-powered-by');
   app.use(securityHeaders(config));
@@ -91,8 +99,14 @@ export function createApp({ db, config }: AppDependencies): Express {
   app.use(passport.session());
   app.use(xsrfProtection({ sessionCookie, secure: config.secureCookies }));
 
-  app.use(authRouter(passport));
+  const limit = rateLimited(config.rateLimitPerMinute);
+  app.use(authRouter(passport, limit));
   app.use(meRouter());
+  app.use(previewRouter());
+  app.use(presetsRouter(db));
+  app.use(sharesRouter(db, config));
+  app.use(bandsRouter(db));
+  app.use(invitesRouter(db, config, mailer, limit));
   app.use('/api', apiNotFound);
   app.use(builtApp(config.staticDir));
   app.use(errorHandler);

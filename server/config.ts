@@ -20,6 +20,9 @@ export interface Config {
     /** Where profiles are read: https://api.github.com for the real service, the local fake otherwise. */
     apiUrl: string;
   };
+  smtp: { host: string; port: number; user?: string; password?: string; secure: boolean; from: string };
+  /** Requests per minute per address on sign-in and invite endpoints. */
+  rateLimitPerMinute: number;
 }
 
 export const repoRoot = resolve(import.meta.dirname, '..');
@@ -49,5 +52,14 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       oauthUrl: (env['GITHUB_OAUTH_URL'] ?? fakeGitHub).replace(/\/$/, ''),
       apiUrl: (env['GITHUB_API_URL'] ?? fakeGitHub).replace(/\/$/, ''),
     },
+    smtp: {
+      host: env['SMTP_HOST'] ?? '127.0.0.1',
+      port: Number(env['SMTP_PORT'] ?? env['FAKE_SMTP_PORT'] ?? 2525),
+      user: env['SMTP_USER'],
+      password: env['SMTP_PASSWORD'],
+      secure: env['SMTP_SECURE'] === '1',
+      from: env['MAIL_FROM'] ?? 'Keyloom <keyloom@localhost>',
+    },
+    rateLimitPerMinute: Number(env['RATE_LIMIT_PER_MINUTE'] ?? 30),
   };
 }

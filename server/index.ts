@@ -2,11 +2,23 @@
 import { createApp } from './app';
 import { loadConfig } from './config';
 import { applyMigrations, createDatabase } from './db/client';
+import { createMailer } from './mail/mailer';
+import { purgeExpiredTrash } from './routes/presets';
 
 const config = loadConfig();
 const db = createDatabase(config.databaseUrl);
 await applyMigrations(db);
-const server = createApp({ db, config }).listen(config.port, config.host, () => {
+const mailer = createMailer(config.smtp);
+
+const purge = () =>
+  purgeExpiredTrash(db).then(
+    (n) => n > 0 && console.log(`Removed ${n} presets that stayed in the trash past their time`),
+    (error: Error) => console.error(`Trash purge failed: ${error.message}`),
+  );
+void purge();
+setInterval(purge, 3600_000).unref();
+
+const server = createApp({ db, config, mailer }).listen(config.port, config.host, () => {
   console.log(`Keyloom listening on ${config.publicUrl}`);
 });
 

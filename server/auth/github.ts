@@ -1,7 +1,7 @@
 // Sign-in through GitHub's OAuth web flow: the local fake in development and tests, the real service when
 // GITHUB_CLIENT_ID, GITHUB_CLIENT_SECRET, GITHUB_OAUTH_URL and GITHUB_API_URL say so.
 import { eq } from 'drizzle-orm';
-import { Router } from 'express';
+import { type RequestHandler, Router } from 'express';
 import passportModule from 'passport';
 type Passport = InstanceType<typeof passportModule.Authenticator>;
 import { Strategy as GitHubStrategy, type Profile } from 'passport-github2';
@@ -64,16 +64,35 @@ export function createPassport(db: Database, config: Config): Passport {
 
 const loginPattern = /^[A-Za-z0-9](?:[A-Za-z0-9-]{0,38})$/;
 
-export function authRouter(passport: Passport): Router {
+/** Where to go after signing in: a path of this app only, never another site. */
+function returnPath(value: unknown): string | undefined {
+  return typeof value === 'string' && /^\/(?![/\\])[\w\-./~%?=&]*$/.test(value) ? value : undefined;
+}
+
+declare module 'express-session' {
+  interface SessionData {
+    returnTo?: string;
+  }
+}
+
+export function authRouter(passport: Passport, limit: RequestHandler): Router {
   const router = Router();
-  router.get('/auth/github', (req, res, next) => {
+  router.get('/auth/github', limit, (req, res, next) => {
     const login = typeof req.query['login'] === 'string' && loginPattern.test(req.query['login']) ? req.query['login'] : undefined;
+    const returnTo = returnPath(req.query['next']);
+    if (returnTo) req.session.returnTo = returnTo;
     passport.authenticate('github', { login } as object)(req, res, next);
   });
   router.get(
     '/auth/github/callback',
-    passport.authenticate('github', { failureRedirect: '/?signin=failed' }),
-    (_req, res) => res.redirect('/'),
+    limit,
+    // Passport makes a new session on sign-in; keepSessionInfo carries the return path across.
+    passport.authenticate('github', { failureRedirect: '/?signin=failed', keepSessionInfo: true }),
+    (req, res) => {
+      const target = req.session.returnTo ?? '/';
+      delete req.session.returnTo;
+      res.redirect(target);
+    },
   );
   router.post('/auth/logout', (req, res, next) => {
     req.logout((error) => {

@@ -12,7 +12,6 @@ import {
   primaryKey,
   text,
   timestamp,
-
   uuid,
   varchar,
 } from 'drizzle-orm/pg-core';

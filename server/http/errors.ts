@@ -32,10 +32,15 @@ function isDatabaseUnavailable(error: unknown): boolean {
 /** The one place failures become responses; nothing reaches the client as an HTML stack trace. */
 export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   let status = 500;
-  let body: { code: string; message: string; field?: string };
+  let body: { code: string; message: string; field?: string; details?: unknown };
   if (error instanceof HttpError) {
     status = error.status;
-    body = { code: error.code, message: error.message, ...(error.field ? { field: error.field } : {}) };
+    body = {
+      code: error.code,
+      message: error.message,
+      ...(error.field ? { field: error.field } : {}),
+      ...('details' in error ? { details: error.details } : {}),
+    };
   } else if (error?.type === 'entity.parse.failed') {
     status = 400;
     body = { code: 'bad_json', message: 'The request body is not valid JSON.' };

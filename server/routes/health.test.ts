@@ -22,7 +22,8 @@ describe('GET /api/health', () => {
     // Port 9 on loopback: nothing listens there, so every connection is refused at once.
     const config = loadConfig({ DATABASE_URL: 'postgres://nobody:x@127.0.0.1:9/none', LOG_REQUESTS: '0' });
     const db = createDatabase(config.databaseUrl);
-    const res = await request(createApp({ db, config })).get('/api/health');
+    const mailer = { send: async () => {} };
+    const res = await request(createApp({ db, config, mailer })).get('/api/health');
     await db.$client.end();
     expect(res.status).toBe(503);
     expect(res.body).toMatchObject({ ok: false, db: false, error: { code: 'database_unavailable' } });

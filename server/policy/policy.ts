@@ -1,0 +1,96 @@
+// Who may do what: the one place that decides. A caller who may not see a thing gets 404, as if it did not
+// exist; one who may see it but not change it gets 403.
+import { and, eq } from 'drizzle-orm';
+import type { SignedInUser } from '../auth/github';
+import type { Database } from '../db/client';
+import { bands, memberships, presets } from '../db/schema';
+import { HttpError, notFound } from '../http/errors';
+
+export type BandRole = 'owner' | 'editor' | 'viewer';
+
+/** What a user may do with a preset, in rising order. */
+export type PresetAccess = 'none' | 'read' | 'edit' | 'own';
+const presetOrder: PresetAccess[] = ['none', 'read', 'edit', 'own'];
+
+/** What a user may do with a band, in rising order. */
+export type BandAccess = 'none' | 'member' | 'owner';
+const bandOrder: BandAccess[] = ['none', 'member', 'owner'];
+
+export type PresetRow = typeof presets.$inferSelect;
+export type BandRow = typeof bands.$inferSelect;
+
+const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+export const isId = (text: string) => uuidPattern.test(text);
+
+export function requireUser(user: SignedInUser | undefined): SignedInUser {
+  if (!user) throw new HttpError(401, 'sign_in_required', 'Sign in to do this.');
+  return user;
+}
+
+export async function bandRole(db: Database, userId: string, bandId: string): Promise<BandRole | null> {
+  const [row] = await db
+    .select({ role: memberships.role })
+    .from(memberships)
+    .where(and(eq(memberships.userId, userId), eq(memberships.bandId, bandId)));
+  return row?.role ?? null;
+}
+
+/** Personal presets belong to their owner alone; band presets follow the member's role; admins may do anything. */
+export function presetAccess(user: SignedInUser | undefined, preset: PresetRow, role: BandRole | null): PresetAccess {
+  if (!user) return 'none';
+  if (user.siteRole === 'admin') return 'own';
+  if (preset.bandId === null) return preset.ownerId === user.id ? 'own' : 'none';
+  return role === 'owner' ? 'own' : role === 'editor' ? 'edit' : role === 'viewer' ? 'read' : 'none';
+}
+
+export function bandAccess(user: SignedInUser | undefined, role: BandRole | null): BandAccess {
+  if (!user) return 'none';
+  if (user.siteRole === 'admin' || role === 'owner') return 'owner';
+  return role ? 'member' : 'none';
+}
+
+const roleWords: Record<string, string> = { read: 'see', edit: 'change', own: 'manage', member: 'see', owner: 'manage' };
+
+/** The preset, when the user may do `need` with it; otherwise 404 (cannot see it) or 403 (cannot change it). */
+export async function authorizePreset(
+  db: Database,
+  user: SignedInUser | undefined,
+  presetId: string,
+  need: Exclude<PresetAccess, 'none'>,
+): Promise<{ preset: PresetRow; access: PresetAccess }> {
+  const preset = isId(presetId) ? await db.query.presets.findFirst({ where: eq(presets.id, presetId) }) : undefined;
+  if (!preset) throw notFound('preset');
+  const role = user && preset.bandId ? await bandRole(db, user.id, preset.bandId) : null;
+  const access = presetAccess(user, preset, role);
+  if (access === 'none') throw notFound('preset');
+  if (presetOrder.indexOf(access) < presetOrder.indexOf(need)) {
+    throw new HttpError(403, 'forbidden', `Your role lets you see this preset but not ${roleWords[need]} it.`);
+  }
+  return { preset, access };
+}
+
+/** The band, when the user may do `need` with it; otherwise 404 or 403 as above. */
+export async function authorizeBand(
+  db: Database,
+  user: SignedInUser | undefined,
+  bandId: string,
+  need: Exclude<BandAccess, 'none'>,
+): Promise<{ band: BandRow; role: BandRole | null; access: BandAccess }> {
+  const band = isId(bandId) ? await db.query.bands.findFirst({ where: eq(bands.id, bandId) }) : undefined;
+  if (!band) throw notFound('band');
+  const role = user ? await bandRole(db, user.id, band.id) : null;
+  const access = bandAccess(user, role);
+  if (access === 'none') throw notFound('band');
+  if (bandOrder.indexOf(access) < bandOrder.indexOf(need)) {
+    throw new HttpError(403, 'forbidden', 'Only the band\'s owners can do this.');
+  }
+  return { band, role, access };
+}
+
+/** Saving into a band's library takes an editor's or owner's role there. */
+export async function authorizeBandLibrary(db: Database, user: SignedInUser, bandId: string): Promise<void> {
+  const { role, access } = await authorizeBand(db, user, bandId, 'member');
+  if (access !== 'owner' && role !== 'editor') {
+    throw new HttpError(403, 'forbidden', 'Viewers cannot add presets to the band\'s library.', 'bandId');
+  }
+}
