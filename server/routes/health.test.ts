@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { createApp } from '../app';
 import { loadConfig } from '../config';
 import { createDatabase } from '../db/client';
@@ -51,8 +51,16 @@ describe('errors and headers', () => {
     expect(scriptSrc).toBe("script-src 'self'");
   });
 
+  it('serves the app's page for any other path, never from a cache', async () => {
+    const res = await request(server.app).get('/library/some/deep/link');
+    expect(res.status).toBe(200);
+    expect(res.text).toContain('<app-root>');
+    expect(res.headers['cache-control']).toBe('no-cache');
+  });
+
   it('says the app is not built when the build folder is missing, instead of a bare 404', async () => {
-    const res = await request(server.app).get('/design');
+    const config = loadConfig({ DATABASE_URL: inject('databaseUrl'), STATIC_DIR: 'no/such/folder', LOG_REQUESTS: '0' });
+    const res = await request(createApp({ db: server.db, config, mailer: { send: async () => {} } })).get('/design');
     expect(res.status).toBe(503);
     expect(res.text).toContain('not built');
   });

@@ -18,7 +18,7 @@ export async function startTestServer(env: Record<string, string> = {}) {
     FAKE_GITHUB_URL: github.url,
     FAKE_SMTP_PORT: String(mailbox.smtpPort),
     LOG_REQUESTS: '0',
-    STATIC_DIR: 'tests/support/no-build',
+    STATIC_DIR: 'tests/support/built-app',
     RATE_LIMIT_PER_MINUTE: '1000',
     ...env,
   });
