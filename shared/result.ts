@@ -1,4 +1,4 @@
-/** A fault in what the user wrote: the field path (`scale.degrees[3]`) and a message that names it. */
+/** A fault in what the user wrote: its field path (`scale.degrees[3]`) and a message. */
 export interface FieldError {
   path: string;
   message: string;

@@ -51,6 +51,13 @@ describe('parsePresetDocument', () => {
     expect(resolved(designExample)).toEqual(designExample);
   });
 
+  it('reads a document it resolved again as the same document', () => {
+    for (const input of [designExample, smallest]) {
+      const once = resolved(input);
+      expect(resolved(JSON.parse(JSON.stringify(once)))).toEqual(once);
+    }
+  });
+
   it('fills in every default of DESIGN.md', () => {
     const preset = resolved(smallest);
     expect(preset.notes).toBe('');
@@ -149,19 +156,20 @@ describe('parsePresetDocument', () => {
       'scale.kind: must be one of generated, equal, list, harmonic (got "spiral")',
     ]);
     expect(faults({ ...smallest, scale: { divisions: 12 } })).toEqual(['scale.kind: is required']);
-    expect(
-      faults({ ...smallest, colour: 'red', scale: { kind: 'equal', divisions: 12, generater: '3/2' } }),
-    ).toEqual(['scale.generater: is not a field here', 'colour: is not a field here']);
+    const misspelt = { kind: 'equal', divisions: 12, generater: '3/2' };
+    expect(faults({ ...smallest, colour: 'red', scale: misspelt })).toEqual([
+      'scale.generater: is not a field here',
+      'colour: is not a field here',
+    ]);
   });
 
   it('checks the layout against the scale and keysPerPeriod', () => {
     const fifths = designExample;
-    expect(
-      faults({ ...fifths, mapping: { ...fifths.mapping, layout: [0, null, 7, 2, 1.5, 3, 4, 5, 6, 1, 2, 3] } }),
-    ).toEqual(['mapping.layout[4]: must be a whole number (got 1.5)']);
-    expect(
-      faults({ ...fifths, mapping: { ...fifths.mapping, layout: [0, null, 7, 2, 9, 3, 4, 5, 6, 1, 2, 3] } }),
-    ).toEqual([
+    const withLayout = (layout: unknown) => ({ ...fifths, mapping: { ...fifths.mapping, layout } });
+    expect(faults(withLayout([0, null, 7, 2, 1.5, 3, 4, 5, 6, 1, 2, 3]))).toEqual([
+      'mapping.layout[4]: must be a whole number (got 1.5)',
+    ]);
+    expect(faults(withLayout([0, null, 7, 2, 9, 3, 4, 5, 6, 1, 2, 3]))).toEqual([
       'mapping.layout[2]: degree 7 does not exist; the scale has 7 degrees (0-6)',
       'mapping.layout[4]: degree 9 does not exist; the scale has 7 degrees (0-6)',
     ]);
@@ -169,11 +177,11 @@ describe('parsePresetDocument', () => {
       'mapping.layout: has 12 entries, but keysPerPeriod is 11',
     ]);
     expect(faults({ ...fifths, mapping: { rootKey: 60, keysPerPeriod: 12 } })).toEqual([
-      "mapping.keysPerPeriod: 12 differs from the scale's 7 degrees; give a layout of 12 entries to say " +
-        'which key plays which degree',
+      "mapping.keysPerPeriod: 12 differs from the scale's 7 degrees; " +
+        'give a layout of 12 entries to say which key plays which degree',
     ]);
-    const withoutKeysPerPeriod = resolved({ ...fifths, mapping: { rootKey: 60, layout: [0, 1, null] } });
-    expect(withoutKeysPerPeriod.mapping.keysPerPeriod).toBe(3);
+    const shortLayout = resolved({ ...fifths, mapping: { rootKey: 60, layout: [0, 1, null] } });
+    expect(shortLayout.mapping.keysPerPeriod).toBe(3);
   });
 
   it('checks the output settings', () => {
@@ -207,7 +215,10 @@ describe('parsePresetDocument', () => {
         version: fc.oneof(fc.constant(1), fc.anything()),
         name: fc.oneof(fc.string(), fc.anything()),
         scale: fc.oneof(
-          fc.record({ kind: fc.constantFrom('generated', 'equal', 'list', 'harmonic') }, { requiredKeys: [] }),
+          fc.record(
+            { kind: fc.constantFrom('generated', 'equal', 'list', 'harmonic') },
+            { requiredKeys: [] },
+          ),
           fc.anything(),
         ),
         mapping: fc.oneof(fc.record({ rootKey: fc.integer() }), fc.anything()),
@@ -219,7 +230,9 @@ describe('parsePresetDocument', () => {
         const result = parsePresetDocument(input);
         if (result.ok) return;
         expect(result.errors.length).toBeGreaterThan(0);
-        for (const error of result.errors) expect(error.message.startsWith(`${error.path}: `)).toBe(true);
+        for (const error of result.errors) {
+          expect(error.message.startsWith(`${error.path}: `)).toBe(true);
+        }
       }),
     );
   });

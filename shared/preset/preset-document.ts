@@ -10,7 +10,9 @@ import { longestTuningName, tuningNameFrom, tuningNamePattern } from './tuning-n
 /** The one version of the preset document this code reads and writes. */
 const presetVersion = 1;
 
-/** An interval in the syntax of DESIGN.md, as text (a JSON number is read as its text: 2 is 2/1). */
+/**
+ * An interval in the syntax of DESIGN.md, as text (a JSON number is read as its text: 2 is 2/1).
+ */
 const interval = z
   .union([z.string(), z.number()], { error: 'must be an interval such as "3/2" or "701.955c"' })
   .transform(String)
@@ -65,7 +67,7 @@ const mappingSchema = z
     rootHz: z.number().positive().max(20000).optional(),
     concertA: z.number().min(220).max(880).default(440),
     keysPerPeriod: z.int().min(1).max(128).optional(),
-    layout: z.array(z.int().min(0).nullable()).min(1).max(128).optional(),
+    layout: z.array(z.int().min(0).nullable()).min(1).max(128).nullable().optional(),
   })
   .superRefine((mapping, context) => {
     const { layout, keysPerPeriod } = mapping;
@@ -86,7 +88,9 @@ const outputSchema = z
     tuningName: z
       .string()
       .max(longestTuningName)
-      .regex(tuningNamePattern, 'must hold only plain ASCII letters, digits, spaces and punctuation')
+      .regex(tuningNamePattern, {
+        error: 'must hold only plain ASCII letters, digits, spaces and punctuation',
+      })
       .optional(),
     bendRange: z.int().min(1).max(96).default(2),
     memberChannels: z.tuple([channel, channel]).default([2, 16]),
@@ -145,15 +149,13 @@ function versionFault(input: unknown): FieldError | null {
   if (typeof input !== 'object' || input === null || !('version' in input)) return null;
   const { version } = input;
   if (version === presetVersion) return null;
-  return fieldError(
-    'version',
-    `${JSON.stringify(version)} is not a version this Keyloom reads (it reads version ${presetVersion})`,
-  );
+  const fault = `is not a version this Keyloom reads (it reads version ${presetVersion})`;
+  return fieldError('version', `${JSON.stringify(version)} ${fault}`);
 }
 
 /**
- * Checks a preset document and fills in its defaults. A document of an unknown version is refused before
- * anything else is read. Every fault names its field; nothing is thrown.
+ * Checks a preset document and fills in its defaults. A document of an unknown version is refused
+ * before anything else is read. Every fault names its field; nothing is thrown.
  */
 export function parsePresetDocument(input: unknown): Result<ResolvedPreset> {
   const wrongVersion = versionFault(input);

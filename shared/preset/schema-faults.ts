@@ -37,8 +37,8 @@ function got(input: unknown): string {
 }
 
 /**
- * The fault of one issue, in plain words and without its path. A discriminated union names its options; a plain
- * union keeps the message its schema gave it.
+ * The fault of one issue, in plain words and without its path. A discriminated union names its
+ * options; a plain union keeps the message its schema gave it.
  */
 function fault(issue: z.core.$ZodIssue): string {
   const input = 'input' in issue ? issue.input : undefined;
@@ -68,15 +68,19 @@ function fault(issue: z.core.$ZodIssue): string {
         return `must be ${bound(issue, 'at most', 'below')} ${issue.maximum}${received}`;
       }
       return `must have at most ${issue.maximum} ${countWord(issue.origin)}`;
-    case 'invalid_value':
+    case 'invalid_value': {
       if (input === undefined) return 'is required';
-      return `must be ${issue.values.map((value) => JSON.stringify(value)).join(' or ')}${received}`;
+      const allowed = issue.values.map((value) => JSON.stringify(value)).join(' or ');
+      return `must be ${allowed}${received}`;
+    }
     default:
       return issue.message;
   }
 }
 
-/** Turns zod issues into faults that name their field; an unknown key becomes a fault at that key. */
+/**
+ * Turns zod issues into faults that name their field; an unknown key becomes a fault at that key.
+ */
 export function schemaFaults(issues: readonly z.core.$ZodIssue[]): FieldError[] {
   return issues.flatMap((issue) =>
     issue.code === 'unrecognized_keys'

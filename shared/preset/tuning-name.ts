@@ -7,8 +7,8 @@ export const tuningNamePattern = /^[\x20-\x7e]*$/;
 const fallbackName = 'Keyloom';
 
 /**
- * A tuning name made from a preset name: accents dropped (é becomes e), other characters MTS cannot carry left
- * out, spaces collapsed, cut to 16 characters; a name with nothing left becomes "Keyloom".
+ * A tuning name made from a preset name: accents dropped (é becomes e), other characters MTS
+ * cannot carry left out, spaces collapsed, cut to 16 characters; if nothing is left, "Keyloom".
  */
 export function tuningNameFrom(presetName: string): string {
   const ascii = presetName

@@ -9,7 +9,7 @@ import { nearestEqualTemperedNote } from './twelve-edo';
 
 export interface DegreeAnalysis extends ScaleDegree {
   degree: number;
-  /** For a degree with no exact ratio, the nearest ratio within the odd limit; null for exact degrees. */
+  /** For a degree with no exact ratio, the nearest ratio within the odd limit; else null. */
   approximation: RatioApproximation | null;
   /** The step up to the next degree (from the last degree, up to the period). */
   step: IntervalSize;
@@ -25,8 +25,8 @@ export interface ScaleAnalysis {
   /** For generated scales: comma, wolf and MOS sizes; null for other kinds. */
   stack: StackAnalysis | null;
   /**
-   * Cents from each degree (row) up by 0, 1, ... size steps (column): row i, column j is the interval from
-   * degree i to degree i + j, a period higher once it passes the top.
+   * Cents from each degree (row) up by 0, 1, ... size steps (column): row i, column j is the
+   * interval from degree i to degree i + j, a period higher once it passes the top.
    */
   intervalMatrix: number[][];
   /** The odd limit the approximations were drawn from. */
@@ -56,7 +56,9 @@ function intervalMatrix(scale: Scale): number[][] {
     for (let steps = 0; steps <= size; steps++) {
       const reached = row + steps;
       intervals[steps] =
-        reached < size ? cents[reached] - cents[row] : cents[reached - size] + periodCents - cents[row];
+        reached < size
+          ? cents[reached] - cents[row]
+          : cents[reached - size] + periodCents - cents[row];
     }
     rows[row] = intervals;
   }

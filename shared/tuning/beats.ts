@@ -13,7 +13,7 @@ export interface DegreeBeats {
   majorThird: Beat | null;
 }
 
-/** Intervals further than this from the just ratio are not heard as that interval, so they get no beat rate. */
+/** An interval further than this from the just ratio is not heard as it, so it gets no rate. */
 const widestMistuningCents = 50;
 
 /** A just ratio upper:lower, and its size. */
@@ -35,9 +35,9 @@ function centsAbove(scale: Scale, from: number, steps: number): number {
 }
 
 /**
- * The interval of the scale nearest the just ratio above degree `from`, and its beat rate at the degree's
- * frequency: |lower * f_upper - upper * f_lower| per second (201 Hz against 300 Hz beats 3 times a second).
- * Intervals grow with the number of steps, so the nearest is found by halving the range of steps.
+ * The interval of the scale nearest the just ratio above degree `from`, and its beat rate at the
+ * degree's frequency: |lower * f_upper - upper * f_lower| per second (201 Hz against 300 Hz beats 3
+ * times a second). Intervals grow with the number of steps, so halving the range finds it.
  */
 function beatAbove(scale: Scale, from: number, fromHz: number, just: JustInterval): Beat | null {
   const size = scale.degrees.length;
@@ -61,7 +61,7 @@ function beatAbove(scale: Scale, from: number, fromHz: number, just: JustInterva
   };
 }
 
-/** The beat rates of the fifth and the major third above each degree, played from the root at `rootHz`. */
+/** The beat rates of the fifth and the major third above each degree, the root at `rootHz`. */
 export function beatRates(scale: Scale, rootHz: number): DegreeBeats[] {
   return scale.degrees.map((degree, index) => {
     const hz = rootHz * 2 ** (degree.cents / 1200);

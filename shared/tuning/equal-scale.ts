@@ -14,7 +14,7 @@ function integerRoot(value: bigint, exponent: number): bigint | null {
   return null;
 }
 
-/** Writes a ratio as base^exponent with the largest whole exponent (9/4 = (3/2)^2; 2/1 = (2/1)^1). */
+/** A ratio as base^exponent with the largest whole exponent: 9/4 = (3/2)^2, 2/1 = (2/1)^1. */
 function asPower(ratio: Fraction): { base: Fraction; exponent: number } {
   const bits = Math.max(ratio.n.toString(2).length, ratio.d.toString(2).length);
   for (let exponent = bits - 1; exponent >= 2; exponent--) {
@@ -26,8 +26,8 @@ function asPower(ratio: Fraction): { base: Fraction; exponent: number } {
 }
 
 /**
- * Divides the period into `divisions` equal steps. A step is exact only where the period is a power that
- * divides evenly (4/1 in 2 steps gives 2/1); elsewhere it is tempered.
+ * Divides the period into `divisions` equal steps. A step is exact only where the period is a power
+ * that divides evenly (4/1 in 2 steps gives 2/1); elsewhere it is tempered.
  */
 export function buildEqualScale(spec: EqualScaleSpec): Result<Scale> {
   const period = parsePeriod(spec.period, 'scale.period');

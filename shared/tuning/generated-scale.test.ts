@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { ratioToString } from './interval';
-import { builtScale, degreeRatios, scaleFaults } from './scale.testing';
+import { builtScale, degreeRatios, scaleFaults, stack } from './scale.testing';
 
 const fifths = (up: number, down = 0) =>
   builtScale({ kind: 'generated', generator: '3/2', period: '2/1', up, down });
@@ -8,7 +8,8 @@ const fifths = (up: number, down = 0) =>
 describe('generated scales', () => {
   it('stacks 5 fifths up and 1 down into the seven exact degrees, sorted', () => {
     const scale = fifths(5, 1);
-    // REFERENCE.md: arithmetic (pure fifths stacked from C: D 9/8, E 81/64, F 4/3, G 3/2, A 27/16, B 243/128)
+    // REFERENCE.md: arithmetic (pure fifths stacked from C: D 9/8, E 81/64, F 4/3, G 3/2, A 27/16,
+    // B 243/128)
     expect(degreeRatios(scale)).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
     expect(scale.degrees.map((degree) => degree.stackPosition)).toEqual([0, 2, 4, -1, 1, 3, 5]);
     expect(scale.warnings).toEqual([]);
@@ -26,7 +27,7 @@ describe('generated scales', () => {
 
   it('lands the twelfth pure fifth a Pythagorean comma above the tonic', () => {
     const twelfth = fifths(12).degrees.find((degree) => degree.stackPosition === 12);
-    // REFERENCE.md: standard acoustics texts (Pythagorean comma 531441/524288 = 23.4600103846 cents)
+    // REFERENCE.md: standard acoustics texts (Pythagorean comma, 23.4600103846 cents)
     expect(twelfth?.ratio && ratioToString(twelfth.ratio)).toBe('531441/524288');
     expect(twelfth?.cents).toBeCloseTo(23.4600103846, 9);
   });
@@ -59,12 +60,12 @@ describe('generated scales', () => {
   });
 
   it('stacks inside a tritave period', () => {
-    const scale = builtScale({ kind: 'generated', generator: '5/3', period: '3/1', up: 4, down: 0 });
+    const scale = builtScale(stack('5/3', '3/1', 4, 0));
     expect(degreeRatios(scale)).toEqual(['1/1', '125/81', '5/3', '625/243', '25/9']);
   });
 
   it('stacks inside a period smaller than an octave', () => {
-    const scale = builtScale({ kind: 'generated', generator: '9/8', period: '3/2', up: 4, down: 0 });
+    const scale = builtScale(stack('9/8', '3/2', 4, 0));
     expect(degreeRatios(scale)).toEqual(['1/1', '2187/2048', '9/8', '81/64', '729/512']);
     for (const degree of scale.degrees) {
       expect(degree.cents).toBeGreaterThanOrEqual(0);
@@ -73,12 +74,12 @@ describe('generated scales', () => {
   });
 
   it('reduces a generator wider than the period', () => {
-    const twelfths = builtScale({ kind: 'generated', generator: '3', period: '2', up: 2, down: 0 });
+    const twelfths = builtScale(stack('3', '2', 2, 0));
     expect(degreeRatios(twelfths)).toEqual(['1/1', '9/8', '3/2']);
   });
 
   it('keeps degrees that coincide and warns about them', () => {
-    const scale = builtScale({ kind: 'generated', generator: '7\\12', period: '2/1', up: 12, down: 0 });
+    const scale = builtScale(stack('7\\12', '2/1', 12, 0));
     expect(scale.degrees).toHaveLength(13);
     expect(scale.warnings).toEqual([
       { path: 'scale', message: 'scale: generator +12 coincides with the tonic at 0c' },
@@ -87,13 +88,13 @@ describe('generated scales', () => {
 
   it('names the field of every fault', () => {
     expect(
-      scaleFaults({ kind: 'generated', generator: '1.5', period: '1/2', up: 300, down: 0 }),
+      scaleFaults(stack('1.5', '1/2', 300, 0)),
     ).toEqual([
       'scale.period: 1/2 is not above the tonic; a period must be wider than 1/1',
       'scale.generator: 1.5 needs a unit: write 1.5c for cents or a ratio such as 3/2',
       'scale.up: gives 301 degrees; a scale holds at most 256',
     ]);
-    expect(scaleFaults({ kind: 'generated', generator: '4', period: '2/1', up: 3, down: 0 })).toEqual([
+    expect(scaleFaults(stack('4', '2/1', 3, 0))).toEqual([
       'scale.generator: 4 spans a whole number of periods, so every generator lands on the tonic',
     ]);
     expect(

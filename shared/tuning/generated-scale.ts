@@ -26,7 +26,9 @@ const fractionPattern = /^(\d+)(?:\s*\/\s*(\d+))?$/;
 function parseCommaFraction(text: string, path: string): Result<Fraction> {
   const written = text.trim();
   const match = fractionPattern.exec(written);
-  if (!match) return fail([fieldError(path, `"${written}" is not a fraction: write one such as 1/4`)]);
+  if (!match) {
+    return fail([fieldError(path, `"${written}" is not a fraction: write one such as 1/4`)]);
+  }
   const denominator = BigInt(match[2] ?? '1');
   if (denominator === 0n) return fail([fieldError(path, `${written} has a zero denominator`)]);
   const numerator = BigInt(match[1]);
@@ -35,8 +37,9 @@ function parseCommaFraction(text: string, path: string): Result<Fraction> {
 }
 
 /**
- * Narrows the generator by `fraction` of `comma`. The result stays exact when the comma is a ratio and the
- * fraction a whole number (3/2 narrowed by all of 81/80 is 40/27); otherwise it is tempered, in cents.
+ * Narrows the generator by `fraction` of `comma`. The result stays exact when the comma is a ratio
+ * and the fraction a whole number (3/2 narrowed by all of 81/80 is 40/27); otherwise it is
+ * tempered, in cents.
  */
 function temperGenerator(
   generator: IntervalSize,
@@ -58,8 +61,8 @@ function parseGenerator(spec: GeneratedScaleSpec): Result<IntervalSize> {
   if (!generator.ok || !comma.ok || !fraction.ok) return fail(errors);
   const commaSize = sizeOf(comma.value);
   if (Math.abs(commaSize.cents) < sameSizeCents) {
-    const written = intervalToString(comma.value);
-    return fail([fieldError('scale.temper.comma', `${written} is a unison, so it tempers nothing`)]);
+    const fault = `${intervalToString(comma.value)} is a unison, so it tempers nothing`;
+    return fail([fieldError('scale.temper.comma', fault)]);
   }
   return succeed(temperGenerator(sizeOf(generator.value), commaSize, fraction.value));
 }
@@ -70,8 +73,9 @@ function stackLabel(position: number): string {
 }
 
 /**
- * Stacks `up` generators above the tonic and `down` below it, each reduced into the period. Exact generators and
- * periods give exact degrees however high the stack goes (53 pure fifths reduce to 3^53/2^84).
+ * Stacks `up` generators above the tonic and `down` below it, each reduced into the period. Exact
+ * generators and periods give exact degrees however high the stack goes (53 pure fifths reduce to
+ * 3^53/2^84).
  */
 export function buildGeneratedScale(spec: GeneratedScaleSpec): Result<Scale> {
   const errors: FieldError[] = [];
@@ -81,7 +85,8 @@ export function buildGeneratedScale(spec: GeneratedScaleSpec): Result<Scale> {
   if (!generator.ok) errors.push(...generator.errors);
   for (const field of ['up', 'down'] as const) {
     if (!Number.isInteger(spec[field]) || spec[field] < 0) {
-      errors.push(fieldError(`scale.${field}`, `${spec[field]} is not a whole number of generators`));
+      const fault = `${spec[field]} is not a whole number of generators`;
+      errors.push(fieldError(`scale.${field}`, fault));
     }
   }
   const count = spec.up + spec.down + 1;

@@ -7,8 +7,9 @@ import { largestScale, parsePeriod, tooManyDegrees } from './scale-degrees';
 type HarmonicScaleSpec = Extract<ScaleSpec, { kind: 'harmonic' }>;
 
 /**
- * Harmonics `from` to `to` as a scale: degrees k/from for k = from..to-1 in the period to/from. The subharmonic
- * mirror (`sub`) takes to/k for k = to down to from+1, so its steps widen going up where the harmonics' narrow.
+ * Harmonics `from` to `to` as a scale: degrees k/from for k = from..to-1 in the period to/from. The
+ * subharmonic mirror (`sub`) takes to/k for k = to down to from+1, so its steps widen going up
+ * where the harmonics' narrow.
  */
 export function buildHarmonicScale(spec: HarmonicScaleSpec): Result<Scale> {
   const { from, to, sub } = spec;
@@ -26,5 +27,11 @@ export function buildHarmonicScale(spec: HarmonicScaleSpec): Result<Scale> {
     const ratio = sub ? new Fraction(to, to - step) : new Fraction(from + step, from);
     return { ...exactSize(ratio), stackPosition: null };
   });
-  return succeed({ kind: 'harmonic', degrees, period: period.value, generator: null, warnings: [] });
+  return succeed({
+    kind: 'harmonic',
+    degrees,
+    period: period.value,
+    generator: null,
+    warnings: [],
+  });
 }

@@ -2,15 +2,15 @@ import Fraction from 'fraction.js';
 import { type Interval, ratioCents } from './interval';
 
 /**
- * An interval measured: its size in cents, and its exact ratio while the arithmetic that made it stayed rational
- * (stacking ratios keeps it; anything tempered or typed in cents has none).
+ * An interval measured: its size in cents, and its exact ratio while the arithmetic that made it
+ * stayed rational (stacking ratios keeps it; anything tempered or typed in cents has none).
  */
 export interface IntervalSize {
   cents: number;
   ratio: Fraction | null;
 }
 
-/** Two sizes closer than this (in cents) sound as one; tempered arithmetic in doubles stays far inside it. */
+/** Sizes closer than this many cents count as one (arithmetic in doubles stays far inside). */
 export const sameSizeCents = 1e-6;
 
 const one = new Fraction(1);
@@ -29,12 +29,6 @@ export function sizeOf(interval: Interval): IntervalSize {
   return interval.kind === 'ratio' ? exactSize(interval.ratio) : temperedSize(interval.cents);
 }
 
-/** `upper` stacked on `lower`: ratios multiply, cents add. */
-export function stackIntervals(lower: IntervalSize, upper: IntervalSize): IntervalSize {
-  if (lower.ratio && upper.ratio) return exactSize(lower.ratio.mul(upper.ratio));
-  return temperedSize(lower.cents + upper.cents);
-}
-
 /** The interval from `lower` up to `upper` (negative when `upper` lies below). */
 export function intervalBetween(lower: IntervalSize, upper: IntervalSize): IntervalSize {
   if (lower.ratio && upper.ratio) return exactSize(upper.ratio.div(lower.ratio));
@@ -47,9 +41,10 @@ export function sameSize(a: IntervalSize, b: IntervalSize): boolean {
 }
 
 /**
- * Brings an interval into [unison, period) by whole periods, and says how many periods it took (negative when it
- * had to go up). Exact ratios are divided by period^k with k estimated from the sizes in cents (so from the bit
- * lengths of numerator and denominator) and then checked exactly, never by repeated division.
+ * Brings an interval into [unison, period) by whole periods, and says how many periods it took
+ * (negative when it had to go up). An exact ratio is divided by period^k at once, k estimated from
+ * the sizes in cents (for terms past 2^1024, from their bit lengths) and then checked exactly: no
+ * loop that takes off one period at a time.
  */
 export function reduceIntoPeriod(
   interval: IntervalSize,

@@ -1,11 +1,12 @@
 import Fraction from 'fraction.js';
 import { fieldError, type Result, succeed, fail } from '../result';
 
-/** An interval as written: an exact frequency ratio, or a size in cents (tempered, or typed as cents). */
+/** An interval as written: an exact frequency ratio, or a size in cents. */
 export type Interval = { kind: 'ratio'; ratio: Fraction } | { kind: 'cents'; cents: number };
 
 const longestText = 64;
-const howToWrite = 'write a ratio such as 3/2, cents such as 701.955c, or equal steps such as 7\\12';
+const howToWrite =
+  'write a ratio such as 3/2, cents such as 701.955c, or equal steps such as 7\\12';
 
 const integerPattern = /^\d+$/;
 const ratioPattern = /^(\d+)\s*\/\s*(\d+)$/;
@@ -15,8 +16,9 @@ const equalStepsPattern = /^([+-]?\d+)\s*\\\s*(\d+)$/;
 const bareDecimalPattern = /^[+-]?(?:\d+\.\d*|\.\d+)$/;
 
 /**
- * Reads one interval in the syntax of the preset document: `3/2`, `5` (= 5/1), `701.955c`, `386¢`, `7\12`
- * (7 steps of 12 equal divisions of the octave). Returns the interval, or the fault as words without a path.
+ * Reads one interval in the syntax of the preset document: `3/2`, `5` (= 5/1), `701.955c`, `386¢`,
+ * `7\12` (7 steps of 12 equal divisions of the octave). Returns the interval, or the fault as words
+ * without a path.
  */
 export function readInterval(text: string): Interval | string {
   const written = text.trim();
@@ -61,7 +63,7 @@ function log2BigInt(value: bigint): number {
   return Math.log2(Number(value >> BigInt(extraBits))) + extraBits;
 }
 
-/** The size of a positive ratio in cents, 1200 log2(n/d), also for numerators and denominators past 2^1024. */
+/** The size of a positive ratio in cents, 1200 log2(n/d), even with terms past 2^1024. */
 export function ratioCents(ratio: Fraction): number {
   const [n, d] = [Number(ratio.n), Number(ratio.d)];
   if (n !== Infinity && d !== Infinity) return 1200 * Math.log2(n / d);

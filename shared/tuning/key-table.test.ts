@@ -2,7 +2,7 @@ import { midiToFreq } from '@tonaljs/midi';
 import * as fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { type KeyMapping, layoutFaults, mapKeys } from './key-table';
-import { builtScale, scaleSpecs } from './scale.testing';
+import { builtScale, scaleSpecs, stack } from './scale.testing';
 import { equalTemperedHz } from './twelve-edo';
 
 const twelveEqual = builtScale({ kind: 'equal', divisions: 12, period: '2/1' });
@@ -18,12 +18,12 @@ describe('mapKeys', () => {
     const table = mapKeys(twelveEqual, fromMiddleC);
     expect(table).toHaveLength(128);
     for (const entry of table) {
-      // REFERENCE.md: @tonaljs/midi midiToFreq, an independent reference library for key-to-frequency
+      // REFERENCE.md: @tonaljs/midi midiToFreq, an independent reference for key-to-frequency
       expect(entry.hz).toBeCloseTo(midiToFreq(entry.key), 9);
       expect(entry.centsFrom12).toBeCloseTo(0, 9);
       expect(entry.outOfMtsRange).toBe(false);
     }
-    // REFERENCE.md: MIDI convention (key 60 = 261.6255653006, key 0 = 8.1757989156, key 127 = 12543.8539514)
+    // REFERENCE.md: MIDI convention (key 60, key 0 and key 127 in Hz)
     expect(table[60].hz).toBeCloseTo(261.6255653006, 9);
     expect(table[0].hz).toBeCloseTo(8.1757989156, 9);
     expect(table[127].hz).toBeCloseTo(12543.8539514, 6);
@@ -33,13 +33,13 @@ describe('mapKeys', () => {
   });
 
   it('lays pure fifths from C4 on a twelve-key layout, leaving the black keys unmapped', () => {
-    const fifths = builtScale({ kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 });
+    const fifths = builtScale(stack('3/2', '2/1', 5, 1));
     const table = mapKeys(fifths, {
       ...fromMiddleC,
       rootHz: 261.6255653,
       layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
     });
-    // REFERENCE.md: arithmetic (pure fifths stacked from equal-tempered C4), against equal-tempered pitches
+    // REFERENCE.md: arithmetic (pure fifths stacked from equal-tempered C4), and the ET pitches
     const expected: [number, number, number][] = [
       [62, 294.3288, 293.6648],
       [64, 331.1199, 329.6276],
@@ -124,7 +124,9 @@ describe('mapKeys', () => {
         const table = mapKeys(scale, { rootKey, rootHz: 200, concertA: 440, layout });
         const mapped = table.filter((entry) => entry.hz !== null);
         expect(mapped.length).toBeGreaterThan(0);
-        for (let i = 1; i < mapped.length; i++) expect(mapped[i].hz!).toBeGreaterThan(mapped[i - 1].hz!);
+        for (let i = 1; i < mapped.length; i++) {
+          expect(mapped[i].hz!).toBeGreaterThan(mapped[i - 1].hz!);
+        }
       }),
     );
   });

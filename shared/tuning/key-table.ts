@@ -2,7 +2,7 @@ import { type FieldError, fieldError } from '../result';
 import type { Scale } from './scale';
 import { centsFromEqualTempered } from './twelve-edo';
 
-/** How the scale lies across the keys: DESIGN.md "Mapping", with the reference pitch already resolved. */
+/** How the scale lies across the keys (DESIGN.md "Mapping"), the root pitch resolved. */
 export interface KeyMapping {
   /** The key that plays degree 0 at `rootHz`. */
   rootKey: number;
@@ -10,8 +10,9 @@ export interface KeyMapping {
   /** A4 (key 69) of the equal-tempered reference that `centsFrom12` is measured against. */
   concertA: number;
   /**
-   * One block of keys: each entry the degree the key plays, or null for an unmapped key. Each block starting at
-   * `rootKey` goes up one period. Null: consecutive keys take consecutive degrees, a period every scale size.
+   * One block of keys: each entry the degree the key plays, or null for an unmapped key. Each block
+   * starting at `rootKey` goes up one period. Null: consecutive keys take consecutive degrees, a
+   * period every scale size.
    */
   layout: (number | null)[] | null;
 }
@@ -24,7 +25,7 @@ export interface KeyEntry {
   centsFromRoot: number | null;
   /** Cents from this key's own twelve-tone equal-tempered pitch at the concert pitch. */
   centsFrom12: number | null;
-  /** True when the MIDI Tuning Standard cannot express the pitch (below key 0 or above `7F 7F 7E`). */
+  /** True when MTS cannot express the pitch: below key 0's `00 00 00` or above `7F 7F 7E`. */
   outOfMtsRange: boolean;
 }
 
@@ -33,11 +34,11 @@ export type KeyTable = KeyEntry[];
 
 const keyCount = 128;
 
-/** MTS frequency words count 1/16384 of a semitone from key 0; the highest usable word is `7F 7F 7E`. */
+/** MTS frequency words count 1/16384 semitone from key 0; the highest usable is `7F 7F 7E`. */
 const mtsUnitsPerSemitone = 16384;
 const highestMtsUnits = 127 * mtsUnitsPerSemitone + 16382;
 
-/** Whether a pitch, rounded to the nearest MTS frequency word, falls inside the words MTS can send. */
+/** Whether a pitch, rounded to the nearest MTS frequency word, falls outside what MTS sends. */
 function outsideMts(hz: number): boolean {
   const units = Math.round((69 + 12 * Math.log2(hz / 440)) * mtsUnitsPerSemitone);
   return units < 0 || units > highestMtsUnits;
@@ -45,15 +46,11 @@ function outsideMts(hz: number): boolean {
 
 /** Faults of a layout against the scale it lays out; every fault names its entry. */
 export function layoutFaults(layout: (number | null)[], scaleSize: number): FieldError[] {
+  const degrees = `the scale has ${scaleSize} degrees (0-${scaleSize - 1})`;
   return layout.flatMap((degree, index) =>
     degree === null || degree < scaleSize
       ? []
-      : [
-          fieldError(
-            `mapping.layout[${index}]`,
-            `degree ${degree} does not exist; the scale has ${scaleSize} degrees (0-${scaleSize - 1})`,
-          ),
-        ],
+      : [fieldError(`mapping.layout[${index}]`, `degree ${degree} does not exist; ${degrees}`)],
   );
 }
 
@@ -63,8 +60,9 @@ function unmapped(key: number): KeyEntry {
 }
 
 /**
- * Lays the scale across the 128 keys. A key whose layout entry is null, or names a degree the scale lacks, is
- * unmapped. Pitches outside what MTS can express keep their true frequency and are flagged, never wrapped.
+ * Lays the scale across the 128 keys. A key whose layout entry is null, or names a degree the scale
+ * lacks, is unmapped. Pitches outside what MTS can express keep their true frequency and are
+ * flagged, never wrapped.
  */
 export function mapKeys(scale: Scale, mapping: KeyMapping): KeyTable {
   const { rootKey, rootHz, concertA, layout } = mapping;

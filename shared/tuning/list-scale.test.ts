@@ -27,7 +27,8 @@ describe('list scales', () => {
     expect(scale.warnings).toEqual([
       {
         path: 'scale.degrees[2]',
-        message: 'scale.degrees[2]: 386.313714c coincides with scale.degrees[0] (5/4) at 386.313714c',
+        message:
+          'scale.degrees[2]: 386.313714c coincides with scale.degrees[0] (5/4) at 386.313714c',
       },
     ]);
   });

@@ -18,8 +18,9 @@ function isBelow(lower: IntervalSize, upper: IntervalSize): boolean {
 }
 
 /**
- * A scale from a list of degrees that lie strictly between the tonic (implied) and the period (its own field),
- * sorted from the tonic up. The list may be written in any order; a degree written twice is kept and reported.
+ * A scale from a list of degrees that lie strictly between the tonic (implied) and the period (its
+ * own field), sorted from the tonic up. The list may be written in any order; a degree written
+ * twice is kept and reported.
  */
 export function buildListScale(spec: ListScaleSpec): Result<Scale> {
   const period = parsePeriod(spec.period, 'scale.period');

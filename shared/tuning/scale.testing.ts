@@ -2,6 +2,11 @@ import * as fc from 'fast-check';
 import { ratioToString } from './interval';
 import { buildScale, type Scale, type ScaleSpec } from './scale';
 
+/** A generated scale: `up` generators stacked above the tonic and `down` below it. */
+export function stack(generator: string, period: string, up: number, down: number): ScaleSpec {
+  return { kind: 'generated', generator, period, up, down };
+}
+
 /** Builds a scale that a test expects to be valid, failing the test with the faults otherwise. */
 export function builtScale(spec: ScaleSpec): Scale {
   const result = buildScale(spec);

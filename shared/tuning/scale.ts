@@ -6,7 +6,7 @@ import type { IntervalSize } from './interval-size';
 import { buildListScale } from './list-scale';
 import type { ScaleDegree } from './scale-degrees';
 
-/** A scale as the preset document describes it, with its defaults filled in; intervals are still text. */
+/** A scale as the preset document describes it, defaults filled in, intervals still as text. */
 export type ScaleSpec =
   | {
       kind: 'generated';
@@ -20,12 +20,13 @@ export type ScaleSpec =
   | { kind: 'list'; degrees: string[]; period: string }
   | { kind: 'harmonic'; from: number; to: number; sub: boolean };
 
-export type ScaleKind = ScaleSpec['kind'];
+type ScaleKind = ScaleSpec['kind'];
 
 /**
- * A built scale: its degrees inside one period, sorted from the tonic (degree 0, always unison) upwards.
- * Degrees that coincide are kept and reported in `warnings` (a musician may be passing through such a stack on the
- * way to the one they want, and the degree numbers of a key layout must not shift under them).
+ * A built scale: its degrees inside one period, sorted from the tonic (degree 0, always unison)
+ * upwards. Degrees that coincide are kept and reported in `warnings`, not refused: a musician may
+ * pass through such a stack on the way to the one they want, and the degree numbers of a key
+ * layout must not shift under them.
  */
 export interface Scale {
   kind: ScaleKind;

@@ -1,25 +1,25 @@
 import { describe, expect, it } from 'vitest';
 import { ratioToString } from './interval';
 import type { ScaleSpec } from './scale';
-import { builtScale } from './scale.testing';
+import { builtScale, stack } from './scale.testing';
 import { analyzeStack } from './stack-analysis';
 
 function stackOf(spec: ScaleSpec) {
-  const stack = analyzeStack(builtScale(spec));
-  if (!stack) throw new Error('no stack analysis');
-  return stack;
+  const found = analyzeStack(builtScale(spec));
+  if (!found) throw new Error('no stack analysis');
+  return found;
 }
 
 const quarterComma = { comma: '81/80', fraction: '1/4' };
 
 describe('analyzeStack', () => {
   it('finds the Pythagorean comma and the wolf of twelve pure fifths', () => {
-    const scale = builtScale({ kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3 });
-    const stack = analyzeStack(scale);
-    // REFERENCE.md: standard acoustics texts (Pythagorean comma 531441/524288 = 23.4600103846 cents)
-    expect(stack?.comma.ratio && ratioToString(stack.comma.ratio)).toBe('531441/524288');
-    expect(stack?.comma.cents).toBeCloseTo(23.4600103846, 9);
-    const wolf = stack?.wolf;
+    const scale = builtScale(stack('3/2', '2/1', 8, 3));
+    const found = analyzeStack(scale);
+    // REFERENCE.md: standard acoustics texts (Pythagorean comma, 23.4600103846 cents)
+    expect(found?.comma.ratio && ratioToString(found.comma.ratio)).toBe('531441/524288');
+    expect(found?.comma.cents).toBeCloseTo(23.4600103846, 9);
+    const wolf = found?.wolf;
     // REFERENCE.md: arithmetic (the wolf is a pure fifth less the comma: 262144/177147)
     expect(wolf?.size.ratio && ratioToString(wolf.size.ratio)).toBe('262144/177147');
     expect(wolf?.size.cents).toBeCloseTo(701.9550008654 - 23.4600103846, 9);
@@ -29,23 +29,23 @@ describe('analyzeStack', () => {
   });
 
   it('keeps the comma of 53 pure fifths exact', () => {
-    const stack = stackOf({ kind: 'generated', generator: '3/2', period: '2/1', up: 52, down: 0 });
+    const found = stackOf(stack('3/2', '2/1', 52, 0));
     // REFERENCE.md: arithmetic, 3^53 / 2^84 (3.615 cents)
-    expect(stack.comma.ratio && ratioToString(stack.comma.ratio)).toBe(
+    expect(found.comma.ratio && ratioToString(found.comma.ratio)).toBe(
       '19383245667680019896796723/19342813113834066795298816',
     );
-    expect(stack.comma.cents).toBeCloseTo(3.615, 3);
+    expect(found.comma.cents).toBeCloseTo(3.615, 3);
   });
 
   it('reports a stack that falls short as a comma below unison', () => {
-    const stack = stackOf({ kind: 'generated', generator: '3/2', period: '2/1', up: 4, down: 0 });
+    const found = stackOf(stack('3/2', '2/1', 4, 0));
     // REFERENCE.md: arithmetic (five fifths reach 243/128, a 256/243 short of the octave)
-    expect(stack.comma.ratio && ratioToString(stack.comma.ratio)).toBe('243/256');
-    expect(stack.comma.cents).toBeLessThan(0);
+    expect(found.comma.ratio && ratioToString(found.comma.ratio)).toBe('243/256');
+    expect(found.comma.cents).toBeLessThan(0);
   });
 
   it('finds the diesis and the wide wolf of quarter-comma meantone', () => {
-    const stack = stackOf({
+    const found = stackOf({
       kind: 'generated',
       generator: '3/2',
       period: '2/1',
@@ -56,13 +56,13 @@ describe('analyzeStack', () => {
     // REFERENCE.md: standard acoustics texts (quarter-comma meantone fifth, 696.5784284662 cents)
     const fifth = 696.5784284662;
     // REFERENCE.md: arithmetic (twelve quarter-comma fifths are 5^3, seven octaves up: 125/128)
-    expect(stack.comma.cents).toBeCloseTo(1200 * Math.log2(125 / 128), 8);
-    expect(stack.comma.ratio).toBeNull();
-    expect(stack.wolf?.size.cents).toBeCloseTo(7 * 1200 - 11 * fifth, 8);
+    expect(found.comma.cents).toBeCloseTo(1200 * Math.log2(125 / 128), 8);
+    expect(found.comma.ratio).toBeNull();
+    expect(found.wolf?.size.cents).toBeCloseTo(7 * 1200 - 11 * fifth, 8);
   });
 
   it('lists the sizes at which the generator gives a MOS', () => {
-    const pure = stackOf({ kind: 'generated', generator: '3/2', period: '2/1', up: 6, down: 0 });
+    const pure = stackOf(stack('3/2', '2/1', 6, 0));
     // from memory: denominators of the convergents and semiconvergents of log2(3/2) up to 60
     expect(pure.mosSizes).toEqual([2, 3, 5, 7, 12, 17, 29, 41, 53]);
     const meantone = stackOf({
@@ -78,11 +78,11 @@ describe('analyzeStack', () => {
   });
 
   it('finds no wolf when the circle closes', () => {
-    const stack = stackOf({ kind: 'generated', generator: '7\\12', period: '2/1', up: 11, down: 0 });
-    expect(stack.comma.cents).toBe(0);
-    expect(stack.wolf).toBeNull();
-    // 8 to 10 fifths of 12 equal bunch their two step sizes; 11 leave one large step among ten small ones
-    expect(stack.mosSizes).toEqual([2, 3, 5, 7, 11]);
+    const found = stackOf(stack('7\\12', '2/1', 11, 0));
+    expect(found.comma.cents).toBe(0);
+    expect(found.wolf).toBeNull();
+    // 8 to 10 fifths of 12 equal bunch their two step sizes; 11 leave one large step, ten small
+    expect(found.mosSizes).toEqual([2, 3, 5, 7, 11]);
   });
 
   it('has nothing to say about scales that are not stacks', () => {

@@ -17,7 +17,7 @@ export interface Wolf {
   /** The degree at the bottom of the stack, where it ends. */
   to: number;
   size: IntervalSize;
-  /** How far the wolf is from the generator (reduced into the period): the comma, with its sign turned. */
+  /** How far the wolf is from the generator reduced into the period: minus the comma. */
   deviationCents: number;
 }
 
@@ -27,21 +27,21 @@ export interface StackAnalysis {
   /** The generator brought into the period, the size of every generator step between degrees. */
   reducedGenerator: IntervalSize;
   /**
-   * What a stack as long as the scale (one generator per degree) misses the tonic by, taken as the smaller way
-   * round: positive when it overshoots. Twelve pure fifths overshoot by the Pythagorean comma.
+   * What a stack as long as the scale (one generator per degree) misses the tonic by, the smaller
+   * way round: positive when it overshoots. Twelve pure fifths overshoot by the Pythagorean comma.
    */
   comma: IntervalSize;
-  /** The one generator step that closes the circle off size; null when the circle closes (comma 0). */
+  /** The one generator step that closes the circle off size; null when the comma is 0. */
   wolf: Wolf | null;
-  /** The scale sizes up to 60 at which this generator and period give exactly two step sizes. */
+  /** The scale sizes up to 60 at which this generator and period give a MOS. */
   mosSizes: number[];
 }
 
 /**
- * The sizes of stacks (from 2 to 60 generators) whose degrees fall into exactly two step sizes spread evenly.
- * The evenness matters only for generators that divide the period exactly (700c in 1200c): there the third step
- * size of the other stacks coincides with one of the two, as 8 fifths of 12 equal give steps of 1 and 2 bunched
- * as ssLLsLLs.
+ * The sizes of stacks (from 2 to 60 generators) whose degrees fall into exactly two step sizes
+ * spread evenly. The evenness matters only for generators that divide the period exactly (700c in
+ * 1200c): there the third step size of the other stacks coincides with one of the two, as 8 fifths
+ * of 12 equal give steps of 1 and 2 bunched as ssLLsLLs.
  */
 function mosSizes(reducedGeneratorCents: number, periodCents: number): number[] {
   const sizes: number[] = [];
@@ -71,7 +71,7 @@ function mosSizes(reducedGeneratorCents: number, periodCents: number): number[] 
   return sizes;
 }
 
-/** What a generated scale's stack does: its comma, its wolf, and its sizes of moment of symmetry. */
+/** What a generated scale's stack does: its comma, its wolf and its MOS sizes; else null. */
 export function analyzeStack(scale: Scale): StackAnalysis | null {
   const { generator, period, degrees } = scale;
   if (!generator) return null;

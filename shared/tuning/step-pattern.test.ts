@@ -3,28 +3,29 @@ import { describe, expect, it } from 'vitest';
 import { ratioToString } from './interval';
 import { intervalBetween } from './interval-size';
 import type { Scale } from './scale';
-import { builtScale } from './scale.testing';
+import { builtScale, stack } from './scale.testing';
 import { analyzeStack } from './stack-analysis';
 import { stepPattern } from './step-pattern';
 
 function patternOf(scale: Scale) {
   const { degrees, period } = scale;
-  return stepPattern(degrees.map((degree, index) => intervalBetween(degree, degrees[index + 1] ?? period)));
+  const steps = degrees.map((degree, i) => intervalBetween(degree, degrees[i + 1] ?? period));
+  return stepPattern(steps);
 }
 
 describe('stepPattern', () => {
   it('finds the two steps of the diatonic stack of fifths and calls it a MOS', () => {
     const pattern = patternOf(
-      builtScale({ kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 }),
+      builtScale(stack('3/2', '2/1', 5, 1)),
     );
     expect(pattern.pattern).toBe('LLsLLLs');
     expect(pattern.isMos).toBe(true);
-    // REFERENCE.md: arithmetic (9/8 is two fifths less an octave; 256/243 is an octave less five fifths)
-    expect(pattern.sizes.map((size) => [size.letter, size.ratio && ratioToString(size.ratio), size.count]))
-      .toEqual([
-        ['L', '9/8', 5],
-        ['s', '256/243', 2],
-      ]);
+    // REFERENCE.md: arithmetic (9/8: two fifths less an octave; 256/243: an octave less 5 fifths)
+    const sizes = pattern.sizes.map((size) => [size.letter, size.ratio!.toFraction(), size.count]);
+    expect(sizes).toEqual([
+      ['L', '9/8', 5],
+      ['s', '256/243', 2],
+    ]);
   });
 
   it('names three sizes L, M and s', () => {
@@ -77,17 +78,16 @@ describe('stepPattern', () => {
         ),
         period: fc.constantFrom('2/1', '3/1', '1200c'),
       })
-      .filter(({ generator, period }) =>
-        builtScale({ kind: 'generated', generator, period, up: 1, down: 0 }).warnings.length === 0,
-      );
+      .filter(({ generator, period }) => {
+        return builtScale(stack(generator, period, 1, 0)).warnings.length === 0;
+      });
     fc.assert(
       fc.property(stacks, fc.nat(), fc.nat(), ({ generator, period }, pickSize, pickDown) => {
-        const stack = analyzeStack(builtScale({ kind: 'generated', generator, period, up: 1, down: 0 }));
-        const sizes = stack?.mosSizes ?? [];
+        const sizes = analyzeStack(builtScale(stack(generator, period, 1, 0)))?.mosSizes ?? [];
         fc.pre(sizes.length > 0);
         const size = sizes[pickSize % sizes.length];
         const down = pickDown % size;
-        const scale = builtScale({ kind: 'generated', generator, period, up: size - 1 - down, down });
+        const scale = builtScale(stack(generator, period, size - 1 - down, down));
         const pattern = patternOf(scale);
         expect(pattern.sizes).toHaveLength(2);
         expect(pattern.isMos).toBe(true);

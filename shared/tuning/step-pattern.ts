@@ -1,7 +1,10 @@
 import { type IntervalSize, sameSize } from './interval-size';
 
 export interface StepSize extends IntervalSize {
-  /** The letter that stands for this size in the pattern: L and s for two sizes, L, M, s for three. */
+  /**
+   * The letter for this size in the pattern: L and s for two sizes, L, M and s for three, and a,
+   * b, c... from the largest down for more (starting again after z).
+   */
   letter: string;
   count: number;
 }
@@ -23,8 +26,8 @@ function lettersFor(count: number): string[] {
 }
 
 /**
- * Whether a cyclic word of two letters is balanced: every run of k consecutive steps holds the same number of
- * large steps, give or take one. Balanced two-size patterns are exactly the MOS patterns.
+ * Whether a cyclic word of two letters is balanced: every run of k consecutive steps holds the same
+ * number of large steps, give or take one. Balanced two-size patterns are exactly the MOS patterns.
  */
 export function isBalanced(large: boolean[]): boolean {
   const length = large.length;

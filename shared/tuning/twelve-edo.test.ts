@@ -5,7 +5,7 @@ import { equalTemperedHz, nearestEqualTemperedNote, noteName } from './twelve-ed
 describe('twelve-tone equal temperament', () => {
   it('agrees with an independent key-to-frequency reference, also at another concert pitch', () => {
     for (const key of [0, 21, 60, 69, 108, 127]) {
-      // REFERENCE.md: @tonaljs/midi midiToFreq, an independent reference library for key-to-frequency
+      // REFERENCE.md: @tonaljs/midi midiToFreq, an independent reference for key-to-frequency
       expect(equalTemperedHz(key, 440)).toBeCloseTo(midiToFreq(key), 9);
       expect(equalTemperedHz(key, 415)).toBeCloseTo(midiToFreq(key, 415), 9);
     }
@@ -19,7 +19,7 @@ describe('twelve-tone equal temperament', () => {
   });
 
   it('finds the note nearest a pure fifth above C4 and its offset', () => {
-    // REFERENCE.md: arithmetic (G 3/2 above equal-tempered C4 = 392.4383 Hz against equal-tempered 391.9954 Hz)
+    // REFERENCE.md: arithmetic (G 3/2 above equal-tempered C4: 392.4383 Hz; ET 391.9954 Hz)
     const note = nearestEqualTemperedNote(392.4383, 440);
     expect(note.name).toBe('G4');
     expect(note.key).toBe(67);

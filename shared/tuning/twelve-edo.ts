@@ -19,7 +19,7 @@ export function noteName(key: number): string {
   return `${noteNames[pitchClass]}${Math.floor(key / 12) - 1}`;
 }
 
-/** The equal-tempered note nearest a frequency, and how far (in cents) the frequency lies from it. */
+/** The equal-tempered note nearest a frequency, and how many cents the frequency lies above it. */
 export function nearestEqualTemperedNote(
   hz: number,
   concertA: number,
