@@ -51,7 +51,7 @@ describe('errors and headers', () => {
     expect(scriptSrc).toBe("script-src 'self'");
   });
 
-  it('serves the app's page for any other path, never from a cache', async () => {
+  it('serves the app page for any other path, never from a cache', async () => {
     const res = await request(server.app).get('/library/some/deep/link');
     expect(res.status).toBe(200);
     expect(res.text).toContain('<app-root>');
