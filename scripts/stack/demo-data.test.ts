@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Database } from '../../server/db/client';
 import { createScratchDatabase } from '../../tests/support/scratch-database';
 import { memberships, presetRevisions, presets, users } from '../../server/db/schema';
+import { parsePresetDocument } from '../../shared/preset/preset-document';
 import { demoBand, demoPresets, seedDemoData } from './demo-data';
 
 let db: Database;
@@ -30,6 +31,15 @@ describe('demo data', () => {
     const [{ n: revisionCount }] = await db.select({ n: count() }).from(presetRevisions);
     expect(presetCount).toBe(demoPresets.length);
     expect(revisionCount).toBe(demoPresets.reduce((sum, p) => sum + p.revisions.length, 0));
+  });
+
+  it('holds only documents that the preset schema accepts', () => {
+    for (const preset of demoPresets) {
+      for (const revision of preset.revisions) {
+        const parsed = parsePresetDocument(revision.document);
+        expect(parsed.ok ? 'ok' : parsed.errors.map((e) => e.message)).toBe('ok');
+      }
+    }
   });
 
   it('includes a stacked-fifths preset whose latest revision is the newest document', async () => {

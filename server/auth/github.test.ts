@@ -65,6 +65,20 @@ describe('sign-in through the GitHub provider', () => {
     expect(rows[0].lastSignInAt).toBeInstanceOf(Date);
   });
 
+  it('comes back to the page named by next, and only to a page of this app', async () => {
+    const agent = request.agent(server.app);
+    const start = await agent.get('/auth/github?login=ada-quill&next=/invites/some-token');
+    const back = await agent.get(await authorizeAtProvider(start.headers['location']));
+    expect(back.headers['location']).toBe('/invites/some-token');
+
+    for (const elsewhere of ['https://example.org/', '//example.org/x', '/\\example.org']) {
+      const other = request.agent(server.app);
+      const again = await other.get(`/auth/github?login=ada-quill&next=${encodeURIComponent(elsewhere)}`);
+      const home = await other.get(await authorizeAtProvider(again.headers['location']));
+      expect(home.headers['location']).toBe('/');
+    }
+  });
+
   it('refuses a callback whose state does not match the one it issued', async () => {
     const agent = request.agent(server.app);
     const start = await agent.get('/auth/github?login=mira-vale');

@@ -1,6 +1,8 @@
+import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer } from '../../tests/support/test-server';
+import { invites } from '../db/schema';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 type Member = Awaited<ReturnType<typeof server.signIn>>;
@@ -95,6 +97,15 @@ describe('e-mail invites', () => {
     await send(owner, 'delete', `/api/bands/${id}/invites/${created.body.id}`).expect(204);
     expect((await second.agent.get(`/api/invites/${second_}`).expect(200)).body.status).toBe('revoked');
     await send(second, 'post', `/api/invites/${second_}/accept`).expect(410);
+  });
+
+  it('refuses a link whose invite has expired', async () => {
+    const id = await newBand('Late Band');
+    await send(owner, 'post', `/api/bands/${id}/invites`, { email: 'late@example.org', role: 'viewer' }).expect(201);
+    const { token } = inviteToken('late@example.org');
+    await server.db.update(invites).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(invites.bandId, id));
+    const res = await send(second, 'post', `/api/invites/${token}/accept`).expect(410);
+    expect(res.body.error.code).toBe('invite_expired');
   });
 
   it('refuses an invite to something that is not an e-mail address, by field', async () => {
