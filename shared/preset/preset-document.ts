@@ -148,7 +148,7 @@ export interface ResolvedPreset {
 function versionFault(input: unknown): FieldError | null {
   if (typeof input !== 'object' || input === null || !('version' in input)) return null;
   const { version } = input;
-  if (version === presetVersion) return null;
+  if (version === undefined || version === presetVersion) return null;
   const fault = `is not a version this Keyloom reads (it reads version ${presetVersion})`;
   return fieldError('version', `${JSON.stringify(version)} ${fault}`);
 }

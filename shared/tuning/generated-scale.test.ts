@@ -2,14 +2,16 @@ import { describe, expect, it } from 'vitest';
 import { ratioToString } from './interval';
 import { builtScale, degreeRatios, scaleFaults, stack } from './scale.testing';
 
-const fifths = (up: number, down = 0) =>
-  builtScale({ kind: 'generated', generator: '3/2', period: '2/1', up, down });
+const fifths = (up: number, down = 0) => builtScale(stack('3/2', '2/1', up, down));
+
+/** One fifth narrowed by a fraction of the syntonic comma. */
+const temperedFifth = (fraction: string) =>
+  builtScale({ ...stack('3/2', '2/1', 1, 0), temper: { comma: '81/80', fraction } });
 
 describe('generated scales', () => {
   it('stacks 5 fifths up and 1 down into the seven exact degrees, sorted', () => {
     const scale = fifths(5, 1);
-    // REFERENCE.md: arithmetic (pure fifths stacked from C: D 9/8, E 81/64, F 4/3, G 3/2, A 27/16,
-    // B 243/128)
+    // REFERENCE.md: arithmetic (pure fifths stacked from C: D 9/8, E 81/64 ... B 243/128)
     expect(degreeRatios(scale)).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
     expect(scale.degrees.map((degree) => degree.stackPosition)).toEqual([0, 2, 4, -1, 1, 3, 5]);
     expect(scale.warnings).toEqual([]);
@@ -33,14 +35,7 @@ describe('generated scales', () => {
   });
 
   it('narrows the fifth by a quarter of the syntonic comma', () => {
-    const scale = builtScale({
-      kind: 'generated',
-      generator: '3/2',
-      period: '2/1',
-      up: 1,
-      down: 0,
-      temper: { comma: '81/80', fraction: '1/4' },
-    });
+    const scale = temperedFifth('1/4');
     // REFERENCE.md: standard acoustics texts (quarter-comma meantone fifth, 5^(1/4))
     expect(scale.generator?.cents).toBeCloseTo(696.5784284662, 9);
     expect(scale.degrees[1].cents).toBeCloseTo(696.5784284662, 9);
@@ -48,15 +43,7 @@ describe('generated scales', () => {
   });
 
   it('stays exact when a whole comma is taken out', () => {
-    const scale = builtScale({
-      kind: 'generated',
-      generator: '3/2',
-      period: '2/1',
-      up: 1,
-      down: 0,
-      temper: { comma: '81/80', fraction: '1' },
-    });
-    expect(degreeRatios(scale)).toEqual(['1/1', '40/27']);
+    expect(degreeRatios(temperedFifth('1'))).toEqual(['1/1', '40/27']);
   });
 
   it('stacks inside a tritave period', () => {

@@ -57,8 +57,7 @@ describe('previewTable', () => {
         },
       ),
     );
-    // REFERENCE.md: arithmetic (pure fifths stacked from C: D 9/8, E 81/64, F 4/3, G 3/2, A 27/16,
-    // B 243/128)
+    // REFERENCE.md: arithmetic (pure fifths stacked from C: D 9/8, E 81/64 ... B 243/128)
     expect(table.degrees.map((degree) => degree.ratio)).toEqual([
       '1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128',
     ]);
@@ -68,6 +67,19 @@ describe('previewTable', () => {
     // REFERENCE.md: arithmetic (G 3/2 above equal-tempered C4 = 392.4383 Hz)
     expect(table.keys[67]).toMatchObject({ degree: 4, hz: expect.closeTo(392.4383, 4) });
     expect(table.keys[61]).toMatchObject({ degree: null, hz: null, cents: null });
+  });
+
+  it('names a single key MTS cannot express', () => {
+    const table = previewTable(
+      preset({ kind: 'equal', divisions: 12, period: '2/1' }, { rootKey: 127, rootHz: 13300 }),
+    );
+    expect(table.warnings).toEqual([
+      {
+        path: 'mapping',
+        message:
+          'mapping: key 127 lies outside the pitches MTS can express (8.1758 to 13289.6566 Hz)',
+      },
+    ]);
   });
 
   it('warns about coinciding degrees and keys MTS cannot express', () => {

@@ -78,13 +78,9 @@ function keyRuns(keys: number[]): string {
 function mtsRangeWarning(keys: KeyTable): FieldError[] {
   const outside = keys.filter((entry) => entry.outOfMtsRange).map((entry) => entry.key);
   if (outside.length === 0) return [];
-  const which = `${outside.length === 1 ? 'key' : 'keys'} ${keyRuns(outside)}`;
-  return [
-    fieldError(
-      'mapping',
-      `${which} lie outside the pitches MTS can express (8.1758 to 13289.6566 Hz)`,
-    ),
-  ];
+  const which = outside.length === 1 ? `key ${outside[0]} lies` : `keys ${keyRuns(outside)} lie`;
+  const range = 'outside the pitches MTS can express (8.1758 to 13289.6566 Hz)';
+  return [fieldError('mapping', `${which} ${range}`)];
 }
 
 /**

@@ -3,7 +3,12 @@ import { ratioToString } from './interval';
 import { buildScale, type Scale, type ScaleSpec } from './scale';
 
 /** A generated scale: `up` generators stacked above the tonic and `down` below it. */
-export function stack(generator: string, period: string, up: number, down: number): ScaleSpec {
+export function stack(
+  generator: string,
+  period: string,
+  up: number,
+  down: number,
+): Extract<ScaleSpec, { kind: 'generated' }> {
   return { kind: 'generated', generator, period, up, down };
 }
 
