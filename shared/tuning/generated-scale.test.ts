@@ -46,6 +46,26 @@ describe('generated scales', () => {
     expect(degreeRatios(temperedFifth('1'))).toEqual(['1/1', '40/27']);
   });
 
+  it('gives degrees in cents, with a warning, when exact ratios would grow too large', () => {
+    const scale = builtScale(stack('65537/65536', '2/1', 255, 0));
+    expect(scale.degrees.every((degree) => degree.ratio === null || degree.cents === 0)).toBe(true);
+    expect(scale.degrees[1].cents).toBeCloseTo(1200 * Math.log2(65537 / 65536), 9);
+    expect(scale.warnings).toEqual([
+      {
+        path: 'scale.generator',
+        message:
+          'scale.generator: stacked 256 times, 65537/65536 gives ratios too large to keep exact; ' +
+          'the degrees are given in cents',
+      },
+    ]);
+    const manyCommas = builtScale({
+      ...stack('3/2', '2/1', 1, 0),
+      temper: { comma: '81/80', fraction: '100000000' },
+    });
+    expect(manyCommas.generator?.ratio).toBeNull();
+    expect(manyCommas.generator?.cents).toBeCloseTo(701.9550008654 - 1e8 * 21.5062895967, 0);
+  });
+
   it('stacks inside a tritave period', () => {
     const scale = builtScale(stack('5/3', '3/1', 4, 0));
     expect(degreeRatios(scale)).toEqual(['1/1', '125/81', '5/3', '625/243', '25/9']);

@@ -23,6 +23,17 @@ type GeneratedScaleSpec = Extract<ScaleSpec, { kind: 'generated' }>;
 
 const fractionPattern = /^(\d+)(?:\s*\/\s*(\d+))?$/;
 
+/**
+ * Exact arithmetic slows down as the terms of the ratios grow: a stack whose powers would pass
+ * this many bits in numerator or denominator is computed in cents instead, and says so.
+ */
+const exactBitsBudget = 2048;
+
+/** The bits of the larger term of a ratio (3/2: 2, 81/80: 7). */
+function termBits(ratio: Fraction): number {
+  return Math.max(ratio.n.toString(2).length, ratio.d.toString(2).length);
+}
+
 function parseCommaFraction(text: string, path: string): Result<Fraction> {
   const written = text.trim();
   const match = fractionPattern.exec(written);
@@ -46,7 +57,8 @@ function temperGenerator(
   comma: IntervalSize,
   fraction: Fraction,
 ): IntervalSize {
-  if (generator.ratio && comma.ratio && fraction.d === 1n) {
+  const exactBits = comma.ratio ? Number(fraction.n) * termBits(comma.ratio) : Infinity;
+  if (generator.ratio && comma.ratio && fraction.d === 1n && exactBits <= exactBitsBudget) {
     return exactSize(generator.ratio.div(comma.ratio.pow(fraction)));
   }
   return temperedSize(generator.cents - fraction.valueOf() * comma.cents);
@@ -101,24 +113,32 @@ export function buildGeneratedScale(spec: GeneratedScaleSpec): Result<Scale> {
       ),
     ]);
   }
+  const warnings: FieldError[] = [];
+  let stacked = generator.value;
+  const { ratio } = stacked;
+  const periodRatio = period.value.ratio;
+  if (ratio && periodRatio && count * (termBits(ratio) + termBits(periodRatio)) > exactBitsBudget) {
+    stacked = temperedSize(stacked.cents);
+    const fault = `stacked ${count} times, ${spec.generator} gives ratios too large to keep exact`;
+    warnings.push(fieldError('scale.generator', `${fault}; the degrees are given in cents`));
+  }
   const unsorted: UnsortedDegree[] = [];
   // 0 - down rather than -down: a stack with nothing below starts at 0, not -0
   for (let position = 0 - spec.down; position <= spec.up; position++) {
-    const stacked = repeatInterval(generator.value, position);
     unsorted.push({
-      size: reduceIntoPeriod(stacked, period.value).reduced,
+      size: reduceIntoPeriod(repeatInterval(stacked, position), period.value).reduced,
       stackPosition: position,
       path: 'scale',
       written: stackLabel(position),
       label: stackLabel(position),
     });
   }
-  const { degrees, warnings } = sortDegrees(unsorted);
+  const sorted = sortDegrees(unsorted);
   return succeed({
     kind: 'generated',
-    degrees,
+    degrees: sorted.degrees,
     period: period.value,
-    generator: generator.value,
-    warnings,
+    generator: stacked,
+    warnings: [...warnings, ...sorted.warnings],
   });
 }
