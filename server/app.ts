@@ -19,6 +19,8 @@ import { bandsRouter } from './routes/bands';
 import { invitesRouter } from './routes/invites';
 import { presetsRouter } from './routes/presets';
 import { sharesRouter } from './routes/shares';
+import { importsRouter } from './routes/imports';
+import { uploadErrors } from './http/uploads';
 import { rateLimited } from './http/rate-limit';
 import type { Mailer } from './mail/mailer';
 
@@ -107,8 +109,10 @@ export function createApp({ db, config, mailer }: AppDependencies): Express {
   app.use(sharesRouter(db, config));
   app.use(bandsRouter(db));
   app.use(invitesRouter(db, config, mailer, limit));
+  app.use(importsRouter(db));
   app.use('/api', apiNotFound);
   app.use(builtApp(config.staticDir));
+  app.use(uploadErrors);
   app.use(errorHandler);
   return app;
 }

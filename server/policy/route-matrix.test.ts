@@ -87,6 +87,7 @@ const matrix: Record<string, Case> = {
   // An invite link is for whoever the mail reached: reading it needs the token, accepting it a signed-in member.
   'GET /api/invites/:token': { allowed: everyone, path: (f) => `/api/invites/${f.inviteToken}` },
   'POST /api/invites/:token/accept': { allowed: signedIn, path: (f) => `/api/invites/${f.inviteToken}/accept` },
+  'POST /api/import': { allowed: everyone, path: () => '/api/import' },
   'GET /{*splat}': { allowed: everyone, path: () => '/library' },
 };
 

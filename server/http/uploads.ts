@@ -1,0 +1,38 @@
+import { createHash } from 'node:crypto';
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import multer from 'multer';
+import type { Database } from '../db/client';
+import { uploads } from '../db/schema';
+import { HttpError } from './errors';
+
+/** The largest file Keyloom takes: a long song is a few hundred kilobytes. */
+export const uploadLimitBytes = 5 * 1024 * 1024;
+
+/** One multipart file field (plus text fields), kept in memory up to the limit. */
+export function singleUpload(field: string): RequestHandler {
+  return multer({ storage: multer.memoryStorage(), limits: { fileSize: uploadLimitBytes, files: 1, fields: 10, fieldSize: 1024 * 1024 } }).single(field);
+}
+
+/** Multer's faults as the JSON error shape: the limit is said in the message. */
+export const uploadErrors: ErrorRequestHandler = (error, _req, _res, next) => {
+  if (!(error instanceof multer.MulterError)) return next(error);
+  if (error.code === 'LIMIT_FILE_SIZE') {
+    return next(new HttpError(413, 'too_large', `file: larger than the limit of ${uploadLimitBytes / 1024 / 1024} MB.`, 'file'));
+  }
+  next(new HttpError(400, 'bad_upload', `${error.field ?? 'upload'}: ${error.message}.`, error.field ?? 'file'));
+};
+
+export function requireFile(file: Express.Multer.File | undefined): Express.Multer.File {
+  if (!file) throw new HttpError(400, 'invalid', 'file: is required: send the file as multipart form data in the field "file".', 'file');
+  if (file.size === 0) throw new HttpError(400, 'invalid', 'file: is empty.', 'file');
+  return file;
+}
+
+/** Keeps a signed-in user's upload in their history, with its checksum. */
+export async function recordUpload(db: Database, userId: string | undefined, purpose: string, file: Express.Multer.File): Promise<string> {
+  const sha256 = createHash('sha256').update(file.buffer).digest('hex');
+  if (userId) {
+    await db.insert(uploads).values({ userId, purpose, fileName: file.originalname.slice(0, 200), byteSize: file.size, sha256 });
+  }
+  return sha256;
+}

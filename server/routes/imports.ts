@@ -1,0 +1,63 @@
+import { Router } from 'express';
+import { presetFromIntervalList } from '../../shared/import/interval-list';
+import { presetFromKeys } from '../../shared/import/tuning-from-keys';
+import { decodeMtsStream } from '../../shared/midi/mts-decode';
+import { parsePresetDocument } from '../../shared/preset/preset-document';
+import type { Result } from '../../shared/result';
+import type { Database } from '../db/client';
+import { HttpError } from '../http/errors';
+import { recordUpload, requireFile, singleUpload } from '../http/uploads';
+import { valueOrThrow } from '../http/validation';
+
+const systemExclusive = 0xf0;
+
+function nameFrom(fileName: string): string {
+  return fileName.replace(/\.[^.]*$/, '').replace(/[_-]+/g, ' ').trim().slice(0, 80) || 'Imported tuning';
+}
+
+/** Reads text only when it is UTF-8 without control bytes: a binary file posted as text is refused. */
+function asText(bytes: Buffer): string {
+  const text = new TextDecoder('utf-8', { fatal: false }).decode(bytes);
+  if (text.includes('\uFFFD') || /[\x00-\x08\x0e-\x1f]/.test(text)) {
+    throw new HttpError(400, 'unreadable', 'file: is neither an .syx file of MTS messages, a preset .json, nor a text list of intervals.', 'file');
+  }
+  return text;
+}
+
+/** A preset document from an .syx of MTS messages, a preset .json, or a text list of intervals. */
+export function importsRouter(db: Database): Router {
+  const router = Router();
+  router.post('/api/import', singleUpload('file'), async (req, res) => {
+    const file = requireFile(req.file);
+    await recordUpload(db, req.user?.id, 'import', file);
+    const name = nameFrom(file.originalname);
+    let document: Result<unknown>;
+    let kind: string;
+    if (file.buffer[0] === systemExclusive) {
+      kind = 'syx';
+      const decoded = decodeMtsStream(new Uint8Array(file.buffer));
+      const imported = decoded.ok ? presetFromKeys(decoded.value.keys, name) : decoded;
+      document = imported.ok ? { ok: true, value: imported.value.document } : imported;
+    } else {
+      const text = asText(file.buffer).trim();
+      if (text.startsWith('{')) {
+        kind = 'preset';
+        let json: unknown;
+        try {
+          json = JSON.parse(text);
+        } catch (error) {
+          throw new HttpError(400, 'bad_json', `file: is not valid JSON (${(error as Error).message}).`, 'file');
+        }
+        document = parsePresetDocument(json);
+      } else {
+        kind = 'intervals';
+        document = presetFromIntervalList(text, name);
+      }
+    }
+    const value = valueOrThrow(document);
+    // Whatever came in must stand as a preset of its own before it is handed back.
+    const checked = valueOrThrow(parsePresetDocument(value));
+    res.json({ kind, document: kind === 'preset' ? checked : value });
+  });
+  return router;
+}
