@@ -11,7 +11,7 @@ import { createMailer } from '../../server/mail/mailer';
 export async function startTestServer(env: Record<string, string> = {}) {
   const github = await startFakeGitHub();
   const mailbox = await startMailbox();
-  const databaseUrl = inject('databaseUrl');
+  const databaseUrl = env['DATABASE_URL'] ?? inject('databaseUrl');
   const config = loadConfig({
     DATABASE_URL: databaseUrl,
     PUBLIC_URL: 'http://127.0.0.1:3000',
