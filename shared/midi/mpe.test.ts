@@ -47,6 +47,8 @@ describe('member channel allocation', () => {
     allocator.start('b');
     expect(allocator.start('c')).toEqual({ channel: 2, stolen: 'a' });
     expect(allocator.start('d')).toEqual({ channel: 3, stolen: 'b' });
-    expect(allocator.soundingNotes().map((entry) => entry.note)).toEqual(['c', 'd']);
+    allocator.release(3);
+    expect(allocator.start('e')).toEqual({ channel: 3, stolen: null });
+    expect(allocator.start('f')).toEqual({ channel: 2, stolen: 'c' });
   });
 });

@@ -90,9 +90,4 @@ export class MemberChannelAllocator<Note> {
     this.sounding.splice(index, 1);
     this.free.push(channel);
   }
-
-  /** The channels whose notes sound now, with their notes, the oldest first. */
-  soundingNotes(): readonly { channel: number; note: Note }[] {
-    return this.sounding;
-  }
 }

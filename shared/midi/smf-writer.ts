@@ -133,6 +133,11 @@ export class TrackWriter {
     this.runningStatus = -1;
   }
 
+  /** The events written so far, with no end of track: to go in front of another track's events. */
+  eventBytes(): Uint8Array {
+    return this.buffer.toBytes();
+  }
+
   /** The track's bytes, closed by an end-of-track event at `endTick` (or at the last event if earlier). */
   finish(endTick = this.lastTick): Uint8Array {
     this.meta(Math.max(endTick, this.lastTick), endOfTrack, []);

@@ -1,0 +1,247 @@
+import { Midi } from '@tonejs/midi';
+import * as fc from 'fast-check';
+import { type MidiEvent, parseMidi } from 'midi-file';
+import { describe, expect, it } from 'vitest';
+import { centsBetween, pureFifthsOnWhiteKeys } from './key-tables.testing';
+import { decodeMtsStream } from './mts-decode';
+import { centsOfBendValue } from './pitch-bend';
+import { readSong } from './smf-reader';
+import { merged, notesOn, songOf, songs, type TestEvent } from './songs.testing';
+import { retuneSong, type SongTuning } from './song-retune';
+
+const output = { deviceId: 0x7f, program: 4, bank: 0, tuningName: 'FIFTHS C', bendRange: 2, memberChannels: [2, 16] as const };
+const tuning: SongTuning = { keys: pureFifthsOnWhiteKeys, output };
+
+const conductor: TestEvent[] = [
+  { tick: 0, bytes: [0xff, 0x03, 0x53, 0x6f, 0x6e, 0x67] },
+  { tick: 0, bytes: [0xff, 0x51, 0x07, 0xa1, 0x20] },
+];
+/** Piano on channel 1: a chord C E G, the song bending it up a semitone halfway, then D and C# (unmapped) with the pedal. */
+const piano = merged(
+  [
+    { tick: 0, bytes: [0xc0, 0] },
+    { tick: 0, bytes: [0xb0, 7, 90] },
+    { tick: 480, bytes: [0xe0, 0x00, 0x60] },
+    { tick: 960, bytes: [0xb0, 64, 127] },
+    { tick: 1440, bytes: [0xb0, 64, 0] },
+    { tick: 1440, bytes: [0xe0, 0x00, 0x40] },
+  ],
+  notesOn(1, [[60, 0, 960], [64, 0, 960], [67, 0, 960], [62, 960, 1440], [61, 1440, 1920]]),
+);
+/** Strings on channel 2, after a General MIDI reset; drums on channel 10. */
+const strings = merged(
+  [
+    { tick: 0, bytes: [0xf0, 0x7e, 0x7f, 0x09, 0x01, 0xf7] },
+    { tick: 0, bytes: [0xc1, 48] },
+  ],
+  notesOn(2, [[69, 0, 1920], [71, 960, 1920]]),
+);
+const drums = notesOn(10, [[36, 0, 240], [38, 480, 720], [36, 960, 1200]]);
+const song = songOf(1, [conductor, piano, strings, drums]);
+
+function retuned(bytes: Uint8Array, mode: 'mts' | 'mpe', withTuning = tuning) {
+  const result = retuneSong(bytes, withTuning, mode);
+  if (!result.ok) throw new Error(result.errors[0].message);
+  return result.value;
+}
+
+/** The notes as @tonejs/midi reads them: channel (0-15), key, start and length in ticks. */
+function notesOf(bytes: Uint8Array) {
+  return new Midi(bytes).tracks
+    .flatMap((track) => track.notes.map((note) => ({ channel: track.channel, key: note.midi, ticks: note.ticks, length: note.durationTicks })))
+    .sort((a, b) => a.ticks - b.ticks || a.key - b.key || a.channel - b.channel);
+}
+
+function absolute(track: MidiEvent[]): (MidiEvent & { tick: number })[] {
+  let tick = 0;
+  return track.map((event) => ({ ...event, tick: (tick += event.deltaTime) }));
+}
+
+describe('retuning a song with MTS', () => {
+  const { bytes, report } = retuned(song, 'mts');
+
+  it('puts the tuning at the start of the first track and leaves every other byte as it was', () => {
+    const trackStart = 14;
+    const originalLength = new DataView(song.buffer).getUint32(trackStart + 4);
+    const newLength = new DataView(bytes.buffer).getUint32(trackStart + 4);
+    const inserted = newLength - originalLength;
+    expect(inserted).toBeGreaterThan(408);
+    expect([...bytes.subarray(0, trackStart + 4)]).toEqual([...song.subarray(0, trackStart + 4)]);
+    expect([...bytes.subarray(trackStart + 8 + inserted)]).toEqual([...song.subarray(trackStart + 8)]);
+    expect(notesOf(bytes)).toEqual(notesOf(song));
+  });
+
+  it('tunes at tick 0 with a dump and single-note changes, read back by midi-file', () => {
+    const first = absolute(parseMidi(bytes).tracks[0]);
+    const sysex = first.filter((event) => event.type === 'sysEx').map((event) => ('data' in event ? [0xf0, ...Array.from(event.data)] : []));
+    expect(first.filter((event) => event.type === 'sysEx').every((event) => event.tick === 0)).toBe(true);
+    const decoded = decodeMtsStream(Uint8Array.from(sysex.flat()));
+    if (!decoded.ok) throw new Error(decoded.errors[0].message);
+    // REFERENCE.md: MTS 01 bulk dump and 02 single-note changes; a just fifth G4 = 392.4383 Hz
+    expect(decoded.value.messages.map((message) => message.kind)).toEqual(['bulk-dump', 'single-note', 'single-note', 'single-note']);
+    expect(decoded.value.keys[67].hz).toBeCloseTo(392.4383, 3);
+  });
+
+  it('selects the tuning with RPN 4 and 3 on the channels that play notes, not on the drums', () => {
+    const controllers = absolute(parseMidi(bytes).tracks[0]).filter((event) => event.type === 'controller');
+    const dataEntries = controllers.filter((event) => 'controllerType' in event && event.controllerType === 6);
+    // REFERENCE.md: selecting a tuning program/bank, Bn 64 03 65 00 06 tt (program), RPN 4 for the bank
+    expect(dataEntries.map((event) => ('value' in event ? [event.channel + 1, event.value] : []))).toEqual([[1, 0], [1, 4], [2, 0], [2, 4]]);
+    expect(report).toMatchObject({ mode: 'mts', channelsUsed: [1, 2], notesStolen: [], warnings: [] });
+    expect(report.notesRetuned).toBe(6);
+  });
+
+  it('keeps running status, meta and system exclusive events of a format 0 song untouched', () => {
+    const formatZero = songOf(0, [merged(conductor, piano, strings, drums)], true);
+    const again = retuned(formatZero, 'mts').bytes;
+    const inserted = again.length - formatZero.length;
+    expect([...again.subarray(22 + inserted)]).toEqual([...formatZero.subarray(22)]);
+    expect(parseMidi(again).tracks[0].filter((event) => event.type === 'noteOn')).toHaveLength(10);
+  });
+});
+
+describe('retuning a song as MPE', () => {
+  const { bytes, report } = retuned(song, 'mpe');
+  const tracks = parseMidi(bytes).tracks.map(absolute);
+  const events = tracks.flat().sort((a, b) => a.tick - b.tick);
+
+  it('keeps every note with its timing, moving all but the drums to member channels', () => {
+    const before = notesOf(song);
+    const after = notesOf(bytes);
+    expect(after.map((note) => [note.ticks, note.length])).toEqual(before.map((note) => [note.ticks, note.length]));
+    expect(after.filter((note) => note.channel === 9)).toEqual(before.filter((note) => note.channel === 9));
+    expect(after.filter((note) => note.channel !== 9).every((note) => note.channel >= 1 && note.channel <= 15)).toBe(true);
+    expect(report.channelsUsed.includes(10)).toBe(false);
+    expect(report.warnings.map((warning) => warning.message)).toEqual([
+      'output.memberChannels: include channel 10, which the song uses for drums: notes were kept off it',
+    ]);
+  });
+
+  it('sounds each note at its tuned pitch plus the song\'s own bend, bend sent just before the note-on', () => {
+    const bends = new Map<number, number>();
+    const sounding = new Map<number, number>();
+    const starts: [number, number][] = [];
+    for (const event of events) {
+      if (event.type === 'pitchBend') bends.set(event.channel, event.value + 8192);
+      if (event.type === 'noteOn' && event.channel !== 9) {
+        expect(sounding.has(event.channel)).toBe(false);
+        sounding.set(event.channel, event.noteNumber);
+        const cents = (event.noteNumber - 69) * 100 + centsOfBendValue(bends.get(event.channel) ?? 8192, 2);
+        starts.push([event.tick, cents]);
+      }
+      if (event.type === 'noteOff') sounding.delete(event.channel);
+    }
+    const key = (hzOrNull: number | null) => 1200 * Math.log2((hzOrNull ?? 0) / 440);
+    const keys = pureFifthsOnWhiteKeys;
+    // The piano's bend 0x3000 above centre is +1 semitone of its default range of 2 (MIDI 1.0: 100 * 2 * 4096/8192)
+    const expected: [number, number][] = [
+      [0, key(keys[60].hz)], [0, key(keys[64].hz)], [0, key(keys[67].hz)], [0, key(keys[69].hz)],
+      [960, key(keys[62].hz) + 100], [960, key(keys[71].hz)], [1440, (61 - 69) * 100],
+    ];
+    const sort = (list: [number, number][]) => list.sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+    sort(starts).forEach(([tick, cents], index) => {
+      expect(tick).toBe(sort(expected)[index][0]);
+      // REFERENCE.md: MIDI 1.0 resolution at +-2 semitones, 0.0244140625 cents per step; half a step at most
+      expect(Math.abs(cents - expected[index][1])).toBeLessThanOrEqual(0.0244140625 / 2 + 1e-9);
+    });
+    expect(report.notesRetuned).toBe(6);
+  });
+
+  it('bends the chord already sounding when the song bends its channel', () => {
+    const at480 = events.filter((event) => event.tick === 480 && event.type === 'pitchBend');
+    expect(at480).toHaveLength(3);
+    // REFERENCE.md: just E4 = 331.1199 Hz against equal-tempered 329.6276 Hz (+7.82 cents), plus 100 cents
+    const eBend = at480.map((event) => ('value' in event ? centsOfBendValue(event.value + 8192, 2) : 0)).sort((a, b) => a - b)[2];
+    expect(eBend).toBeCloseTo(100 + centsBetween(329.6276, 331.1199), 1);
+  });
+
+  it('gives each member channel the program and controllers of the song channel it plays for', () => {
+    const state = new Map<number, { program: number; volume: number }>();
+    for (const event of events) {
+      const channel = 'channel' in event ? event.channel : -1;
+      const now = state.get(channel) ?? { program: 0, volume: 100 };
+      if (event.type === 'programChange') state.set(channel, { ...now, program: event.programNumber });
+      if (event.type === 'controller' && event.controllerType === 7) state.set(channel, { ...now, volume: event.value });
+      if (event.type === 'noteOn' && channel !== 9) {
+        const strings = event.noteNumber === 69 || event.noteNumber === 71;
+        expect(state.get(channel)).toEqual(strings ? { program: 48, volume: 100 } : { program: 0, volume: 90 });
+      }
+    }
+    const pedal = events.filter((event) => event.type === 'controller' && event.controllerType === 64);
+    expect(pedal.map((event) => [event.tick, 'value' in event ? event.value : -1])).toContainEqual([960, 127]);
+    expect(events.some((event) => event.type === 'sysEx' && event.tick === 0)).toBe(true);
+  });
+
+  it('configures the zone and the bend range first', () => {
+    const first = tracks[0].filter((event) => event.type === 'controller').slice(0, 3);
+    // REFERENCE.md: MPE configuration on the manager channel, Bn 64 06, Bn 65 00, Bn 06 count
+    expect(first.map((event) => ('controllerType' in event ? [event.channel, event.controllerType, event.value] : []))).toEqual([
+      [0, 0x64, 6], [0, 0x65, 0], [0, 0x06, 15],
+    ]);
+  });
+
+  it('cuts off the oldest note when more notes sound than there are member channels, and says which', () => {
+    const cluster = songOf(0, [notesOn(1, [[60, 0, 960], [62, 10, 960], [64, 20, 960], [65, 30, 960], [67, 40, 960]])]);
+    const { bytes: narrow, report: stolenReport } = retuned(cluster, 'mpe', { ...tuning, output: { ...output, memberChannels: [2, 4] } });
+    expect(stolenReport.notesStolen).toEqual([
+      { track: 1, channel: 1, key: 60, startTick: 0, stolenAtTick: 30, memberChannel: 2 },
+      { track: 1, channel: 1, key: 62, startTick: 10, stolenAtTick: 40, memberChannel: 3 },
+    ]);
+    expect(stolenReport.channelsUsed).toEqual([2, 3, 4]);
+    expect(notesOf(narrow).map((note) => [note.ticks, note.length])).toEqual([[0, 30], [10, 30], [20, 940], [30, 930], [40, 920]]);
+    expect(stolenReport.warnings.at(-1)?.message).toMatch(/give 3 channels, but more notes sounded at once: 2 were cut short/);
+  });
+
+  it('honours the bend range a song sets on its own channel', () => {
+    const wide = songOf(0, [merged(
+      [
+        { tick: 0, bytes: [0xb0, 101, 0] }, { tick: 0, bytes: [0xb0, 100, 0] }, { tick: 0, bytes: [0xb0, 6, 12] },
+        { tick: 0, bytes: [0xe0, 0x00, 0x50] },
+      ],
+      notesOn(1, [[60, 10, 100]]),
+    )]);
+    const { bytes: out } = retuned(wide, 'mpe', { ...tuning, output: { ...output, bendRange: 24 } });
+    const bend = parseMidi(out).tracks[0].find((event) => event.type === 'pitchBend');
+    // A quarter of a 12-semitone range is 300 cents; C4 is unchanged by the tuning
+    expect(bend && 'value' in bend && centsOfBendValue(bend.value + 8192, 24)).toBeCloseTo(300, 6);
+    const dataEntries = parseMidi(out).tracks[0].filter((event) => event.type === 'controller' && event.controllerType === 6);
+    expect(dataEntries.map((event) => ('value' in event ? event.value : -1))).not.toContain(12);
+  });
+});
+
+describe('retuning any song', () => {
+  it('keeps every note and its timing in both modes, read back by midi-file and @tonejs/midi', () => {
+    fc.assert(
+      fc.property(songs, (input) => {
+        const before = notesOf(input);
+        const mts = retuned(input, 'mts');
+        expect(notesOf(mts.bytes)).toEqual(before);
+        const mpe = retuned(input, 'mpe', { ...tuning, output: { ...output, memberChannels: [1, 16] } });
+        expect(parseMidi(mpe.bytes).tracks).toHaveLength(parseMidi(input).tracks.length);
+        const starts = (notes: { ticks: number }[]) => notes.map((note) => note.ticks);
+        expect(starts(notesOf(mpe.bytes))).toEqual(starts(before));
+        const notes = notesOf(mpe.bytes).filter((note) => note.channel !== 9);
+        expect(mpe.report.notesStolen.length === 0 || notes.length > 15 || before.some((note) => note.channel === 9)).toBe(true);
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('answers damaged and random bytes with an error, never an exception', () => {
+    fc.assert(
+      fc.property(songs, fc.nat(), fc.constantFrom('mts' as const, 'mpe' as const), (input, cut, mode) => {
+        const truncated = input.subarray(0, cut % input.length);
+        const result = retuneSong(truncated, tuning, mode);
+        expect(result.ok).toBe(readSong(truncated, () => undefined).ok);
+      }),
+      { numRuns: 500 },
+    );
+    fc.assert(
+      fc.property(fc.uint8Array({ maxLength: 300 }), fc.constantFrom('mts' as const, 'mpe' as const), (bytes, mode) => {
+        const withHeader = Uint8Array.of(0x4d, 0x54, 0x68, 0x64, 0, 0, 0, 6, 0, 1, 0, 2, 0, 96, 0x4d, 0x54, 0x72, 0x6b, 0, 0, 0, bytes.length, ...bytes);
+        expect(typeof retuneSong(withHeader, tuning, mode).ok).toBe('boolean');
+      }),
+      { numRuns: 1000 },
+    );
+  });
+});
