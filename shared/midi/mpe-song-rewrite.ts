@@ -4,7 +4,7 @@ import { bendCentre, bendForPitch, bendStepCents, centsOfBendValue, nearestBendV
 import { readSong } from './smf-reader';
 import { standardMidiFile, TrackWriter } from './smf-writer';
 import type { RetunedSong, SongTuning, StolenNote } from './song-retune';
-import { ChannelState, emptyTrackEvents, MemberChannel, mergedOrder, type SongTrackEvents } from './song-channel-state';
+import { ChannelState, MemberChannel, mergedOrder, SongTrackEvents } from './song-channel-state';
 import { unreachableKeysWarning } from './unreachable-keys';
 
 /**
@@ -58,18 +58,12 @@ export function rewriteAsMpe(song: Uint8Array, tuning: SongTuning): Result<Retun
   const tracks: SongTrackEvents[] = [];
   let usesDrums = false;
   const layout = readSong(song, (track, tick, status, data1, data2, start, end) => {
-    const events = (tracks[track] ??= emptyTrackEvents());
-    events.ticks.push(tick);
-    events.statuses.push(status);
-    events.data1.push(data1);
-    events.data2.push(data2);
-    events.starts.push(start);
-    events.ends.push(end);
+    (tracks[track] ??= new SongTrackEvents()).add(tick, status, data1, data2, start, end);
     if ((status & 0x0f) === drumChannelIndex && status < 0xf0) usesDrums = true;
   });
   if (!layout.ok) return layout;
   const { trackCount, chunks, format, division } = layout.value;
-  for (let track = 0; track < trackCount; track++) tracks[track] ??= emptyTrackEvents();
+  for (let track = 0; track < trackCount; track++) tracks[track] ??= new SongTrackEvents();
 
   const { bendRange } = tuning.output;
   const zone = mpeZoneOf(tuning.output.memberChannels);
@@ -84,7 +78,7 @@ export function rewriteAsMpe(song: Uint8Array, tuning: SongTuning): Result<Retun
   if (chunks.some((chunk) => !chunk.isTrack)) warnings.push(fieldError('file', 'holds chunks that are not tracks: they were left out'));
   const { played, tuningCents, mapped, unreachable } = keyPlaying(tuning);
 
-  const writers = tracks.map((events) => new TrackWriter(true, 64 + events.ticks.length * 5));
+  const writers = tracks.map((events) => new TrackWriter(true, 64 + events.length * 5));
   writers[0].channelMessages(0, mpeSetupMessages(zone, bendRange));
   const sources = Array.from({ length: 16 }, () => new ChannelState());
   const members = Array.from({ length: 16 }, () => new MemberChannel<SoundingNote>());
@@ -151,9 +145,10 @@ export function rewriteAsMpe(song: Uint8Array, tuning: SongTuning): Result<Retun
     const events = tracks[track];
     writer = writers[track];
     tick = events.ticks[index];
-    const status = events.statuses[index];
-    const data1 = events.data1[index];
-    const data2 = events.data2[index];
+    const message = events.messages[index];
+    const status = message >> 16;
+    const data1 = (message >> 8) & 0xff;
+    const data2 = message & 0xff;
     if (status >= 0xf0) {
       if (status === 0xff && data1 === 0x2f) endTicks[track] = tick;
       else writer.copiedEvent(tick, song, events.starts[index], events.ends[index]);

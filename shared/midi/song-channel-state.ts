@@ -6,18 +6,39 @@ import type { TrackWriter } from './smf-writer';
  * order the song's events sound in across tracks.
  */
 
-/** A track's events as columns, in file order; `starts`/`ends` locate each event's bytes in the song. */
-export interface SongTrackEvents {
-  ticks: number[];
-  statuses: number[];
-  data1: number[];
-  data2: number[];
-  starts: number[];
-  ends: number[];
-}
+/**
+ * A track's events as columns of typed arrays, in file order: the tick, the status and data bytes packed into one
+ * number, and where each event's bytes lie in the song (`start`..`end`). Grows by doubling.
+ */
+export class SongTrackEvents {
+  length = 0;
+  ticks = new Float64Array(256);
+  /** status << 16 | data1 << 8 | data2 */
+  messages = new Int32Array(256);
+  starts = new Int32Array(256);
+  ends = new Int32Array(256);
 
-export function emptyTrackEvents(): SongTrackEvents {
-  return { ticks: [], statuses: [], data1: [], data2: [], starts: [], ends: [] };
+  add(tick: number, status: number, data1: number, data2: number, start: number, end: number): void {
+    if (this.length === this.ticks.length) this.grow();
+    const index = this.length++;
+    this.ticks[index] = tick;
+    this.messages[index] = (status << 16) | (data1 << 8) | data2;
+    this.starts[index] = start;
+    this.ends[index] = end;
+  }
+
+  private grow(): void {
+    const capacity = this.ticks.length * 2;
+    const grown = <T extends Float64Array | Int32Array>(column: T, make: new (size: number) => T): T => {
+      const larger = new make(capacity);
+      larger.set(column);
+      return larger;
+    };
+    this.ticks = grown(this.ticks, Float64Array);
+    this.messages = grown(this.messages, Int32Array);
+    this.starts = grown(this.starts, Int32Array);
+    this.ends = grown(this.ends, Int32Array);
+  }
 }
 
 /**
@@ -26,7 +47,7 @@ export function emptyTrackEvents(): SongTrackEvents {
  */
 export function mergedOrder(tracks: readonly SongTrackEvents[], visit: (track: number, index: number) => void): void {
   const positions = new Array<number>(tracks.length).fill(0);
-  const heap = tracks.flatMap((events, track) => (events.ticks.length > 0 ? [track] : []));
+  const heap = tracks.flatMap((events, track) => (events.length > 0 ? [track] : []));
   const before = (a: number, b: number) => {
     const tickA = tracks[a].ticks[positions[a]];
     const tickB = tracks[b].ticks[positions[b]];
@@ -50,7 +71,7 @@ export function mergedOrder(tracks: readonly SongTrackEvents[], visit: (track: n
     const track = heap[0];
     visit(track, positions[track]);
     positions[track]++;
-    if (positions[track] >= tracks[track].ticks.length) {
+    if (positions[track] >= tracks[track].length) {
       const last = heap.pop() as number;
       if (heap.length === 0) break;
       heap[0] = last;
