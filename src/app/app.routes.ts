@@ -3,7 +3,9 @@ import { Routes } from '@angular/router';
 export const routes: Routes = [
   { path: '', pathMatch: 'full', redirectTo: 'design' },
   { path: 'design', title: 'Design · Keyloom', loadComponent: () => import('./design/design-page').then((m) => m.DesignPage) },
+  { path: 'presets/:id', title: 'Preset · Keyloom', loadComponent: () => import('./design/design-page').then((m) => m.DesignPage) },
   { path: 'library', title: 'Library · Keyloom', loadComponent: () => import('./library/library-page').then((m) => m.LibraryPage) },
+  { path: 'library/:id/history', title: 'History · Keyloom', loadComponent: () => import('./library/history-page').then((m) => m.HistoryPage) },
   { path: 'retune', title: 'Retune · Keyloom', loadComponent: () => import('./retune/retune-page').then((m) => m.RetunePage) },
   { path: 'bands', title: 'Bands · Keyloom', loadComponent: () => import('./bands/bands-page').then((m) => m.BandsPage) },
   { path: '**', title: 'Not found · Keyloom', loadComponent: () => import('./not-found/not-found-page').then((m) => m.NotFoundPage) },

@@ -1,12 +1,240 @@
-import { Component } from '@angular/core';
+import { DatePipe } from '@angular/common';
+import { Component, computed, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatSortModule, Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { Router, RouterLink } from '@angular/router';
+import { EMPTY, catchError, debounceTime, distinctUntilChanged, filter, map, switchMap, tap } from 'rxjs';
+import { Session } from '../auth/session';
+import { BandSummary, BandsApi } from '../bands/bands-api';
+import { ShareDialog, ShareDialogData } from '../share/share-dialog';
+import { apiErrorMessage } from './api-error';
+import { ForkDialog, ForkDialogData, ForkTarget } from './fork-dialog';
+import { LibraryApi, PresetPage, PresetQuery, PresetRow, PresetSort } from './library-api';
+import { SignInPrompt } from './sign-in-prompt';
 
-/** Saved presets of the member and of their bands. */
+const searchDelayMs = 300;
+
+/** My presets and my bands': search, filter by band, sort, page, and the trash. */
 @Component({
   selector: 'app-library-page',
-  template: `
-    <h1>Library</h1>
-    <p>Your presets and your bands' presets, with every saved revision.</p>
-  `,
-  styles: `h1 { font: var(--mat-sys-headline-small); margin: 8px 0 12px; } p { max-width: 60ch; }`,
+  imports: [
+    DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule,
+    MatSelectModule, MatButtonModule, MatButtonToggleModule, MatIconModule, MatMenuModule, MatProgressBarModule,
+    SignInPrompt,
+  ],
+  templateUrl: './library-page.html',
+  styleUrl: './library-page.scss',
 })
-export class LibraryPage {}
+export class LibraryPage {
+  private readonly api = inject(LibraryApi);
+  private readonly bandsApi = inject(BandsApi);
+  private readonly router = inject(Router);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  protected readonly session = inject(Session);
+
+  /** `?band=<id>`: only that band's presets. */
+  readonly band = input<string>();
+  /** `?view=trash`: what waits in the trash. */
+  readonly view = input<string>();
+
+  protected readonly searchText = signal('');
+  private readonly q = signal('');
+  protected readonly sort = signal<PresetSort>('-updated');
+  protected readonly pageIndex = signal(0);
+  protected readonly pageSize = signal(20);
+  private readonly reloads = signal(0);
+
+  protected readonly trash = computed(() => this.view() === 'trash');
+  protected readonly bandId = computed(() => this.band() ?? null);
+  protected readonly bands = signal<BandSummary[]>([]);
+  protected readonly page = signal<PresetPage | null>(null);
+  protected readonly loading = signal(false);
+  protected readonly failure = signal<string | null>(null);
+
+  protected readonly columns = computed(() =>
+    this.trash()
+      ? ['name', 'library', 'owner', 'revision', 'deleted', 'actions']
+      : ['name', 'library', 'owner', 'revision', 'updated', 'actions'],
+  );
+  protected readonly filteredBandName = computed(() => this.bands().find((b) => b.id === this.bandId())?.name ?? null);
+
+  private readonly signedIn = computed(() => Boolean(this.session.member()));
+  private readonly query = computed<PresetQuery | null>(() => {
+    this.reloads();
+    if (!this.signedIn()) return null;
+    return {
+      q: this.q(),
+      sort: this.sort(),
+      page: this.pageIndex() + 1,
+      pageSize: this.pageSize(),
+      bandId: this.bandId(),
+      trash: this.trash(),
+    };
+  });
+
+  constructor() {
+    toObservable(this.searchText)
+      .pipe(debounceTime(searchDelayMs), map((text) => text.trim()), distinctUntilChanged(), takeUntilDestroyed())
+      .subscribe((q) => {
+        this.pageIndex.set(0);
+        this.q.set(q);
+      });
+    toObservable(this.query)
+      .pipe(
+        filter((query): query is PresetQuery => query !== null),
+        tap(() => this.loading.set(true)),
+        switchMap((query) =>
+          this.api.presets(query).pipe(
+            catchError((error: unknown) => {
+              this.failure.set(apiErrorMessage(error, 'The library could not be loaded.'));
+              this.loading.set(false);
+              return EMPTY;
+            }),
+          ),
+        ),
+        takeUntilDestroyed(),
+      )
+      .subscribe((page) => {
+        this.page.set(page);
+        this.failure.set(null);
+        this.loading.set(false);
+      });
+    toObservable(this.signedIn)
+      .pipe(
+        filter(Boolean),
+        switchMap(() => this.bandsApi.bands().pipe(catchError(() => EMPTY))),
+        takeUntilDestroyed(),
+      )
+      .subscribe((bands) => this.bands.set(bands));
+  }
+
+  protected sortBy(sort: Sort): void {
+    const by = sort.active === 'name' ? 'name' : 'updated';
+    this.sort.set(sort.direction === '' ? '-updated' : sort.direction === 'asc' ? by : `-${by}`);
+    this.pageIndex.set(0);
+  }
+
+  protected turnPage(event: PageEvent): void {
+    this.pageIndex.set(event.pageIndex);
+    this.pageSize.set(event.pageSize);
+  }
+
+  protected filterByBand(bandId: string | null): void {
+    this.showWith({ band: bandId });
+  }
+
+  protected switchView(view: 'presets' | 'trash'): void {
+    this.showWith({ view: view === 'trash' ? 'trash' : null });
+  }
+
+  protected clearSearch(): void {
+    this.searchText.set('');
+  }
+
+  protected libraryOf(row: PresetRow): string {
+    return row.bandName ?? 'My library';
+  }
+
+  protected ownerOf(row: PresetRow): string {
+    return row.ownerId === this.session.member()?.id ? 'you' : row.ownerLogin;
+  }
+
+  /** Whether my role lets me change this preset: my own, or a band's where I am an editor or owner. */
+  protected canChange(row: PresetRow): boolean {
+    if (!row.bandId) return row.ownerId === this.session.member()?.id;
+    const role = this.bands().find((band) => band.id === row.bandId)?.role;
+    return role === 'owner' || role === 'editor';
+  }
+
+  protected openPreset(row: PresetRow): void {
+    void this.router.navigate(['/presets', row.id]);
+  }
+
+  protected openHistory(row: PresetRow): void {
+    void this.router.navigate(['/library', row.id, 'history']);
+  }
+
+  protected forkPreset(row: PresetRow): void {
+    const targets: ForkTarget[] = [
+      { bandId: null, label: 'My library' },
+      ...this.bands()
+        .filter((band) => band.role !== 'viewer')
+        .map((band) => ({ bandId: band.id, label: `${band.name} (band)` })),
+    ];
+    this.dialog
+      .open<ForkDialog, ForkDialogData, { bandId: string | null }>(ForkDialog, { data: { name: row.name, targets } })
+      .afterClosed()
+      .pipe(
+        filter((choice) => choice !== undefined),
+        switchMap((choice) => this.api.fork(row.id, choice.bandId).pipe(map((id) => ({ id, choice })))),
+      )
+      .subscribe({
+        next: ({ id, choice }) => {
+          this.reload();
+          const where = targets.find((target) => target.bandId === choice.bandId)?.label ?? 'My library';
+          this.snackBar
+            .open(`Forked “${row.name}” into ${where}.`, 'Open the fork', { duration: 10000 })
+            .onAction()
+            .subscribe(() => void this.router.navigate(['/presets', id]));
+        },
+        error: (error: unknown) => this.tell(apiErrorMessage(error, 'The fork could not be made.')),
+      });
+  }
+
+  protected sharePreset(row: PresetRow): void {
+    this.dialog.open<ShareDialog, ShareDialogData>(ShareDialog, {
+      data: { presetId: row.id, revision: row.revision, name: row.name },
+      width: '560px',
+      maxWidth: '95vw',
+    });
+  }
+
+  protected moveToTrash(row: PresetRow): void {
+    this.api.moveToTrash(row.id).subscribe({
+      next: () => {
+        this.reload();
+        this.snackBar
+          .open(`“${row.name}” is in the trash for 30 days.`, 'Undo', { duration: 10000 })
+          .onAction()
+          .subscribe(() => this.restoreFromTrash(row));
+      },
+      error: (error: unknown) => this.tell(apiErrorMessage(error, 'The preset could not be moved to the trash.')),
+    });
+  }
+
+  protected restoreFromTrash(row: PresetRow): void {
+    this.api.restoreFromTrash(row.id).subscribe({
+      next: () => {
+        this.reload();
+        this.tell(`“${row.name}” is back in the library.`);
+      },
+      error: (error: unknown) => this.tell(apiErrorMessage(error, 'The preset could not be brought back.')),
+    });
+  }
+
+  private showWith(params: { band?: string | null; view?: string | null }): void {
+    this.pageIndex.set(0);
+    void this.router.navigate([], { queryParams: params, queryParamsHandling: 'merge' });
+  }
+
+  private reload(): void {
+    this.reloads.update((n) => n + 1);
+  }
+
+  private tell(message: string): void {
+    this.snackBar.open(message, 'Close', { duration: 8000 });
+  }
+}

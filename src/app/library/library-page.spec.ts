@@ -1,0 +1,232 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { provideRouter, withComponentInputBinding } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
+import { Member, Session } from '../auth/session';
+import { BandSummary } from '../bands/bands-api';
+import { PresetRow } from './library-api';
+import { LibraryPage } from './library-page';
+
+const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
+const bands: BandSummary[] = [
+  { id: 'b-fen', name: 'Copper Fen', role: 'editor', createdAt: '2026-11-01T10:00:00Z' },
+  { id: 'b-reed', name: 'Reed Hollow', role: 'viewer', createdAt: '2026-11-02T10:00:00Z' },
+];
+const fenFifths: PresetRow = {
+  id: 'p1', name: 'Fen Fifths', bandId: 'b-fen', bandName: 'Copper Fen', ownerId: 'u-mira', ownerLogin: 'mira-vale',
+  revision: 3, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null,
+};
+const reedOrgan: PresetRow = {
+  id: 'p2', name: 'Reed Organ Meantone', bandId: null, bandName: null, ownerId: 'u-mira', ownerLogin: 'mira-vale',
+  revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null,
+};
+const hollowDrone: PresetRow = {
+  id: 'p3', name: 'Hollow Drone', bandId: 'b-reed', bandName: 'Reed Hollow', ownerId: 'u-tobias', ownerLogin: 'tobias-reed',
+  revision: 2, updatedAt: '2026-11-10T15:00:00Z', deletedAt: null,
+};
+
+describe('LibraryPage', () => {
+  let http: HttpTestingController;
+  let harness: RouterTestingHarness;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter([{ path: 'library', component: LibraryPage }], withComponentInputBinding()),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+      ],
+    });
+    http = TestBed.inject(HttpTestingController);
+  });
+
+  afterEach(() => http.verify());
+
+  const page = () => harness.routeNativeElement as HTMLElement;
+
+  async function settle() {
+    await harness.fixture.whenStable();
+    harness.detectChanges();
+  }
+
+  function presetRequest(): TestRequest {
+    return http.expectOne((request) => request.url === '/api/presets');
+  }
+
+  async function open(url: string, rows = [fenFifths, reedOrgan, hollowDrone]) {
+    TestBed.inject(Session).member.set(mira);
+    harness = await RouterTestingHarness.create(url);
+    await settle();
+    http.expectOne('/api/bands').flush({ items: bands });
+    const request = presetRequest();
+    request.flush({ items: rows, total: 41, page: 1, pageSize: 20 });
+    await settle();
+    return request;
+  }
+
+  function rowTexts(): string[] {
+    return Array.from(page().querySelectorAll('tr.mat-mdc-row')).map((row) => row.textContent!.replace(/\s+/g, ' ').trim());
+  }
+
+  function menuItem(label: string): HTMLButtonElement {
+    return Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-menu-panel button')).find((b) =>
+      b.textContent!.includes(label),
+    )!;
+  }
+
+  async function openRowMenu(name: string) {
+    page().querySelector<HTMLButtonElement>(`button[aria-label="Actions for ${name}"]`)!.click();
+    await settle();
+  }
+
+  it('asks a signed-out visitor to sign in and come back to the library', async () => {
+    TestBed.inject(Session).member.set(null);
+    harness = await RouterTestingHarness.create('/library');
+    await settle();
+    const link = page().querySelector<HTMLAnchorElement>('a.sign-in-link')!;
+    expect(link.textContent).toContain('Sign in to see your library');
+    expect(link.getAttribute('href')).toBe('/auth/github?next=%2Flibrary');
+    expect(page().querySelector('table')).toBeNull();
+  });
+
+  it('shows my presets and my bands\' from the server, newest first', async () => {
+    const request = await open('/library');
+    expect(request.request.params.get('sort')).toBe('-updated');
+    expect(request.request.params.get('page')).toBe('1');
+    expect(request.request.params.get('pageSize')).toBe('20');
+    expect(request.request.params.has('trash')).toBeFalse();
+    const rows = rowTexts();
+    expect(rows.length).toBe(3);
+    expect(rows[0]).toContain('Fen Fifths');
+    expect(rows[0]).toContain('Copper Fen');
+    expect(rows[0]).toContain('you');
+    expect(rows[1]).toContain('My library');
+    expect(rows[2]).toContain('tobias-reed');
+    expect(page().querySelector<HTMLAnchorElement>('a.name')!.getAttribute('href')).toBe('/presets/p1');
+    expect(page().querySelector('.mat-mdc-paginator-range-label')!.textContent).toContain('41');
+  });
+
+  it('asks the server to sort by name when the name header is clicked', async () => {
+    await open('/library');
+    page().querySelector<HTMLElement>('th.mat-column-name')!.click();
+    await settle();
+    const request = presetRequest();
+    expect(request.request.params.get('sort')).toBe('name');
+    expect(request.request.params.get('page')).toBe('1');
+    request.flush({ items: [fenFifths], total: 1, page: 1, pageSize: 20 });
+    page().querySelector<HTMLElement>('th.mat-column-name')!.click();
+    await settle();
+    expect(presetRequest().request.params.get('sort')).toBe('-name');
+  });
+
+  it('searches by name once typing pauses', async () => {
+    await open('/library');
+    const input = page().querySelector<HTMLInputElement>('input[type="search"]')!;
+    for (const text of ['f', 'fe', 'fen']) {
+      input.value = text;
+      input.dispatchEvent(new Event('input'));
+    }
+    await settle();
+    http.expectNone((request) => request.url === '/api/presets');
+    await new Promise((resolve) => setTimeout(resolve, 350));
+    await settle();
+    const request = presetRequest();
+    expect(request.request.params.get('q')).toBe('fen');
+    request.flush({ items: [], total: 0, page: 1, pageSize: 20 });
+    await settle();
+    expect(page().querySelector('tr.empty')!.textContent).toContain('No presets match “fen”');
+  });
+
+  it('shows only one band\'s presets when the address names the band', async () => {
+    const request = await open('/library?band=b-fen');
+    expect(request.request.params.get('bandId')).toBe('b-fen');
+    expect(page().querySelector('caption')!.textContent).toContain('of Copper Fen');
+  });
+
+  it('lists the trash and restores a preset from it', async () => {
+    const trashed = { ...reedOrgan, deletedAt: '2026-11-25T08:00:00Z' };
+    const request = await open('/library?view=trash', [trashed]);
+    expect(request.request.params.get('trash')).toBe('1');
+    expect(page().textContent).toContain('wait here for 30 days');
+    page().querySelector<HTMLButtonElement>('button[aria-label="Restore Reed Organ Meantone from the trash"]')!.click();
+    const untrash = http.expectOne('/api/presets/p2/untrash');
+    expect(untrash.request.method).toBe('POST');
+    untrash.flush({ id: 'p2', deletedAt: null });
+    await settle();
+    presetRequest().flush({ items: [], total: 0, page: 1, pageSize: 20 });
+    await settle();
+    expect(page().querySelector('tr.empty')!.textContent).toContain('The trash is empty');
+  });
+
+  it('moves a preset to the trash and brings it back with Undo', async () => {
+    await open('/library');
+    await openRowMenu('Reed Organ Meantone');
+    menuItem('Move to trash').click();
+    const deletion = http.expectOne('/api/presets/p2');
+    expect(deletion.request.method).toBe('DELETE');
+    deletion.flush(null, { status: 204, statusText: 'No Content' });
+    await settle();
+    presetRequest().flush({ items: [fenFifths], total: 1, page: 1, pageSize: 20 });
+    await settle();
+    const snackBar = document.querySelector('.mat-mdc-snack-bar-container')!;
+    expect(snackBar.textContent).toContain('“Reed Organ Meantone” is in the trash for 30 days.');
+    snackBar.querySelector<HTMLButtonElement>('button')!.click();
+    expect(http.expectOne('/api/presets/p2/untrash').request.method).toBe('POST');
+  });
+
+  it('will not offer to share or delete a preset of a band where I only view', async () => {
+    await open('/library');
+    await openRowMenu('Hollow Drone');
+    expect(menuItem('Share').disabled).toBeTrue();
+    expect(menuItem('Move to trash').disabled).toBeTrue();
+    expect(menuItem('Fork').disabled).toBeFalse();
+  });
+
+  it('forks into a band where I may save, and not into one where I only view', async () => {
+    await open('/library');
+    await openRowMenu('Hollow Drone');
+    menuItem('Fork').click();
+    await settle();
+    const dialog = document.querySelector('mat-dialog-container')!;
+    const options = Array.from(dialog.querySelectorAll('mat-radio-button')).map((o) => o.textContent!.trim());
+    expect(options).toEqual(['My library', 'Copper Fen (band)']);
+    dialog.querySelectorAll<HTMLInputElement>('mat-radio-button input')[1].click();
+    await settle();
+    Array.from(dialog.querySelectorAll<HTMLButtonElement>('button')).find((b) => b.textContent!.trim() === 'Fork')!.click();
+    await settle();
+    const fork = http.expectOne('/api/presets/p3/fork');
+    expect(fork.request.body).toEqual({ bandId: 'b-fen' });
+    fork.flush({ id: 'p9' }, { status: 201, statusText: 'Created' });
+    await settle();
+    presetRequest().flush({ items: [], total: 0, page: 1, pageSize: 20 });
+    await settle();
+    expect(document.querySelector('.mat-mdc-snack-bar-container')!.textContent).toContain(
+      'Forked “Hollow Drone” into Copper Fen (band).',
+    );
+  });
+
+  it('opens the share dialog for a preset I may change', async () => {
+    await open('/library');
+    await openRowMenu('Fen Fifths');
+    menuItem('Share').click();
+    await settle();
+    expect(document.querySelector('mat-dialog-container h2')!.textContent).toContain('Share “Fen Fifths”');
+    http.expectOne('/api/presets/p1/shares').flush({ items: [] });
+  });
+
+  it('shows the server\'s message when the library cannot be read', async () => {
+    TestBed.inject(Session).member.set(mira);
+    harness = await RouterTestingHarness.create('/library');
+    await settle();
+    http.expectOne('/api/bands').flush({ items: [] });
+    presetRequest().flush(
+      { error: { code: 'invalid', message: 'pageSize: must be at most 100' } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await settle();
+    expect(page().querySelector('[role="alert"]')!.textContent).toContain('pageSize: must be at most 100');
+  });
+});

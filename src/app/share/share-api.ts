@@ -1,0 +1,67 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable, map } from 'rxjs';
+
+export interface ShareLink {
+  id: string;
+  /** null: the link follows the latest revision. */
+  revision: number | null;
+  createdAt: string;
+  revokedAt: string | null;
+  createdBy: string;
+}
+
+export interface NewShareLink {
+  id: string;
+  token: string;
+  url: string;
+  revision: number | null;
+}
+
+export interface SharedPreset {
+  name: string;
+  revision: number;
+  pinned: boolean;
+  savedAt: string;
+  document: unknown;
+}
+
+/** Read-only links to a preset that open without an account, and what such a link opens. */
+@Injectable({ providedIn: 'root' })
+export class ShareApi {
+  private readonly http = inject(HttpClient);
+
+  links(presetId: string): Observable<ShareLink[]> {
+    return this.http
+      .get<{ items: ShareLink[] }>(`/api/presets/${encodeURIComponent(presetId)}/shares`)
+      .pipe(map((answer) => answer.items));
+  }
+
+  /** A link to the latest revision, or pinned to `revision` when one is given. */
+  createLink(presetId: string, revision: number | null): Observable<NewShareLink> {
+    return this.http.post<NewShareLink>(
+      `/api/presets/${encodeURIComponent(presetId)}/shares`,
+      revision === null ? {} : { revision },
+    );
+  }
+
+  revokeLink(shareId: string): Observable<void> {
+    return this.http.delete<void>(`/api/shares/${encodeURIComponent(shareId)}`);
+  }
+
+  shared(token: string): Observable<SharedPreset> {
+    return this.http.get<SharedPreset>(this.sharedPath(token));
+  }
+
+  exportUrl(token: string, format: string): string {
+    return `${this.sharedPath(token)}/export/${encodeURIComponent(format)}`;
+  }
+
+  bundleUrl(token: string): string {
+    return `${this.sharedPath(token)}/bundle`;
+  }
+
+  private sharedPath(token: string): string {
+    return `/api/shared/${encodeURIComponent(token)}`;
+  }
+}
