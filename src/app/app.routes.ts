@@ -8,5 +8,6 @@ export const routes: Routes = [
   { path: 'library/:id/history', title: 'History · Keyloom', loadComponent: () => import('./library/history-page').then((m) => m.HistoryPage) },
   { path: 'retune', title: 'Retune · Keyloom', loadComponent: () => import('./retune/retune-page').then((m) => m.RetunePage) },
   { path: 'bands', title: 'Bands · Keyloom', loadComponent: () => import('./bands/bands-page').then((m) => m.BandsPage) },
+  { path: 'bands/:id', title: 'Band · Keyloom', loadComponent: () => import('./bands/band-page').then((m) => m.BandPage) },
   { path: '**', title: 'Not found · Keyloom', loadComponent: () => import('./not-found/not-found-page').then((m) => m.NotFoundPage) },
 ];
