@@ -1,0 +1,126 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { provideRouter, withComponentInputBinding } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
+import { Member, Session } from '../auth/session';
+import { SharedPreset } from './share-api';
+import { SharedPage } from './shared-page';
+
+const tobias: Member = { id: 'u-tobias', login: 'tobias-reed', name: 'Tobias Reed', email: null, avatarUrl: null, siteRole: 'member' };
+const fenFifths = {
+  format: 'keyloom.preset',
+  version: 1,
+  name: 'Fen Fifths',
+  notes: 'Stacked pure fifths from C for the drone pieces.',
+  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 },
+  mapping: { rootKey: 60, concertA: 440, keysPerPeriod: 12, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
+};
+const shared: SharedPreset = { name: 'Fen Fifths', revision: 3, pinned: true, savedAt: '2026-11-20T09:30:00Z', document: fenFifths };
+
+describe('SharedPage', () => {
+  let http: HttpTestingController;
+  let harness: RouterTestingHarness;
+
+  beforeEach(() => {
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter([{ path: 's/:token', component: SharedPage }], withComponentInputBinding()),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+      ],
+    });
+    http = TestBed.inject(HttpTestingController);
+  });
+
+  afterEach(() => http.verify());
+
+  const page = () => harness.routeNativeElement as HTMLElement;
+
+  async function settle() {
+    await harness.fixture.whenStable();
+    harness.detectChanges();
+  }
+
+  async function open(member: Member | null, answer: SharedPreset = shared) {
+    TestBed.inject(Session).member.set(member);
+    harness = await RouterTestingHarness.create('/s/tok-123');
+    await settle();
+    http.expectOne('/api/shared/tok-123').flush(answer);
+    await settle();
+  }
+
+  it('shows the shared preset read-only with its degrees worked out in the browser', async () => {
+    await open(null);
+    expect(page().querySelector('h1')!.textContent).toContain('Fen Fifths');
+    expect(page().querySelector('.about')!.textContent).toContain('Revision 3');
+    expect(page().querySelector('.about')!.textContent).toContain('always opens this revision');
+    expect(page().querySelector('.summary')!.textContent).toContain('7 degrees in a period of 2/1');
+    expect(page().querySelector('.summary')!.textContent).toContain('LLsLLLs');
+    const rows = Array.from(page().querySelectorAll('app-degree-table tbody tr')).map((tr) =>
+      Array.from(tr.children).map((cell) => cell.textContent!.trim()),
+    );
+    expect(rows.length).toBe(7);
+    // Pure fifth 3/2 = 701.955c, 1.955c above the equal-tempered G (from memory: 1200·log2(3/2)).
+    expect(rows[4]).toEqual(['4', '3/2', '701.96', 'G4', '+1.96c']);
+    expect(rows[3]).toEqual(['3', '4/3', '498.04', 'F4', '−1.96c']);
+  });
+
+  it('offers every download through the share link, the bundle first', async () => {
+    await open(null);
+    expect(page().querySelector<HTMLAnchorElement>('a.bundle')!.getAttribute('href')).toBe('/api/shared/tok-123/bundle');
+    const hrefs = Array.from(page().querySelectorAll<HTMLAnchorElement>('.downloads li a')).map((a) => a.getAttribute('href'));
+    expect(hrefs).toContain('/api/shared/tok-123/export/mts-bulk');
+    expect(hrefs).toContain('/api/shared/tok-123/export/tuner-sheet');
+    expect(hrefs).toContain('/api/shared/tok-123/export/mts-octave-1');
+    expect(hrefs.length).toBe(12);
+  });
+
+  it('leaves out the scale/octave formats for a layout that is not twelve keys per octave', async () => {
+    const seven = { ...fenFifths, mapping: { rootKey: 60 } };
+    await open(null, { ...shared, document: seven });
+    const hrefs = Array.from(page().querySelectorAll<HTMLAnchorElement>('.downloads li a')).map((a) => a.getAttribute('href'));
+    expect(hrefs.some((href) => href!.includes('mts-octave'))).toBeFalse();
+    expect(hrefs.length).toBe(10);
+  });
+
+  it('asks a signed-out guest to sign in before forking, and to come back here', async () => {
+    await open(null);
+    const link = page().querySelector<HTMLAnchorElement>('a.sign-in-link')!;
+    expect(link.textContent).toContain('Sign in to fork to your library');
+    expect(link.getAttribute('href')).toBe('/auth/github?next=%2Fs%2Ftok-123');
+    expect(page().querySelector('button.fork-button')).toBeNull();
+  });
+
+  it('saves the shared document into my library when I fork it signed in', async () => {
+    await open(tobias);
+    page().querySelector<HTMLButtonElement>('button.fork-button')!.click();
+    const save = http.expectOne('/api/presets');
+    expect(save.request.method).toBe('POST');
+    expect(save.request.body).toEqual({ document: fenFifths, note: 'Copied from a share link' });
+    save.flush({ id: 'p9', revision: 1 }, { status: 201, statusText: 'Created' });
+    await settle();
+    expect(document.querySelector('.mat-mdc-snack-bar-container')!.textContent).toContain('“Fen Fifths” is now in your library.');
+  });
+
+  it('says plainly when the link was revoked or never existed', async () => {
+    TestBed.inject(Session).member.set(null);
+    harness = await RouterTestingHarness.create('/s/tok-123');
+    await settle();
+    http.expectOne('/api/shared/tok-123').flush(
+      { error: { code: 'not_found', message: 'No such shared preset.' } },
+      { status: 404, statusText: 'Not Found' },
+    );
+    await settle();
+    expect(page().querySelector('h1')!.textContent).toContain('This share link does not work');
+    expect(page().querySelector('[role="alert"]')!.textContent).toContain('it was revoked');
+  });
+
+  it('names the faults of a document it cannot read instead of guessing', async () => {
+    await open(null, { ...shared, document: { ...fenFifths, version: 2 } });
+    expect(page().querySelector('.faults')!.textContent).toContain('version');
+    expect(page().querySelector('app-degree-table')).toBeNull();
+  });
+});

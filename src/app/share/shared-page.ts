@@ -1,0 +1,110 @@
+import { DatePipe, DecimalPipe } from '@angular/common';
+import { Component, computed, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { Router, RouterLink } from '@angular/router';
+import { parsePresetDocument } from '@shared/preset/preset-document';
+import { previewTable } from '@shared/tuning/preview';
+import { EMPTY, catchError, switchMap } from 'rxjs';
+import { Session } from '../auth/session';
+import { apiErrorMessage, isNotFound } from '../library/api-error';
+import { LibraryApi } from '../library/library-api';
+import { SignInPrompt } from '../library/sign-in-prompt';
+import { DegreeTable } from './degree-table';
+import { exportFormats } from './export-formats';
+import { ShareApi, SharedPreset } from './share-api';
+
+/** What a share link opens, for anyone: the preset read-only, its degrees, downloads, and a fork. */
+@Component({
+  selector: 'app-shared-page',
+  imports: [
+    DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, DegreeTable,
+  ],
+  templateUrl: './shared-page.html',
+  styleUrl: './shared-page.scss',
+})
+export class SharedPage {
+  private readonly shareApi = inject(ShareApi);
+  private readonly libraryApi = inject(LibraryApi);
+  private readonly router = inject(Router);
+  private readonly snackBar = inject(MatSnackBar);
+  protected readonly session = inject(Session);
+
+  /** The link's token, from the address. */
+  readonly token = input.required<string>();
+
+  protected readonly shared = signal<SharedPreset | null>(null);
+  protected readonly failure = signal<string | null>(null);
+  protected readonly forking = signal(false);
+  protected readonly returnPath = computed(() => `/s/${encodeURIComponent(this.token())}`);
+
+  /** The document read through the shared tuning code, or the faults that keep it from being shown. */
+  private readonly parsed = computed(() => {
+    const shared = this.shared();
+    return shared ? parsePresetDocument(shared.document) : null;
+  });
+  protected readonly faults = computed(() => {
+    const parsed = this.parsed();
+    return parsed && !parsed.ok ? parsed.errors.map((error) => error.message) : [];
+  });
+  protected readonly preset = computed(() => {
+    const parsed = this.parsed();
+    return parsed?.ok ? parsed.value : null;
+  });
+  protected readonly preview = computed(() => {
+    const preset = this.preset();
+    return preset ? previewTable(preset) : null;
+  });
+  protected readonly downloads = computed(() => {
+    const twelve = this.preset()?.mapping.keysPerPeriod === 12;
+    return exportFormats
+      .filter((format) => twelve || !format.twelvePerOctaveOnly)
+      .map((format) => ({ ...format, href: this.shareApi.exportUrl(this.token(), format.id) }));
+  });
+  protected readonly bundleHref = computed(() => this.shareApi.bundleUrl(this.token()));
+
+  constructor() {
+    toObservable(this.token)
+      .pipe(
+        switchMap((token) =>
+          this.shareApi.shared(token).pipe(
+            catchError((error: unknown) => {
+              this.failure.set(
+                isNotFound(error)
+                  ? 'This link does not open anything: it was revoked, its preset was deleted, or the address ' +
+                      'is not complete.'
+                  : apiErrorMessage(error, 'The shared preset could not be loaded.'),
+              );
+              return EMPTY;
+            }),
+          ),
+        ),
+        takeUntilDestroyed(),
+      )
+      .subscribe((shared) => this.shared.set(shared));
+  }
+
+  /**
+   * The link does not reveal which preset it belongs to, so the fork is a new preset in my library made
+   * from the shared document.
+   */
+  protected forkToMyLibrary(shared: SharedPreset): void {
+    this.forking.set(true);
+    this.libraryApi.saveCopy(shared.document, 'Copied from a share link').subscribe({
+      next: (id) => {
+        this.forking.set(false);
+        this.snackBar
+          .open(`“${shared.name}” is now in your library.`, 'Open it', { duration: 10000 })
+          .onAction()
+          .subscribe(() => void this.router.navigate(['/presets', id]));
+      },
+      error: (error: unknown) => {
+        this.forking.set(false);
+        this.snackBar.open(apiErrorMessage(error, 'The copy could not be saved.'), 'Close', { duration: 8000 });
+      },
+    });
+  }
+}
