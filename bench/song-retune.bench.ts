@@ -1,7 +1,8 @@
-// Retuning a song of 200,000 notes against merely parsing it with midi-file and writing it back with the linear
-// writer. Target: retune time at most 1.5 times that (issue 4, part 8); memory proportional to the song.
-// Run: npx tsx bench/song-retune.bench.ts   (add --expose-gc before the file for exact heap figures)
-import { type MidiData, type MidiEvent, parseMidi } from 'midi-file';
+// Retuning a song of 200,000 notes against merely parsing it with midi-file and writing it back
+// with the linear writer. Target: retune time at most 1.5 times that (issue 4, part 8), memory
+// proportional to the song.
+// Run: npx tsx bench/song-retune.bench.ts (npx tsx --expose-gc ... for exact heap figures)
+import { type MidiData, parseMidi } from 'midi-file';
 import { parsePresetDocument } from '../shared/preset/preset-document';
 import { tuningOfPreset } from '../shared/export/preset-tuning';
 import { standardMidiFile, TrackWriter } from '../shared/midi/smf-writer';
@@ -11,7 +12,10 @@ const noteCount = 200_000;
 const voices = 4;
 const chord = [0, 4, 7, 12];
 
-/** A format 1 song: a conductor track and four voices of chords and runs, with mod wheel, bends and program changes. */
+/**
+ * A format 1 song: a conductor track and four voices of chords and runs, with mod wheel, bends and
+ * program changes.
+ */
 function buildSong(): Uint8Array {
   const conductor = new TrackWriter();
   conductor.meta(0, 0x03, [0x42, 0x65, 0x6e, 0x63, 0x68]);
@@ -29,15 +33,15 @@ function buildSong(): Uint8Array {
       if (note % 80 === 0) track.channelMessage(tick, 0xe0 | channel, 0, 0x40 + ((note / 80) % 16));
       for (const interval of chord) track.channelMessage(tick, 0x90 | channel, root + interval, 90);
       const length = note % 9 === 0 ? 200 : 90;
-      for (const interval of chord) track.channelMessage(tick + length, 0x80 | channel, root + interval, 64);
+      for (const interval of chord) {
+        track.channelMessage(tick + length, 0x80 | channel, root + interval, 64);
+      }
       tick += length + (note % 7 === 0 ? 150 : 30);
     }
     tracks.push(track.finish(tick));
   }
   return standardMidiFile({ format: 1, division: 480 }, tracks);
 }
-
-const metaTypes: Partial<Record<MidiEvent['type'], number>> = { trackName: 0x03, setTempo: 0x51, timeSignature: 0x58 };
 
 /** The baseline's second half: midi-file's events written back with the linear writer. */
 function writeBack(data: MidiData): Uint8Array {
@@ -48,9 +52,11 @@ function writeBack(data: MidiData): Uint8Array {
       tick += event.deltaTime;
       switch (event.type) {
         case 'noteOn':
-        case 'noteOff':
-          track.channelMessage(tick, (event.type === 'noteOn' ? 0x90 : 0x80) | event.channel, event.noteNumber, event.velocity);
+        case 'noteOff': {
+          const status = (event.type === 'noteOn' ? 0x90 : 0x80) | event.channel;
+          track.channelMessage(tick, status, event.noteNumber, event.velocity);
           break;
+        }
         case 'controller':
           track.channelMessage(tick, 0xb0 | event.channel, event.controllerType, event.value);
           break;
@@ -65,12 +71,16 @@ function writeBack(data: MidiData): Uint8Array {
         case 'trackName':
           track.meta(tick, 0x03, Array.from(event.text, (character) => character.charCodeAt(0)));
           break;
-        case 'setTempo':
-          track.meta(tick, 0x51, [event.microsecondsPerBeat >> 16, (event.microsecondsPerBeat >> 8) & 0xff, event.microsecondsPerBeat & 0xff]);
+        case 'setTempo': {
+          const tempo = event.microsecondsPerBeat;
+          track.meta(tick, 0x51, [tempo >> 16, (tempo >> 8) & 0xff, tempo & 0xff]);
           break;
-        case 'timeSignature':
-          track.meta(tick, metaTypes.timeSignature ?? 0x58, [event.numerator, Math.log2(event.denominator), event.metronome, event.thirtyseconds]);
+        }
+        case 'timeSignature': {
+          const { numerator, denominator, metronome, thirtyseconds } = event;
+          track.meta(tick, 0x58, [numerator, Math.log2(denominator), metronome, thirtyseconds]);
           break;
+        }
         case 'endOfTrack':
           return track.finish(tick);
         default:
@@ -79,7 +89,8 @@ function writeBack(data: MidiData): Uint8Array {
     }
     return track.finish(tick);
   });
-  return standardMidiFile({ format: data.header.format === 0 ? 0 : 1, division: data.header.ticksPerBeat ?? 480 }, tracks);
+  const format = data.header.format === 0 ? 0 : 1;
+  return standardMidiFile({ format, division: data.header.ticksPerBeat ?? 480 }, tracks);
 }
 
 const preset = parsePresetDocument({
@@ -90,14 +101,15 @@ const preset = parsePresetDocument({
   mapping: { rootKey: 60 },
 });
 if (!preset.ok) throw new Error(preset.errors.map((error) => error.message).join('\n'));
-const tuning = tuningOfPreset(preset.value);
-if (!tuning.ok) throw new Error(tuning.errors.map((error) => error.message).join('\n'));
+const built = tuningOfPreset(preset.value);
+if (!built.ok) throw new Error(built.errors.map((error) => error.message).join('\n'));
+const tuning = built.value;
 
 const song = buildSong();
 const rounds = 9;
 
 function retune(mode: RetuneMode) {
-  const result = retuneSong(song, tuning.value, mode);
+  const result = retuneSong(song, tuning, mode);
   if (!result.ok) throw new Error(result.errors.map((error) => error.message).join('\n'));
   return result.value;
 }
@@ -106,8 +118,9 @@ const gc = (globalThis as { gc?: () => void }).gc;
 const heapInUse = () => process.memoryUsage().heapUsed + process.memoryUsage().arrayBuffers;
 
 /**
- * Memory of one retune: what stays in use while its result is held, and the most in use right after it before any
- * collection (an upper bound of its peak, garbage included). Exact only with --expose-gc.
+ * Memory of one retune: what stays in use while its result is held, and the most in use right after
+ * it before any collection (an upper bound of its peak, garbage included). Exact only with
+ * --expose-gc.
  */
 function memoryOf(mode: RetuneMode): string {
   gc?.();
@@ -119,13 +132,16 @@ function memoryOf(mode: RetuneMode): string {
   gc?.();
   const retained = heapInUse() - before;
   const mb = (bytes: number) => `${(bytes / 2 ** 20).toFixed(1)} MB`;
-  return `held ${mb(retained)} (output ${mb(result.bytes.length)}), at most ${mb(transient)} during the run` +
-    (gc ? '' : ' (run with --expose-gc for exact figures)');
+  const note = gc ? '' : ' (run with --expose-gc for exact figures)';
+  const held = `held ${mb(retained)} (output ${mb(result.bytes.length)})`;
+  return `${held}, at most ${mb(transient)} during the run${note}`;
 }
 
 const memory = { mts: memoryOf('mts'), mpe: memoryOf('mpe') };
 
-/** The three tasks timed in turn, round after round, so that a busy machine slows all of them alike. */
+/**
+ * The three tasks timed in turn, round after round, so that a busy machine slows all of them alike.
+ */
 const tasks = {
   baseline: () => writeBack(parseMidi(song)),
   mts: () => retune('mts'),
@@ -142,13 +158,17 @@ for (let round = -2; round < rounds; round++) {
 const median = (list: number[]) => [...list].sort((a, b) => a - b)[Math.floor(list.length / 2)];
 
 const baseline = median(times.baseline);
-console.log(`song: ${noteCount} notes in ${voices + 1} tracks, ${(song.length / 2 ** 20).toFixed(2)} MB; medians of ${rounds} rounds`);
+const songMb = (song.length / 2 ** 20).toFixed(2);
+console.log(`song: ${noteCount} notes in ${voices + 1} tracks, ${songMb} MB`);
+console.log(`medians of ${rounds} rounds`);
 console.log(`parse with midi-file + write back with the linear writer: ${baseline.toFixed(0)} ms`);
 for (const mode of ['mts', 'mpe'] as const) {
   const time = median(times[mode]);
   const { report } = retune(mode);
   console.log(
-    `retune ${mode}: ${time.toFixed(0)} ms, ratio ${(time / baseline).toFixed(2)} (target <= 1.5); ` +
-      `${report.notesRetuned} notes retuned, ${report.notesStolen.length} stolen; memory: ${memory[mode]}`,
+    `retune ${mode}: ${time.toFixed(0)} ms, ` +
+      `ratio ${(time / baseline).toFixed(2)} (target <= 1.5); ` +
+      `${report.notesRetuned} notes retuned, ${report.notesStolen.length} stolen; ` +
+      `memory: ${memory[mode]}`,
   );
 }

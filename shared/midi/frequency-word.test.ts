@@ -9,7 +9,8 @@ function wordOf(hz: number | null): number[] {
   return [...bytes];
 }
 
-// REFERENCE.md: MMA MIDI Tuning Updated Specification, frequency word table (exact values from the formula)
+// REFERENCE.md: MMA MIDI Tuning Updated Specification, frequency word table (exact values from the
+// formula)
 const specificationTable: [number[], number][] = [
   [[0x00, 0x00, 0x00], 8.1758],
   [[0x01, 0x00, 0x00], 8.662],
@@ -29,15 +30,15 @@ describe('MTS frequency words', () => {
     expect(hzOfFrequencyWord(word[0], word[1], word[2])).toBeCloseTo(hz, 4);
   });
 
-  it.each(specificationTable)('writes the specification table entry %j for %d Hz', (word, printedHz) => {
-    // Printed to 4 decimals, 8.6620 Hz lies 1.4 units above 01 00 00; whole-key words are written from the key's
-    // exact pitch instead (REFERENCE.md: MIDI convention, key n = 440 * 2^((n-69)/12)).
+  it.each(specificationTable)('writes the table entry %j for %d Hz', (word, printedHz) => {
+    // Printed to 4 decimals, 8.6620 Hz lies 1.4 units above 01 00 00; whole-key words are written
+    // from the key's exact pitch instead (REFERENCE.md: MIDI convention, 440 * 2^((n-69)/12)).
     const wholeKey = word[1] === 0 && word[2] === 0;
     expect(wordOf(wholeKey ? 440 * 2 ** ((word[0] - 69) / 12) : printedHz)).toEqual(word);
   });
 
   it('encodes a just fifth above equal-tempered C4 as 43 02 40', () => {
-    // REFERENCE.md: MIDI Tuning Standard, a just fifth above equal-tempered C4, 392.4383 Hz, encodes as 43 02 40
+    // REFERENCE.md: a just fifth above equal-tempered C4, 392.4383 Hz, encodes as 43 02 40
     expect(wordOf(261.6255653006 * 1.5)).toEqual([0x43, 0x02, 0x40]);
     expect(wordOf(392.4383)).toEqual([0x43, 0x02, 0x40]);
   });
@@ -49,7 +50,7 @@ describe('MTS frequency words', () => {
   });
 
   it('rounds to the nearest unit rather than truncating', () => {
-    // REFERENCE.md: one unit is 100/16384 cents; 0.7 of a unit above 440 Hz must round up to 45 00 01
+    // REFERENCE.md: one unit is 100/16384 cents; 0.7 of a unit above 440 Hz rounds up to 45 00 01
     expect(wordOf(440 * 2 ** ((0.7 * 100) / 16384 / 1200))).toEqual([0x45, 0x00, 0x01]);
     expect(wordOf(440 * 2 ** ((0.3 * 100) / 16384 / 1200))).toEqual([0x45, 0x00, 0x00]);
   });

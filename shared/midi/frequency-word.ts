@@ -1,6 +1,7 @@
 /**
- * The MTS frequency word `xx yy zz`: xx the equal-tempered key at or just below the pitch, `yy zz` a 14-bit
- * fraction of a semitone above it (MMA MIDI Tuning Updated Specification). Key 69 is 440 Hz.
+ * The MTS frequency word `xx yy zz`: xx the equal-tempered key at or just below the pitch, `yy zz`
+ * a 14-bit fraction of a semitone above it (MMA MIDI Tuning Updated Specification). Key 69 is 440
+ * Hz.
  */
 
 /** A key and the pitch it should sound; a null pitch leaves the key as it is ("no change"). */
@@ -21,15 +22,19 @@ const noChangeUnits = highestMtsUnits + 1;
 const keyOfA4 = 69;
 const hzOfA4 = 440;
 
-/** An encoded pitch: its units from key 0, and whether it had to be clamped into the range MTS can send. */
+/**
+ * An encoded pitch: its units from key 0, and whether it had to be clamped into the range MTS can
+ * send.
+ */
 export interface MtsPitch {
   units: number;
   clamped: boolean;
 }
 
 /**
- * The one rounding step of MTS: a frequency to the nearest unit (never truncated), which leaves at most half a
- * unit, 0.0030517578125 cents, of error. Pitches outside 8.1758-13289.6566 Hz are clamped to the nearest end.
+ * The one rounding step of MTS: a frequency to the nearest unit (never truncated), which leaves at
+ * most half a unit, 0.0030517578125 cents, of error. Pitches outside 8.1758-13289.6566 Hz are
+ * clamped to the nearest end.
  */
 export function nearestMtsUnits(hz: number): MtsPitch {
   const units = Math.round((keyOfA4 + 12 * Math.log2(hz / hzOfA4)) * mtsUnitsPerSemitone);
@@ -38,7 +43,10 @@ export function nearestMtsUnits(hz: number): MtsPitch {
   return { units, clamped: false };
 }
 
-/** Writes the word of `hz` (or "no change" for null) at `offset`; says whether the pitch was clamped. */
+/**
+ * Writes the word of `hz` (or "no change" for null) at `offset`; says whether the pitch was
+ * clamped.
+ */
 export function writeFrequencyWord(target: Uint8Array, offset: number, hz: number | null): boolean {
   const pitch = hz === null ? { units: noChangeUnits, clamped: false } : nearestMtsUnits(hz);
   target[offset] = pitch.units >> 14;
@@ -47,7 +55,9 @@ export function writeFrequencyWord(target: Uint8Array, offset: number, hz: numbe
   return pitch.clamped;
 }
 
-/** The pitch a frequency word stands for, or null for `7F 7F 7F` ("no change"). Bytes must be 7-bit. */
+/**
+ * The pitch a frequency word stands for, or null for `7F 7F 7F` ("no change"). Bytes must be 7-bit.
+ */
 export function hzOfFrequencyWord(xx: number, yy: number, zz: number): number | null {
   const units = (xx << 14) | (yy << 7) | zz;
   if (units === noChangeUnits) return null;
@@ -56,4 +66,5 @@ export function hzOfFrequencyWord(xx: number, yy: number, zz: number): number | 
 
 /** The warning text for keys clamped into the MTS range. */
 export const mtsClampWarning =
-  'lie outside the pitches MTS can express (8.1758 to 13289.6566 Hz) and were sent as the nearest end of that range';
+  'lie outside the pitches MTS can express (8.1758 to 13289.6566 Hz) ' +
+  'and were sent as the nearest end of that range';

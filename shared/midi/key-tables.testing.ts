@@ -1,31 +1,23 @@
 import * as fc from 'fast-check';
-import { parsePresetDocument, type ResolvedPreset } from '../preset/preset-document';
 import { type KeyTable, mapKeys } from '../tuning/key-table';
 import { builtScale, scaleSpecs } from '../tuning/scale.testing';
 import { equalTemperedHz } from '../tuning/twelve-edo';
 
-/** Reads a preset document that a test expects to be valid, failing the test with the faults otherwise. */
-export function presetOf(document: Record<string, unknown>): ResolvedPreset {
-  const parsed = parsePresetDocument({ format: 'keyloom.preset', version: 1, ...document });
-  if (!parsed.ok) throw new Error(parsed.errors.map((error) => error.message).join('\n'));
-  return parsed.value;
-}
+const middleC = { rootKey: 60, rootHz: equalTemperedHz(60, 440), concertA: 440 };
 
-/** Twelve-tone equal temperament from middle C at A4 = 440 Hz: key n sounds at 440 * 2^((n-69)/12). */
-export const twelveEqualKeys: KeyTable = mapKeys(builtScale({ kind: 'equal', divisions: 12, period: '2/1' }), {
-  rootKey: 60,
-  rootHz: equalTemperedHz(60, 440),
-  concertA: 440,
-  layout: null,
-});
-
-/** Seven pure fifths' worth of C major (5 up, 1 down from C4) on the white keys, black keys unmapped. */
-export const pureFifthsOnWhiteKeys: KeyTable = mapKeys(
-  builtScale({ kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 }),
-  { rootKey: 60, rootHz: equalTemperedHz(60, 440), concertA: 440, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
+/** Twelve-tone equal temperament at A4 = 440 Hz: key n sounds at 440 * 2^((n-69)/12). */
+export const twelveEqualKeys: KeyTable = mapKeys(
+  builtScale({ kind: 'equal', divisions: 12, period: '2/1' }),
+  { ...middleC, layout: null },
 );
 
-/** Key tables of every kind of scale built by the tuning core, from any root key at pitches around it. */
+/** Pure fifths, 5 up and 1 down from C4, on the white keys; black keys unmapped. */
+export const pureFifthsOnWhiteKeys: KeyTable = mapKeys(
+  builtScale({ kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 }),
+  { ...middleC, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
+);
+
+/** Key tables of every kind of scale the tuning core builds, from any root key around its pitch. */
 export const keyTables: fc.Arbitrary<KeyTable> = fc
   .record({
     spec: scaleSpecs,
@@ -36,13 +28,11 @@ export const keyTables: fc.Arbitrary<KeyTable> = fc
   .map(({ spec, rootKey, rootCents, dropEvery }) => {
     const scale = builtScale(spec);
     const layout =
-      dropEvery === 0 ? null : scale.degrees.map((_, degree) => (degree % dropEvery === 1 ? null : degree));
-    return mapKeys(scale, {
-      rootKey,
-      rootHz: equalTemperedHz(rootKey, 440) * 2 ** (rootCents / 1200),
-      concertA: 440,
-      layout,
-    });
+      dropEvery === 0
+        ? null
+        : scale.degrees.map((_, degree) => (degree % dropEvery === 1 ? null : degree));
+    const rootHz = equalTemperedHz(rootKey, 440) * 2 ** (rootCents / 1200);
+    return mapKeys(scale, { rootKey, rootHz, concertA: 440, layout });
   });
 
 /** Cents from one pitch to another. */

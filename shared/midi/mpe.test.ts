@@ -5,7 +5,11 @@ describe('MPE zones', () => {
   it('makes a lower zone when channel 1 is free to manage it', () => {
     // REFERENCE.md: MPE lower zone, manager channel 1, member channels 2 upward
     expect(mpeZoneOf([2, 16])).toMatchObject({ managerChannel: 1, memberCount: 15, warnings: [] });
-    expect(mpeZoneOf([3, 8])).toMatchObject({ managerChannel: 1, memberCount: 7, memberChannels: [3, 4, 5, 6, 7, 8] });
+    expect(mpeZoneOf([3, 8])).toMatchObject({
+      managerChannel: 1,
+      memberCount: 7,
+      memberChannels: [3, 4, 5, 6, 7, 8],
+    });
   });
 
   it('makes an upper zone when the members start at channel 1', () => {
@@ -22,10 +26,22 @@ describe('MPE zones', () => {
 
   it('configures the zone before setting the bend range on every member channel', () => {
     const messages = mpeSetupMessages(mpeZoneOf([2, 4]), 48);
-    // REFERENCE.md: MPE configuration on the manager channel Bn 64 06, Bn 65 00, Bn 06 count; bend range RPN 0
-    expect(messages.slice(0, 3)).toEqual([[0xb0, 0x64, 0x06], [0xb0, 0x65, 0x00], [0xb0, 0x06, 3]]);
-    const dataEntries = messages.filter((message) => message[1] === 0x06).map((message) => [message[0], message[2]]);
-    expect(dataEntries).toEqual([[0xb0, 3], [0xb1, 48], [0xb2, 48], [0xb3, 48]]);
+    // REFERENCE.md: MPE configuration on the manager channel Bn 64 06, Bn 65 00, Bn 06 count; bend
+    // range RPN 0
+    expect(messages.slice(0, 3)).toEqual([
+      [0xb0, 0x64, 0x06],
+      [0xb0, 0x65, 0x00],
+      [0xb0, 0x06, 3],
+    ]);
+    const dataEntries = messages
+      .filter((message) => message[1] === 0x06)
+      .map((message) => [message[0], message[2]]);
+    expect(dataEntries).toEqual([
+      [0xb0, 3],
+      [0xb1, 48],
+      [0xb2, 48],
+      [0xb3, 48],
+    ]);
   });
 });
 

@@ -2,13 +2,16 @@ import { type FieldError, fieldError } from '../result';
 import { bendRangeMessages, mpeConfigurationMessages } from './registered-parameters';
 
 /**
- * MPE (MMA RP-053): a zone is a manager channel and the member channels next to it; each sounding note gets a
- * member channel of its own, so that its pitch bend bends it alone. Lower zone: manager 1, members 2 upwards;
- * upper zone: manager 16, members 15 downwards.
+ * MPE (MMA RP-053): a zone is a manager channel and the member channels next to it; each sounding
+ * note gets a member channel of its own, so that its pitch bend bends it alone. Lower zone: manager
+ * 1, members 2 upwards; upper zone: manager 16, members 15 downwards.
  */
 
 export interface MpeZone {
-  /** 1 for a lower zone, 16 for an upper zone, null when the member channels leave no room for a manager. */
+  /**
+   * 1 for a lower zone, 16 for an upper zone, null when the member channels leave no room for a
+   * manager.
+   */
   managerChannel: 1 | 16 | null;
   /** How many member channels the configuration message announces (counted from the manager). */
   memberCount: number;
@@ -18,15 +21,20 @@ export interface MpeZone {
 }
 
 /**
- * The zone that holds an inclusive range of member channels: a lower zone when channel 1 is free to manage it,
- * else an upper zone when channel 16 is free; with all 16 channels as members there is no manager, and the notes
- * are still spread one per channel (a receiver in multichannel mode plays them the same way).
+ * The zone that holds an inclusive range of member channels: a lower zone when channel 1 is free to
+ * manage it, else an upper zone when channel 16 is free; with all 16 channels as members there is
+ * no manager, and the notes are still spread one per channel (a receiver in multichannel mode plays
+ * them the same way).
  */
 export function mpeZoneOf(memberChannels: readonly [number, number]): MpeZone {
   const [first, last] = memberChannels;
   const channels = Array.from({ length: last - first + 1 }, (_, index) => first + index);
-  if (first >= 2) return { managerChannel: 1, memberCount: last - 1, memberChannels: channels, warnings: [] };
-  if (last <= 15) return { managerChannel: 16, memberCount: 16 - first, memberChannels: channels, warnings: [] };
+  if (first >= 2) {
+    return { managerChannel: 1, memberCount: last - 1, memberChannels: channels, warnings: [] };
+  }
+  if (last <= 15) {
+    return { managerChannel: 16, memberCount: 16 - first, memberChannels: channels, warnings: [] };
+  }
   return {
     managerChannel: null,
     memberCount: 16,
@@ -34,31 +42,40 @@ export function mpeZoneOf(memberChannels: readonly [number, number]): MpeZone {
     warnings: [
       fieldError(
         'output.memberChannels',
-        'takes all 16 channels, leaving none to manage an MPE zone: no zone is configured, and each note still ' +
-          'gets a channel of its own',
+        'takes all 16 channels, leaving none to manage an MPE zone: no zone is configured, ' +
+          'and each note still gets a channel of its own',
       ),
     ],
   };
 }
 
 /**
- * What an MPE file sends first: the zone configuration (RPN 6) on the manager channel, which resets the members'
- * bend range to 48 semitones, then the bend range (RPN 0) on every member channel.
+ * What an MPE file sends first: the zone configuration (RPN 6) on the manager channel, which resets
+ * the members' bend range to 48 semitones, then the bend range (RPN 0) on every member channel.
  */
 export function mpeSetupMessages(zone: MpeZone, bendRangeSemitones: number): number[][] {
-  const configuration = zone.managerChannel === null ? [] : mpeConfigurationMessages(zone.managerChannel, zone.memberCount);
-  return [...configuration, ...zone.memberChannels.flatMap((channel) => bendRangeMessages(channel, bendRangeSemitones))];
+  const configuration =
+    zone.managerChannel === null
+      ? []
+      : mpeConfigurationMessages(zone.managerChannel, zone.memberCount);
+  const bendRanges = zone.memberChannels.flatMap((channel) =>
+    bendRangeMessages(channel, bendRangeSemitones),
+  );
+  return [...configuration, ...bendRanges];
 }
 
-/** A note given a member channel; `stolen` is the note that had to be cut off to free it, if any. */
+/**
+ * A note given a member channel; `stolen` is the note that had to be cut off to free it, if any.
+ */
 export interface ChannelGrant<Note> {
   channel: number;
   stolen: Note | null;
 }
 
 /**
- * Hands out member channels one note each: a free channel that has been silent longest first (its release tail
- * has had the most time to fade), and when every channel sounds, the channel of the note that started first.
+ * Hands out member channels one note each: a free channel that has been silent longest first (its
+ * release tail has had the most time to fade), and when every channel sounds, the channel of the
+ * note that started first.
  */
 export class MemberChannelAllocator<Note> {
   /** Free channels, the one released longest ago first. */

@@ -1,6 +1,11 @@
 import { longestTuningName, tuningNameFrom } from '../preset/tuning-name';
 import { fail, type Result, succeed } from '../result';
-import { hzOfFrequencyWord, type KeyPitch, mtsClampWarning, writeFrequencyWord } from './frequency-word';
+import {
+  hzOfFrequencyWord,
+  type KeyPitch,
+  mtsClampWarning,
+  writeFrequencyWord,
+} from './frequency-word';
 import {
   type DecodedTuning,
   type EncodedMessages,
@@ -20,20 +25,29 @@ import {
 import { unreachableKeysWarning } from './unreachable-keys';
 
 /**
- * The MTS bulk tuning dump, `F0 7E dev 08 01 tt name[16] (xx yy zz)x128 cs F7` (408 bytes), and the key-based
- * dump with bank, `F0 7E dev 08 04 bb tt name[16] (xx yy zz)x128 cs F7` (409 bytes): every key, key 0 first.
+ * The MTS bulk tuning dump, `F0 7E dev 08 01 tt name[16] (xx yy zz)x128 cs F7` (408 bytes), and the
+ * key-based dump with bank, `F0 7E dev 08 04 bb tt name[16] (xx yy zz)x128 cs F7` (409 bytes):
+ * every key, key 0 first.
  */
 
 const bulkDumpLength = 408;
 const bankedBulkDumpLength = 409;
 
-/** The name as a dump carries it: 7-bit printable ASCII (accents dropped), cut and padded with spaces to 16. */
+/**
+ * The name as a dump carries it: 7-bit printable ASCII (accents dropped), cut and padded with
+ * spaces to 16.
+ */
 function tuningNameBytes(name: string): number[] {
   const ascii = tuningNameFrom(name).padEnd(longestTuningName, ' ');
   return Array.from(ascii, (character) => character.charCodeAt(0));
 }
 
-function encodeDump(keys: readonly KeyPitch[], header: number[], name: string, length: number): EncodedMessages {
+function encodeDump(
+  keys: readonly KeyPitch[],
+  header: number[],
+  name: string,
+  length: number,
+): EncodedMessages {
   const message = new Uint8Array(length);
   message.set([...header, ...tuningNameBytes(name)]);
   const pitches = pitchesByKey(keys);
@@ -47,29 +61,48 @@ function encodeDump(keys: readonly KeyPitch[], header: number[], name: string, l
   return { messages: [message], warnings: unreachableKeysWarning(clamped, mtsClampWarning) };
 }
 
-/** The bulk dump (08 01) of every key into tuning program `program`; unmapped keys are "no change". */
+/**
+ * The bulk dump (08 01) of every key into tuning program `program`; unmapped keys are "no change".
+ */
 export function encodeBulkDump(
   keys: readonly KeyPitch[],
   target: Omit<TuningTarget, 'bank'> & { tuningName: string },
 ): EncodedMessages {
   const { deviceId, program, tuningName } = target;
-  const header = [systemExclusive, universalNonRealTime, deviceId, tuningSubId, mtsForm.bulkDump, program];
+  const header = [
+    systemExclusive,
+    universalNonRealTime,
+    deviceId,
+    tuningSubId,
+    mtsForm.bulkDump,
+    program,
+  ];
   return encodeDump(keys, header, tuningName, bulkDumpLength);
 }
 
-/** The key-based dump with bank (08 04) of every key into tuning program `program` of bank `bank`. */
+/**
+ * The key-based dump with bank (08 04) of every key into tuning program `program` of bank `bank`.
+ */
 export function encodeBankedBulkDump(
   keys: readonly KeyPitch[],
   target: TuningTarget & { tuningName: string },
 ): EncodedMessages {
   const { deviceId, bank, program, tuningName } = target;
-  const header = [systemExclusive, universalNonRealTime, deviceId, tuningSubId, mtsForm.bankedBulkDump, bank, program];
+  const header = [
+    systemExclusive,
+    universalNonRealTime,
+    deviceId,
+    tuningSubId,
+    mtsForm.bankedBulkDump,
+    bank,
+    program,
+  ];
   return encodeDump(keys, header, tuningName, bankedBulkDumpLength);
 }
 
 /**
- * Reads a bulk dump (08 01) or a key-based dump with bank (08 04), the universal header already recognised.
- * The checksum is verified: a dump that fails it is refused rather than half-trusted.
+ * Reads a bulk dump (08 01) or a key-based dump with bank (08 04), the universal header already
+ * recognised. The checksum is verified: a dump that fails it is refused rather than half-trusted.
  */
 export function decodeBulkDump(message: Uint8Array): Result<DecodedTuning> {
   const banked = message[4] === mtsForm.bankedBulkDump;
@@ -82,16 +115,18 @@ export function decodeBulkDump(message: Uint8Array): Result<DecodedTuning> {
   if (message[checksumAt] !== expected) {
     return fail([
       messageFault(
-        `the ${what} has checksum ${hex(message[checksumAt])}, but its bytes give ${hex(expected)}: ` +
-          'the dump was damaged on its way',
+        `the ${what} has checksum ${hex(message[checksumAt])}, ` +
+          `but its bytes give ${hex(expected)}: the dump was damaged on its way`,
       ),
     ]);
   }
   const nameAt = banked ? 7 : 6;
-  const name = String.fromCharCode(...message.subarray(nameAt, nameAt + longestTuningName)).trimEnd();
+  const nameBytes = message.subarray(nameAt, nameAt + longestTuningName);
+  const name = String.fromCharCode(...nameBytes).trimEnd();
   const keys: KeyPitch[] = [];
   for (let key = 0, offset = nameAt + longestTuningName; key < keyCount; key++, offset += 3) {
-    keys.push({ key, hz: hzOfFrequencyWord(message[offset], message[offset + 1], message[offset + 2]) });
+    const hz = hzOfFrequencyWord(message[offset], message[offset + 1], message[offset + 2]);
+    keys.push({ key, hz });
   }
   return succeed({
     kind: banked ? 'banked-bulk-dump' : 'bulk-dump',

@@ -18,18 +18,20 @@ import { decodeScaleOctave } from './mts-scale-octave';
 import { decodeSingleNoteChange } from './mts-single-note';
 
 /**
- * Reads MTS messages: one message, or a stream of them as a .syx file holds, into a 128-key table. Foreign,
- * truncated and corrupt bytes give an error that says what was found; nothing is thrown.
+ * Reads MTS messages: one message, or a stream of them as a .syx file holds, into a 128-key table.
+ * Foreign, truncated and corrupt bytes give an error that says what was found; nothing is thrown.
  */
 
 /** Decodes one whole system exclusive message, F0 to F7, of any MTS form. */
 export function decodeMtsMessage(message: Uint8Array): Result<DecodedMtsMessage> {
   if (message.length === 0) return fail([messageFault('there are no bytes to read')]);
   if (message[0] !== systemExclusive) {
-    return fail([messageFault(`a system exclusive message starts with F0, not ${hex(message[0])}`)]);
+    const first = hex(message[0]);
+    return fail([messageFault(`a system exclusive message starts with F0, not ${first}`)]);
   }
   if (message.length < 6) {
-    return fail([messageFault(`the message is cut short: ${message.length} bytes are too few for any MTS form`)]);
+    const fault = `the message is cut short: ${message.length} bytes are too few for any MTS form`;
+    return fail([messageFault(fault)]);
   }
   const universal = message[1];
   if (universal !== universalNonRealTime && universal !== universalRealTime) {
@@ -43,7 +45,8 @@ export function decodeMtsMessage(message: Uint8Array): Result<DecodedMtsMessage>
   if (message[3] !== tuningSubId) {
     return fail([
       messageFault(
-        `the universal message has sub-ID ${hex(message[3])}; MIDI Tuning Standard messages have sub-ID 08`,
+        `the universal message has sub-ID ${hex(message[3])}; ` +
+          'MIDI Tuning Standard messages have sub-ID 08',
       ),
     ]);
   }
@@ -61,12 +64,17 @@ export function decodeMtsMessage(message: Uint8Array): Result<DecodedMtsMessage>
       return decodeScaleOctave(message);
     default:
       return fail([
-        messageFault(`the tuning message has form 08 ${hex(message[4])}, which this Keyloom does not read`),
+        messageFault(
+          `the tuning message has form 08 ${hex(message[4])}, which this Keyloom does not read`,
+        ),
       ]);
   }
 }
 
-/** What a stream of MTS messages does to the keys, in order: later messages retune what earlier ones set. */
+/**
+ * What a stream of MTS messages does to the keys, in order: later messages retune what earlier ones
+ * set.
+ */
 export interface DecodedMtsStream {
   messages: DecodedMtsMessage[];
   /** Every key's pitch after all messages; null for keys no message tuned. */
@@ -80,12 +88,16 @@ function splitMessages(bytes: Uint8Array): Result<Uint8Array[]> {
   while (start < bytes.length) {
     if (bytes[start] !== systemExclusive) {
       return fail([
-        messageFault(`byte ${start} is ${hex(bytes[start])}, where a system exclusive message (F0) should start`),
+        messageFault(
+          `byte ${start} is ${hex(bytes[start])}, ` +
+            'where a system exclusive message (F0) should start',
+        ),
       ]);
     }
     const end = bytes.indexOf(endOfExclusive, start + 1);
     if (end < 0) {
-      return fail([messageFault(`the message that starts at byte ${start} is cut short: it never ends with F7`)]);
+      const fault = `the message that starts at byte ${start} is cut short: it never ends with F7`;
+      return fail([messageFault(fault)]);
     }
     messages.push(bytes.subarray(start, end + 1));
     start = end + 1;
@@ -94,8 +106,9 @@ function splitMessages(bytes: Uint8Array): Result<Uint8Array[]> {
 }
 
 /**
- * Decodes every message of a .syx stream, and lays them over one another into a 128-key table. Each fault names
- * the message it is in; a stream with no tuning in it (only dump requests, or nothing) is refused.
+ * Decodes every message of a .syx stream, and lays them over one another into a 128-key table. Each
+ * fault names the message it is in; a stream with no tuning in it (only dump requests, or nothing)
+ * is refused.
  */
 export function decodeMtsStream(bytes: Uint8Array): Result<DecodedMtsStream> {
   const split = splitMessages(bytes);
@@ -105,7 +118,11 @@ export function decodeMtsStream(bytes: Uint8Array): Result<DecodedMtsStream> {
   split.value.forEach((message, index) => {
     const decoded = decodeMtsMessage(message);
     if (decoded.ok) messages.push(decoded.value);
-    else faults.push(...decoded.errors.map((error) => ({ ...error, message: `${error.message} (message ${index + 1})` })));
+    else {
+      for (const error of decoded.errors) {
+        faults.push({ ...error, message: `${error.message} (message ${index + 1})` });
+      }
+    }
   });
   if (faults.length > 0) return fail(faults);
   const keys: KeyPitch[] = Array.from({ length: keyCount }, (_, key) => ({ key, hz: null }));
@@ -114,7 +131,11 @@ export function decodeMtsStream(bytes: Uint8Array): Result<DecodedMtsStream> {
     for (const { key, hz } of message.keys) if (hz !== null) keys[key].hz = hz;
   }
   if (!messages.some((message) => message.kind !== 'dump-request')) {
-    return fail([messageFault('the file holds no tuning: no bulk dump, single-note change or scale/octave tuning')]);
+    return fail([
+      messageFault(
+        'the file holds no tuning: no bulk dump, single-note change or scale/octave tuning',
+      ),
+    ]);
   }
   return succeed({ messages, keys });
 }

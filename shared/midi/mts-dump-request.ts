@@ -9,12 +9,22 @@ import {
   universalNonRealTime,
 } from './mts-message';
 
-/** The bulk dump request, `F0 7E dev 08 00 tt F7`: asks an instrument to send tuning program `tt`. */
+/**
+ * The bulk dump request, `F0 7E dev 08 00 tt F7`: asks an instrument to send tuning program `tt`.
+ */
 const dumpRequestLength = 7;
 
 export function encodeDumpRequest(target: { deviceId: number; program: number }): Uint8Array {
   const { deviceId, program } = target;
-  return Uint8Array.of(systemExclusive, universalNonRealTime, deviceId, tuningSubId, mtsForm.dumpRequest, program, endOfExclusive);
+  return Uint8Array.of(
+    systemExclusive,
+    universalNonRealTime,
+    deviceId,
+    tuningSubId,
+    mtsForm.dumpRequest,
+    program,
+    endOfExclusive,
+  );
 }
 
 export function decodeDumpRequest(message: Uint8Array): Result<DecodedDumpRequest> {

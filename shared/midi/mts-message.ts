@@ -24,7 +24,10 @@ export const mtsForm = {
 
 export const keyCount = 128;
 
-/** Where an MTS message goes: the device id (127 = all devices), and the tuning program and bank it writes. */
+/**
+ * Where an MTS message goes: the device id (127 = all devices), and the tuning program and bank it
+ * writes.
+ */
 export interface TuningTarget {
   deviceId: number;
   program: number;
@@ -37,7 +40,9 @@ export interface EncodedMessages {
   warnings: FieldError[];
 }
 
-/** A decoded tuning message: every key's pitch (null where the message leaves the key unchanged). */
+/**
+ * A decoded tuning message: every key's pitch (null where the message leaves the key unchanged).
+ */
 export interface DecodedTuning {
   kind:
     | 'bulk-dump'
@@ -48,7 +53,9 @@ export interface DecodedTuning {
     | 'scale-octave-2';
   deviceId: number;
   realTime: boolean;
-  /** The bank and program the message writes; null for scale/octave tuning, which retunes channels. */
+  /**
+   * The bank and program the message writes; null for scale/octave tuning, which retunes channels.
+   */
   bank: number | null;
   program: number | null;
   /** The tuning name of a dump, spaces at the end removed. */
@@ -67,8 +74,8 @@ export interface DecodedDumpRequest {
 export type DecodedMtsMessage = DecodedTuning | DecodedDumpRequest;
 
 /**
- * The checksum of the dumps: XOR of every byte after F0 up to the last data byte, then AND 7F. `end` is the index
- * just past the last data byte.
+ * The checksum of the dumps: XOR of every byte after F0 up to the last data byte, then AND 7F.
+ * `end` is the index just past the last data byte.
  */
 export function mtsChecksum(message: Uint8Array, end: number): number {
   let sum = 0;
@@ -93,24 +100,34 @@ export function hex(byte: number): string {
 }
 
 /**
- * Checks that a message is one whole system exclusive message of `length` bytes with 7-bit data, and names the
- * first fault: a stray status byte (often the start of the next message), cut short, too long, no F7 at the end.
+ * Checks that a message is one whole system exclusive message of `length` bytes with 7-bit data,
+ * and names the first fault: a stray status byte (often the start of the next message), cut short,
+ * too long, no F7 at the end.
  */
 export function framingFault(message: Uint8Array, length: number, what: string): FieldError | null {
   const last = message.length - 1;
   for (let index = 1; index < Math.min(message.length, length); index++) {
     if (message[index] > 0x7f && !(index === last && message[index] === endOfExclusive)) {
-      return messageFault(`the ${what} holds the byte ${hex(message[index])} at ${index}, where only 7-bit data may stand`);
+      return messageFault(
+        `the ${what} holds the byte ${hex(message[index])} at ${index}, ` +
+          'where only 7-bit data may stand',
+      );
     }
   }
   if (message.length < length) {
-    return messageFault(`the ${what} is cut short: it has ${message.length} bytes of the ${length} it needs`);
+    return messageFault(
+      `the ${what} is cut short: it has ${message.length} bytes of the ${length} it needs`,
+    );
   }
   if (message.length > length) {
-    return messageFault(`the ${what} has ${message.length} bytes, but this form has exactly ${length}`);
+    return messageFault(
+      `the ${what} has ${message.length} bytes, but this form has exactly ${length}`,
+    );
   }
   if (message[last] !== endOfExclusive) {
-    return messageFault(`the ${what} does not end with F7 (its last byte is ${hex(message[last])})`);
+    return messageFault(
+      `the ${what} does not end with F7 (its last byte is ${hex(message[last])})`,
+    );
   }
   return null;
 }

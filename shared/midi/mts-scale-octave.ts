@@ -15,21 +15,26 @@ import {
 } from './mts-message';
 
 /**
- * Scale/octave tuning: one offset from equal temperament per note name C to B, the same in every octave, on the
- * chosen channels. 1-byte form `F0 7F|7E dev 08 08 ff gg hh ss x12 F7` (whole cents -64..+63), 2-byte form
- * `F0 7F|7E dev 08 09 ff gg hh (ss tt)x12 F7` (-100..+99.988 cents in steps of 100/8192).
+ * Scale/octave tuning: one offset from equal temperament per note name C to B, the same in every
+ * octave, on the chosen channels. 1-byte form `F0 7F|7E dev 08 08 ff gg hh ss x12 F7` (whole cents
+ * -64..+63), 2-byte form `F0 7F|7E dev 08 09 ff gg hh (ss tt)x12 F7` (-100..+99.988 cents in steps
+ * of 100/8192).
  */
 
 const pitchClasses = 12;
 const octaveCents = 1200;
 const concertA = 440;
 
-/** The offsets of a tuning that repeats every 12 keys and every 2/1: C first, null where no key is mapped. */
+/**
+ * The offsets of a tuning that repeats every 12 keys and every 2/1: C first, null where no key is
+ * mapped.
+ */
 export type OctaveOffsets = (number | null)[];
 
 /**
- * The offset of each note name, or a refusal saying why the tuning cannot be written this way: scale/octave
- * tuning repeats one octave of 12 keys, so the layout must have 12 keys per period and the period must be 2/1.
+ * The offset of each note name, or a refusal saying why the tuning cannot be written this way:
+ * scale/octave tuning repeats one octave of 12 keys, so the layout must have 12 keys per period and
+ * the period must be 2/1.
  */
 export function octaveOffsets(
   keys: readonly KeyPitch[],
@@ -49,8 +54,8 @@ export function octaveOffsets(
     faults.push(
       fieldError(
         'scale.period',
-        `is ${layout.periodCents.toFixed(3)} cents, but scale/octave tuning repeats every octave (2/1, 1200 cents); ` +
-          'send a bulk dump or single-note changes instead',
+        `is ${layout.periodCents.toFixed(3)} cents, but scale/octave tuning repeats every ` +
+          'octave (2/1, 1200 cents); send a bulk dump or single-note changes instead',
       ),
     );
   }
@@ -64,7 +69,10 @@ export function octaveOffsets(
   return succeed(offsets);
 }
 
-/** The channel bitmap `ff gg hh`: ff bits 0-1 channels 15-16, gg bits 0-6 channels 8-14, hh bits 0-6 channels 1-7. */
+/**
+ * The channel bitmap `ff gg hh`: ff bits 0-1 channels 15-16, gg bits 0-6 channels 8-14, hh bits 0-6
+ * channels 1-7.
+ */
 export function channelBitmap(channels: readonly number[]): [number, number, number] {
   let bits = 0;
   for (const channel of channels) if (channel >= 1 && channel <= 16) bits |= 1 << (channel - 1);
@@ -73,7 +81,8 @@ export function channelBitmap(channels: readonly number[]): [number, number, num
 
 function channelsOfBitmap(ff: number, gg: number, hh: number): number[] {
   const bits = ((ff & 0x03) << 14) | (gg << 7) | hh;
-  return Array.from({ length: 16 }, (_, index) => index + 1).filter((channel) => bits & (1 << (channel - 1)));
+  const channels = Array.from({ length: 16 }, (_, index) => index + 1);
+  return channels.filter((channel) => bits & (1 << (channel - 1)));
 }
 
 export interface ScaleOctaveTarget {
@@ -99,7 +108,10 @@ const twoByteForm = {
 };
 type OctaveForm = typeof oneByteForm | typeof twoByteForm;
 
-/** The one rounding step of each form: whole cents, or the nearest 100/8192 of a cent, as a value to send. */
+/**
+ * The one rounding step of each form: whole cents, or the nearest 100/8192 of a cent, as a value to
+ * send.
+ */
 function offsetValue(form: OctaveForm, cents: number): number {
   return form === oneByteForm ? Math.round(cents) + 64 : Math.round(((cents + 100) * 8192) / 100);
 }
@@ -109,10 +121,15 @@ function noteNames(pitchClasses: number[]): string {
   return pitchClasses.map((pitchClass) => noteName(12 + pitchClass).slice(0, -1)).join(', ');
 }
 
-function encodeOctave(form: OctaveForm, offsets: OctaveOffsets, target: ScaleOctaveTarget): EncodedMessages {
+function encodeOctave(
+  form: OctaveForm,
+  offsets: OctaveOffsets,
+  target: ScaleOctaveTarget,
+): EncodedMessages {
   const message = new Uint8Array(9 + pitchClasses * form.bytesPerOffset);
   const universal = target.realTime ? universalRealTime : universalNonRealTime;
-  message.set([systemExclusive, universal, target.deviceId, tuningSubId, form.subId, ...channelBitmap(target.channels)]);
+  const channels = channelBitmap(target.channels);
+  message.set([systemExclusive, universal, target.deviceId, tuningSubId, form.subId, ...channels]);
   const clamped: number[] = [];
   const unmapped: number[] = [];
   offsets.forEach((offset, pitchClass) => {
@@ -128,26 +145,40 @@ function encodeOctave(form: OctaveForm, offsets: OctaveOffsets, target: ScaleOct
   if (clamped.length > 0) {
     const range = `${form.lowestCents} to +${form.highestCents.toFixed(3)} cents`;
     warnings.push(
-      fieldError('mapping', `${noteNames(clamped)} lie further from equal temperament than the ${range} of the ${form.name}; sent as the nearest end`),
+      fieldError(
+        'mapping',
+        `${noteNames(clamped)} lie further from equal temperament than the ${range} ` +
+          `of the ${form.name}; sent as the nearest end`,
+      ),
     );
   }
   if (unmapped.length > 0) {
-    warnings.push(fieldError('mapping', `${noteNames(unmapped)} have no mapped key; sent in equal temperament`));
+    const fault = `${noteNames(unmapped)} have no mapped key; sent in equal temperament`;
+    warnings.push(fieldError('mapping', fault));
   }
   return { messages: [message], warnings };
 }
 
 /** The 1-byte form (08 08): offsets in whole cents, -64 to +63. */
-export function encodeScaleOctave1(offsets: OctaveOffsets, target: ScaleOctaveTarget): EncodedMessages {
+export function encodeScaleOctave1(
+  offsets: OctaveOffsets,
+  target: ScaleOctaveTarget,
+): EncodedMessages {
   return encodeOctave(oneByteForm, offsets, target);
 }
 
 /** The 2-byte form (08 09): offsets from -100 to +99.988 cents in steps of 0.0122 cents. */
-export function encodeScaleOctave2(offsets: OctaveOffsets, target: ScaleOctaveTarget): EncodedMessages {
+export function encodeScaleOctave2(
+  offsets: OctaveOffsets,
+  target: ScaleOctaveTarget,
+): EncodedMessages {
   return encodeOctave(twoByteForm, offsets, target);
 }
 
-/** Reads either scale/octave form into a 128-key table, each key its equal-tempered pitch (A4 = 440 Hz) moved by its offset. */
+/**
+ * Reads either scale/octave form into a 128-key table, each key its equal-tempered pitch (A4 = 440
+ * Hz) moved by its offset.
+ */
 export function decodeScaleOctave(message: Uint8Array): Result<DecodedTuning> {
   const form = message[4] === mtsForm.scaleOctave2 ? twoByteForm : oneByteForm;
   const framing = framingFault(message, 9 + pitchClasses * form.bytesPerOffset, form.name);

@@ -1,7 +1,8 @@
 /**
- * Registered parameter numbers (RPN) as control changes on a channel 1-16: select with 101/100 (MSB/LSB), set
- * with data entry 6 (and 38 for the fine part), then deselect with the null RPN 7F 7F so that a stray data entry
- * cannot change it later. Each function writes the order its source shows.
+ * Registered parameter numbers (RPN) as control changes on a channel 1-16: select with 101/100
+ * (MSB/LSB), set with data entry 6 (and 38 for the fine part), then deselect with the null RPN 7F
+ * 7F so that a stray data entry cannot change it later. Each function writes the order its source
+ * shows.
  */
 
 type ChannelMessage = number[];
@@ -19,7 +20,10 @@ function nullRpn(channel: number): ChannelMessage[] {
   return [controlChange(channel, rpnMsb, 0x7f), controlChange(channel, rpnLsb, 0x7f)];
 }
 
-/** RPN 0, the pitch bend range: `Bn 65 00`, `Bn 64 00`, `Bn 06 semitones`, `Bn 26 cents`, null RPN (MIDI 1.0). */
+/**
+ * RPN 0, the pitch bend range: `Bn 65 00`, `Bn 64 00`, `Bn 06 semitones`, `Bn 26 cents`, null RPN
+ * (MIDI 1.0).
+ */
 export function bendRangeMessages(channel: number, semitones: number, cents = 0): ChannelMessage[] {
   return [
     controlChange(channel, rpnMsb, 0x00),
@@ -30,8 +34,14 @@ export function bendRangeMessages(channel: number, semitones: number, cents = 0)
   ];
 }
 
-/** RPN 4 then RPN 3, `Bn 64 04 65 00 06 bb`, `Bn 64 03 65 00 06 tt`: the MTS tuning bank, then the program in it. */
-export function tuningSelectionMessages(channel: number, target: { bank: number; program: number }): ChannelMessage[] {
+/**
+ * RPN 4 then RPN 3, `Bn 64 04 65 00 06 bb`, `Bn 64 03 65 00 06 tt`: the MTS tuning bank, then the
+ * program in it.
+ */
+export function tuningSelectionMessages(
+  channel: number,
+  target: { bank: number; program: number },
+): ChannelMessage[] {
   return [
     controlChange(channel, rpnLsb, 0x04),
     controlChange(channel, rpnMsb, 0x00),
@@ -43,8 +53,14 @@ export function tuningSelectionMessages(channel: number, target: { bank: number;
   ];
 }
 
-/** RPN 6 on a zone's manager channel, `Bn 64 06`, `Bn 65 00`, `Bn 06 count`: MPE zone configuration (RP-053). */
-export function mpeConfigurationMessages(managerChannel: number, memberCount: number): ChannelMessage[] {
+/**
+ * RPN 6 on a zone's manager channel, `Bn 64 06`, `Bn 65 00`, `Bn 06 count`: MPE zone configuration
+ * (RP-053).
+ */
+export function mpeConfigurationMessages(
+  managerChannel: number,
+  memberCount: number,
+): ChannelMessage[] {
   return [
     controlChange(managerChannel, rpnLsb, 0x06),
     controlChange(managerChannel, rpnMsb, 0x00),

@@ -3,9 +3,10 @@ import type { KeyPitch } from './frequency-word';
 import { unreachableKeysWarning } from './unreachable-keys';
 
 /**
- * An SFZ sampler map: one region per mapped key that shifts one placeholder sample, recorded at middle C, to the
- * key's pitch. A region plays the sample moved by (key - pitch_keycenter) semitones plus `tune` cents; `tune`
- * holds whole cents, so each key sounds within half a cent of the tuning.
+ * An SFZ sampler map: one region per mapped key that shifts one placeholder sample, recorded at
+ * middle C, to the key's pitch. A region plays the sample moved by (key - pitch_keycenter)
+ * semitones plus `tune` cents; `tune` holds whole cents, so each key sounds within half a cent of
+ * the tuning.
  */
 
 const sampleKey = 60;
@@ -23,8 +24,9 @@ interface SfzRegion {
 }
 
 /**
- * The region of one key: the pitch centre that leaves the smallest fine tune, rounded once to whole cents. When
- * the centre would leave 0-127 the tune makes up what it can; a key beyond that is clamped and flagged.
+ * The region of one key: the pitch centre that leaves the smallest fine tune, rounded once to whole
+ * cents. When the centre would leave 0-127 the tune makes up what it can; a key beyond that is
+ * clamped and flagged.
  */
 function regionOf(key: number, hz: number): SfzRegion {
   const centsFromSample = 1200 * Math.log2(hz / hzOfA4) - 100 * (sampleKey - keyOfA4);
@@ -40,22 +42,27 @@ export interface SfzMap {
   warnings: FieldError[];
 }
 
-/** The map of every mapped key, with comments saying what to replace and how precise the tuning is. */
+/**
+ * The map of every mapped key, with comments saying what to replace and how precise the tuning is.
+ */
 export function sfzMap(keys: readonly KeyPitch[], about: { name: string }): SfzMap {
   const placed = keys.flatMap(({ key, hz }) => (hz === null ? [] : [regionOf(key, hz)]));
   const comment = (line: string) => `// ${line.replace(/[\r\n]+/g, ' ')}`;
   const lines = [
     comment(`Keyloom sampler map: ${about.name}`),
-    comment(`Replace ${sampleName} with your own sample of middle C (key 60, 261.6256 Hz at A4 = 440 Hz);`),
-    comment('each region moves it to its key: (key - pitch_keycenter) semitones plus tune cents.'),
-    comment('Precision: tune holds whole cents, so every key sounds within 0.5 cent of the tuning.'),
+    comment(`Replace ${sampleName} with your own sample of middle C`),
+    comment('(key 60, 261.6256 Hz at A4 = 440 Hz); each region moves it to its key:'),
+    comment('(key - pitch_keycenter) semitones plus tune cents.'),
+    comment(
+      'Precision: tune holds whole cents, so every key sounds within 0.5 cent of the tuning.',
+    ),
     '',
     '<group>',
     `sample=${sampleName} pitch_keytrack=100`,
     '',
     ...placed.map(
-      (region) =>
-        `<region> lokey=${region.key} hikey=${region.key} pitch_keycenter=${region.pitchKeycenter} tune=${region.tuneCents}`,
+      ({ key, pitchKeycenter, tuneCents }) =>
+        `<region> lokey=${key} hikey=${key} pitch_keycenter=${pitchKeycenter} tune=${tuneCents}`,
     ),
   ];
   const warnings = unreachableKeysWarning(

@@ -1,9 +1,10 @@
 import { fail, type FieldError, fieldError, type Result, succeed } from '../result';
 
 /**
- * A strict, linear reader of Standard MIDI Files (SMF 1.0), format 0 and 1: running status, system exclusive
- * (F0 and F7 escapes) and meta events. It walks the bytes once, hands each event to a visitor, and answers with
- * where the chunks lie, or with the first fault; random or truncated bytes give an error, never a hang.
+ * A strict, linear reader of Standard MIDI Files (SMF 1.0), format 0 and 1: running status, system
+ * exclusive (F0 and F7 escapes) and meta events. It walks the bytes once, hands each event to a
+ * visitor, and answers with where the chunks lie, or with the first fault; random or truncated
+ * bytes give an error, never a hang.
  */
 
 export interface SongChunk {
@@ -26,10 +27,11 @@ export interface SongLayout {
 }
 
 /**
- * Called once per event in file order, track by track: the absolute tick, the status (80-EF for channel
- * messages with running status resolved, F0/F7 for system exclusive, FF for meta), the data bytes (for meta, the
- * type in `data1`), and the event's bytes after its delta time, `song[start..end)` (under running status they
- * start at the first data byte). A track's end-of-track event is the last one it reports.
+ * Called once per event in file order, track by track: the absolute tick, the status (80-EF for
+ * channel messages with running status resolved, F0/F7 for system exclusive, FF for meta), the data
+ * bytes (for meta, the type in `data1`), and the event's bytes after its delta time,
+ * `song[start..end)` (under running status they start at the first data byte). A track's
+ * end-of-track event is the last one it reports.
  */
 export type SongEventVisitor = (
   track: number,
@@ -57,7 +59,14 @@ function uint32(bytes: Uint8Array, at: number): number {
 }
 
 /** Reads one track's events; answers with a fault, or null. */
-function readTrack(bytes: Uint8Array, track: number, start: number, end: number, visit: SongEventVisitor): string | null {
+function readTrack(
+  bytes: Uint8Array,
+  track: number,
+  start: number,
+  end: number,
+  visit: SongEventVisitor,
+): string | null {
+  const name = `track ${track + 1}`;
   let at = start;
   let tick = 0;
   let runningStatus = -1;
@@ -65,46 +74,60 @@ function readTrack(bytes: Uint8Array, track: number, start: number, end: number,
     let delta = 0;
     let length = 0;
     do {
-      if (at >= end) return `track ${track + 1} is cut short in a delta time at byte ${at}`;
-      if (++length > 4) return `track ${track + 1} has a delta time longer than 4 bytes at byte ${at}`;
+      if (at >= end) return `${name} is cut short in a delta time at byte ${at}`;
+      if (++length > 4) return `${name} has a delta time longer than 4 bytes at byte ${at}`;
       delta = delta * 128 + (bytes[at] & 0x7f);
     } while (bytes[at++] & 0x80);
     tick += delta;
     const eventStart = at;
-    if (at >= end) return `track ${track + 1} ends after a delta time, with no event`;
+    if (at >= end) return `${name} ends after a delta time, with no event`;
     let status = bytes[at];
     if (status < 0x80) {
-      if (runningStatus < 0) return `track ${track + 1} uses running status before any status byte, at byte ${at}`;
+      if (runningStatus < 0) {
+        return `${name} uses running status before any status byte, at byte ${at}`;
+      }
       status = runningStatus;
     } else at++;
     if (status < 0xf0) {
       runningStatus = status;
       const kind = status & 0xf0;
       const dataLength = kind === 0xc0 || kind === 0xd0 ? 1 : 2;
-      if (at + dataLength > end) return `track ${track + 1} is cut short inside an event at byte ${eventStart}`;
+      if (at + dataLength > end) {
+        return `${name} is cut short inside an event at byte ${eventStart}`;
+      }
       const data1 = bytes[at];
       const data2 = dataLength === 2 ? bytes[at + 1] : 0;
-      if (data1 > 0x7f || data2 > 0x7f) return `track ${track + 1} has a status byte where data should be, at byte ${at}`;
+      if (data1 > 0x7f || data2 > 0x7f) {
+        return `${name} has a status byte where data should be, at byte ${at}`;
+      }
       at += dataLength;
       visit(track, tick, status, data1, data2, eventStart, at);
       continue;
     }
     let type = 0;
     if (status === metaEvent) {
-      if (at >= end) return `track ${track + 1} is cut short inside a meta event at byte ${eventStart}`;
+      if (at >= end) return `${name} is cut short inside a meta event at byte ${eventStart}`;
       type = bytes[at++];
     } else if (status !== 0xf0 && status !== 0xf7) {
-      return `track ${track + 1} holds the byte ${status.toString(16).toUpperCase()} at ${eventStart}, which no event in a MIDI file starts with`;
+      const byte = status.toString(16).toUpperCase();
+      return (
+        `${name} holds the byte ${byte} at ${eventStart}, ` +
+        'which no event in a MIDI file starts with'
+      );
     }
     let dataLength = 0;
     length = 0;
     do {
-      if (at >= end) return `track ${track + 1} is cut short in an event length at byte ${at}`;
-      if (++length > 4) return `track ${track + 1} has an event length longer than 4 bytes at byte ${at}`;
+      if (at >= end) return `${name} is cut short in an event length at byte ${at}`;
+      if (++length > 4) return `${name} has an event length longer than 4 bytes at byte ${at}`;
       dataLength = dataLength * 128 + (bytes[at] & 0x7f);
     } while (bytes[at++] & 0x80);
     if (at + dataLength > end) {
-      return `track ${track + 1} is cut short: an event at byte ${eventStart} needs ${dataLength} bytes, ${end - at} are left`;
+      const left = end - at;
+      return (
+        `${name} is cut short: an event at byte ${eventStart} needs ${dataLength} bytes, ` +
+        `${left} are left`
+      );
     }
     at += dataLength;
     visit(track, tick, status, type, 0, eventStart, at);
@@ -116,7 +139,11 @@ function readTrack(bytes: Uint8Array, track: number, start: number, end: number,
 /** Reads a song, calling `visit` for every event; faults name the file and where in it. */
 export function readSong(bytes: Uint8Array, visit: SongEventVisitor): Result<SongLayout> {
   if (bytes.length < 14 || text(bytes, 0) !== 'MThd') {
-    return fail([songFault('is not a Standard MIDI File: it does not start with an MThd header of 14 bytes or more')]);
+    return fail([
+      songFault(
+        'is not a Standard MIDI File: it does not start with an MThd header of 14 bytes or more',
+      ),
+    ]);
   }
   const headerLength = uint32(bytes, 4);
   if (headerLength < 6 || 8 + headerLength > bytes.length) {
@@ -127,7 +154,8 @@ export function readSong(bytes: Uint8Array, visit: SongEventVisitor): Result<Son
     return fail([
       songFault(
         format === 2
-          ? 'is a format 2 MIDI file (independent patterns); only format 0 and 1 songs can be retuned'
+          ? 'is a format 2 MIDI file (independent patterns); ' +
+            'only format 0 and 1 songs can be retuned'
           : `declares MIDI file format ${format}, which does not exist`,
       ),
     ]);
@@ -140,7 +168,8 @@ export function readSong(bytes: Uint8Array, visit: SongEventVisitor): Result<Son
     const dataStart = at + 8;
     const end = dataStart + uint32(bytes, at + 4);
     if (end > bytes.length) {
-      return fail([songFault(`is cut short: the chunk at byte ${at} needs ${end - bytes.length} more bytes`)]);
+      const missing = end - bytes.length;
+      return fail([songFault(`is cut short: the chunk at byte ${at} needs ${missing} more bytes`)]);
     }
     const isTrack = text(bytes, at) === 'MTrk';
     if (isTrack) {

@@ -29,18 +29,20 @@ describe('Standard MIDI File writer', () => {
   });
 
   it('stores a bulk dump as F0 83 17 7E ... F7', () => {
-    const [dump] = encodeBulkDump(twelveEqualKeys, { deviceId: 0x7f, program: 0, tuningName: '12-TET' }).messages;
+    const target = { deviceId: 0x7f, program: 0, tuningName: '12-TET' };
+    const [dump] = encodeBulkDump(twelveEqualKeys, target).messages;
     const track = new TrackWriter();
     track.systemExclusive(0, dump);
     const bytes = track.finish();
-    // REFERENCE.md: SMF 1.0, a system exclusive event is F0 <variable-length n> <n bytes after F0, including F7>;
+    // REFERENCE.md: SMF 1.0, a system exclusive event is F0 <variable-length n> <n bytes after F0,
+    // including F7>;
     // a bulk dump is stored as F0 83 17 7E ... F7
     expect([...bytes.subarray(0, 5)]).toEqual([0x00, 0xf0, 0x83, 0x17, 0x7e]);
     expect(bytes[1 + 3 + 406]).toBe(0xf7);
     expect([...bytes.subarray(-4)]).toEqual([0x00, 0xff, 0x2f, 0x00]);
   });
 
-  it('leaves out repeated status bytes, and writes the status again after system exclusive and meta events', () => {
+  it('leaves out repeated status bytes, and repeats them after system exclusive and meta', () => {
     const track = new TrackWriter();
     track.channelMessage(0, 0x90, 60, 100);
     track.channelMessage(10, 0x90, 64, 100);
@@ -51,8 +53,9 @@ describe('Standard MIDI File writer', () => {
     track.channelMessage(30, 0xc0, 7);
     // REFERENCE.md: SMF 1.0, system exclusive and meta events cancel running status
     expect([...track.finish()]).toEqual([
-      0x00, 0x90, 60, 100, 0x0a, 64, 100, 0x00, 0xc0, 5, 0x0a, 0xf0, 0x05, 0x7e, 0x7f, 0x09, 0x01, 0xf7, 0x00, 0xc0, 6,
-      0x00, 0xff, 0x01, 0x01, 0x41, 0x0a, 0xc0, 7, 0x00, 0xff, 0x2f, 0x00,
+      ...[0x00, 0x90, 60, 100, 0x0a, 64, 100, 0x00, 0xc0, 5],
+      ...[0x0a, 0xf0, 0x05, 0x7e, 0x7f, 0x09, 0x01, 0xf7, 0x00, 0xc0, 6],
+      ...[0x00, 0xff, 0x01, 0x01, 0x41, 0x0a, 0xc0, 7, 0x00, 0xff, 0x2f, 0x00],
     ]);
   });
 
@@ -64,16 +67,22 @@ describe('Standard MIDI File writer', () => {
 
   it('writes files that midi-file reads back event for event', () => {
     const channelEvent = fc.record({
-      delta: fc.oneof(fc.constant(0), fc.integer({ min: 0, max: 200 }), fc.integer({ min: 0, max: 0x0fffffff })),
+      delta: fc.oneof(
+        fc.constant(0),
+        fc.integer({ min: 0, max: 200 }),
+        fc.integer({ min: 0, max: 0x0fffffff }),
+      ),
       status: fc.integer({ min: 0x80, max: 0xef }),
       data1: fc.integer({ min: 0, max: 127 }),
       data2: fc.integer({ min: 1, max: 127 }),
     });
     fc.assert(
-      fc.property(fc.array(channelEvent, { maxLength: 60 }), fc.boolean(), (events, runningStatus) => {
-        const track = new TrackWriter(runningStatus);
+      fc.property(fc.array(channelEvent, { maxLength: 60 }), fc.boolean(), (events, running) => {
+        const track = new TrackWriter(running);
         let tick = 0;
-        for (const event of events) track.channelMessage((tick += event.delta), event.status, event.data1, event.data2);
+        for (const { delta, status, data1, data2 } of events) {
+          track.channelMessage((tick += delta), status, data1, data2);
+        }
         const file = standardMidiFile({ format: 0, division: 96 }, [track.finish()]);
         const parsed = parseMidi(file);
         expect(parsed.header).toMatchObject({ format: 0, numTracks: 1, ticksPerBeat: 96 });

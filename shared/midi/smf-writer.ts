@@ -1,6 +1,7 @@
 /**
- * A Standard MIDI File writer (SMF 1.0) that runs in time linear in what it writes: events go into a byte buffer
- * that doubles when full, each delta time as a variable-length quantity, channel messages with running status.
+ * A Standard MIDI File writer (SMF 1.0) that runs in time linear in what it writes: events go into
+ * a byte buffer that doubles when full, each delta time as a variable-length quantity, channel
+ * messages with running status.
  */
 
 /** Bytes appended in amortised constant time. */
@@ -30,11 +31,18 @@ export class ByteBuffer {
   bytes(source: ArrayLike<number>, start = 0, end = source.length): void {
     this.reserve(end - start);
     if (source instanceof Uint8Array) this.storage.set(source.subarray(start, end), this.length);
-    else for (let index = start; index < end; index++) this.storage[this.length + index - start] = source[index];
+    else {
+      for (let index = start; index < end; index++) {
+        this.storage[this.length + index - start] = source[index];
+      }
+    }
     this.length += end - start;
   }
 
-  /** A variable-length quantity: 7 bits a byte, most significant first, bit 7 set on all but the last. */
+  /**
+   * A variable-length quantity: 7 bits a byte, most significant first, bit 7 set on all but the
+   * last.
+   */
   variableLength(value: number): void {
     if (value < 0x80) {
       this.byte(value);
@@ -42,7 +50,9 @@ export class ByteBuffer {
     }
     const groups: number[] = [];
     for (let rest = value; rest > 0; rest = Math.floor(rest / 0x80)) groups.push(rest % 0x80);
-    for (let index = groups.length - 1; index >= 0; index--) this.byte(index > 0 ? groups[index] | 0x80 : groups[index]);
+    for (let index = groups.length - 1; index >= 0; index--) {
+      this.byte(index > 0 ? groups[index] | 0x80 : groups[index]);
+    }
   }
 
   uint16(value: number): void {
@@ -69,8 +79,8 @@ function dataBytesOf(status: number): number {
 }
 
 /**
- * One track's events in time order. Ticks are absolute; the writer turns them into delta times. System exclusive
- * and meta events cancel running status, as SMF 1.0 requires.
+ * One track's events in time order. Ticks are absolute; the writer turns them into delta times.
+ * System exclusive and meta events cancel running status, as SMF 1.0 requires.
  */
 export class TrackWriter {
   private readonly buffer: ByteBuffer;
@@ -87,7 +97,9 @@ export class TrackWriter {
   private delta(tick: number): void {
     const delta = tick - this.lastTick;
     if (!(delta >= 0 && delta <= largestDelta)) {
-      throw new RangeError(`events must come in time order: tick ${tick} after tick ${this.lastTick}`);
+      throw new RangeError(
+        `events must come in time order: tick ${tick} after tick ${this.lastTick}`,
+      );
     }
     this.buffer.variableLength(delta);
     this.lastTick = tick;
@@ -126,7 +138,10 @@ export class TrackWriter {
     this.runningStatus = -1;
   }
 
-  /** A meta or system exclusive event copied byte for byte from another file (`source[start..end)`, no delta). */
+  /**
+   * A meta or system exclusive event copied byte for byte from another file (`source[start..end)`,
+   * no delta).
+   */
   copiedEvent(tick: number, source: Uint8Array, start: number, end: number): void {
     this.delta(tick);
     this.buffer.bytes(source, start, end);
@@ -138,7 +153,10 @@ export class TrackWriter {
     return this.buffer.toBytes();
   }
 
-  /** The track's bytes, closed by an end-of-track event at `endTick` (or at the last event if earlier). */
+  /**
+   * The track's bytes, closed by an end-of-track event at `endTick` (or at the last event if
+   * earlier).
+   */
   finish(endTick = this.lastTick): Uint8Array {
     this.meta(Math.max(endTick, this.lastTick), endOfTrack, []);
     return this.buffer.toBytes();
@@ -153,8 +171,14 @@ export function metaText(text: string): number[] {
   });
 }
 
-/** A whole file: the header chunk `MThd` (format, track count, division), then one `MTrk` chunk per track. */
-export function standardMidiFile(header: { format: 0 | 1; division: number }, tracks: readonly Uint8Array[]): Uint8Array {
+/**
+ * A whole file: the header chunk `MThd` (format, track count, division), then one `MTrk` chunk per
+ * track.
+ */
+export function standardMidiFile(
+  header: { format: 0 | 1; division: number },
+  tracks: readonly Uint8Array[],
+): Uint8Array {
   const file = new ByteBuffer(14 + tracks.reduce((sum, track) => sum + 8 + track.length, 0));
   file.bytes(metaText('MThd'));
   file.uint32(6);

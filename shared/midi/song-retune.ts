@@ -7,10 +7,10 @@ import { ByteBuffer, metaText, TrackWriter } from './smf-writer';
 import { type MtsOutput, tuningSysex } from './tuning-setup';
 
 /**
- * Retuning a song (a format 0 or 1 Standard MIDI File). Mode `mts` puts the tuning at tick 0 of the first track
- * and selects it on every channel that plays notes, leaving every other byte as it was. Mode `mpe` moves each
- * note to a member channel of its own with its pitch bend, for instruments without MTS. Channel 10, the drum kit
- * of General MIDI, is left alone in both.
+ * Retuning a song (a format 0 or 1 Standard MIDI File). Mode `mts` puts the tuning at tick 0 of the
+ * first track and selects it on every channel that plays notes, leaving every other byte as it was.
+ * Mode `mpe` moves each note to a member channel of its own with its pitch bend, for instruments
+ * without MTS. Channel 10, the drum kit of General MIDI, is left alone in both.
  */
 
 export type RetuneMode = 'mts' | 'mpe';
@@ -37,7 +37,10 @@ export interface RetuneReport {
   mode: RetuneMode;
   /** Notes whose key the tuning maps (other notes keep the pitch they had). */
   notesRetuned: number;
-  /** `mts`: the channels the tuning was selected on; `mpe`: the member channels notes were moved to (1-16). */
+  /**
+   * `mts`: the channels the tuning was selected on; `mpe`: the member channels notes were moved to
+   * (1-16).
+   */
   channelsUsed: number[];
   notesStolen: StolenNote[];
   warnings: FieldError[];
@@ -61,7 +64,8 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
   let notesRetuned = 0;
   const layout = readSong(song, (_track, _tick, status, key, velocity) => {
     const channelIndex = status & 0x0f;
-    if ((status & 0xf0) !== 0x90 || velocity === 0 || status > 0xef || channelIndex === drumChannelIndex) return;
+    const isNoteOn = (status & 0xf0) === 0x90 && velocity > 0;
+    if (!isNoteOn || channelIndex === drumChannelIndex) return;
     playsNotes[channelIndex] = true;
     if (mapped[key]) notesRetuned++;
   });
@@ -72,7 +76,9 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
   setup.meta(0, 0x01, metaText(`Keyloom: tuning ${tuning.output.tuningName}`));
   const sysex = tuningSysex(tuning.keys, tuning.output);
   for (const message of sysex.messages) setup.systemExclusive(0, message);
-  for (const channel of channelsUsed) setup.channelMessages(0, tuningSelectionMessages(channel, tuning.output));
+  for (const channel of channelsUsed) {
+    setup.channelMessages(0, tuningSelectionMessages(channel, tuning.output));
+  }
   const inserted = setup.eventBytes();
 
   const first = layout.value.chunks.find((chunk) => chunk.isTrack);
@@ -86,7 +92,9 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
 
   const warnings = [...sysex.warnings];
   if (channelsUsed.length === 0) {
-    warnings.push(fieldError('file', 'plays no notes outside channel 10 (drums): the tuning was added, but no channel selects it'));
+    const fault =
+      'plays no notes outside channel 10 (drums): the tuning was added, but no channel selects it';
+    warnings.push(fieldError('file', fault));
   }
   return succeed({
     bytes: file.toBytes(),
@@ -95,6 +103,10 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
 }
 
 /** Retunes a song; faults in the file are answered with what is wrong and where, never thrown. */
-export function retuneSong(song: Uint8Array, tuning: SongTuning, mode: RetuneMode): Result<RetunedSong> {
+export function retuneSong(
+  song: Uint8Array,
+  tuning: SongTuning,
+  mode: RetuneMode,
+): Result<RetunedSong> {
   return mode === 'mts' ? retuneWithMts(song, tuning) : rewriteAsMpe(song, tuning);
 }

@@ -7,7 +7,10 @@ export interface TestEvent {
   bytes: number[];
 }
 
-/** Writes a song from events per track (each list in time order); meta and sysex events are written whole. */
+/**
+ * Writes a song from events per track (each list in time order); meta and sysex events are written
+ * whole.
+ */
 export function songOf(format: 0 | 1, tracks: TestEvent[][], runningStatus = true): Uint8Array {
   return standardMidiFile(
     { format, division: 480 },
@@ -38,7 +41,16 @@ export function merged(...lists: TestEvent[][]): TestEvent[] {
   return lists.flat().sort((a, b) => a.tick - b.tick);
 }
 
-/** Songs of format 0 and 1 with notes, controllers, program changes, bends, meta and system exclusive events. */
+/** Notes three times as often as anything else. */
+const eventKinds = [
+  ...['note', 'note', 'note'],
+  ...['controller', 'program', 'bend', 'pressure', 'meta', 'sysex'],
+] as const;
+
+/**
+ * Songs of format 0 and 1 with notes, controllers, program changes, bends, meta and system
+ * exclusive events.
+ */
 export const songs: fc.Arbitrary<Uint8Array> = fc
   .record({
     format: fc.constantFrom(0 as const, 1 as const),
@@ -48,7 +60,7 @@ export const songs: fc.Arbitrary<Uint8Array> = fc
         fc.record({
           delta: fc.integer({ min: 0, max: 500 }),
           channel: fc.integer({ min: 1, max: 16 }),
-          kind: fc.constantFrom('note', 'note', 'note', 'controller', 'program', 'bend', 'pressure', 'meta', 'sysex'),
+          kind: fc.constantFrom(...eventKinds),
           key: fc.integer({ min: 0, max: 127 }),
           value: fc.integer({ min: 0, max: 127 }),
           length: fc.integer({ min: 1, max: 900 }),

@@ -1,16 +1,17 @@
 import { type FieldError, fieldError } from '../result';
 import type { KeyEntry } from '../tuning/key-table';
 import { MemberChannelAllocator, mpeSetupMessages, mpeZoneOf } from './mpe';
-import { bendForPitch, pitchBendMessage } from './pitch-bend';
+import { bendClampWarning, bendForPitch, pitchBendMessage } from './pitch-bend';
 import { tuningSelectionMessages } from './registered-parameters';
 import { metaText, standardMidiFile, TrackWriter } from './smf-writer';
 import { type MtsOutput, tuningSysex } from './tuning-setup';
 import { unreachableKeysWarning } from './unreachable-keys';
 
 /**
- * Short demonstration files of a tuning: the scale walked up one period from the root key and down again, then a
- * chord of the root, the degrees nearest a just major third and a just fifth, and the period. `smf` tunes the
- * receiver with MTS and plays on channel 1; `mpe-smf` plays each note on a member channel of its own, bent.
+ * Short demonstration files of a tuning: the scale walked up one period from the root key and down
+ * again, then a chord of the root, the degrees nearest a just major third and a just fifth, and the
+ * period. `smf` tunes the receiver with MTS and plays on channel 1; `mpe-smf` plays each note on a
+ * member channel of its own, bent.
  */
 
 const ticksPerQuarter = 480;
@@ -41,7 +42,10 @@ interface PhraseNote {
 
 function scalePhrase({ keys, mapping: { rootKey, keysPerPeriod } }: PhraseTuning): PhraseNote[] {
   const top = Math.min(127, rootKey + keysPerPeriod);
-  const walk = keys.filter((entry): entry is KeyEntry & { hz: number } => entry.key >= rootKey && entry.key <= top && entry.hz !== null);
+  const walk = keys.filter(
+    (entry): entry is KeyEntry & { hz: number } =>
+      entry.key >= rootKey && entry.key <= top && entry.hz !== null,
+  );
   if (walk.length === 0) return [];
   const stepTicks = walk.length > 24 ? ticksPerQuarter / 4 : ticksPerQuarter / 2;
   const upAndDown = [...walk, ...walk.slice(0, -1).reverse()];
@@ -53,14 +57,18 @@ function scalePhrase({ keys, mapping: { rootKey, keysPerPeriod } }: PhraseTuning
     velocity: walkVelocity,
   }));
   const rootCents = walk[0].centsFromRoot ?? 0;
+  const distance = (entry: KeyEntry, cents: number) =>
+    Math.abs((entry.centsFromRoot ?? 0) - rootCents - cents);
   const nearest = (cents: number) =>
-    walk.reduce((best, entry) =>
-      Math.abs((entry.centsFromRoot ?? 0) - rootCents - cents) < Math.abs((best.centsFromRoot ?? 0) - rootCents - cents) ? entry : best,
-    );
-  const chordKeys = new Set([walk[0], nearest(justMajorThirdCents), nearest(justFifthCents), walk[walk.length - 1]]);
+    walk.reduce((best, entry) => (distance(entry, cents) < distance(best, cents) ? entry : best));
+  const third = nearest(justMajorThirdCents);
+  const fifth = nearest(justFifthCents);
+  const chordKeys = new Set([walk[0], third, fifth, walk[walk.length - 1]]);
   const chordStart = notes[notes.length - 1].endTick;
   for (const entry of [...chordKeys].sort((a, b) => a.key - b.key)) {
-    notes.push({ key: entry.key, hz: entry.hz, startTick: chordStart, endTick: chordStart + chordTicks, velocity: chordVelocity });
+    const { key, hz } = entry;
+    const endTick = chordStart + chordTicks;
+    notes.push({ key, hz, startTick: chordStart, endTick, velocity: chordVelocity });
   }
   return notes;
 }
@@ -79,14 +87,16 @@ function phraseEvents(notes: PhraseNote[]): PhraseEvent[] {
 function startTrack(tuning: PhraseTuning): TrackWriter {
   const track = new TrackWriter();
   track.meta(0, 0x03, metaText(tuning.output.tuningName));
-  track.meta(0, 0x51, [microsecondsPerQuarter >> 16, (microsecondsPerQuarter >> 8) & 0xff, microsecondsPerQuarter & 0xff]);
+  const tempo = microsecondsPerQuarter;
+  track.meta(0, 0x51, [tempo >> 16, (tempo >> 8) & 0xff, tempo & 0xff]);
   return track;
 }
 
 function emptyPhraseWarning(notes: PhraseNote[], tuning: PhraseTuning): FieldError[] {
   if (notes.length > 0) return [];
   const { rootKey, keysPerPeriod } = tuning.mapping;
-  return [fieldError('mapping', `no key from ${rootKey} to ${rootKey + keysPerPeriod} is mapped: the file holds no notes`)];
+  const fault = `no key from ${rootKey} to ${rootKey + keysPerPeriod} is mapped`;
+  return [fieldError('mapping', `${fault}: the file holds no notes`)];
 }
 
 export interface PhraseFile {
@@ -95,8 +105,8 @@ export interface PhraseFile {
 }
 
 /**
- * `smf`: at tick 0 the tuning as a bulk dump and as real-time single-note changes, and the tuning bank and
- * program selected on channel 1 (RPN 4, RPN 3); then the phrase on channel 1.
+ * `smf`: at tick 0 the tuning as a bulk dump and as real-time single-note changes, and the tuning
+ * bank and program selected on channel 1 (RPN 4, RPN 3); then the phrase on channel 1.
  */
 export function tuningPhraseFile(tuning: PhraseTuning): PhraseFile {
   const channel = 1;
@@ -106,15 +116,17 @@ export function tuningPhraseFile(tuning: PhraseTuning): PhraseFile {
   track.channelMessages(0, tuningSelectionMessages(channel, tuning.output));
   const notes = scalePhrase(tuning);
   for (const { tick, note, on } of phraseEvents(notes)) {
-    track.channelMessage(tick, (on ? 0x90 : 0x80) | (channel - 1), note.key, on ? note.velocity : 0x40);
+    const status = (on ? 0x90 : 0x80) | (channel - 1);
+    track.channelMessage(tick, status, note.key, on ? note.velocity : 0x40);
   }
   const bytes = standardMidiFile({ format: 0, division: ticksPerQuarter }, [track.finish()]);
   return { bytes, warnings: [...sysex.warnings, ...emptyPhraseWarning(notes, tuning)] };
 }
 
 /**
- * `mpe-smf`: the zone configured and the bend range set on every member channel at tick 0, then the phrase with
- * each note on a member channel of its own (least recently used first), its pitch bend just before its note-on.
+ * `mpe-smf`: the zone configured and the bend range set on every member channel at tick 0, then the
+ * phrase with each note on a member channel of its own (least recently used first), its pitch bend
+ * just before its note-on.
  */
 export function mpePhraseFile(tuning: PhraseTuning): PhraseFile {
   const { bendRange, memberChannels } = tuning.output;
@@ -138,16 +150,21 @@ export function mpePhraseFile(tuning: PhraseTuning): PhraseFile {
     if (bent.clamped) clamped.add(note.key);
     const { channel, stolen } = allocator.start(note);
     if (stolen) {
-      track.channelMessage(tick, 0x80 | (channel - 1), bendForPitch(stolen.hz, bendRange).note, 0x40);
+      const stolenNote = bendForPitch(stolen.hz, bendRange).note;
+      track.channelMessage(tick, 0x80 | (channel - 1), stolenNote, 0x40);
       channelOf.delete(stolen);
     }
     channelOf.set(note, channel);
-    track.channelMessages(tick, [pitchBendMessage(channel, bent.bendValue14), [0x90 | (channel - 1), bent.note, note.velocity]]);
+    track.channelMessages(tick, [
+      pitchBendMessage(channel, bent.bendValue14),
+      [0x90 | (channel - 1), bent.note, note.velocity],
+    ]);
   }
   const bytes = standardMidiFile({ format: 0, division: ticksPerQuarter }, [track.finish()]);
-  const unreachable = unreachableKeysWarning(
-    [...clamped].sort((a, b) => a - b),
-    `lie beyond what keys 0-127 bent by ±${bendRange} semitones can reach; their bends were clamped`,
-  );
-  return { bytes, warnings: [...zone.warnings, ...unreachable, ...emptyPhraseWarning(notes, tuning)] };
+  const clampedKeys = [...clamped].sort((a, b) => a - b);
+  const unreachable = unreachableKeysWarning(clampedKeys, bendClampWarning(bendRange));
+  return {
+    bytes,
+    warnings: [...zone.warnings, ...unreachable, ...emptyPhraseWarning(notes, tuning)],
+  };
 }
