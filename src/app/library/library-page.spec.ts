@@ -2,7 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { provideRouter, withComponentInputBinding } from '@angular/router';
+import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import { Member, Session } from '../auth/session';
 import { BandSummary } from '../bands/bands-api';
@@ -144,6 +144,19 @@ describe('LibraryPage', () => {
     const request = await open('/library?band=b-fen');
     expect(request.request.params.get('bandId')).toBe('b-fen');
     expect(page().querySelector('caption')!.textContent).toContain('of Copper Fen');
+  });
+
+  it('filters by band from the select and keeps the choice in the address', async () => {
+    await open('/library');
+    expect(page().querySelector('mat-select')!.textContent).toContain('Mine and all my bands\'');
+    page().querySelector<HTMLElement>('mat-select')!.click();
+    await settle();
+    Array.from(document.querySelectorAll<HTMLElement>('mat-option')).find((o) => o.textContent!.includes('Copper Fen'))!.click();
+    await settle();
+    expect(TestBed.inject(Router).url).toBe('/library?band=b-fen');
+    const request = presetRequest();
+    expect(request.request.params.get('bandId')).toBe('b-fen');
+    expect(request.request.params.get('page')).toBe('1');
   });
 
   it('lists the trash and restores a preset from it', async () => {

@@ -1,11 +1,12 @@
-import { DecimalPipe } from '@angular/common';
 import { Component, input } from '@angular/core';
 import type { PreviewDegree } from '@shared/tuning/preview';
 
-/** A scale's degrees: exact ratio (or the nearest simple one), cents, and the nearest equal-tempered note. */
+/**
+ * A scale's degrees: exact ratio (or the nearest simple one), cents, and the nearest equal-tempered note with the
+ * offset from it.
+ */
 @Component({
   selector: 'app-degree-table',
-  imports: [DecimalPipe],
   template: `
     <table class="degrees">
       <caption class="visually-hidden">Degrees of the scale</caption>
@@ -14,7 +15,7 @@ import type { PreviewDegree } from '@shared/tuning/preview';
           <th scope="col">Degree</th>
           <th scope="col">Ratio</th>
           <th scope="col" class="number">Cents</th>
-          <th scope="col">Nearest note</th>
+          <th scope="col">Note</th>
           <th scope="col" class="number">Offset</th>
         </tr>
       </thead>
@@ -26,14 +27,13 @@ import type { PreviewDegree } from '@shared/tuning/preview';
               @if (degree.ratio) {
                 {{ degree.ratio }}
               } @else if (degree.approximation) {
-                <span [attr.aria-label]="'about ' + degree.approximation.ratio + ', off by ' + signed(degree.approximation.errorCents)">
-                  ≈ {{ degree.approximation.ratio }} <span class="error">{{ signed(degree.approximation.errorCents) }}</span>
-                </span>
+                <span aria-hidden="true">≈</span><span class="visually-hidden">about</span>
+                {{ degree.approximation.ratio }} <span class="error">{{ signed(degree.approximation.errorCents) }}</span>
               } @else {
                 —
               }
             </td>
-            <td class="number">{{ degree.cents | number: '1.2-2' }}</td>
+            <td class="number">{{ degree.cents.toFixed(2) }}</td>
             <td>{{ degree.nearestNote.name }}</td>
             <td class="number">{{ signed(degree.nearestNote.offsetCents) }}</td>
           </tr>
@@ -44,6 +44,7 @@ import type { PreviewDegree } from '@shared/tuning/preview';
   styles: `
     .degrees { border-collapse: collapse; width: 100%; font-variant-numeric: tabular-nums; }
     th, td { padding: 6px 10px; text-align: start; border-bottom: 1px solid var(--mat-sys-outline-variant); }
+    @media (max-width: 480px) { th, td { padding: 6px 4px; } }
     thead th { font: var(--mat-sys-label-large); color: var(--mat-sys-on-surface-variant); }
     .number { text-align: end; }
     tbody th { font-weight: normal; }
