@@ -1,6 +1,6 @@
 import * as fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { hzOfFrequencyWord, nearestMtsUnits, writeFrequencyWord } from './frequency-word';
+import { hzOfFrequencyWord, writeFrequencyWord } from './frequency-word';
 import { centsBetween } from './key-tables.testing';
 
 function wordOf(hz: number | null): number[] {
@@ -56,11 +56,13 @@ describe('MTS frequency words', () => {
   });
 
   it('clamps pitches outside 8.1758-13289.6566 Hz to the ends of the range and says so', () => {
+    const clamped = (hz: number) => writeFrequencyWord(new Uint8Array(3), 0, hz);
     // REFERENCE.md: MIDI Tuning Standard, the highest usable value is 7F 7F 7E
-    expect(nearestMtsUnits(20000)).toEqual({ units: 127 * 16384 + 16382, clamped: true });
-    expect(nearestMtsUnits(5)).toEqual({ units: 0, clamped: true });
-    expect(nearestMtsUnits(0)).toEqual({ units: 0, clamped: true });
-    expect(nearestMtsUnits(440).clamped).toBe(false);
+    expect(wordOf(20000)).toEqual([0x7f, 0x7f, 0x7e]);
+    expect(wordOf(5)).toEqual([0x00, 0x00, 0x00]);
+    expect(wordOf(0)).toEqual([0x00, 0x00, 0x00]);
+    expect([20000, 5, 0, 13289.7].map(clamped)).toEqual([true, true, true, true]);
+    expect([440, 8.1758, 13289.6566].map(clamped)).toEqual([false, false, false]);
   });
 
   it('leaves at most half a unit, 0.0030518 cents, of error anywhere in the range', () => {

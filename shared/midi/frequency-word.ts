@@ -26,7 +26,7 @@ const hzOfA4 = 440;
  * An encoded pitch: its units from key 0, and whether it had to be clamped into the range MTS can
  * send.
  */
-export interface MtsPitch {
+interface MtsPitch {
   units: number;
   clamped: boolean;
 }
@@ -36,7 +36,7 @@ export interface MtsPitch {
  * most half a unit, 0.0030517578125 cents, of error. Pitches outside 8.1758-13289.6566 Hz are
  * clamped to the nearest end.
  */
-export function nearestMtsUnits(hz: number): MtsPitch {
+function nearestMtsUnits(hz: number): MtsPitch {
   const units = Math.round((keyOfA4 + 12 * Math.log2(hz / hzOfA4)) * mtsUnitsPerSemitone);
   if (units > highestMtsUnits) return { units: highestMtsUnits, clamped: true };
   if (!(units >= 0)) return { units: 0, clamped: true };

@@ -6,7 +6,6 @@ import { equalTemperedHz } from '../tuning/twelve-edo';
 import type { KeyPitch } from './frequency-word';
 import { centsBetween, pureFifthsOnWhiteKeys, twelveEqualKeys } from './key-tables.testing';
 import {
-  channelBitmap,
   decodeScaleOctave,
   encodeScaleOctave1,
   encodeScaleOctave2,
@@ -25,11 +24,16 @@ function offsetsOf(keys: readonly KeyPitch[]) {
 
 describe('MTS scale/octave tuning (08 08, 08 09)', () => {
   it('writes the channel bitmap ff gg hh', () => {
+    const offsets = new Array(12).fill(0);
+    const bitmap = (channels: number[]) => {
+      const [message] = encodeScaleOctave1(offsets, { ...target, channels }).messages;
+      return [...message.subarray(5, 8)];
+    };
     // REFERENCE.md: channel bitmap, all channels = 03 7F 7F; hh bits 0-6 = channels 1-7, gg bits
     // 0-6 = channels 8-14, ff bits 0-1 = channels 15-16
-    expect(channelBitmap(everyChannel)).toEqual([0x03, 0x7f, 0x7f]);
-    expect(channelBitmap([1])).toEqual([0x00, 0x00, 0x01]);
-    expect(channelBitmap([8, 16])).toEqual([0x02, 0x01, 0x00]);
+    expect(bitmap(everyChannel)).toEqual([0x03, 0x7f, 0x7f]);
+    expect(bitmap([1])).toEqual([0x00, 0x00, 0x01]);
+    expect(bitmap([8, 16])).toEqual([0x02, 0x01, 0x00]);
   });
 
   it('writes equal temperament as 40 in the 1-byte form and 40 00 in the 2-byte form', () => {

@@ -73,7 +73,7 @@ export function octaveOffsets(
  * The channel bitmap `ff gg hh`: ff bits 0-1 channels 15-16, gg bits 0-6 channels 8-14, hh bits 0-6
  * channels 1-7.
  */
-export function channelBitmap(channels: readonly number[]): [number, number, number] {
+function channelBitmap(channels: readonly number[]): [number, number, number] {
   let bits = 0;
   for (const channel of channels) if (channel >= 1 && channel <= 16) bits |= 1 << (channel - 1);
   return [(bits >> 14) & 0x03, (bits >> 7) & 0x7f, bits & 0x7f];
