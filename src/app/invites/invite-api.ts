@@ -12,7 +12,7 @@ export interface InviteSummary {
   status: 'pending' | 'accepted' | 'revoked' | 'expired';
 }
 
-export interface AcceptedInvite {
+interface AcceptedInvite {
   bandId: string;
   role: BandRole;
   alreadyMember: boolean;

@@ -32,7 +32,7 @@ export interface PresetPage {
   pageSize: number;
 }
 
-export type PresetAccess = 'read' | 'edit' | 'own';
+type PresetAccess = 'read' | 'edit' | 'own';
 
 export interface PresetDetail {
   id: string;

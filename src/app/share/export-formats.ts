@@ -1,5 +1,5 @@
 /** A file a preset can be downloaded as (ids are the contract of DESIGN.md's export table). */
-export interface ExportFormat {
+interface ExportFormat {
   id: string;
   label: string;
   /** What the file is for, in one line. */
