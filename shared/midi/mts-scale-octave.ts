@@ -117,8 +117,8 @@ function offsetValue(form: OctaveForm, cents: number): number {
 }
 
 /** Note names without octave: C, C#, ... B. */
-function noteNames(pitchClasses: number[]): string {
-  return pitchClasses.map((pitchClass) => noteName(12 + pitchClass).slice(0, -1)).join(', ');
+function noteNames(classes: number[]): string {
+  return classes.map((pitchClass) => noteName(12 + pitchClass).slice(0, -1)).join(', ');
 }
 
 function encodeOctave(
