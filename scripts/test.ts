@@ -51,6 +51,9 @@ try {
   log('vitest: shared, server and fakes');
   vitest('vitest', 'tests/vitest.config.ts');
 
+  log('vitest: load, crash and outage tests, one file at a time');
+  vitest('faults', 'tests/faults/vitest.config.ts');
+
   log('Karma: Angular components in headless Chromium');
   const karmaCounts = join(resultsDir, 'karma.json');
   const karmaOk = run(bin('ng'), ['test', '--watch=false'], {

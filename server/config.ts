@@ -23,6 +23,8 @@ export interface Config {
   smtp: { host: string; port: number; user?: string; password?: string; secure: boolean; from: string };
   /** Requests per minute per address on sign-in and invite endpoints. */
   rateLimitPerMinute: number;
+  /** KEYLOOM_BENCH_ROUTES=1 adds the constant routes that `npm run bench` measures against; never in production. */
+  benchRoutes: boolean;
 }
 
 export const repoRoot = resolve(import.meta.dirname, '..');
@@ -61,5 +63,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       from: env['MAIL_FROM'] ?? 'Keyloom <keyloom@localhost>',
     },
     rateLimitPerMinute: Number(env['RATE_LIMIT_PER_MINUTE'] ?? 30),
+    benchRoutes: env['KEYLOOM_BENCH_ROUTES'] === '1' && !production,
   };
 }

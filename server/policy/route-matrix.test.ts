@@ -87,6 +87,16 @@ const matrix: Record<string, Case> = {
   // An invite link is for whoever the mail reached: reading it needs the token, accepting it a signed-in member.
   'GET /api/invites/:token': { allowed: everyone, path: (f) => `/api/invites/${f.inviteToken}` },
   'POST /api/invites/:token/accept': { allowed: signedIn, path: (f) => `/api/invites/${f.inviteToken}/accept` },
+  'POST /api/preview/export/:format': { allowed: everyone, path: () => '/api/preview/export/mts-bulk', body: () => doc },
+  'GET /api/presets/:id/export/:format': { allowed: readers, path: (f) => `/api/presets/${f.presetId}/export/mts-bulk` },
+  'GET /api/presets/:id/bundle': { allowed: readers, path: (f) => `/api/presets/${f.presetId}/bundle` },
+  'GET /api/shared/:token/export/:format': {
+    allowed: ['linkHolder'], path: (f, actor) => `/api/shared/${actor === 'linkHolder' ? f.shareToken : 'guessed-token'}/export/sfz`,
+  },
+  'GET /api/shared/:token/bundle': {
+    allowed: ['linkHolder'], path: (f, actor) => `/api/shared/${actor === 'linkHolder' ? f.shareToken : 'guessed-token'}/bundle`,
+  },
+  'POST /api/retune': { allowed: everyone, path: () => '/api/retune' },
   'POST /api/import': { allowed: everyone, path: () => '/api/import' },
   'GET /{*splat}': { allowed: everyone, path: () => '/library' },
 };
@@ -165,7 +175,7 @@ describe('the role matrix', () => {
       const expected: Record<string, string> = {};
       for (const actor of actors) {
         const res = await send(actor, route, await freshFixture());
-        expect(res.status, `${actor}: ${res.text.slice(0, 200)}`).toBeLessThan(500);
+        expect(res.status, `${actor}: ${String(res.text ?? "").slice(0, 200)}`).toBeLessThan(500);
         outcome[actor] = denied(res.status) ? 'denied' : 'allowed';
         expected[actor] = matrix[route].allowed.includes(actor) ? 'allowed' : 'denied';
       }

@@ -7,8 +7,8 @@ import { parseInterval } from '../../shared/tuning/interval';
 import { previewTable } from '../../shared/tuning/preview';
 
 const runs = 10_000;
-/** Any single case taking longer than this counts as a hang. */
-const slowestMs = 250;
+/** Any single case taking longer than this counts as a hang (generous: the machine may be busy with other work). */
+const slowestMs = 2000;
 
 /** Text shaped like intervals: digits, slashes, backslashes, units, signs, dots, spaces and stray characters. */
 const intervalish = fc

@@ -1,0 +1,49 @@
+// The long runs that `npm test` makes short (tests/faults/): 100 concurrent players for 60 seconds mixing reads,
+// saves and exports; then the same with the server killed by SIGKILL 20 seconds in and started again. Prints what
+// happened and fails loudly if an error reached a player or an acknowledged save was lost.
+// Run: npx tsx bench/long-load.bench.ts (about three minutes)
+import { missingSaves, runMixedLoad } from '../tests/support/mixed-load';
+import { startServerProcess } from '../tests/support/server-process';
+import { startBenchStack } from './support/bench-stack';
+
+const clients = Number(process.env['BENCH_CLIENTS'] ?? 100);
+const seconds = Number(process.env['BENCH_SECONDS'] ?? 60);
+let failed = false;
+
+const stack = await startBenchStack('longload');
+try {
+  let server = stack.server;
+  const started = Date.now();
+  const steady = await runMixedLoad({ appUrl: () => server.url, clients, seconds, loginPrefix: 'steady' });
+  const lost = await missingSaves(server.url, 'steady', steady.acknowledged);
+  console.log(`Steady load: ${clients} players for ${seconds} s: ${steady.requests} requests ` +
+    `(${(steady.requests / ((Date.now() - started) / 1000)).toFixed(0)} a second), ${steady.failures.length} errors, ` +
+    `${steady.acknowledged.length} saves acknowledged, ${lost.length} of them lost`);
+  failed ||= steady.failures.length > 0 || lost.length > 0;
+
+  let down = false;
+  let restartedAt = 0;
+  const load = runMixedLoad({ appUrl: () => server.url, clients, seconds, loginPrefix: 'crash', outage: () => down });
+  await new Promise((r) => setTimeout(r, Math.min(20, seconds / 3) * 1000));
+  down = true;
+  const port = server.port;
+  await server.stop('SIGKILL');
+  server = await startServerProcess(stack.serverEnv, port);
+  restartedAt = Date.now();
+  await new Promise((r) => setTimeout(r, 500));
+  down = false;
+  const crash = await load;
+  const crashLost = await missingSaves(server.url, 'crash', crash.acknowledged);
+  const carriedOn = new Set(crash.acknowledged.filter((a) => a.at > restartedAt).map((a) => a.note.split(' ')[1])).size;
+  console.log(`Killed with SIGKILL mid-load and restarted: ${crash.requests} requests, ${crash.failuresDuringOutage} failed ` +
+    `while it was down, ${crash.failures.length} errors otherwise, ${crash.acknowledged.length} saves acknowledged, ` +
+    `${crashLost.length} lost; ${carriedOn} of ${clients} players saved again after the restart`);
+  failed ||= crash.failures.length > 0 || crashLost.length > 0 || carriedOn < clients;
+  stack.server = server;
+} finally {
+  await stack.stop();
+}
+if (failed) {
+  console.error('long-load: FAILED (see the figures above)');
+  process.exitCode = 1;
+}

@@ -1,0 +1,82 @@
+import { Router } from 'express';
+import { tuningOfPreset } from '../../shared/export/preset-tuning';
+import { retuneSong, type RetuneMode } from '../../shared/midi/song-retune';
+import { parsePresetDocument, type ResolvedPreset } from '../../shared/preset/preset-document';
+import type { Database } from '../db/client';
+import { exportFileName } from '../../shared/export/export-file-name';
+import { documentOrThrow } from '../http/documents';
+import { HttpError } from '../http/errors';
+import { recordUpload, requireFile, singleUpload } from '../http/uploads';
+import { ValidationError, valueOrThrow } from '../http/validation';
+import { readRevision } from '../library/revisions';
+import { authorizePreset } from '../policy/policy';
+
+/** The stolen notes listed in the report header at most; the count is always whole. */
+const listedStolenNotes = 100;
+
+/** What a file that is not MIDI looks like, so the refusal can say so. */
+function whatItIs(bytes: Buffer): string {
+  const start = bytes.subarray(0, 4).toString('latin1');
+  if (start.startsWith('PK')) return 'a zip archive';
+  if (start === '%PDF') return 'a PDF document';
+  if (bytes[0] === 0xf0) return 'system exclusive data (.syx): import it instead';
+  if (start === 'RIFF') return 'a RIFF file (perhaps audio)';
+  return `a file that starts with ${[...bytes.subarray(0, 4)].map((b) => b.toString(16).padStart(2, '0')).join(' ')}`;
+}
+
+/** A song and a preset in, the song retuned out: with MTS messages at its start, or one note per MPE channel. */
+export function retuneRouter(db: Database): Router {
+  const router = Router();
+
+  async function presetFor(fields: Record<string, unknown>, user: Express.User | undefined): Promise<ResolvedPreset> {
+    if (typeof fields['presetId'] === 'string' && fields['presetId'] !== '') {
+      const { preset } = await authorizePreset(db, user, fields['presetId'], 'read');
+      const latest = await readRevision(db, preset.id, preset.latestRevision);
+      return documentOrThrow(latest.document, 'preset');
+    }
+    if (typeof fields['preset'] !== 'string' || fields['preset'] === '') {
+      throw new HttpError(400, 'invalid', 'preset: is required: send the preset document as JSON, or presetId.', 'preset');
+    }
+    let json: unknown;
+    try {
+      json = JSON.parse(fields['preset']);
+    } catch (error) {
+      throw new HttpError(400, 'bad_json', `preset: is not valid JSON (${(error as Error).message}).`, 'preset');
+    }
+    const parsed = parsePresetDocument(json);
+    if (!parsed.ok) throw new ValidationError(parsed.errors.map((e) => ({ path: `preset.${e.path}`, message: `preset.${e.message}` })));
+    return parsed.value;
+  }
+
+  router.post('/api/retune', singleUpload('file'), async (req, res) => {
+    const file = requireFile(req.file);
+    const fields = (req.body ?? {}) as Record<string, unknown>;
+    const mode = fields['mode'] ?? 'mts';
+    if (mode !== 'mts' && mode !== 'mpe') {
+      throw new HttpError(400, 'invalid', `mode: must be mts or mpe (got ${JSON.stringify(mode)}).`, 'mode');
+    }
+    if (file.buffer.subarray(0, 4).toString('latin1') !== 'MThd') {
+      throw new HttpError(400, 'not_midi', `file: is not a Standard MIDI File; it looks like ${whatItIs(file.buffer)}.`, 'file');
+    }
+    const preset = await presetFor(fields, req.user);
+    const tuning = valueOrThrow(tuningOfPreset(preset));
+    const retuned = retuneSong(new Uint8Array(file.buffer), { keys: tuning.keys, output: preset.output }, mode as RetuneMode);
+    if (!retuned.ok) throw new ValidationError(retuned.errors.map((e) => ({ path: `file.${e.path}`, message: `file: ${e.message}` })));
+    const sha256 = await recordUpload(db, req.user?.id, 'retune', file);
+    const { report } = retuned.value;
+    const header = {
+      ...report,
+      notesStolenCount: report.notesStolen.length,
+      notesStolen: report.notesStolen.slice(0, listedStolenNotes),
+      uploadSha256: sha256,
+    };
+    const song = file.originalname.replace(/\.midi?$/i, '');
+    res.type('audio/midi');
+    res.setHeader('Content-Disposition', `attachment; filename="${exportFileName(song, '')}-${exportFileName(preset.name, '')}-${mode}.mid"`);
+    res.setHeader('Keyloom-Report', encodeURIComponent(JSON.stringify(header)));
+    res.setHeader('Access-Control-Expose-Headers', 'Keyloom-Report, Keyloom-Warnings');
+    res.send(Buffer.from(retuned.value.bytes));
+  });
+
+  return router;
+}
