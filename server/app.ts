@@ -81,6 +81,7 @@ function builtApp(staticDir: string): express.Router {
 export function createApp({ db, config, mailer }: AppDependencies): Express {
   const app = express();
   app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy);
   app.use(securityHeaders(config));
   if (config.logRequests) app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
 

@@ -23,6 +23,11 @@ export interface Config {
   smtp: { host: string; port: number; user?: string; password?: string; secure: boolean; from: string };
   /** Requests per minute per address on sign-in and invite endpoints. */
   rateLimitPerMinute: number;
+  /**
+   * Which proxies in front may say who the client is (Express's "trust proxy": `loopback`, a hop count, or
+   * addresses); behind a load balancer it makes rate limits count clients rather than the balancer.
+   */
+  trustProxy: string | number | false;
   /** KEYLOOM_BENCH_ROUTES=1 adds the constant routes that `npm run bench` measures against; never in production. */
   benchRoutes: boolean;
 }
@@ -63,6 +68,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       from: env['MAIL_FROM'] ?? 'Keyloom <keyloom@localhost>',
     },
     rateLimitPerMinute: Number(env['RATE_LIMIT_PER_MINUTE'] ?? 30),
+    trustProxy: env['TRUST_PROXY'] ? (/^\d+$/.test(env['TRUST_PROXY']) ? Number(env['TRUST_PROXY']) : env['TRUST_PROXY']) : false,
     benchRoutes: env['KEYLOOM_BENCH_ROUTES'] === '1' && !production,
   };
 }

@@ -14,7 +14,20 @@ export function createDatabase(url: string): Database {
   return drizzle({ client: pool, schema });
 }
 
-/** Applies the committed migrations in drizzle/; does nothing when the database is up to date. */
+/** Any fixed number: the advisory lock that lets one instance at a time migrate a shared database. */
+const migrationLock = 0x6b6c6d;
+
+/**
+ * Applies the committed migrations in drizzle/; does nothing when the database is up to date. Instances that
+ * start together behind a load balancer take turns, so the same migration is never applied twice.
+ */
 export async function applyMigrations(db: Database): Promise<void> {
-  await migrate(db, { migrationsFolder: join(repoRoot, 'drizzle') });
+  const lock = await db.$client.connect();
+  try {
+    await lock.query('SELECT pg_advisory_lock($1)', [migrationLock]);
+    await migrate(db, { migrationsFolder: join(repoRoot, 'drizzle') });
+  } finally {
+    await lock.query('SELECT pg_advisory_unlock($1)', [migrationLock]).catch(() => {});
+    lock.release();
+  }
 }

@@ -21,8 +21,13 @@ describe('the app shell in Chromium', () => {
     const failures: string[] = [];
     page.on('requestfailed', (r) => failures.push(`${r.url()} ${r.failure()?.errorText}`));
     page.on('pageerror', (e) => failures.push(e.message));
+    // The server's content security policy allows no inline script: the app must run without tripping it.
+    page.on('console', (m) => {
+      if (/Content Security Policy/i.test(m.text())) failures.push(m.text());
+    });
 
-    await page.goto(inject('appUrl'));
+    const answer = await page.goto(inject('appUrl'));
+    expect(answer?.headers()['content-security-policy']).toContain("script-src 'self'");
     await page.getByRole('link', { name: 'Sign in with GitHub' }).waitFor();
     const fonts = await page.evaluate(async () => {
       await document.fonts.ready;
