@@ -72,6 +72,20 @@ describe('App shell', () => {
     expect(element.querySelector('a.sign-in')).not.toBeNull();
   });
 
+  it('offers a switch between the light and the dark theme', async () => {
+    localStorage.removeItem('keyloom.theme');
+    const { fixture, element } = await render({ user: null });
+    const toggle = element.querySelector<HTMLButtonElement>('button.theme')!;
+    const before = toggle.getAttribute('aria-label');
+    expect(before).toMatch(/^Switch to the (light|dark) theme$/);
+    toggle.click();
+    await fixture.whenStable();
+    expect(toggle.getAttribute('aria-label')).not.toBe(before);
+    expect(document.documentElement.classList.contains('light-theme') || document.documentElement.classList.contains('dark-theme')).toBeTrue();
+    localStorage.removeItem('keyloom.theme');
+    document.documentElement.classList.remove('light-theme', 'dark-theme');
+  });
+
   it('says so when the server does not answer', async () => {
     const { element } = await render('unreachable');
     expect(element.querySelector('[role="alert"]')?.textContent).toContain('not answering');

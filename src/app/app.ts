@@ -5,6 +5,7 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { Session } from './auth/session';
+import { ThemeChoice } from './theme/theme-choice';
 
 interface Destination {
   path: string;
@@ -20,6 +21,7 @@ interface Destination {
 })
 export class App implements OnInit {
   protected readonly session = inject(Session);
+  protected readonly themes = inject(ThemeChoice);
   protected readonly destinations: Destination[] = [
     { path: '/design', label: 'Design', icon: 'tune' },
     { path: '/library', label: 'Library', icon: 'library_music' },
