@@ -1,12 +1,96 @@
-import { Component } from '@angular/core';
+import { Component, ElementRef, computed, effect, inject, input, signal, untracked, viewChild } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatTabsModule } from '@angular/material/tabs';
+import { Session } from '../auth/session';
+import { KeyboardStrip } from '../keys/keyboard-strip';
+import { LayoutEditor } from '../keys/layout-editor';
+import { ReferencePitch } from '../keys/reference-pitch';
+import { DownloadMenu } from '../output/download-menu';
+import { OutputSettings } from '../output/output-settings';
+import { DegreeTable } from '../scale/degree-table';
+import { IntervalMatrix } from '../scale/interval-matrix';
+import { OffsetChart } from '../scale/offset-chart';
+import { PeriodRing } from '../scale/period-ring';
+import { ScaleForm } from '../scale/scale-form';
+import { ScaleSummary } from '../scale/scale-summary';
+import { DesignAddress } from './design-address';
+import { DesignField } from './design-field';
+import { DesignState } from './design-state';
+import { SavedPreset } from './saved-preset';
 
-/** The scale designer: kinds, degrees, analysis and key mapping. */
+const tabCount = 3;
+
+/** Whether a key press lands in a place that takes typing, where single-key shortcuts must stay quiet. */
+function isTyping(target: EventTarget | null): boolean {
+  return target instanceof HTMLElement && (target.isContentEditable || /^(INPUT|TEXTAREA|SELECT)$/.test(target.tagName));
+}
+
+/**
+ * The scale designer: the scale and what it does, the keys it lies on, the output settings and the
+ * downloads, for a design of one's own (kept in the address) or a saved preset (`/presets/:id`).
+ */
 @Component({
   selector: 'app-design-page',
-  template: `
-    <h1>Design a scale</h1>
-    <p>Build a scale from stacked generators, equal divisions, ratio lists or harmonics, see what it does and lay it across the keys.</p>
-  `,
-  styles: `h1 { font: var(--mat-sys-headline-small); margin: 8px 0 12px; } p { max-width: 60ch; }`,
+  imports: [
+    MatButtonModule, MatIconModule, MatProgressBarModule, MatTabsModule, DesignField, DownloadMenu, ScaleForm,
+    ScaleSummary, PeriodRing, DegreeTable, OffsetChart, IntervalMatrix, ReferencePitch, KeyboardStrip, LayoutEditor,
+    OutputSettings,
+  ],
+  providers: [DesignState, DesignAddress, SavedPreset],
+  templateUrl: './design-page.html',
+  styleUrl: './design-page.scss',
+  host: { '(document:keydown)': 'followShortcut($event)' },
 })
-export class DesignPage {}
+export class DesignPage {
+  /** The saved preset's id, from `/presets/:id`; absent for a design of one's own. */
+  readonly id = input<string>();
+  protected readonly state = inject(DesignState);
+  protected readonly address = inject(DesignAddress);
+  protected readonly saved = inject(SavedPreset);
+  protected readonly session = inject(Session);
+  protected readonly tab = signal(0);
+  protected readonly ringCents = computed(() => this.state.shown()?.table.degrees.map((degree) => degree.cents) ?? []);
+  /** Why the design in the address could not be opened, if it could not. */
+  protected readonly addressFault = signal<string | null>(null);
+  private readonly help = viewChild.required<ElementRef<HTMLElement>>('help');
+  private addressUsed = false;
+
+  constructor() {
+    effect(() => {
+      const id = this.id();
+      untracked(() => void this.openDesign(id));
+    });
+  }
+
+  protected followShortcut(event: KeyboardEvent): void {
+    const command = event.ctrlKey || event.metaKey;
+    if (command && !event.altKey && event.key.toLowerCase() === 's') {
+      event.preventDefault();
+      void this.saved.save();
+    } else if (event.altKey && !command && /^Digit[1-9]$/.test(event.code)) {
+      const tab = Number(event.code.slice(5)) - 1;
+      if (tab < tabCount) {
+        event.preventDefault();
+        this.tab.set(tab);
+      }
+    } else if (event.key === '?' && !command && !event.altKey && !isTyping(event.target)) {
+      event.preventDefault();
+      this.help().nativeElement.togglePopover();
+    }
+  }
+
+  private async openDesign(id: string | undefined): Promise<void> {
+    const fromAddress = this.addressUsed ? null : this.address.initial();
+    this.addressUsed = true;
+    if (typeof fromAddress === 'string') this.addressFault.set(fromAddress);
+    if (id) {
+      if (!(await this.saved.open(id))) return;
+      if (fromAddress && typeof fromAddress === 'object') this.state.restoreEdits(fromAddress);
+    } else if (fromAddress && typeof fromAddress === 'object') {
+      this.state.open(fromAddress, null);
+    }
+    this.address.follow();
+  }
+}

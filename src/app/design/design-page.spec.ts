@@ -1,0 +1,112 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { MatDialog } from '@angular/material/dialog';
+import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
+import { of } from 'rxjs';
+import { Session } from '../auth/session';
+import { decodeDesign, encodeDesign } from './design-address';
+import { DesignPage } from './design-page';
+import { type DraftDocument, newDraft } from './draft-document';
+
+const member = { id: 'u1', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' as const };
+
+describe('DesignPage', () => {
+  let http: HttpTestingController;
+
+  beforeEach(() => {
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter(
+          [
+            { path: 'design', component: DesignPage },
+            { path: 'presets/:id', component: DesignPage },
+          ],
+          withComponentInputBinding(),
+        ),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MatDialog, useValue: { open: () => ({ afterClosed: () => of(undefined) }) } },
+      ],
+    });
+    http = TestBed.inject(HttpTestingController);
+  });
+
+  afterEach(() => http.verify());
+
+  async function open(url: string, who: typeof member | null) {
+    TestBed.inject(Session).member.set(who);
+    const harness = await RouterTestingHarness.create();
+    await harness.navigateByUrl(url, DesignPage);
+    const element = harness.routeNativeElement as HTMLElement;
+    return { harness, element, nameInput: () => element.querySelector<HTMLInputElement>('app-design-field.name input')! };
+  }
+
+  it('shows the designer signed out, with a sign-in that comes back to this very design', async () => {
+    const { element } = await open('/design', null);
+    expect(element.querySelector('h1')?.textContent).toBe('Design a scale');
+    const signIn = element.querySelector<HTMLAnchorElement>('a.sign-in-to-save')!;
+    expect(signIn.textContent).toContain('Sign in to save');
+    const href = new URL(signIn.href);
+    expect(href.pathname).toBe('/auth/github');
+    const back = new URL(href.searchParams.get('next')!, 'http://keyloom.test');
+    expect(back.pathname).toBe('/design');
+    expect(decodeDesign(back.searchParams.get('d')!)).toEqual(newDraft());
+    expect(element.querySelectorAll('app-degree-table tbody tr').length).toBe(7);
+    expect(element.querySelector('app-period-ring svg')).not.toBeNull();
+    expect(element.querySelector('app-offset-chart svg')).not.toBeNull();
+    expect(element.querySelectorAll('app-interval-matrix tbody tr').length).toBe(7);
+  });
+
+  it('opens the design an address holds, and writes edits back into the address', async () => {
+    const design: DraftDocument = { ...newDraft(), name: 'Bookmarked', scale: { kind: 'equal', divisions: 31, period: '2/1' } };
+    const { harness, element, nameInput } = await open(`/design?d=${encodeDesign(design)}`, null);
+    expect(nameInput().value).toBe('Bookmarked');
+    expect(element.querySelectorAll('app-degree-table tbody tr').length).toBe(31);
+
+    nameInput().value = 'Bookmarked again';
+    nameInput().dispatchEvent(new Event('input'));
+    await new Promise((resolve) => setTimeout(resolve, 600));
+    await harness.fixture.whenStable();
+    const address = new URL(TestBed.inject(Router).url, 'http://keyloom.test');
+    expect(decodeDesign(address.searchParams.get('d')!)).toEqual({ ...design, name: 'Bookmarked again' });
+  });
+
+  it('says so when the address holds a design it cannot read, and starts a new one', async () => {
+    const { element } = await open('/design?d=1.broken', null);
+    expect(element.querySelector('[role="alert"]')?.textContent).toContain('damaged');
+    expect(element.querySelectorAll('app-degree-table tbody tr').length).toBe(7);
+  });
+
+  it('opens a saved preset with its revision, read-only for a reader, with a fork button', async () => {
+    const opening = open('/presets/p-7', member);
+    await new Promise((resolve) => setTimeout(resolve));
+    http.expectOne('/api/presets/p-7').flush({
+      id: 'p-7', name: 'Guest tuning', bandId: null, revision: 3, document: { ...newDraft(), name: 'Guest tuning' }, access: 'read',
+    });
+    const { harness, element, nameInput } = await opening;
+    await harness.fixture.whenStable();
+    expect(element.querySelector('.status')?.textContent).toContain('Revision 3 · read only');
+    expect(nameInput().readOnly).toBeTrue();
+    const buttons = Array.from(element.querySelectorAll('button')).map((button) => button.textContent?.trim());
+    expect(buttons.some((text) => text?.includes('Fork to my library'))).toBeTrue();
+    expect(buttons.some((text) => text?.includes('Save'))).toBeFalse();
+    expect(element.querySelector('fieldset')?.disabled).toBeTrue();
+  });
+
+  it('saves with Ctrl+S when signed in, asking first which library to save into', async () => {
+    await open('/design', member);
+    document.dispatchEvent(new KeyboardEvent('keydown', { key: 's', code: 'KeyS', ctrlKey: true, cancelable: true }));
+    await new Promise((resolve) => setTimeout(resolve));
+    http.expectOne('/api/bands').flush({ items: [] });
+  });
+
+  it('switches tabs with Alt and a number', async () => {
+    const { harness, element } = await open('/design', null);
+    document.dispatchEvent(new KeyboardEvent('keydown', { key: '2', code: 'Digit2', altKey: true }));
+    await harness.fixture.whenStable();
+    expect(element.querySelector('.mdc-tab--active')?.textContent).toContain('Keys');
+    expect(element.querySelector('app-keyboard-strip')).not.toBeNull();
+  });
+});

@@ -1,0 +1,88 @@
+import { TestBed } from '@angular/core/testing';
+import { DesignState } from './design-state';
+import { newDraft } from './draft-document';
+
+describe('DesignState', () => {
+  let state: DesignState;
+
+  beforeEach(() => {
+    TestBed.configureTestingModule({ providers: [DesignState] });
+    state = TestBed.inject(DesignState);
+  });
+
+  it('starts from five fifths up and one down, built, with no faults', () => {
+    expect(state.faults()).toEqual([]);
+    expect(state.shown()?.table.analysis.size).toBe(7);
+    expect(state.dirty()).toBeTrue();
+  });
+
+  it('puts the message for a bare decimal under the generator, without the path the field already names', () => {
+    expect(state.shown()?.table.analysis.size).toBe(7);
+    state.setScaleField('generator', '1.5');
+    expect(state.faultAt('scale.generator')).toBe('1.5 needs a unit: write 1.5c for cents or a ratio such as 3/2');
+    expect(state.faultAt('scale.period')).toBeNull();
+    expect(state.stale()).toBeTrue();
+    expect(state.shown()?.table.analysis.size).withContext('the last design that built stays shown').toBe(7);
+  });
+
+  it('gives the fields of a kind back when the musician returns to it', () => {
+    state.setScaleField('up', 11);
+    state.chooseKind('equal');
+    expect(state.draft().scale).toEqual({ kind: 'equal', divisions: 12, period: '2/1' });
+    state.chooseKind('generated');
+    expect(state.draft().scale).toEqual({ kind: 'generated', generator: '3/2', period: '2/1', up: 11, down: 1 });
+  });
+
+  it('grows and cuts the key layout without losing keys on the way (12, then 1, then 19)', () => {
+    state.setKeysPerPeriod('12');
+    expect(state.layout()).toEqual([0, 1, 2, 3, 4, 5, 6, null, null, null, null, null]);
+    state.setKeysPerPeriod('1');
+    expect(state.layout()).toEqual([0]);
+    state.setKeysPerPeriod('19');
+    expect(state.layout()?.slice(0, 7)).toEqual([0, 1, 2, 3, 4, 5, 6]);
+    expect(state.layout()?.length).toBe(19);
+    expect(state.faults()).toEqual([]);
+  });
+
+  it('keeps a key count that is not a whole number in the field, for the schema to name', () => {
+    state.setKeysPerPeriod('0');
+    expect(state.faultAt('mapping.keysPerPeriod')).toContain('at least 1');
+    state.setKeysPerPeriod('12');
+    expect(state.faultAt('mapping.keysPerPeriod')).toBeNull();
+  });
+
+  it('places five fifths up and one down on the white keys', () => {
+    expect(state.placeOnNearestKeys()).toBeTrue();
+    expect(state.layout()).toEqual([0, null, 1, null, 2, 3, null, 4, null, 5, null, 6]);
+  });
+
+  it('marks a layout key that names a degree the scale lacks', () => {
+    state.assignKey(2, 9);
+    expect(state.faultAt('mapping.layout[2]')).toContain('degree 9 does not exist');
+  });
+
+  it('tells the keys which of them MTS cannot express, and the scale which degrees coincide', () => {
+    state.setMappingField('rootHz', 19000);
+    expect(state.faults()).toEqual([]);
+    expect(state.keyNotices().map((notice) => notice.message).join()).toContain('outside the pitches MTS can express');
+    state.chooseKind('list');
+    state.setScaleField('degrees', ['9/8', '18/16']);
+    expect(state.generalNotices().map((notice) => notice.message).join()).toContain('coincides');
+  });
+
+  it('leaves a read-only preset as it was loaded, and tracks changes against the saved revision', () => {
+    const saved = newDraft();
+    state.open(saved, { id: 'p1', revision: 3, bandId: null, access: 'edit' });
+    expect(state.dirty()).toBeFalse();
+    state.rename('Changed');
+    expect(state.dirty()).toBeTrue();
+    state.markSaved(4);
+    expect(state.origin()?.revision).toBe(4);
+    expect(state.dirty()).toBeFalse();
+
+    state.open(saved, { id: 'p2', revision: 1, bandId: null, access: 'read' });
+    state.rename('Not allowed');
+    state.setScaleField('up', 2);
+    expect(state.draft()).toEqual(saved);
+  });
+});

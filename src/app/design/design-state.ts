@@ -1,0 +1,234 @@
+import { Injectable, computed, linkedSignal, signal } from '@angular/core';
+import { type ResolvedPreset, parsePresetDocument } from '@shared/preset/preset-document';
+import type { FieldError } from '@shared/result';
+import { type PreviewTable, previewTable } from '@shared/tuning/preview';
+import { nearestKeyLayout } from '../keys/nearest-key-layout';
+import {
+  type DraftDocument,
+  type DraftMapping,
+  type DraftOutput,
+  type DraftScale,
+  type DraftTemper,
+  type ScaleKind,
+  type Typed,
+  newDraft,
+  startingScale,
+  typedFrom,
+} from './draft-document';
+
+/** Where a loaded design came from: a saved preset, and what the signed-in member may do with it. */
+export interface SavedOrigin {
+  id: string;
+  revision: number;
+  bandId: string | null;
+  access: 'read' | 'edit' | 'own';
+}
+
+/** A design that built: the checked document and everything the designer shows about it. */
+export interface ShownDesign {
+  preset: ResolvedPreset;
+  table: PreviewTable;
+}
+
+type ScaleField = 'generator' | 'period' | 'up' | 'down' | 'divisions' | 'degrees' | 'from' | 'to' | 'sub';
+type MappingField = 'rootKey' | 'rootHz' | 'concertA';
+type OutputField = 'deviceId' | 'program' | 'bank' | 'tuningName' | 'bendRange';
+
+/** The document paths that have a field of their own; faults elsewhere are listed above the analysis. */
+const fieldPaths = [
+  'name', 'scale.generator', 'scale.period', 'scale.up', 'scale.down', 'scale.temper.comma',
+  'scale.temper.fraction', 'scale.divisions', 'scale.degrees', 'scale.from', 'scale.to', 'scale.sub',
+  'mapping.rootKey', 'mapping.rootHz', 'mapping.concertA', 'mapping.keysPerPeriod', 'mapping.layout',
+  'output.deviceId', 'output.program', 'output.bank', 'output.tuningName', 'output.bendRange',
+  'output.memberChannels',
+];
+
+/** Whether a fault at `path` belongs to the field at `field` (`scale.degrees[3]` belongs to `scale.degrees`). */
+function isUnder(path: string, field: string): boolean {
+  return path === field || path.startsWith(`${field}.`) || path.startsWith(`${field}[`);
+}
+
+/** JSON with keys in a fixed order, so that a field removed and written again still compares equal. */
+function canonicalJson(value: unknown): string {
+  return JSON.stringify(value, (_key, inner: unknown) =>
+    inner && typeof inner === 'object' && !Array.isArray(inner)
+      ? Object.fromEntries(Object.entries(inner).sort(([a], [b]) => a.localeCompare(b)))
+      : inner,
+  );
+}
+
+/** Sets a field, or removes it when the value is undefined. */
+function withField<T extends object>(target: T, field: string, value: unknown): T {
+  const next = { ...target } as Record<string, unknown>;
+  if (value === undefined) delete next[field];
+  else next[field] = value;
+  return next as T;
+}
+
+/**
+ * The design being edited and everything computed from it, recomputed in the browser on every
+ * change: the checked document, the preview table, the faults by field. One per designer page.
+ */
+@Injectable()
+export class DesignState {
+  private readonly draftDocument = signal<DraftDocument>(newDraft());
+  private readonly savedJson = signal<string | null>(null);
+  private readonly shelvedScales = new Map<ScaleKind, DraftScale>();
+  /** The layout that key-count changes cut from and grow back to, so that 12 → 1 → 19 loses nothing. */
+  private widestLayout: (number | null)[] | null = null;
+
+  readonly draft = this.draftDocument.asReadonly();
+  readonly origin = signal<SavedOrigin | null>(null);
+  readonly parsed = computed(() => parsePresetDocument(this.draft()));
+  /** The last design that built: while a field is being retyped, the pictures keep showing it. */
+  readonly shown = linkedSignal<ReturnType<typeof parsePresetDocument>, ShownDesign | null>({
+    source: this.parsed,
+    computation: (parsed, previous) =>
+      parsed.ok ? { preset: parsed.value, table: previewTable(parsed.value) } : (previous?.value ?? null),
+  }).asReadonly();
+  readonly stale = computed(() => !this.parsed().ok);
+  readonly faults = computed<FieldError[]>(() => {
+    const parsed = this.parsed();
+    return parsed.ok ? [] : parsed.errors;
+  });
+  private readonly warnings = computed(() => (this.parsed().ok ? (this.shown()?.table.warnings ?? []) : []));
+  /** Faults no field shows, and what the built scale warns about (degrees that coincide). */
+  readonly generalNotices = computed(() => [
+    ...this.faults().filter((fault) => !fieldPaths.some((field) => isUnder(fault.path, field))),
+    ...this.warnings().filter((warning) => !isUnder(warning.path, 'mapping')),
+  ]);
+  /** What the built design warns about its keys: those whose pitch MTS cannot express. */
+  readonly keyNotices = computed(() => this.warnings().filter((warning) => isUnder(warning.path, 'mapping')));
+  readonly readOnly = computed(() => this.origin()?.access === 'read');
+  /** True when the draft differs from the saved revision, and always for a design never saved. */
+  readonly dirty = computed(() => this.savedJson() !== canonicalJson(this.draft()));
+  readonly scaleSize = computed(() => this.shown()?.table.analysis.size ?? 0);
+  readonly layout = computed(() => this.draft().mapping.layout ?? null);
+  readonly keysPerPeriod = computed(() => this.layout()?.length ?? this.scaleSize());
+
+  /** The fault at a field (else the first inside it), without the path that the field already names. */
+  faultAt(field: string): string | null {
+    const faults = this.faults();
+    const fault = faults.find((candidate) => candidate.path === field) ?? faults.find((candidate) => isUnder(candidate.path, field));
+    if (!fault) return null;
+    const prefix = `${fault.path}: `;
+    return fault.message.startsWith(prefix) ? fault.message.slice(prefix.length) : fault.message;
+  }
+
+  /** Opens a document: from a saved preset (with its origin) or from an address (origin null). */
+  open(draft: DraftDocument, origin: SavedOrigin | null): void {
+    this.draftDocument.set(draft);
+    this.origin.set(origin);
+    this.savedJson.set(origin ? canonicalJson(draft) : null);
+    this.shelvedScales.clear();
+    this.widestLayout = null;
+  }
+
+  /** Brings back edits that the address kept on top of the preset just opened. */
+  restoreEdits(draft: DraftDocument): void {
+    this.change(() => draft);
+  }
+
+  /** The draft became revision `revision` of the saved preset. */
+  markSaved(revision: number): void {
+    const origin = this.origin();
+    if (origin) this.origin.set({ ...origin, revision });
+    this.savedJson.set(canonicalJson(this.draft()));
+  }
+
+  rename(name: string): void {
+    this.change((draft) => ({ ...draft, name }));
+  }
+
+  /** Changes the kind of scale; the fields of the kind left behind come back when it is chosen again. */
+  chooseKind(kind: ScaleKind): void {
+    this.change((draft) => {
+      if (draft.scale.kind === kind) return draft;
+      this.shelvedScales.set(draft.scale.kind, draft.scale);
+      return { ...draft, scale: this.shelvedScales.get(kind) ?? startingScale(kind) };
+    });
+  }
+
+  setScaleField(field: ScaleField, value: Typed | string[] | boolean | undefined): void {
+    this.change((draft) => ({ ...draft, scale: withField(draft.scale, field, value) }));
+  }
+
+  /** Tempers a generated scale's generator by a fraction of a comma, or stops tempering (undefined). */
+  setTemper(temper: DraftTemper | undefined): void {
+    this.change((draft) => ({ ...draft, scale: withField(draft.scale, 'temper', temper) }));
+  }
+
+  setMappingField(field: MappingField, value: Typed | undefined): void {
+    this.change((draft) => ({ ...draft, mapping: withField<DraftMapping>(draft.mapping, field, value) }));
+  }
+
+  setOutputField(field: OutputField, value: Typed | undefined): void {
+    this.change((draft) => ({ ...draft, output: withField<DraftOutput>(draft.output, field, value) }));
+  }
+
+  setMemberChannel(end: 0 | 1, value: Typed | undefined): void {
+    this.change((draft) => {
+      const channels: [Typed | undefined, Typed | undefined] = [...(draft.output.memberChannels ?? [2, 16])];
+      channels[end] = value;
+      return { ...draft, output: { ...draft.output, memberChannels: channels } };
+    });
+  }
+
+  /**
+   * Sets how many keys one period spans. A whole number from 1 to 128 cuts or grows the layout
+   * (new keys unmapped); anything else stays in the field for the schema to judge.
+   */
+  setKeysPerPeriod(text: string): void {
+    const typed = typedFrom(text) ?? text;
+    if (typeof typed !== 'number' || !Number.isInteger(typed) || typed < 1 || typed > 128) {
+      this.change((draft) => ({ ...draft, mapping: { ...draft.mapping, keysPerPeriod: typed } }));
+      return;
+    }
+    const base = this.widestLayout ?? this.layout() ?? this.consecutiveLayout();
+    const layout = Array.from({ length: typed }, (_, index) => base[index] ?? null);
+    if (layout.length > base.length) this.widestLayout = layout;
+    this.writeLayout(layout);
+  }
+
+  /** Makes the key at `index` of each block play `degree`, or nothing (null). */
+  assignKey(index: number, degree: number | null): void {
+    const layout = [...(this.layout() ?? this.consecutiveLayout())];
+    layout[index] = degree;
+    this.widestLayout = layout;
+    this.writeLayout(layout);
+  }
+
+  /** Drops the layout: consecutive keys play consecutive degrees. */
+  useConsecutiveKeys(): void {
+    this.widestLayout = null;
+    this.writeLayout(null);
+  }
+
+  /** Puts each degree on the key of its nearest equal-tempered note; false when two would share a key. */
+  placeOnNearestKeys(): boolean {
+    const table = this.shown()?.table;
+    if (!table) return false;
+    const layout = nearestKeyLayout(table.degrees.map((degree) => degree.cents), table.analysis.period.cents);
+    if (!layout) return false;
+    this.widestLayout = layout;
+    this.writeLayout(layout);
+    return true;
+  }
+
+  private consecutiveLayout(): (number | null)[] {
+    return Array.from({ length: this.scaleSize() }, (_, degree) => degree);
+  }
+
+  private writeLayout(layout: (number | null)[] | null): void {
+    this.change((draft) => {
+      const { keysPerPeriod: _, layout: __, ...mapping } = draft.mapping;
+      return { ...draft, mapping: layout ? { ...mapping, layout } : mapping };
+    });
+  }
+
+  /** Every edit goes through here, so that a reader's designer stays as it was loaded. */
+  private change(edit: (draft: DraftDocument) => DraftDocument): void {
+    if (this.readOnly()) return;
+    this.draftDocument.update(edit);
+  }
+}

@@ -1,0 +1,102 @@
+import { Injectable, inject, signal } from '@angular/core';
+import { MatDialog } from '@angular/material/dialog';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { Router } from '@angular/router';
+import { firstValueFrom } from 'rxjs';
+import { Session } from '../auth/session';
+import { apiFaultMessage } from './api-fault';
+import { DesignState } from './design-state';
+import { draftFrom } from './draft-document';
+import { PresetApi } from './preset-api';
+import { type SaveChoice, SaveDialog, type SaveDialogData } from './save-dialog';
+
+/**
+ * The designer's side of the library: opens a saved preset, saves the design as a new preset or a
+ * new revision (with a note), and forks a preset the member may only read.
+ */
+@Injectable()
+export class SavedPreset {
+  private readonly api = inject(PresetApi);
+  private readonly state = inject(DesignState);
+  private readonly session = inject(Session);
+  private readonly dialog = inject(MatDialog);
+  private readonly snackBar = inject(MatSnackBar);
+  private readonly router = inject(Router);
+
+  readonly loading = signal(false);
+  /** Why the preset could not be opened, in the server's words. */
+  readonly loadFault = signal<string | null>(null);
+  readonly busy = signal(false);
+
+  /** Whether saving makes sense now: signed in, allowed to change the preset, no faults. */
+  canSave(): boolean {
+    return !!this.session.member() && !this.state.readOnly() && this.state.faults().length === 0 && !this.busy();
+  }
+
+  async open(id: string): Promise<boolean> {
+    this.loading.set(true);
+    this.loadFault.set(null);
+    try {
+      const answer = await this.api.load(id);
+      const origin = { id: answer.id, revision: answer.revision, bandId: answer.bandId, access: answer.access };
+      this.state.open(draftFrom(answer.document), origin);
+      return true;
+    } catch (error) {
+      this.loadFault.set(await apiFaultMessage(error));
+      return false;
+    } finally {
+      this.loading.set(false);
+    }
+  }
+
+  /** Asks for a name, library and note, then saves; a saved preset gets a new revision. */
+  async save(): Promise<void> {
+    if (!this.canSave()) return;
+    const origin = this.state.origin();
+    this.busy.set(true);
+    try {
+      const data: SaveDialogData = {
+        name: this.state.draft().name,
+        bands: origin ? null : await this.api.writableBands(),
+        nextRevision: origin ? origin.revision + 1 : null,
+      };
+      const dialog = this.dialog.open<SaveDialog, SaveDialogData, SaveChoice>(SaveDialog, { data, autoFocus: 'dialog' });
+      const choice = await firstValueFrom(dialog.afterClosed());
+      if (!choice) return;
+      this.state.rename(choice.name);
+      if (origin) {
+        const { revision } = await this.api.saveRevision(origin.id, this.state.draft(), choice.note);
+        this.state.markSaved(revision);
+        this.tell(`Saved revision ${revision}.`);
+      } else {
+        const { id } = await this.api.create(this.state.draft(), choice.bandId, choice.note);
+        this.tell('Saved as revision 1.');
+        await this.router.navigate(['/presets', id]);
+      }
+    } catch (error) {
+      this.tell(await apiFaultMessage(error), true);
+    } finally {
+      this.busy.set(false);
+    }
+  }
+
+  /** Copies a preset the member may only read into their own library, and opens the copy. */
+  async fork(): Promise<void> {
+    const origin = this.state.origin();
+    if (!origin || !this.session.member() || this.busy()) return;
+    this.busy.set(true);
+    try {
+      const { id } = await this.api.fork(origin.id);
+      this.tell('Forked into your library.');
+      await this.router.navigate(['/presets', id]);
+    } catch (error) {
+      this.tell(await apiFaultMessage(error), true);
+    } finally {
+      this.busy.set(false);
+    }
+  }
+
+  private tell(message: string, fault = false): void {
+    this.snackBar.open(message, fault ? 'Dismiss' : undefined, { duration: fault ? undefined : 4000 });
+  }
+}

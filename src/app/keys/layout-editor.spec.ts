@@ -1,0 +1,52 @@
+import { TestBed } from '@angular/core/testing';
+import { DesignState } from '../design/design-state';
+import { LayoutEditor } from './layout-editor';
+
+describe('LayoutEditor', () => {
+  async function render() {
+    TestBed.configureTestingModule({ imports: [LayoutEditor], providers: [DesignState] });
+    const fixture = TestBed.createComponent(LayoutEditor);
+    await fixture.whenStable();
+    const element = fixture.nativeElement as HTMLElement;
+    const keys = () => Array.from(element.querySelectorAll<HTMLButtonElement>('button.layout-key'));
+    return { fixture, element, keys, state: TestBed.inject(DesignState) };
+  }
+
+  it('shows one period of keys from the root, each with the degree it plays and an accessible name', async () => {
+    const { keys } = await render();
+    expect(keys().length).toBe(7);
+    expect(keys()[1].getAttribute('aria-label')).toBe('Key 2 of the period (C#4), plays degree 1: choose its degree');
+  });
+
+  it('leaves a key unmapped when that is chosen from its menu', async () => {
+    const { fixture, keys, state } = await render();
+    keys()[1].click();
+    await fixture.whenStable();
+    const items = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-menu-panel button[mat-menu-item]'));
+    expect(items.map((item) => item.textContent?.trim())[0]).toBe('Unmapped (plays nothing)');
+    expect(items.length).toBe(8);
+    items[0].click();
+    await fixture.whenStable();
+    expect(state.layout()).toEqual([0, null, 2, 3, 4, 5, 6]);
+    expect(keys()[1].classList).toContain('unmapped');
+    expect(keys()[1].textContent).toContain('–');
+  });
+
+  it('spreads the keys over twelve per period when the count is typed', async () => {
+    const { fixture, element, keys, state } = await render();
+    const count = element.querySelector<HTMLInputElement>('app-design-field input')!;
+    count.value = '12';
+    count.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    expect(keys().length).toBe(12);
+    expect(state.layout()?.slice(7)).toEqual([null, null, null, null, null]);
+  });
+
+  it('names the key whose degree the scale no longer has', async () => {
+    const { fixture, element, state } = await render();
+    state.assignKey(0, 0);
+    state.setScaleField('up', 2);
+    await fixture.whenStable();
+    expect(element.querySelector('.fault')?.textContent).toContain('Key 5 (E4): degree 4 does not exist');
+  });
+});

@@ -1,0 +1,70 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { DesignState } from '../design/design-state';
+import { newDraft } from '../design/draft-document';
+import { DownloadMenu } from './download-menu';
+
+/** Lets the download's promise chain finish before the test moves on. */
+async function settled(fixture: { whenStable(): Promise<unknown> }) {
+  await new Promise((resolve) => setTimeout(resolve));
+  await fixture.whenStable();
+}
+
+describe('DownloadMenu', () => {
+  let http: HttpTestingController;
+
+  async function render() {
+    TestBed.configureTestingModule({
+      imports: [DownloadMenu],
+      providers: [DesignState, provideHttpClient(), provideHttpClientTesting()],
+    });
+    http = TestBed.inject(HttpTestingController);
+    spyOn(HTMLAnchorElement.prototype, 'click');
+    const fixture = TestBed.createComponent(DownloadMenu);
+    await fixture.whenStable();
+    const element = fixture.nativeElement as HTMLElement;
+    return { fixture, element, button: element.querySelector<HTMLButtonElement>('button.download')!, state: TestBed.inject(DesignState) };
+  }
+
+  afterEach(() => http.verify());
+
+  it('lists every format with a line on what it is for, the bundle last', async () => {
+    const { fixture, button } = await render();
+    button.click();
+    await fixture.whenStable();
+    const items = Array.from(document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]'));
+    expect(items.length).toBe(13);
+    expect(items[0].querySelector('.format-name')?.textContent).toContain('MTS bulk dump');
+    expect(items[0].querySelector('.format-use')?.textContent).toContain('All 128 keys in one message');
+    expect(items[12].getAttribute('aria-label')).toContain('Bundle of everything (.zip)');
+  });
+
+  it('downloads a saved preset as saved, and a changed one as it stands', async () => {
+    const { fixture, button, state } = await render();
+    state.open(newDraft(), { id: 'p-3', revision: 2, bandId: null, access: 'own' });
+    button.click();
+    await fixture.whenStable();
+    document.querySelector<HTMLButtonElement>('.download-formats button[mat-menu-item]')!.click();
+    http.expectOne({ method: 'GET', url: '/api/presets/p-3/export/mts-bulk' }).flush(new Blob(['x']));
+    await settled(fixture);
+    expect(document.querySelector('.mat-mdc-snack-bar-label')?.textContent).toContain('Downloaded keyloom-mts-bulk.syx');
+
+    state.rename('Changed');
+    button.click();
+    await fixture.whenStable();
+    document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]')[12].click();
+    const request = http.expectOne({ method: 'POST', url: '/api/preview/export/bundle' });
+    expect(request.request.body).toEqual(jasmine.objectContaining({ name: 'Changed' }));
+    request.flush(new Blob(['PK']));
+    await settled(fixture);
+  });
+
+  it('cannot be used while the design has a fault, and says why', async () => {
+    const { fixture, button, state } = await render();
+    state.setScaleField('generator', '1.5');
+    await fixture.whenStable();
+    expect(button.disabled).toBeTrue();
+    expect(button.getAttribute('aria-label')).toBe('Download (fix the faults in the design first)');
+  });
+});

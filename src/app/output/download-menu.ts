@@ -1,0 +1,70 @@
+import { Component, computed, inject, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatMenuModule } from '@angular/material/menu';
+import { MatSnackBar } from '@angular/material/snack-bar';
+import { MatTooltipModule } from '@angular/material/tooltip';
+import { apiFaultMessage } from '../design/api-fault';
+import { DesignState } from '../design/design-state';
+import type { ExportSource } from './downloads';
+import { Downloads } from './downloads';
+import { type ExportFormat, exportFormats } from './export-formats';
+
+/** The download button and its menu of every export format, each with a line on what it is for. */
+@Component({
+  selector: 'app-download-menu',
+  imports: [MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule],
+  template: `
+    <span [matTooltip]="blocked() ?? ''" [matTooltipDisabled]="!blocked()">
+      <button mat-stroked-button class="download" [matMenuTriggerFor]="formatMenu" [disabled]="blocked() !== null || busy()"
+              [attr.aria-label]="blocked() ? 'Download (' + blocked() + ')' : 'Download'">
+        <mat-icon aria-hidden="true">download</mat-icon>
+        <span class="label">{{ busy() ? 'Downloading…' : 'Download' }}</span>
+      </button>
+    </span>
+    <mat-menu #formatMenu="matMenu" class="download-formats" xPosition="before">
+      @for (format of formats; track format.id) {
+        <button mat-menu-item class="format" (click)="downloadFormat(format)"
+                [attr.aria-label]="format.label + ' (.' + format.extension + '): ' + format.use">
+          <span class="format-name">{{ format.label }} <span class="extension">.{{ format.extension }}</span></span>
+          <span class="format-use">{{ format.use }}</span>
+        </button>
+      }
+    </mat-menu>
+  `,
+  styles: `
+    :host { display: inline-block; }
+    .format { padding-block: 6px; line-height: 1.35; }
+    .format-name { display: block; font: var(--mat-sys-label-large); }
+    .extension { color: var(--mat-sys-on-surface-variant); }
+    .format-use { display: block; white-space: normal; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
+    @media (max-width: 720px) { .download .label { display: none; } .download mat-icon { margin: 0; } }
+  `,
+})
+export class DownloadMenu {
+  private readonly state = inject(DesignState);
+  private readonly downloads = inject(Downloads);
+  private readonly snackBar = inject(MatSnackBar);
+  protected readonly formats = exportFormats;
+  protected readonly busy = signal(false);
+  /** Why nothing can be downloaded now, or null. */
+  protected readonly blocked = computed(() => (this.state.faults().length > 0 ? 'fix the faults in the design first' : null));
+  /** A saved preset downloads as saved; a changed or unsaved design goes to the server as it stands. */
+  private readonly source = computed<ExportSource>(() => {
+    const origin = this.state.origin();
+    return origin && !this.state.dirty() ? { presetId: origin.id } : { document: this.state.draft() };
+  });
+
+  protected async downloadFormat(format: ExportFormat): Promise<void> {
+    this.busy.set(true);
+    try {
+      const { name, warnings } = await this.downloads.download(format, this.source());
+      if (warnings.length > 0) this.snackBar.open(`Downloaded ${name}. ${warnings.join(' ')}`, 'Dismiss');
+      else this.snackBar.open(`Downloaded ${name}.`, undefined, { duration: 4000 });
+    } catch (error) {
+      this.snackBar.open(await apiFaultMessage(error), 'Dismiss');
+    } finally {
+      this.busy.set(false);
+    }
+  }
+}

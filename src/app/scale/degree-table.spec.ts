@@ -1,0 +1,42 @@
+import { TestBed } from '@angular/core/testing';
+import { parsePresetDocument } from '@shared/preset/preset-document';
+import { previewTable } from '@shared/tuning/preview';
+import { DegreeTable } from './degree-table';
+
+function degreesOf(scale: unknown) {
+  const parsed = parsePresetDocument({ format: 'keyloom.preset', version: 1, name: 'T', scale, mapping: { rootKey: 60 } });
+  if (!parsed.ok) throw new Error(parsed.errors[0].message);
+  return { degrees: previewTable(parsed.value).degrees, rootHz: parsed.value.mapping.rootHz };
+}
+
+describe('DegreeTable', () => {
+  function render(scale: unknown) {
+    const fixture = TestBed.createComponent(DegreeTable);
+    const { degrees, rootHz } = degreesOf(scale);
+    fixture.componentRef.setInput('degrees', degrees);
+    fixture.componentRef.setInput('rootHz', rootHz);
+    fixture.detectChanges();
+    const rows = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('tbody tr'));
+    return rows.map((row) => Array.from(row.querySelectorAll('td')).map((cell) => cell.textContent!.trim()));
+  }
+
+  it('shows the Pythagorean ratios of five fifths up and one down', () => {
+    const rows = render({ kind: 'generated', generator: '3/2', up: 5, down: 1 });
+    // Stacked fifths reduced into the octave: 1/1 9/8 81/64 4/3 3/2 27/16 243/128 (from memory).
+    expect(rows.map((cells) => cells[1])).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
+    expect(rows.map((cells) => cells[0])).toEqual(['0', '1', '2', '3', '4', '5', '6']);
+  });
+
+  it('gives each degree its cents, step, nearest note, offset and pitch', () => {
+    const [, second] = render({ kind: 'generated', generator: '3/2', up: 5, down: 1 });
+    // 9/8 is 203.910 cents, 3.9 cents above D (from memory); the step up to 81/64 is another 9/8.
+    expect(second.slice(2, 6)).toEqual(['203.910¢', '9/8', 'D4', '+3.9¢']);
+    // Middle C at 440 Hz concert pitch is 261.626 Hz, and 9/8 of it 294.329 Hz.
+    expect(second[6]).toBe('294.329');
+  });
+
+  it('shows the nearest simple ratio of a tempered degree as an approximation', () => {
+    const rows = render({ kind: 'equal', divisions: 12 });
+    expect(rows[4][1]).toBe('≈ 5/4 (+13.7¢)');
+  });
+});
