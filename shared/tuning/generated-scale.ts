@@ -117,7 +117,10 @@ export function buildGeneratedScale(spec: GeneratedScaleSpec): Result<Scale> {
   let stacked = generator.value;
   const { ratio } = stacked;
   const periodRatio = period.value.ratio;
-  if (ratio && periodRatio && count * (termBits(ratio) + termBits(periodRatio)) > exactBitsBudget) {
+  // Each step of the stack multiplies by the generator and divides by as many periods as the generator spans:
+  // a small period (81/80) under a large generator (3/2) grows the terms much faster than the generator alone.
+  const periodsPerStep = Math.ceil(Math.abs(stacked.cents) / period.value.cents) + 1;
+  if (ratio && periodRatio && count * (termBits(ratio) + periodsPerStep * termBits(periodRatio)) > exactBitsBudget) {
     stacked = temperedSize(stacked.cents);
     const fault = `stacked ${count} times, ${spec.generator} gives ratios too large to keep exact`;
     warnings.push(fieldError('scale.generator', `${fault}; the degrees are given in cents`));
