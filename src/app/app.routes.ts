@@ -1,4 +1,5 @@
 import { Routes } from '@angular/router';
+import { provideUploadingHttpClient } from './retune/upload-http';
 
 export const routes: Routes = [
   { path: '', pathMatch: 'full', redirectTo: 'design' },
@@ -6,7 +7,13 @@ export const routes: Routes = [
   { path: 'presets/:id', title: 'Preset · Keyloom', loadComponent: () => import('./design/design-page').then((m) => m.DesignPage) },
   { path: 'library', title: 'Library · Keyloom', loadComponent: () => import('./library/library-page').then((m) => m.LibraryPage) },
   { path: 'library/:id/history', title: 'History · Keyloom', loadComponent: () => import('./library/history-page').then((m) => m.HistoryPage) },
-  { path: 'retune', title: 'Retune · Keyloom', loadComponent: () => import('./retune/retune-page').then((m) => m.RetunePage) },
+  {
+    path: 'retune',
+    title: 'Retune · Keyloom',
+    providers: [provideUploadingHttpClient()],
+    loadComponent: () => import('./retune/retune-page').then((m) => m.RetunePage),
+  },
+  { path: 'import', title: 'Import · Keyloom', loadComponent: () => import('./import/import-page').then((m) => m.ImportPage) },
   { path: 'bands', title: 'Bands · Keyloom', loadComponent: () => import('./bands/bands-page').then((m) => m.BandsPage) },
   { path: 'bands/:id', title: 'Band · Keyloom', loadComponent: () => import('./bands/band-page').then((m) => m.BandPage) },
   { path: 'invites/:token', title: 'Invite · Keyloom', loadComponent: () => import('./invites/invite-page').then((m) => m.InvitePage) },

@@ -1,12 +1,185 @@
-import { Component } from '@angular/core';
+import { Component, DestroyRef, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatRadioModule } from '@angular/material/radio';
+import { MatSelectModule } from '@angular/material/select';
+import { RouterLink } from '@angular/router';
+import type { RetuneMode } from '@shared/midi/song-retune';
+import { parsePresetDocument } from '@shared/preset/preset-document';
+import { Subscription, catchError, map, of, switchMap } from 'rxjs';
+import { Session } from '../auth/session';
+import { decodeDesign } from '../design/design-address';
+import { apiErrorMessage } from '../library/api-error';
+import { LibraryApi, PresetRow } from '../library/library-api';
+import { SignInPrompt } from '../library/sign-in-prompt';
+import { FileDrop } from './file-drop';
+import { PresetFile, readPresetFile } from './preset-file';
+import { RetuneApi, RetuneStep, RetuneTuning } from './retune-api';
+import { SongReport } from './song-report';
+import { fileSize, uploadFault } from './upload-limit';
 
-/** Song retuning: upload a MIDI song and get it back in the tuning. */
+type TuningSource = 'design' | 'saved' | 'file';
+
+const modeNames: Record<RetuneMode, string> = { mts: 'tuning messages (MTS)', mpe: 'one note per channel (MPE)' };
+
+/** Song retuning: choose a MIDI song, a tuning and a mode, watch it go, read the report, download the result. */
 @Component({
   selector: 'app-retune-page',
-  template: `
-    <h1>Retune a song</h1>
-    <p>Send a MIDI song through a preset and get it back tuned, with tuning messages at its start or one note per channel with pitch bends.</p>
-  `,
-  styles: `h1 { font: var(--mat-sys-headline-small); margin: 8px 0 12px; } p { max-width: 60ch; }`,
+  imports: [
+    RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatRadioModule,
+    MatSelectModule, FileDrop, SignInPrompt, SongReport,
+  ],
+  providers: [RetuneApi],
+  templateUrl: './retune-page.html',
+  styleUrl: './retune-page.scss',
 })
-export class RetunePage {}
+export class RetunePage {
+  private readonly api = inject(RetuneApi);
+  private readonly library = inject(LibraryApi);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly session = inject(Session);
+
+  /** `?d=`: the design the designer sent along, in its own address encoding. */
+  readonly d = input<string>();
+
+  protected readonly song = signal<File | null>(null);
+  protected readonly songFault = signal<string | null>(null);
+
+  protected readonly design = computed(() => {
+    const encoded = this.d();
+    return encoded ? decodeDesign(encoded) : null;
+  });
+  protected readonly designFaults = computed(() => {
+    const design = this.design();
+    if (!design || typeof design === 'string') return [];
+    const parsed = parsePresetDocument(design);
+    return parsed.ok ? [] : parsed.errors.map((error) => error.message);
+  });
+
+  protected readonly signedIn = computed(() => Boolean(this.session.member()));
+  protected readonly signedOut = computed(() => this.session.member() === null);
+  protected readonly presets = signal<PresetRow[]>([]);
+  protected readonly presetsLoading = signal(false);
+  protected readonly presetsFailure = signal<string | null>(null);
+  protected readonly presetId = signal<string | null>(null);
+
+  protected readonly presetFile = signal<{ file: File; reading: PresetFile } | null>(null);
+
+  protected readonly source = linkedSignal<TuningSource>(() =>
+    this.d() ? 'design' : this.signedIn() ? 'saved' : 'file',
+  );
+  protected readonly mode = signal<RetuneMode>('mts');
+
+  protected readonly step = signal<RetuneStep | null>(null);
+  protected readonly missing = signal<string | null>(null);
+  protected readonly downloadUrl = signal<string | null>(null);
+  protected readonly busy = computed(() => ['sending', 'retuning'].includes(this.step()?.kind ?? ''));
+  protected readonly percentSent = computed(() => {
+    const step = this.step();
+    return step?.kind === 'sending' && step.fraction !== null ? Math.round(step.fraction * 100) : null;
+  });
+  private running: Subscription | null = null;
+
+  constructor() {
+    toObservable(this.signedIn)
+      .pipe(
+        switchMap((signedIn) => {
+          if (!signedIn) return of([]);
+          this.presetsLoading.set(true);
+          const query = { q: '', sort: 'name' as const, page: 1, pageSize: 100, bandId: null, trash: false };
+          return this.library.presets(query).pipe(
+            map((page) => page.items),
+            catchError((error: unknown) => {
+              this.presetsFailure.set(apiErrorMessage(error, 'Your saved presets could not be loaded.'));
+              return of([]);
+            }),
+          );
+        }),
+        takeUntilDestroyed(),
+      )
+      .subscribe((presets) => {
+        this.presetsLoading.set(false);
+        this.presets.set(presets);
+      });
+    this.destroyRef.onDestroy(() => this.replaceDownload(null));
+  }
+
+  protected fileSize(bytes: number): string {
+    return fileSize(bytes);
+  }
+
+  protected modeName(mode: RetuneMode): string {
+    return modeNames[mode];
+  }
+
+  protected otherMode(mode: RetuneMode): RetuneMode {
+    return mode === 'mts' ? 'mpe' : 'mts';
+  }
+
+  protected chooseSong(file: File): void {
+    const fault = uploadFault(file);
+    this.songFault.set(fault);
+    this.song.set(fault ? null : file);
+    this.missing.set(null);
+    this.step.set(null);
+    this.replaceDownload(null);
+  }
+
+  protected async choosePresetFile(file: File): Promise<void> {
+    this.missing.set(null);
+    this.presetFile.set({ file, reading: await readPresetFile(file) });
+  }
+
+  protected retuneSong(): void {
+    const song = this.song();
+    const tuning = this.chosenTuning();
+    const missing = !song ? 'Choose a song first.' : typeof tuning === 'string' ? tuning : null;
+    this.missing.set(missing);
+    if (!song || typeof tuning === 'string') return;
+    this.running?.unsubscribe();
+    this.replaceDownload(null);
+    this.running = this.api
+      .retune(song, tuning, this.mode())
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe((step) => {
+        if (step.kind === 'done') this.replaceDownload(URL.createObjectURL(step.song.blob));
+        this.step.set(step);
+      });
+  }
+
+  protected retuneInMode(mode: RetuneMode): void {
+    this.mode.set(mode);
+    this.retuneSong();
+  }
+
+  /** The tuning the musician chose, ready to send, or what is still to be chosen. */
+  private chosenTuning(): RetuneTuning | string {
+    switch (this.source()) {
+      case 'design': {
+        const design = this.design();
+        if (!design) return 'Choose a tuning first.';
+        if (typeof design === 'string') return design;
+        if (this.designFaults().length) return 'The design has faults; open it in the designer to put them right.';
+        return { document: design };
+      }
+      case 'saved': {
+        const presetId = this.presetId();
+        return presetId ? { presetId } : 'Choose one of your saved presets.';
+      }
+      case 'file': {
+        const chosen = this.presetFile();
+        if (!chosen) return 'Choose a preset file.';
+        return chosen.reading.ok ? { document: chosen.reading.document } : 'The preset file has faults (listed under it); choose another.';
+      }
+    }
+  }
+
+  private replaceDownload(url: string | null): void {
+    const old = this.downloadUrl();
+    if (old) URL.revokeObjectURL(old);
+    this.downloadUrl.set(url);
+  }
+}

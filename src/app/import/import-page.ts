@@ -1,0 +1,99 @@
+import { DecimalPipe } from '@angular/common';
+import { Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { RouterLink } from '@angular/router';
+import { parsePresetDocument } from '@shared/preset/preset-document';
+import { previewTable } from '@shared/tuning/preview';
+import { Subscription } from 'rxjs';
+import { encodeDesign } from '../design/design-address';
+import { draftFrom } from '../design/draft-document';
+import { apiErrorMessage } from '../library/api-error';
+import { FileDrop } from '../retune/file-drop';
+import { fileSize, uploadFault } from '../retune/upload-limit';
+import { DegreeTable } from '../share/degree-table';
+import { ImportApi, ImportKind, ImportedTuning } from './import-api';
+import { importNotes } from './import-notes';
+
+const kindNames: Record<ImportKind, string> = {
+  syx: 'MTS messages (.syx)',
+  preset: 'A Keyloom preset (.json)',
+  intervals: 'A list of intervals',
+};
+
+/** Import: a tuning from an .syx file, a preset file or a list of intervals, shown, then opened in the designer. */
+@Component({
+  selector: 'app-import-page',
+  imports: [DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, FileDrop, DegreeTable],
+  templateUrl: './import-page.html',
+  styleUrl: './import-page.scss',
+})
+export class ImportPage {
+  private readonly api = inject(ImportApi);
+  private readonly destroyRef = inject(DestroyRef);
+
+  protected readonly file = signal<File | null>(null);
+  protected readonly importing = signal(false);
+  protected readonly failure = signal<string | null>(null);
+  protected readonly imported = signal<ImportedTuning | null>(null);
+
+  private readonly parsed = computed(() => {
+    const imported = this.imported();
+    return imported ? parsePresetDocument(imported.document) : null;
+  });
+  protected readonly faults = computed(() => {
+    const parsed = this.parsed();
+    return parsed && !parsed.ok ? parsed.errors.map((error) => error.message) : [];
+  });
+  protected readonly preset = computed(() => {
+    const parsed = this.parsed();
+    return parsed?.ok ? parsed.value : null;
+  });
+  protected readonly preview = computed(() => {
+    const preset = this.preset();
+    return preset ? previewTable(preset) : null;
+  });
+  protected readonly notes = computed(() => {
+    const preset = this.preset();
+    const preview = this.preview();
+    return preset && preview ? importNotes(preset, preview) : [];
+  });
+  /** The imported tuning in the designer's address encoding: what "Open in the designer" carries. */
+  protected readonly design = computed(() => {
+    const imported = this.imported();
+    return imported ? encodeDesign(draftFrom(imported.document)) : null;
+  });
+  private running: Subscription | null = null;
+
+  protected fileSize(bytes: number): string {
+    return fileSize(bytes);
+  }
+
+  protected kindName(kind: ImportKind): string {
+    return kindNames[kind];
+  }
+
+  protected importFile(file: File): void {
+    this.running?.unsubscribe();
+    this.file.set(file);
+    this.imported.set(null);
+    this.failure.set(uploadFault(file));
+    if (this.failure()) return;
+    this.importing.set(true);
+    this.running = this.api
+      .importFile(file)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (imported) => {
+          this.importing.set(false);
+          this.imported.set(imported);
+        },
+        error: (error: unknown) => {
+          this.importing.set(false);
+          this.failure.set(apiErrorMessage(error, 'The file could not be imported.'));
+        },
+      });
+  }
+}

@@ -1,0 +1,276 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpEventType } from '@angular/common/http';
+import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HarnessLoader } from '@angular/cdk/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { TestBed } from '@angular/core/testing';
+import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { MatRadioButtonHarness } from '@angular/material/radio/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
+import { provideRouter, withComponentInputBinding } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
+import { Member, Session } from '../auth/session';
+import { encodeDesign } from '../design/design-address';
+import { draftFrom } from '../design/draft-document';
+import { PresetRow } from '../library/library-api';
+import { SongReportHeader } from './retune-api';
+import { RetunePage } from './retune-page';
+
+const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
+const fenFifths: PresetRow = {
+  id: 'p-fen', name: 'Fen Fifths', bandId: 'b-fen', bandName: 'Copper Fen', ownerId: 'u-mira', ownerLogin: 'mira-vale',
+  revision: 3, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null,
+};
+const reedOrgan: PresetRow = {
+  id: 'p-reed', name: 'Reed Organ Meantone', bandId: null, bandName: null, ownerId: 'u-mira', ownerLogin: 'mira-vale',
+  revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null,
+};
+const fenFifthsDocument = {
+  format: 'keyloom.preset' as const,
+  version: 1 as const,
+  name: 'Fen Fifths',
+  scale: { kind: 'generated' as const, generator: '3/2', period: '2/1', up: 5, down: 1 },
+  mapping: { rootKey: 60 },
+};
+/** A report in the shape server/routes/retune.ts puts in the Keyloom-Report header. */
+const mpeReport: SongReportHeader = {
+  mode: 'mpe',
+  notesRetuned: 412,
+  channelsUsed: [2, 3, 4, 5],
+  notesStolen: [{ track: 2, channel: 1, key: 61, startTick: 960, stolenAtTick: 1200, memberChannel: 3 }],
+  notesStolenCount: 1,
+  warnings: [{ path: 'file.tracks[1]', message: 'file: track 2 bends its notes already; those bends were replaced.' }],
+  uploadSha256: 'ab'.repeat(32),
+};
+/** The first bytes of a Standard MIDI File: the MThd header chunk. */
+const midiBytes = new Uint8Array([0x4d, 0x54, 0x68, 0x64, 0, 0, 0, 6, 0, 1, 0, 2, 0x01, 0xe0]);
+
+describe('RetunePage', () => {
+  let http: HttpTestingController;
+  let harness: RouterTestingHarness;
+  let loader: HarnessLoader;
+
+  beforeEach(() => {
+    TestBed.configureTestingModule({
+      providers: [
+        provideRouter([{ path: 'retune', component: RetunePage }], withComponentInputBinding()),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+      ],
+    });
+    http = TestBed.inject(HttpTestingController);
+  });
+
+  afterEach(() => http.verify());
+
+  const page = () => harness.routeNativeElement as HTMLElement;
+  const text = (selector: string) => page().querySelector(selector)?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
+
+  async function settle() {
+    await harness.fixture.whenStable();
+    harness.detectChanges();
+  }
+
+  /** Waits for work the page does outside Angular's knowledge (reading a Blob) to show. */
+  async function until(shown: () => unknown) {
+    for (let tries = 0; tries < 50 && !shown(); tries++) {
+      await new Promise((resolve) => setTimeout(resolve, 10));
+      await settle();
+    }
+    expect(shown()).toBeTruthy();
+  }
+
+  async function open(url: string, member: Member | null) {
+    TestBed.inject(Session).member.set(member);
+    harness = await RouterTestingHarness.create(url);
+    loader = TestbedHarnessEnvironment.documentRootLoader(harness.fixture);
+    await settle();
+  }
+
+  async function openSignedIn() {
+    await open('/retune', mira);
+    const list = http.expectOne((request) => request.url === '/api/presets');
+    expect(list.request.params.get('pageSize')).toBe('100');
+    list.flush({ items: [fenFifths, reedOrgan], total: 2, page: 1, pageSize: 100 });
+    await settle();
+  }
+
+  async function choose(file: File, drop = 0) {
+    const input = page().querySelectorAll<HTMLInputElement>('app-file-drop input[type=file]')[drop];
+    const transfer = new DataTransfer();
+    transfer.items.add(file);
+    input.files = transfer.files;
+    input.dispatchEvent(new Event('change'));
+    await settle();
+  }
+
+  function pressRetune() {
+    page().querySelector<HTMLButtonElement>('button.retune')!.click();
+  }
+
+  async function retuneRequest(): Promise<TestRequest> {
+    pressRetune();
+    await settle();
+    return http.expectOne('/api/retune');
+  }
+
+  function song(): File {
+    return new File([midiBytes], 'fen-song.mid', { type: 'audio/midi' });
+  }
+
+  async function answerWithSong(request: TestRequest, fileName: string, report: SongReportHeader) {
+    request.flush(new Blob([midiBytes], { type: 'audio/midi' }), {
+      headers: {
+        'Content-Disposition': `attachment; filename="${fileName}"`,
+        'Keyloom-Report': encodeURIComponent(JSON.stringify(report)),
+      },
+    });
+    await settle();
+  }
+
+  it('posts the song with the chosen saved preset and mode, shows the progress, the report and the download', async () => {
+    await openSignedIn();
+    await choose(song());
+    expect(text('.chosen')).toContain('fen-song.mid');
+    expect(text('.chosen')).toContain('14 bytes');
+
+    const select = await loader.getHarness(MatSelectHarness.with({ selector: '.preset-field mat-select' }));
+    await select.open();
+    await select.clickOptions({ text: /Fen Fifths/ });
+    await (await loader.getHarness(MatRadioButtonHarness.with({ label: 'One note per channel (MPE)' }))).check();
+    await settle();
+
+    const request = await retuneRequest();
+    const form = request.request.body as FormData;
+    expect(request.request.method).toBe('POST');
+    expect(request.request.reportProgress).toBeTrue();
+    expect(form.get('mode')).toBe('mpe');
+    expect(form.get('presetId')).toBe('p-fen');
+    expect(form.get('preset')).toBeNull();
+    expect((form.get('file') as File).name).toBe('fen-song.mid');
+
+    request.event({ type: HttpEventType.UploadProgress, loaded: 30, total: 100 });
+    await settle();
+    expect(text('.status')).toBe('Sending the song: 30%');
+    const bar = page().querySelector('mat-progress-bar[aria-label="Sending the song"]')!;
+    expect(bar.getAttribute('aria-valuenow')).toBe('30');
+    expect(page().querySelector<HTMLButtonElement>('button.retune')!.disabled).toBeTrue();
+
+    request.event({ type: HttpEventType.UploadProgress, loaded: 100, total: 100 });
+    await settle();
+    expect(text('.status')).toBe('Retuning…');
+
+    await answerWithSong(request, 'fen-song-fen-fifths-mpe.mid', mpeReport);
+    expect(text('.result h2')).toBe('Retuned with one note per channel (MPE)');
+    expect(text('.notes-retuned')).toBe('412');
+    expect(text('.channels-used')).toBe('2–5');
+    expect(text('.notes-stolen')).toBe('1');
+    const stolen = Array.from(page().querySelectorAll('table.stolen tbody td')).map((cell) => cell.textContent!.trim());
+    expect(stolen).toEqual(['2', '1', '61 (C#4)', '960', '1200', '3']);
+    expect(text('.warnings')).toContain('track 2 bends its notes already');
+
+    const download = page().querySelector<HTMLAnchorElement>('a.download')!;
+    expect(download.getAttribute('download')).toBe('fen-song-fen-fifths-mpe.mid');
+    expect(download.textContent).toContain('Download fen-song-fen-fifths-mpe.mid');
+    expect(download.href).toMatch(/^blob:/);
+    const downloaded = new Uint8Array(await (await fetch(download.href)).arrayBuffer());
+    expect(Array.from(downloaded)).toEqual(Array.from(midiBytes));
+  });
+
+  it('retunes the same song again in the other mode without choosing it again', async () => {
+    await openSignedIn();
+    await choose(song());
+    const select = await loader.getHarness(MatSelectHarness);
+    await select.open();
+    await select.clickOptions({ text: /Reed Organ/ });
+    const first = await retuneRequest();
+    expect((first.request.body as FormData).get('mode')).toBe('mts');
+    await answerWithSong(first, 'fen-song-reed-organ-meantone-mts.mid', { ...mpeReport, mode: 'mts', notesStolen: [], notesStolenCount: 0 });
+    expect(text('.result h2')).toBe('Retuned with tuning messages (MTS)');
+    expect(page().querySelector('table.stolen')).toBeNull();
+
+    const again = Array.from(page().querySelectorAll<HTMLButtonElement>('button.again')).find((button) =>
+      button.textContent!.includes('Retune again as one note per channel (MPE)'),
+    )!;
+    again.click();
+    await settle();
+    const second = http.expectOne('/api/retune');
+    const form = second.request.body as FormData;
+    expect(form.get('mode')).toBe('mpe');
+    expect(form.get('presetId')).toBe('p-reed');
+    expect((form.get('file') as File).name).toBe('fen-song.mid');
+    await answerWithSong(second, 'fen-song-reed-organ-meantone-mpe.mid', mpeReport);
+    expect(page().querySelector('a.download')!.getAttribute('download')).toBe('fen-song-reed-organ-meantone-mpe.mid');
+  });
+
+  it('refuses a 6 MB song without sending it', async () => {
+    await openSignedIn();
+    await choose(new File([new Uint8Array(6 * 1024 * 1024)], 'copper-fen-live.mid', { type: 'audio/midi' }));
+    expect(text('.song-fault')).toContain('“copper-fen-live.mid” is 6.0 MB, larger than the limit of 5 MB, so it was not sent.');
+    expect(page().querySelector('.chosen')).toBeNull();
+    pressRetune();
+    await settle();
+    expect(text('.missing')).toBe('Choose a song first.');
+    http.expectNone('/api/retune');
+  });
+
+  it('sends the design from the designer\'s address as the preset document when signed out', async () => {
+    const d = encodeDesign(draftFrom(fenFifthsDocument));
+    await open(`/retune?d=${d}`, null);
+    http.expectNone((request) => request.url === '/api/presets');
+    expect(text('.tuning-name')).toBe('Fen Fifths');
+    expect(page().querySelector('a.sign-in-link')!.textContent).toContain('Sign in for your saved presets');
+    const back = new URL(page().querySelector<HTMLAnchorElement>('a.back')!.href);
+    expect(back.pathname).toBe('/design');
+    expect(back.searchParams.get('d')).toBe(d);
+
+    await choose(song());
+    const request = await retuneRequest();
+    const form = request.request.body as FormData;
+    expect(form.get('mode')).toBe('mts');
+    expect(form.get('presetId')).toBeNull();
+    expect(JSON.parse(form.get('preset') as string)).toEqual(jasmine.objectContaining({ name: 'Fen Fifths', scale: fenFifthsDocument.scale }));
+    request.flush(null, { status: 500, statusText: 'Server Error' });
+    await until(() => page().querySelector('.refusal'));
+  });
+
+  it('shows the server\'s refusal in its own words', async () => {
+    await openSignedIn();
+    await choose(new File([new Uint8Array([0x50, 0x4b, 3, 4])], 'fen-song.mid'));
+    const select = await loader.getHarness(MatSelectHarness);
+    await select.open();
+    await select.clickOptions({ text: /Fen Fifths/ });
+    const request = await retuneRequest();
+    // The refusal of server/routes/retune.ts for a file that starts with "PK".
+    const refusal = { error: { code: 'not_midi', message: 'file: is not a Standard MIDI File; it looks like a zip archive.', field: 'file' } };
+    request.flush(new Blob([JSON.stringify(refusal)], { type: 'application/json' }), { status: 400, statusText: 'Bad Request' });
+    await until(() => page().querySelector('.refusal-message'));
+    expect(text('.refusal h2')).toBe('The song was not retuned');
+    expect(text('.refusal-message')).toBe('file: is not a Standard MIDI File; it looks like a zip archive.');
+    expect(page().querySelector('a.download')).toBeNull();
+    expect(page().querySelector<HTMLButtonElement>('button.retune')!.disabled).toBeFalse();
+  });
+
+  it('reads a chosen preset file in the browser and names its faults before anything is sent', async () => {
+    await open('/retune', null);
+    expect(await (await loader.getHarness(MatRadioButtonHarness.with({ label: 'A preset file (.json)' }))).isChecked()).toBeTrue();
+    await choose(song());
+    const broken = { ...fenFifthsDocument, scale: { kind: 'generated', generator: '1.5', up: 5 } };
+    await choose(new File([JSON.stringify(broken)], 'fen-fifths.json', { type: 'application/json' }), 1);
+    await until(() => page().querySelector('.preset-faults'));
+    expect(text('.preset-faults')).toContain('scale.generator');
+    pressRetune();
+    await settle();
+    expect(text('.missing')).toContain('The preset file has faults');
+    http.expectNone('/api/retune');
+
+    await choose(new File([JSON.stringify(fenFifthsDocument)], 'fen-fifths.json', { type: 'application/json' }), 1);
+    await until(() => page().querySelector('.chosen .file-name') && text('.card:nth-child(2) .chosen').includes('Fen Fifths'));
+    const request = await retuneRequest();
+    expect(JSON.parse((request.request.body as FormData).get('preset') as string)).toEqual(fenFifthsDocument);
+    request.flush(new Blob([midiBytes]));
+    await settle();
+    expect(page().querySelector('a.download')!.getAttribute('download')).toBe('retuned-mts.mid');
+  });
+});
