@@ -102,6 +102,13 @@ describe('DesignPage', () => {
     http.expectOne('/api/bands').flush({ items: [] });
   });
 
+  it('says why Ctrl+S cannot save for a visitor who has not signed in', async () => {
+    await open('/design', null);
+    document.dispatchEvent(new KeyboardEvent('keydown', { key: 's', code: 'KeyS', ctrlKey: true, cancelable: true }));
+    await new Promise((resolve) => setTimeout(resolve));
+    expect(document.querySelector('.mat-mdc-snack-bar-label')?.textContent).toContain('Sign in to save');
+  });
+
   it('switches tabs with Alt and a number', async () => {
     const { harness, element } = await open('/design', null);
     document.dispatchEvent(new KeyboardEvent('keydown', { key: '2', code: 'Digit2', altKey: true }));

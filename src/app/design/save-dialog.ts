@@ -22,6 +22,8 @@ export interface SaveChoice {
 }
 
 const longestName = 200;
+/** The library select's value for the member's own library (a null option would clear the select). */
+const myLibrary = 'mine';
 const longestNote = 500;
 
 /** Asks for the preset's name, the library it goes into (first save only) and a note on the change. */
@@ -31,25 +33,25 @@ const longestNote = 500;
   template: `
     <h2 mat-dialog-title>{{ data.nextRevision ? 'Save revision ' + data.nextRevision : 'Save preset' }}</h2>
     <div mat-dialog-content class="fields">
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Name</mat-label>
         <input matInput #nameField [value]="name()" (input)="name.set(nameField.value)" required
                [attr.maxlength]="longestName" [appFault]="nameFault()" (keydown.enter)="save()" cdkFocusInitial>
         <mat-error>{{ nameFault() }}</mat-error>
       </mat-form-field>
       @if (data.bands) {
-        <mat-form-field>
+        <mat-form-field subscriptSizing="dynamic">
           <mat-label>Library</mat-label>
-          <mat-select [value]="bandId()" (valueChange)="bandId.set($event)">
-            <mat-option [value]="null">My library</mat-option>
+          <mat-select [value]="library()" (valueChange)="library.set($event)">
+            <mat-option [value]="myLibrary">My library</mat-option>
             @for (band of data.bands; track band.id) {
               <mat-option [value]="band.id">{{ band.name }} (band)</mat-option>
             }
           </mat-select>
-          <mat-hint>Bandmates who are editors can change a band's presets.</mat-hint>
+          <mat-hint>A band's editors can change its presets</mat-hint>
         </mat-form-field>
       }
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Note on this change</mat-label>
         <textarea matInput #noteField rows="2" [value]="note()" (input)="note.set(noteField.value)"
                   [attr.maxlength]="longestNote"></textarea>
@@ -69,12 +71,15 @@ export class SaveDialog {
   protected readonly longestName = longestName;
   protected readonly longestNote = longestNote;
   protected readonly name = signal(this.data.name);
-  protected readonly bandId = signal<string | null>(null);
+  /** The library chosen: a band's id, or `myLibrary`. */
+  protected readonly library = signal(myLibrary);
+  protected readonly myLibrary = myLibrary;
   protected readonly note = signal('');
   protected readonly nameFault = computed(() => (this.name().trim() === '' ? 'A preset needs a name' : null));
 
   protected save(): void {
     if (this.nameFault()) return;
-    this.dialog.close({ name: this.name().trim(), bandId: this.bandId(), note: this.note().trim() });
+    const bandId = this.library() === myLibrary ? null : this.library();
+    this.dialog.close({ name: this.name().trim(), bandId, note: this.note().trim() });
   }
 }

@@ -30,7 +30,7 @@ export class SavedPreset {
 
   /** Whether saving makes sense now: signed in, allowed to change the preset, no faults. */
   canSave(): boolean {
-    return !!this.session.member() && !this.state.readOnly() && this.state.faults().length === 0 && !this.busy();
+    return this.whyNotSave() === null && !this.busy();
   }
 
   async open(id: string): Promise<boolean> {
@@ -49,9 +49,22 @@ export class SavedPreset {
     }
   }
 
+  /** Why saving cannot happen now, in words for the musician; null when it can. */
+  private whyNotSave(): string | null {
+    if (!this.session.member()) return 'Sign in to save; until then this page\'s address keeps your design.';
+    if (this.state.readOnly()) return 'You can read this preset but not change it: fork it to your library first.';
+    if (this.state.faults().length > 0) return 'Fix the fields marked in red before saving.';
+    return null;
+  }
+
   /** Asks for a name, library and note, then saves; a saved preset gets a new revision. */
   async save(): Promise<void> {
-    if (!this.canSave()) return;
+    if (this.busy()) return;
+    const reason = this.whyNotSave();
+    if (reason) {
+      this.tell(reason);
+      return;
+    }
     const origin = this.state.origin();
     this.busy.set(true);
     try {

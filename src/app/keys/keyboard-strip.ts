@@ -1,4 +1,4 @@
-import { Component, ElementRef, afterNextRender, computed, input, viewChild } from '@angular/core';
+import { Component, DestroyRef, ElementRef, afterNextRender, computed, inject, input, viewChild } from '@angular/core';
 import type { PreviewKey } from '@shared/tuning/preview';
 import { noteName } from '@shared/tuning/twelve-edo';
 
@@ -89,6 +89,7 @@ export class KeyboardStrip {
   /** The scale's size, which sets the colours. */
   readonly scaleSize = input.required<number>();
   private readonly scroller = viewChild.required<ElementRef<HTMLElement>>('scroller');
+  private readonly destroyRef = inject(DestroyRef);
   protected readonly labelRow = labelRow;
   protected readonly width = 75 * whiteWidth;
   protected readonly octaveLabels = Array.from({ length: 11 }, (_, octave) => ({
@@ -108,10 +109,17 @@ export class KeyboardStrip {
   });
 
   constructor() {
+    // The strip opens scrolled to the root key, once it has a width (a tab shows it after rendering).
     afterNextRender(() => {
       const scroller = this.scroller().nativeElement;
-      const rootX = this.whiteIndex(this.rootKey()) * whiteWidth;
-      scroller.scrollLeft = Math.max(0, rootX - scroller.clientWidth / 3);
+      const watcher = new ResizeObserver(() => {
+        if (scroller.clientWidth === 0) return;
+        watcher.disconnect();
+        const rootX = this.whiteIndex(this.rootKey()) * whiteWidth;
+        scroller.scrollLeft = Math.max(0, rootX - scroller.clientWidth / 3);
+      });
+      watcher.observe(scroller);
+      this.destroyRef.onDestroy(() => watcher.disconnect());
     });
   }
 
