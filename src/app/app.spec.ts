@@ -43,6 +43,7 @@ describe('App shell', () => {
     expect(signIn?.textContent).toContain('Sign in with GitHub');
     expect(signIn?.getAttribute('aria-label')).toBe('Sign in with GitHub');
     expect(new URL(signIn!.href).pathname).toBe('/auth/github');
+    expect(new URL(signIn!.href).searchParams.get('next')).toMatch(/^\//);
     expect(element.querySelector('button.member')).toBeNull();
   });
 

@@ -3,7 +3,9 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbarModule } from '@angular/material/toolbar';
-import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { filter, map } from 'rxjs';
 import { Session } from './auth/session';
 import { ThemeChoice } from './theme/theme-choice';
 
@@ -21,6 +23,14 @@ interface Destination {
 })
 export class App implements OnInit {
   protected readonly session = inject(Session);
+  /** Signing in from the shell comes back to the page the member was on. */
+  protected readonly signInHref = toSignal(
+    inject(Router).events.pipe(
+      filter((event) => event instanceof NavigationEnd),
+      map((event) => this.session.signInUrl(event.urlAfterRedirects)),
+    ),
+    { initialValue: this.session.signInUrl('/') },
+  );
   protected readonly themes = inject(ThemeChoice);
   protected readonly destinations: Destination[] = [
     { path: '/design', label: 'Design', icon: 'tune' },

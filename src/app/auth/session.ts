@@ -29,9 +29,9 @@ export class Session {
     }
   }
 
-  /** Sign-in is a full-page trip through the provider, which comes back to the app's start page. */
-  signInUrl(): string {
-    return '/auth/github';
+  /** Sign-in is a full-page trip through the provider, which comes back to `returnTo` (a path of this app). */
+  signInUrl(returnTo: string): string {
+    return `/auth/github?next=${encodeURIComponent(returnTo)}`;
   }
 
   async signOut(): Promise<void> {
