@@ -65,6 +65,7 @@ describe('ImportPage', () => {
     await settle();
 
     expect(text('.kind')).toContain('A list of intervals');
+    expect(text('.announcement')).toBe('Found Fen Fifths: A list of intervals.');
     expect(text('.tuning-name')).toBe('Fen Fifths');
     expect(text('.summary')).toContain('7 degrees in a period of 2/1');
     expect(text('.notes')).toContain('It repeats every octave, 7 keys to the octave.');
@@ -99,6 +100,7 @@ describe('ImportPage', () => {
     await settle();
     expect(text('.refusal h3')).toBe('This file could not be imported');
     expect(text('.refusal-message')).toBe(message);
+    expect(text('.announcement')).toBe('');
     expect(page().querySelector('a.open')).toBeNull();
   });
 

@@ -65,6 +65,12 @@ export class ImportPage {
     const imported = this.imported();
     return imported ? encodeDesign(draftFrom(imported.document)) : null;
   });
+  /** What a screen reader hears: that the file is being read, and what it turned out to be. */
+  protected readonly announcement = computed(() => {
+    const imported = this.imported();
+    if (this.importing()) return 'Reading the file.';
+    return imported ? `Found ${imported.document.name}: ${kindNames[imported.kind]}.` : '';
+  });
   private running: Subscription | null = null;
 
   protected fileSize(bytes: number): string {

@@ -13,7 +13,7 @@ export interface SongReportHeader extends RetuneReport {
 /** The tuning to retune with: a preset saved in the library, or a preset document sent along. */
 export type RetuneTuning = { presetId: string } | { document: unknown };
 
-export interface RetunedSong {
+interface RetunedSong {
   blob: Blob;
   fileName: string;
   report: SongReportHeader | null;

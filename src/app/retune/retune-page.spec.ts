@@ -155,7 +155,8 @@ describe('RetunePage', () => {
     expect(text('.status')).toBe('Sending the song: 30%');
     const bar = page().querySelector('mat-progress-bar[aria-label="Sending the song"]')!;
     expect(bar.getAttribute('aria-valuenow')).toBe('30');
-    expect(page().querySelector<HTMLButtonElement>('button.retune')!.disabled).toBeTrue();
+    expect(page().querySelector('button.retune')!.getAttribute('aria-disabled')).toBe('true');
+    expect(text('.announcement')).toBe('Sending the song.');
 
     request.event({ type: HttpEventType.UploadProgress, loaded: 100, total: 100 });
     await settle();
@@ -163,6 +164,7 @@ describe('RetunePage', () => {
 
     await answerWithSong(request, 'fen-song-fen-fifths-mpe.mid', mpeReport);
     expect(text('.result h2')).toBe('Retuned with one note per channel (MPE)');
+    expect(text('.announcement')).toBe('Retuned. The download is ready below.');
     expect(text('.notes-retuned')).toBe('412');
     expect(text('.channels-used')).toBe('2–5');
     expect(text('.notes-stolen')).toBe('1');
@@ -249,7 +251,7 @@ describe('RetunePage', () => {
     expect(text('.refusal h2')).toBe('The song was not retuned');
     expect(text('.refusal-message')).toBe('file: is not a Standard MIDI File; it looks like a zip archive.');
     expect(page().querySelector('a.download')).toBeNull();
-    expect(page().querySelector<HTMLButtonElement>('button.retune')!.disabled).toBeFalse();
+    expect(page().querySelector('button.retune')!.getAttribute('aria-disabled')).not.toBe('true');
   });
 
   it('reads a chosen preset file in the browser and names its faults before anything is sent', async () => {

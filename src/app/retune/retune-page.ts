@@ -81,6 +81,19 @@ export class RetunePage {
     const step = this.step();
     return step?.kind === 'sending' && step.fraction !== null ? Math.round(step.fraction * 100) : null;
   });
+  /** What a screen reader hears as the retune goes: the steps, not every percent. */
+  protected readonly announcement = computed(() => {
+    switch (this.step()?.kind) {
+      case 'sending':
+        return 'Sending the song.';
+      case 'retuning':
+        return 'Retuning.';
+      case 'done':
+        return 'Retuned. The download is ready below.';
+      default:
+        return '';
+    }
+  });
   private running: Subscription | null = null;
 
   constructor() {
@@ -120,6 +133,7 @@ export class RetunePage {
   }
 
   protected chooseSong(file: File): void {
+    this.running?.unsubscribe();
     const fault = uploadFault(file);
     this.songFault.set(fault);
     this.song.set(fault ? null : file);
@@ -128,12 +142,18 @@ export class RetunePage {
     this.replaceDownload(null);
   }
 
+  protected choosePreset(id: string): void {
+    this.missing.set(null);
+    this.presetId.set(id);
+  }
+
   protected async choosePresetFile(file: File): Promise<void> {
     this.missing.set(null);
     this.presetFile.set({ file, reading: await readPresetFile(file) });
   }
 
   protected retuneSong(): void {
+    if (this.busy()) return;
     const song = this.song();
     const tuning = this.chosenTuning();
     const missing = !song ? 'Choose a song first.' : typeof tuning === 'string' ? tuning : null;
