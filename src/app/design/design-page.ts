@@ -3,7 +3,15 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTabsModule } from '@angular/material/tabs';
+import { Audition } from '../audition/audition';
+import { ControllerInput } from '../audition/controller-input';
+import { PlayPanel } from '../audition/play-panel';
+import { StripPlaying } from '../audition/strip-playing';
 import { Session } from '../auth/session';
+import { LiveFollow } from '../hardware/live-follow';
+import { MidiAccess } from '../hardware/midi-access';
+import { SendPanel } from '../hardware/send-panel';
+import { TuningSender } from '../hardware/tuning-sender';
 import { KeyboardStrip } from '../keys/keyboard-strip';
 import { LayoutEditor } from '../keys/layout-editor';
 import { ReferencePitch } from '../keys/reference-pitch';
@@ -36,9 +44,9 @@ function isTyping(target: EventTarget | null): boolean {
   imports: [
     MatButtonModule, MatIconModule, MatProgressBarModule, MatTabsModule, DesignField, DownloadMenu, ScaleForm,
     ScaleSummary, PeriodRing, DegreeTable, OffsetChart, IntervalMatrix, ReferencePitch, KeyboardStrip, LayoutEditor,
-    OutputSettings,
+    OutputSettings, PlayPanel, StripPlaying, SendPanel,
   ],
-  providers: [DesignState, DesignAddress, SavedPreset],
+  providers: [DesignState, DesignAddress, SavedPreset, Audition, MidiAccess, ControllerInput, TuningSender, LiveFollow],
   templateUrl: './design-page.html',
   styleUrl: './design-page.scss',
   host: { '(document:keydown)': 'followShortcut($event)' },
@@ -50,6 +58,7 @@ export class DesignPage {
   protected readonly address = inject(DesignAddress);
   protected readonly saved = inject(SavedPreset);
   protected readonly session = inject(Session);
+  protected readonly audition = inject(Audition);
   protected readonly tab = signal(0);
   protected readonly ringCents = computed(() => this.state.shown()?.table.degrees.map((degree) => degree.cents) ?? []);
   /** Why the design in the address could not be opened, if it could not. */

@@ -17,7 +17,7 @@ import {
 } from './draft-document';
 
 /** Where a loaded design came from: a saved preset, and what the signed-in member may do with it. */
-export interface SavedOrigin {
+interface SavedOrigin {
   id: string;
   revision: number;
   bandId: string | null;
@@ -25,7 +25,7 @@ export interface SavedOrigin {
 }
 
 /** A design that built: the checked document and everything the designer shows about it. */
-export interface ShownDesign {
+interface ShownDesign {
   preset: ResolvedPreset;
   table: PreviewTable;
 }

@@ -5,7 +5,7 @@ import { firstValueFrom } from 'rxjs';
 import type { DraftDocument } from './draft-document';
 
 /** A saved preset as `GET /api/presets/:id` answers it (the latest revision). */
-export interface SavedPresetAnswer {
+interface SavedPresetAnswer {
   id: string;
   name: string;
   bandId: string | null;

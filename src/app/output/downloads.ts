@@ -26,7 +26,7 @@ export function fileNameFrom(disposition: string | null): string | null {
 }
 
 /** A file handed to the browser, and what the server said about it (keys it had to clamp, say). */
-export interface DeliveredFile {
+interface DeliveredFile {
   name: string;
   warnings: string[];
 }

@@ -1,7 +1,7 @@
 import { DOCUMENT } from '@angular/common';
 import { Injectable, computed, effect, inject, signal } from '@angular/core';
 
-export type Theme = 'light' | 'dark';
+type Theme = 'light' | 'dark';
 
 const storageKey = 'keyloom.theme';
 
