@@ -1,9 +1,10 @@
-import { provideHttpClient } from '@angular/common/http';
+import { HttpClient, provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { App } from './app';
 import { routes } from './app.routes';
+import { connectionInterceptor } from './auth/connection';
 
 describe('App shell', () => {
   let http: HttpTestingController;
@@ -11,7 +12,7 @@ describe('App shell', () => {
   beforeEach(async () => {
     await TestBed.configureTestingModule({
       imports: [App],
-      providers: [provideRouter(routes), provideHttpClient(), provideHttpClientTesting()],
+      providers: [provideRouter(routes), provideHttpClient(withInterceptors([connectionInterceptor])), provideHttpClientTesting()],
     }).compileComponents();
     http = TestBed.inject(HttpTestingController);
   });
@@ -87,8 +88,13 @@ describe('App shell', () => {
     document.documentElement.classList.remove('light-theme', 'dark-theme');
   });
 
-  it('says so when the server does not answer', async () => {
-    const { element } = await render('unreachable');
+  it('says so when the server does not answer, and stops saying so when it answers again', async () => {
+    const { fixture, element } = await render('unreachable');
     expect(element.querySelector('[role="alert"]')?.textContent).toContain('not answering');
+    TestBed.inject(HttpClient).get('/api/health').subscribe();
+    http.expectOne('/api/health').flush({ ok: true, db: true });
+    await fixture.whenStable();
+    fixture.detectChanges();
+    expect(element.querySelector('[role="alert"]')).toBeNull();
   });
 });

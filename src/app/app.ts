@@ -6,6 +6,7 @@ import { MatToolbarModule } from '@angular/material/toolbar';
 import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { filter, map } from 'rxjs';
+import { Connection } from './auth/connection';
 import { Session } from './auth/session';
 import { ThemeChoice } from './theme/theme-choice';
 
@@ -23,6 +24,7 @@ interface Destination {
 })
 export class App implements OnInit {
   protected readonly session = inject(Session);
+  protected readonly connection = inject(Connection);
   /** Signing in from the shell comes back to the page the member was on. */
   protected readonly signInHref = toSignal(
     inject(Router).events.pipe(

@@ -16,16 +16,13 @@ export interface Member {
 export class Session {
   private readonly http = inject(HttpClient);
   readonly member = signal<Member | null | undefined>(undefined);
-  readonly unreachable = signal(false);
 
   async refresh(): Promise<void> {
     try {
       const answer = await firstValueFrom(this.http.get<{ user: Member | null }>('/api/me'));
       this.member.set(answer.user);
-      this.unreachable.set(false);
     } catch {
       this.member.set(null);
-      this.unreachable.set(true);
     }
   }
 
