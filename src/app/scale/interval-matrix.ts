@@ -1,4 +1,4 @@
-import { Component, computed, input, linkedSignal } from '@angular/core';
+import { Component, computed, input, linkedSignal, output } from '@angular/core';
 
 interface MatrixCell {
   cents: string;
@@ -36,10 +36,12 @@ const largestOpenMatrix = 24;
               </tr>
             </thead>
             <tbody>
-              @for (row of rows(); track $index) {
+              @for (row of rows(); track $index; let from = $index) {
                 <tr>
                   <th scope="row">{{ $index }}</th>
-                  @for (cell of row; track $index) { <td [attr.data-shade]="cell.shade">{{ cell.cents }}</td> }
+                  @for (cell of row; track $index) {
+                    <td [attr.data-shade]="cell.shade" (click)="intervalChosen.emit({ from, steps: $index + 1 })">{{ cell.cents }}</td>
+                  }
                 </tr>
               }
             </tbody>
@@ -56,7 +58,7 @@ const largestOpenMatrix = 24;
     th { position: sticky; background: var(--mat-sys-surface-container); color: var(--mat-sys-on-surface-variant); font-weight: 500; }
     thead th { top: 0; z-index: 1; }
     tbody th { left: 0; }
-    td { --tone: var(--mat-sys-tertiary); --strength: 0%; background: color-mix(in srgb, var(--tone) var(--strength), transparent); }
+    td { cursor: pointer; --tone: var(--mat-sys-tertiary); --strength: 0%; background: color-mix(in srgb, var(--tone) var(--strength), transparent); }
     td[data-shade^="-"] { --tone: var(--mat-sys-primary); }
     td[data-shade="1"], td[data-shade="-1"] { --strength: 14%; }
     td[data-shade="2"], td[data-shade="-2"] { --strength: 28%; }
@@ -67,6 +69,8 @@ const largestOpenMatrix = 24;
 export class IntervalMatrix {
   /** Cents from each degree (row) up by 0, 1, ... size steps (column), as the analysis gives them. */
   readonly matrix = input.required<number[][]>();
+  /** A cell was clicked: the interval from degree `from` up `steps` steps. */
+  readonly intervalChosen = output<{ from: number; steps: number }>();
   protected readonly size = computed(() => this.matrix().length);
   private readonly small = computed(() => this.size() <= largestOpenMatrix);
   /** Open for small scales; a musician's choice stands until the scale crosses the line. */

@@ -1,0 +1,106 @@
+import { TestBed } from '@angular/core/testing';
+import { renderExport } from '@shared/export/export-catalogue';
+import { DesignState } from '../design/design-state';
+import { LiveFollow, followDebounceMs } from './live-follow';
+import { MidiAccess, midiAccessFaults } from './midi-access';
+import { TuningSender } from './tuning-sender';
+
+interface FakeOutput {
+  id: string;
+  name: string;
+  state: 'connected' | 'disconnected';
+  sent: number[][];
+  send(bytes: Uint8Array): void;
+}
+
+/** Stands in for the browser's Web MIDI with one output port that records what it is sent. */
+function fakeMidi(port: FakeOutput): MIDIAccess {
+  const outputs = new Map([[port.id, port]]);
+  return { inputs: new Map(), outputs, addEventListener: () => undefined } as unknown as MIDIAccess;
+}
+
+function outputPort(): FakeOutput {
+  return {
+    id: 'out-1',
+    name: 'Test synth',
+    state: 'connected',
+    sent: [],
+    send(bytes) {
+      if (this.state === 'disconnected') throw new DOMException('closed', 'InvalidStateError');
+      this.sent.push([...bytes]);
+    },
+  };
+}
+
+describe('TuningSender and LiveFollow', () => {
+  let port: FakeOutput;
+  let sender: TuningSender;
+  let state: DesignState;
+  let request: jasmine.Spy;
+
+  beforeEach(async () => {
+    port = outputPort();
+    request = spyOn(navigator, 'requestMIDIAccess').and.callFake(() => Promise.resolve(fakeMidi(port)));
+    TestBed.configureTestingModule({ providers: [DesignState, MidiAccess, TuningSender, LiveFollow] });
+    state = TestBed.inject(DesignState);
+    sender = TestBed.inject(TuningSender);
+    expect(await TestBed.inject(MidiAccess).open()).toBeTrue();
+    sender.outputId.set('out-1');
+  });
+
+  it('asks for MIDI with system exclusive and lists the output', () => {
+    expect(request).toHaveBeenCalledWith({ sysex: true });
+    expect(TestBed.inject(MidiAccess).outputs()).toEqual([{ id: 'out-1', name: 'Test synth' }]);
+  });
+
+  it('sends the bytes of the bulk dump export, with the cable pause by default', async () => {
+    const preset = state.shown()!.preset;
+    const exported = renderExport(preset, 'mts-bulk');
+    expect(sender.pauseMs()).toBeCloseTo(130.56, 2);
+    sender.pauseMs.set(0);
+    expect(await sender.send()).toBeTrue();
+    expect(port.sent.flat()).toEqual(exported.ok ? [...exported.value.bytes] : []);
+    expect(sender.progress()).toEqual({ sent: 1, total: 1 });
+    expect(sender.done()).toBe('Sent 1 message (408 bytes).');
+  });
+
+  it('says so when the port disappears in the middle of a send', async () => {
+    sender.form.set('mts-notes');
+    sender.pauseMs.set(0);
+    spyOn(port, 'send').and.callFake(function (this: FakeOutput, bytes: Uint8Array) {
+      port.sent.push([...bytes]);
+      port.state = 'disconnected';
+    });
+    expect(await sender.send()).toBeFalse();
+    expect(port.sent.length).toBe(1);
+    expect(sender.fault()).toContain('The MIDI port disappeared while sending');
+  });
+
+  it('live follow sends only the keys whose pitch changed, and counts them', async () => {
+    const follow = TestBed.inject(LiveFollow);
+    follow.start();
+    state.setMappingField('rootHz', 262);
+    TestBed.tick();
+    await new Promise((resolve) => setTimeout(resolve, followDebounceMs + 50));
+    const changedKeys = port.sent.reduce((count, message) => count + message[6], 0);
+    const mapped = state.shown()!.table.keys.filter((key) => key.hz !== null).length;
+    expect(changedKeys).toBe(mapped);
+    port.sent = [];
+    state.setScaleField('up', 6);
+    TestBed.tick();
+    await new Promise((resolve) => setTimeout(resolve, followDebounceMs + 50));
+    expect(port.sent.length).toBeGreaterThan(0);
+    const keys = port.sent.flatMap((message) => Array.from({ length: message[6] }, (_, index) => message[7 + 4 * index]));
+    expect(keys.length).toBeLessThan(mapped);
+    expect(follow.messagesSent()).toBeGreaterThan(port.sent.length);
+    expect(follow.bytesSent()).toBeGreaterThan(0);
+  });
+
+  it('explains a browser without Web MIDI and a refusal', async () => {
+    request.and.callFake(() => Promise.reject(new DOMException('denied', 'SecurityError')));
+    const refused = new MidiAccess();
+    expect(await refused.open()).toBeFalse();
+    expect(refused.state()).toBe('refused');
+    expect(midiAccessFaults.refused).toContain('refused access to MIDI');
+  });
+});

@@ -1,0 +1,187 @@
+// Journey 6 and the send panel in Chromium, with a stand-in for Web MIDI that records every byte sent
+// and can refuse permission, be missing, or lose its port in the middle of a send.
+import { readFileSync } from 'node:fs';
+import type { Browser, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { launchChromium, screenshot } from './browser';
+
+type MidiMode = 'grant' | 'refuse' | 'missing' | 'drop after one';
+
+interface Recorded {
+  sent: number[][];
+}
+
+/** Runs in the page before the app: replaces `navigator.requestMIDIAccess` according to `mode`. */
+function standInMidi(mode: MidiMode): void {
+  const page = window as unknown as Recorded;
+  page.sent = [];
+  if (mode === 'missing') {
+    delete (Navigator.prototype as Partial<Navigator>).requestMIDIAccess;
+    return;
+  }
+  const listeners: ((event: Event) => void)[] = [];
+  const output = {
+    id: 'stand-in-out',
+    name: 'Stand-in synth',
+    type: 'output',
+    state: 'connected',
+    send(bytes: Uint8Array | number[]) {
+      if (output.state === 'disconnected') throw new DOMException('The port is closed', 'InvalidStateError');
+      page.sent.push(Array.from(bytes));
+      if (mode === 'drop after one') {
+        output.state = 'disconnected';
+        for (const listener of listeners) listener(new Event('statechange'));
+      }
+    },
+  };
+  const access = {
+    sysexEnabled: true,
+    inputs: new Map(),
+    outputs: new Map([[output.id, output]]),
+    addEventListener: (_type: string, listener: (event: Event) => void) => listeners.push(listener),
+  };
+  Object.defineProperty(Navigator.prototype, 'requestMIDIAccess', {
+    configurable: true,
+    value: (options: { sysex?: boolean }) =>
+      mode === 'refuse' || !options?.sysex
+        ? Promise.reject(new DOMException('Permission denied', 'NotAllowedError'))
+        : Promise.resolve(access),
+  });
+}
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchChromium();
+});
+afterAll(() => browser.close());
+
+async function designer(mode: MidiMode): Promise<Page> {
+  const context = await browser.newContext({ acceptDownloads: true, viewport: { width: 1280, height: 1000 } });
+  const page = await context.newPage();
+  await page.addInitScript(standInMidi, mode);
+  await page.goto(`${inject('appUrl')}/design`);
+  await page.getByLabel('Preset name').fill('Hardware Fifths');
+  return page;
+}
+
+async function openSendPanel(page: Page): Promise<void> {
+  await page.getByRole('tab', { name: 'Output' }).click();
+  await page.getByRole('button', { name: 'Connect MIDI devices' }).click();
+}
+
+function sentBytes(page: Page): Promise<number[][]> {
+  return page.evaluate(() => (window as unknown as Recorded).sent);
+}
+
+async function presetDocument(page: Page): Promise<Record<string, unknown>> {
+  await page.getByRole('button', { name: 'Download' }).click();
+  const [download] = await Promise.all([
+    page.waitForEvent('download'),
+    page.getByRole('menuitem', { name: /^Preset document \(\.json\)/ }).click(),
+  ]);
+  return JSON.parse(readFileSync((await download.path())!, 'utf8'));
+}
+
+async function preview(path: string, document: unknown): Promise<Response> {
+  const answer = await fetch(`${inject('appUrl')}/api/preview/${path}`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify(document),
+  });
+  expect(answer.status).toBe(200);
+  return answer;
+}
+
+async function keyHz(document: unknown): Promise<(number | null)[]> {
+  const table = (await (await preview('table', document)).json()) as { keys: { hz: number | null }[] };
+  return table.keys.map((key) => key.hz);
+}
+
+describe('sending a tuning to an instrument over Web MIDI', () => {
+  it('sends byte for byte what the server exports as the MTS bulk dump, after naming the program it replaces', async () => {
+    const page = await designer('grant');
+    await openSendPanel(page);
+    await expect.poll(() => page.getByText(/1 message\(s\), 408 bytes/).count()).toBe(1);
+    await screenshot(page, 'hardware-send-panel');
+    await page.getByRole('button', { name: 'Send tuning' }).click();
+    const dialog = page.getByRole('dialog');
+    await expect.poll(() => dialog.textContent()).toContain('tuning program 0');
+    expect(await dialog.textContent()).toContain('Back it up first');
+    await screenshot(page, 'hardware-confirm');
+    await dialog.getByRole('button', { name: 'Send and replace' }).click();
+    await expect.poll(() => page.getByText('Sent 1 message (408 bytes).').count()).toBe(1);
+
+    const exported = new Uint8Array(await (await preview('export/mts-bulk', await presetDocument(page))).arrayBuffer());
+    const sent = await sentBytes(page);
+    expect(sent.length).toBe(1);
+    expect(sent[0]).toEqual([...exported]);
+    await page.context().close();
+  });
+
+  it('live follow sends single-note changes for exactly the keys whose pitch an edit changed', async () => {
+    const page = await designer('grant');
+    await openSendPanel(page);
+    const before = await presetDocument(page);
+    await page.getByRole('switch', { name: /Live follow/ }).click();
+    await page.getByRole('tab', { name: 'Scale' }).click();
+    await page.getByLabel('Generator', { exact: true }).fill('696.578c');
+    await expect.poll(async () => (await sentBytes(page)).length).toBeGreaterThan(0);
+    await page.waitForTimeout(400);
+
+    const after = { ...before, scale: { ...(before['scale'] as object), generator: '696.578c' } };
+    const [oldHz, newHz] = await Promise.all([keyHz(before), keyHz(after)]);
+    const changed = newHz.flatMap((hz, key) => (hz !== null && hz !== oldHz[key] ? [key] : []));
+    const sent = await sentBytes(page);
+    // REFERENCE.md: F0 7F dev 08 02 tt ll (kk xx yy zz)xll F7.
+    for (const message of sent) expect(message.slice(0, 5)).toEqual([0xf0, 0x7f, 0x7f, 0x08, 0x02]);
+    const keys = sent.flatMap((message) => Array.from({ length: message[6] }, (_, index) => message[7 + 4 * index]));
+    expect(keys.length).toBeLessThan(newHz.filter((hz) => hz !== null).length);
+    expect(keys.sort((a, b) => a - b)).toEqual(changed);
+    const bytes = sent.reduce((sum, message) => sum + message.length, 0);
+    await page.getByRole('tab', { name: 'Output' }).click();
+    await expect.poll(() => page.getByLabel('Live follow counter').textContent()).toContain(`${sent.length} messages, ${bytes} bytes sent`);
+    await screenshot(page, 'hardware-live-follow');
+    await page.context().close();
+  });
+
+  it('says when the browser has no Web MIDI', async () => {
+    const page = await designer('missing');
+    await openSendPanel(page);
+    await expect.poll(() => page.getByRole('alert').first().textContent()).toContain('This browser has no Web MIDI');
+    await page.context().close();
+  });
+
+  it('says when the browser refuses MIDI access', async () => {
+    const page = await designer('refuse');
+    await openSendPanel(page);
+    await expect.poll(() => page.getByRole('alert').first().textContent()).toContain('refused access to MIDI devices');
+    await page.context().close();
+  });
+
+  it('says when the port disappears in the middle of a send', async () => {
+    const page = await designer('drop after one');
+    await openSendPanel(page);
+    await page.getByLabel('Message form').click();
+    await page.getByRole('option', { name: 'Single-note real-time changes' }).click();
+    await page.getByRole('button', { name: 'Send tuning' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Send and replace' }).click();
+    await expect.poll(() => page.getByRole('alert').first().textContent()).toContain('The MIDI port disappeared while sending');
+    expect((await sentBytes(page)).length).toBe(1);
+    await screenshot(page, 'hardware-port-gone');
+    await page.context().close();
+  });
+});
+
+describe('the Play panel', () => {
+  it('plays keys from the computer keyboard and shows the hearing caution the first time', async () => {
+    const page = await designer('grant');
+    expect(await page.getByText('Keep the volume low').count()).toBe(0);
+    await page.locator('body').click({ position: { x: 5, y: 5 } });
+    await page.keyboard.down('a');
+    await expect.poll(() => page.getByText('Keep the volume low').count()).toBe(1);
+    await page.keyboard.up('a');
+    await page.getByRole('tab', { name: 'Keys' }).click();
+    await screenshot(page, 'hardware-play-panel');
+    await page.context().close();
+  });
+});
