@@ -1,0 +1,66 @@
+import { TestBed } from '@angular/core/testing';
+import { DesignState } from '../design/design-state';
+import { MidiAccess } from '../hardware/midi-access';
+import { Audition } from './audition';
+import { ControllerInput } from './controller-input';
+import { PlayPanel } from './play-panel';
+
+describe('Audition', () => {
+  let audition: Audition;
+
+  beforeEach(() => {
+    TestBed.configureTestingModule({ providers: [DesignState, Audition, MidiAccess, ControllerInput] });
+    audition = TestBed.inject(Audition);
+  });
+
+  it('plays a key at its mapped frequency, and in equal temperament only when comparing', () => {
+    // The starting design lays 1/1 9/8 81/64 4/3 3/2 ... on consecutive keys from C4 (key 60), so key 64 plays 3/2.
+    // REFERENCE.md: G 3/2 above equal-tempered C4 is 392.4383 Hz; equal-tempered E4 (key 64) is 329.6276 Hz.
+    expect(audition.hzOfKey(64)).toBeCloseTo(392.4383, 4);
+    audition.setCompare(true);
+    expect(audition.hzOfKey(64)).toBeCloseTo(329.6276, 4);
+  });
+
+  it('holds released keys while sustain is on and lets them go with it', () => {
+    audition.pressKey(60);
+    audition.setSustain(true);
+    audition.releaseKey(60);
+    expect(audition.playing()).toEqual([60]);
+    expect(audition.hasSounded()).toBeTrue();
+    audition.setSustain(false);
+    expect(audition.playing()).toEqual([]);
+  });
+
+  it('plays a controller note-on and note-off by key number', () => {
+    const controller = TestBed.inject(ControllerInput);
+    controller.play(new Uint8Array([0x90, 64, 100]));
+    expect(audition.playing()).toEqual([64]);
+    controller.play(new Uint8Array([0x90, 64, 0]));
+    expect(audition.playing()).toEqual([]);
+  });
+});
+
+describe('PlayPanel', () => {
+  it('plays the home row from the root key, shifts by a period, and stays quiet while typing in a field', async () => {
+    TestBed.configureTestingModule({ providers: [DesignState, Audition, MidiAccess, ControllerInput] });
+    const fixture = TestBed.createComponent(PlayPanel);
+    await fixture.whenStable();
+    const audition = TestBed.inject(Audition);
+    const press = spyOn(audition, 'pressKey');
+    const key = (code: string, type = 'keydown', target: EventTarget = document.body) =>
+      target.dispatchEvent(new KeyboardEvent(type, { code, bubbles: true }));
+    key('KeyD');
+    expect(press).toHaveBeenCalledWith(62);
+    key('KeyD', 'keyup');
+    key('KeyX');
+    key('KeyA');
+    expect(press).toHaveBeenCalledWith(67);
+    const field = document.createElement('input');
+    document.body.append(field);
+    key('KeyS', 'keydown', field);
+    field.remove();
+    expect(press).toHaveBeenCalledTimes(2);
+    await fixture.whenStable();
+    expect(fixture.nativeElement.textContent).toContain('play keys 67–89');
+  });
+});
