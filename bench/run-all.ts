@@ -8,6 +8,7 @@ const benches: [string, string][] = [
   ['export-accuracy.bench.ts', 'the pitch error of every export format against its resolution'],
   ['song-retune.bench.ts', 'retuning a 200,000-note song against parsing and writing it (target: at most 1.5)'],
   ['server-load.bench.ts', 'preview and shared-preset throughput against a constant route; bundle generation'],
+  ['designer-recompute.bench.ts', 'recomputing a 72-tone design in Chromium (target: under 16 ms)'],
   ['app-bundle.bench.ts', 'the initial JavaScript against a bare Material shell (builds twice: a few minutes)'],
   ['long-load.bench.ts', '100 players for 60 s, then a SIGKILL mid-load (about three minutes)'],
 ];
