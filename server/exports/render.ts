@@ -15,7 +15,7 @@ export interface ExportedFile {
   warnings: FieldError[];
 }
 
-export const allFormatIds = [...exportFormats.map((f) => f.id), 'tuner-sheet', 'bundle'];
+const allFormatIds = [...exportFormats.map((f) => f.id), 'tuner-sheet', 'bundle'];
 
 export async function renderFile(preset: ResolvedPreset, format: string, at: SheetRevision): Promise<ExportedFile> {
   if (format === 'tuner-sheet') {

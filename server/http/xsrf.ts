@@ -2,8 +2,8 @@ import { randomBytes, timingSafeEqual } from 'node:crypto';
 import type { RequestHandler } from 'express';
 import { HttpError } from './errors';
 
-export const xsrfCookie = 'XSRF-TOKEN';
-export const xsrfHeader = 'X-XSRF-TOKEN';
+const xsrfCookie = 'XSRF-TOKEN';
+const xsrfHeader = 'X-XSRF-TOKEN';
 const safeMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
 
 function same(a: string, b: string): boolean {

@@ -36,14 +36,14 @@ export async function bandRole(db: Database, userId: string, bandId: string): Pr
 }
 
 /** Personal presets belong to their owner alone; band presets follow the member's role; admins may do anything. */
-export function presetAccess(user: SignedInUser | undefined, preset: PresetRow, role: BandRole | null): PresetAccess {
+function presetAccess(user: SignedInUser | undefined, preset: PresetRow, role: BandRole | null): PresetAccess {
   if (!user) return 'none';
   if (user.siteRole === 'admin') return 'own';
   if (preset.bandId === null) return preset.ownerId === user.id ? 'own' : 'none';
   return role === 'owner' ? 'own' : role === 'editor' ? 'edit' : role === 'viewer' ? 'read' : 'none';
 }
 
-export function bandAccess(user: SignedInUser | undefined, role: BandRole | null): BandAccess {
+function bandAccess(user: SignedInUser | undefined, role: BandRole | null): BandAccess {
   if (!user) return 'none';
   if (user.siteRole === 'admin' || role === 'owner') return 'owner';
   return role ? 'member' : 'none';

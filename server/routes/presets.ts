@@ -19,7 +19,7 @@ import { appendRevision, createPreset, readRevision } from '../library/revisions
 import { authorizeBandLibrary, authorizePreset, requireUser } from '../policy/policy';
 
 /** How long a deleted preset waits in the trash before it is gone for good. */
-export const trashDays = 30;
+const trashDays = 30;
 const trashMs = trashDays * 24 * 3600 * 1000;
 
 function revisionNumber(text: string): number {

@@ -1,4 +1,3 @@
-import type { Response } from 'supertest';
 import type { Test } from 'supertest';
 
 /** Makes supertest collect any response body as raw bytes (res.body is then a Buffer). */
@@ -9,5 +8,3 @@ export function asBytes(test: Test): Test {
     res.on('end', () => done(null, Buffer.concat(chunks)));
   });
 }
-
-export type BinaryResponse = Response & { body: Buffer };

@@ -4,7 +4,7 @@ import { createServer } from 'node:net';
 import { repoRoot } from '../../scripts/stack/postgres';
 import { waitForHttp } from '../../scripts/stack/processes';
 
-export function freePort(): Promise<number> {
+function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const server = createServer();
     server.listen(0, '127.0.0.1', () => {
