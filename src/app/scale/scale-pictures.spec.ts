@@ -51,7 +51,7 @@ describe('The pictures of a scale', () => {
     );
     const said = Object.fromEntries(rows);
     expect(said['Step pattern']).toMatch(/^LLsLLLs\s*MOS/);
-    // Seven fifths up overshoot the octave by the apotome, 2187/2048 (from memory).
+    // Seven fifths up overshoot four octaves by 2187/2048 (arithmetic: 3^7 / 2^11).
     expect(said['Comma']).toBe('2187/2048 (113.685¢)');
     expect(said['Wolf']).toContain('degree 6 to degree 3');
     expect(said['MOS sizes']).toBe('2, 3, 5, 7, 12, 17, 29, 41, 53');
