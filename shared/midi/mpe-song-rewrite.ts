@@ -107,7 +107,7 @@ class MpeRewrite implements MessageSink {
     const channel = status & 0x0f;
     const kind = status & 0xf0;
     if (kind === noteOn && data2 > 0) this.startNote(channel, data1, data2, track);
-    else if (kind === noteOff || kind === noteOn) this.endNote(channel, data1, kind, data2);
+    else if (kind === noteOff || kind === noteOn) this.endNote(channel, data1, kind, data2, track);
     else if (kind === polyPressure) {
       for (const note of this.holders.get(channel * 128 + data1) ?? []) {
         this.send(polyPressure | note.member, note.played, data2);
@@ -172,9 +172,13 @@ class MpeRewrite implements MessageSink {
     if (mapped[key]) this.notesRetuned++;
   }
 
-  /** A note-off (or note-on of velocity 0) ends the earliest sounding note of that key. */
-  private endNote(channel: number, key: number, kind: number, velocity: number): void {
-    const note = this.holders.get(channel * 128 + key)?.[0];
+  /**
+   * A note-off (or note-on of velocity 0) ends the earliest sounding note of that key, one of its own track first:
+   * the merged stream sounds the same either way, and readers that pair notes track by track find every note.
+   */
+  private endNote(channel: number, key: number, kind: number, velocity: number, track: number): void {
+    const holders = this.holders.get(channel * 128 + key);
+    const note = holders?.find((held) => held.track === track) ?? holders?.[0];
     if (!note) return;
     this.send(kind | note.member, note.played, velocity);
     this.end(note);

@@ -306,6 +306,23 @@ describe('retuning a song as MPE', () => {
   });
 });
 
+describe('a key struck in two tracks at once on one channel', () => {
+  it('ends each note in its own track, so readers that pair notes track by track find both', () => {
+    // Found by the property below: two tracks each strike key 118 on channel 14 at tick 0 and let go at ticks 2 and 1.
+    const song = Uint8Array.from([
+      77, 84, 104, 100, 0, 0, 0, 6, 0, 1, 0, 3, 1, 224,
+      77, 84, 114, 107, 0, 0, 0, 12, 0, 157, 118, 1, 2, 141, 118, 64, 0, 255, 47, 0,
+      77, 84, 114, 107, 0, 0, 0, 12, 0, 157, 118, 1, 1, 141, 118, 64, 0, 255, 47, 0,
+      77, 84, 114, 107, 0, 0, 0, 4, 0, 255, 47, 0,
+    ]);
+    const everyChannel = { ...tuning, output: { ...output, memberChannels: [1, 16] as const } };
+    const mpe = retuned(song, 'mpe', everyChannel);
+    expect(notesOf(mpe.bytes).map((note) => [note.ticks, note.length])).toEqual(
+      notesOf(song).map((note) => [note.ticks, note.length]),
+    );
+  });
+});
+
 describe('retuning any song', () => {
   it('keeps every note and its timing in both modes, read by midi-file and @tonejs/midi', () => {
     const everyChannel = { ...tuning, output: { ...output, memberChannels: [1, 16] as const } };
