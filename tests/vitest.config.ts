@@ -12,6 +12,7 @@ export default defineConfig({
     include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'fakes/**/*.test.ts', 'scripts/**/*.test.ts', 'tests/**/*.test.ts'],
     exclude: ['tests/e2e/**', 'tests/faults/**', 'node_modules/**'],
     globalSetup: ['tests/global-setup.ts'],
+    setupFiles: ['tests/fast-check-setup.ts'],
     testTimeout: 20_000,
     hookTimeout: 30_000,
     pool: 'forks',
