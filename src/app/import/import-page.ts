@@ -5,14 +5,13 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { parsePresetDocument } from '@shared/preset/preset-document';
-import { previewTable } from '@shared/tuning/preview';
 import { Subscription } from 'rxjs';
 import { encodeDesign } from '../design/design-address';
 import { draftFrom } from '../design/draft-document';
 import { apiErrorMessage } from '../library/api-error';
 import { FileDrop } from '../retune/file-drop';
 import { fileSize, uploadFault } from '../retune/upload-limit';
+import { readPresetDocument } from '../scale/preset-reading';
 import { DegreeTable } from '../share/degree-table';
 import { ImportApi, ImportKind, ImportedTuning } from './import-api';
 import { importNotes } from './import-notes';
@@ -39,22 +38,10 @@ export class ImportPage {
   protected readonly failure = signal<string | null>(null);
   protected readonly imported = signal<ImportedTuning | null>(null);
 
-  private readonly parsed = computed(() => {
-    const imported = this.imported();
-    return imported ? parsePresetDocument(imported.document) : null;
-  });
-  protected readonly faults = computed(() => {
-    const parsed = this.parsed();
-    return parsed && !parsed.ok ? parsed.errors.map((error) => error.message) : [];
-  });
-  protected readonly preset = computed(() => {
-    const parsed = this.parsed();
-    return parsed?.ok ? parsed.value : null;
-  });
-  protected readonly preview = computed(() => {
-    const preset = this.preset();
-    return preset ? previewTable(preset) : null;
-  });
+  private readonly reading = readPresetDocument(() => this.imported()?.document);
+  protected readonly faults = this.reading.faults;
+  protected readonly preset = this.reading.preset;
+  protected readonly preview = this.reading.preview;
   protected readonly notes = computed(() => {
     const preset = this.preset();
     const preview = this.preview();

@@ -6,15 +6,14 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, RouterLink } from '@angular/router';
-import { parsePresetDocument } from '@shared/preset/preset-document';
-import { previewTable } from '@shared/tuning/preview';
 import { EMPTY, catchError, switchMap } from 'rxjs';
 import { Session } from '../auth/session';
 import { apiErrorMessage, isNotFound } from '../library/api-error';
 import { LibraryApi } from '../library/library-api';
 import { SignInPrompt } from '../library/sign-in-prompt';
 import { DegreeTable } from './degree-table';
-import { exportFormats } from './export-formats';
+import { exportFormats } from '../output/export-formats';
+import { readPresetDocument } from '../scale/preset-reading';
 import { ShareApi, SharedPreset } from './share-api';
 
 /** What a share link opens, for anyone: the preset read-only, its degrees, downloads, and a fork. */
@@ -42,26 +41,14 @@ export class SharedPage {
   protected readonly returnPath = computed(() => `/s/${encodeURIComponent(this.token())}`);
 
   /** The document read through the shared tuning code, or the faults that keep it from being shown. */
-  private readonly parsed = computed(() => {
-    const shared = this.shared();
-    return shared ? parsePresetDocument(shared.document) : null;
-  });
-  protected readonly faults = computed(() => {
-    const parsed = this.parsed();
-    return parsed && !parsed.ok ? parsed.errors.map((error) => error.message) : [];
-  });
-  protected readonly preset = computed(() => {
-    const parsed = this.parsed();
-    return parsed?.ok ? parsed.value : null;
-  });
-  protected readonly preview = computed(() => {
-    const preset = this.preset();
-    return preset ? previewTable(preset) : null;
-  });
+  private readonly reading = readPresetDocument(() => this.shared()?.document);
+  protected readonly faults = this.reading.faults;
+  protected readonly preset = this.reading.preset;
+  protected readonly preview = this.reading.preview;
   protected readonly downloads = computed(() => {
     const twelve = this.preset()?.mapping.keysPerPeriod === 12;
     return exportFormats
-      .filter((format) => twelve || !format.twelvePerOctaveOnly)
+      .filter((format) => format.id !== 'bundle' && (twelve || !format.twelvePerOctaveOnly))
       .map((format) => ({ ...format, href: this.shareApi.exportUrl(this.token(), format.id) }));
   });
   protected readonly bundleHref = computed(() => this.shareApi.bundleUrl(this.token()));
