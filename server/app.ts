@@ -11,7 +11,8 @@ import { authRouter, createPassport } from './auth/github';
 import type { Config } from './config';
 import type { Database } from './db/client';
 import { apiNotFound, errorHandler } from './http/errors';
-import { xsrfProtection } from './http/xsrf';
+import { xsrfTokens } from './http/xsrf';
+import { jsonBodies } from './http/bodies';
 import { healthRouter } from './routes/health';
 import { meRouter } from './routes/me';
 import { previewRouter } from './routes/preview';
@@ -88,7 +89,6 @@ export function createApp({ db, config, mailer }: AppDependencies): Express {
   app.use(healthRouter(db));
 
   app.use(cookieParser());
-  app.use(express.json({ limit: '1mb' }));
   const PgStore = connectPgSimple(session);
   app.use(
     session({
@@ -103,19 +103,22 @@ export function createApp({ db, config, mailer }: AppDependencies): Express {
   const passport = createPassport(db, config);
   app.use(passport.initialize());
   app.use(passport.session());
-  app.use(xsrfProtection({ sessionCookie, secure: config.secureCookies }));
+  const xsrf = xsrfTokens({ sessionCookie, secure: config.secureCookies, secret: config.sessionSecret });
+  app.use(xsrf.protection);
 
   const limit = rateLimited(config.rateLimitPerMinute);
-  app.use(authRouter(passport, limit));
+  app.use(authRouter(passport, limit, xsrf));
+  // Uploads take multipart bodies; every other route takes JSON (or no body) and refuses anything else with 415.
+  app.use(importsRouter(db));
+  app.use(retuneRouter(db));
+  app.use(jsonBodies);
   app.use(meRouter());
   app.use(previewRouter());
   app.use(presetsRouter(db));
   app.use(sharesRouter(db, config));
   app.use(bandsRouter(db));
   app.use(invitesRouter(db, config, mailer, limit));
-  app.use(importsRouter(db));
   app.use(exportsRouter(db));
-  app.use(retuneRouter(db));
   if (config.benchRoutes) app.use(benchFloorRouter());
   app.use('/api', apiNotFound);
   app.use(builtApp(config.staticDir));

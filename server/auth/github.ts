@@ -1,13 +1,14 @@
 // Sign-in through GitHub's OAuth web flow: the local fake in development and tests, the real service when
 // GITHUB_CLIENT_ID, GITHUB_CLIENT_SECRET, GITHUB_OAUTH_URL and GITHUB_API_URL say so.
 import { eq } from 'drizzle-orm';
-import { type RequestHandler, Router } from 'express';
+import { type ErrorRequestHandler, type RequestHandler, Router } from 'express';
 import passportModule from 'passport';
 type Passport = InstanceType<typeof passportModule.Authenticator>;
 import { Strategy as GitHubStrategy, type Profile } from 'passport-github2';
 import type { Config } from '../config';
 import type { Database } from '../db/client';
 import { users } from '../db/schema';
+import type { XsrfTokens } from '../http/xsrf';
 
 export type SignedInUser = typeof users.$inferSelect;
 
@@ -75,8 +76,23 @@ declare module 'express-session' {
   }
 }
 
-export function authRouter(passport: Passport, limit: RequestHandler): Router {
+/** Where a failed sign-in lands: the app, which says so. */
+const failedSignIn = '/?signin=failed';
+
+export function authRouter(passport: Passport, limit: RequestHandler, xsrf: XsrfTokens): Router {
   const router = Router();
+  const signedIn: RequestHandler = (req, res) => {
+    const target = req.session.returnTo ?? '/';
+    delete req.session.returnTo;
+    xsrf.renew(req, res);
+    res.redirect(target);
+  };
+  // The provider refused the code or could not be reached: back to the app, which says sign-in failed.
+  const signInFailed: ErrorRequestHandler = (error, _req, res, next) => {
+    if (res.headersSent) return next(error);
+    console.error(`sign-in failed: ${(error as Error).message}`);
+    res.redirect(failedSignIn);
+  };
   router.get('/auth/github', limit, (req, res, next) => {
     const login = typeof req.query['login'] === 'string' && loginPattern.test(req.query['login']) ? req.query['login'] : undefined;
     const returnTo = returnPath(req.query['next']);
@@ -87,12 +103,9 @@ export function authRouter(passport: Passport, limit: RequestHandler): Router {
     '/auth/github/callback',
     limit,
     // Passport makes a new session on sign-in; keepSessionInfo carries the return path across.
-    passport.authenticate('github', { failureRedirect: '/?signin=failed', keepSessionInfo: true }),
-    (req, res) => {
-      const target = req.session.returnTo ?? '/';
-      delete req.session.returnTo;
-      res.redirect(target);
-    },
+    passport.authenticate('github', { failureRedirect: failedSignIn, keepSessionInfo: true }),
+    signedIn,
+    signInFailed,
   );
   router.post('/auth/logout', (req, res, next) => {
     req.logout((error) => {
@@ -100,6 +113,7 @@ export function authRouter(passport: Passport, limit: RequestHandler): Router {
       req.session.destroy((destroyError) => {
         if (destroyError) return next(destroyError);
         res.clearCookie('keyloom.sid', { path: '/' });
+        xsrf.renew(req, res);
         res.status(204).end();
       });
     });

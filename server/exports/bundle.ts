@@ -6,6 +6,7 @@ import { exportFormats, renderExport } from '../../shared/export/export-catalogu
 import type { ResolvedPreset } from '../../shared/preset/preset-document';
 import { type SheetRevision, renderTunerSheet } from './tuner-sheet';
 import { exportFileName } from '../../shared/export/export-file-name';
+import { singleLine } from '../../shared/text/plain-text';
 
 /** Which instruments take each file, for the read-me. */
 const takenBy: Record<string, string> = {
@@ -32,7 +33,7 @@ export async function bundleEntries(preset: ResolvedPreset, at: SheetRevision): 
   const base = exportFileName(preset.name, '');
   const entries: BundleEntry[] = [];
   const lines = [
-    `${preset.name}${at.revision ? `, revision ${at.revision}` : ''}: files made by Keyloom`,
+    `${singleLine(preset.name)}${at.revision ? `, revision ${at.revision}` : ''}: files made by Keyloom`,
     '',
   ];
   const skipped: string[] = [];

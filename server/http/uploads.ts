@@ -3,14 +3,33 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import multer from 'multer';
 import type { Database } from '../db/client';
 import { uploads } from '../db/schema';
+import { withoutControlCharacters } from '../../shared/text/plain-text';
+import { onlyBodiesOf } from './bodies';
 import { HttpError } from './errors';
 
 /** The largest file Keyloom takes: a long song is a few hundred kilobytes. */
 export const uploadLimitBytes = 5 * 1024 * 1024;
 
-/** One multipart file field (plus text fields), kept in memory up to the limit. */
-export function singleUpload(field: string): RequestHandler {
-  return multer({ storage: multer.memoryStorage(), limits: { fileSize: uploadLimitBytes, files: 1, fields: 10, fieldSize: 1024 * 1024 } }).single(field);
+/**
+ * One multipart file field (plus text fields), kept in memory up to the limit. A body of another type answers 415;
+ * a multipart body that cannot be read (no boundary, cut short, a malformed part) answers 400 on the file field.
+ * Control characters (NUL among them) are taken out of the file's name.
+ */
+export function singleUpload(field: string): RequestHandler[] {
+  const read = multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: uploadLimitBytes, files: 1, fields: 10, fieldSize: 1024 * 1024 },
+  }).single(field);
+  const readOrRefuse: RequestHandler = (req, res, next) =>
+    read(req, res, (error?: unknown) => {
+      if (!error || error instanceof multer.MulterError) {
+        if (req.file) req.file.originalname = withoutControlCharacters(req.file.originalname);
+        return next(error);
+      }
+      const why = (error as Error).message ?? 'it could not be read';
+      next(new HttpError(400, 'bad_upload', `${field}: the multipart body could not be read (${why}).`, field));
+    });
+  return [onlyBodiesOf('multipart/form-data', `a multipart/form-data body with the file in the field "${field}"`), readOrRefuse];
 }
 
 /** Multer's faults as the JSON error shape: the limit is said in the message. */

@@ -2,6 +2,7 @@
 import { and, eq, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { presetRevisions, presets } from '../db/schema';
+import { largestRevision } from '../../shared/library/requests';
 import { notFound } from '../http/errors';
 import { recordAudit, type Writer } from './audit';
 
@@ -77,7 +78,9 @@ export async function appendRevision(
   });
 }
 
+/** One revision of a preset, or 404 when there is none by that number (a number no revision can have included). */
 export async function readRevision(writer: Writer, presetId: string, revision: number) {
+  if (!Number.isInteger(revision) || revision < 1 || revision > largestRevision) throw notFound('revision');
   const [row] = await writer
     .select()
     .from(presetRevisions)

@@ -3,12 +3,12 @@ import { parseMidi } from 'midi-file';
 import { getDocument } from 'pdfjs-dist/legacy/build/pdf.mjs';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import yauzl from 'yauzl';
 import { exportFormats } from '../../shared/export/export-catalogue';
 import { parsePresetDocument } from '../../shared/preset/preset-document';
 import { previewTable } from '../../shared/tuning/preview';
 import { asBytes } from '../../tests/support/binary-response';
 import { startTestServer } from '../../tests/support/test-server';
+import { readZip } from '../../tests/support/zip';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 beforeAll(async () => {
@@ -27,29 +27,6 @@ const bp = { ...fifths, name: 'Tritave Thirteen', scale: { kind: 'equal', divisi
 
 const exportOf = (format: string, document: object = fifths) =>
   asBytes(request(server.app).post(`/api/preview/export/${format}`).send(document));
-
-/** Reads every entry of a zip with yauzl, a zip reader independent of archiver. */
-function unzip(bytes: Buffer): Promise<Map<string, Buffer>> {
-  return new Promise((resolve, reject) => {
-    yauzl.fromBuffer(bytes, { lazyEntries: true }, (error, zip) => {
-      if (error || !zip) return reject(error);
-      const files = new Map<string, Buffer>();
-      zip.on('entry', (entry: yauzl.Entry) => {
-        zip.openReadStream(entry, (streamError, stream) => {
-          if (streamError || !stream) return reject(streamError);
-          const chunks: Buffer[] = [];
-          stream.on('data', (c: Buffer) => chunks.push(c));
-          stream.on('end', () => {
-            files.set(entry.fileName, Buffer.concat(chunks));
-            zip.readEntry();
-          });
-        });
-      });
-      zip.on('end', () => resolve(files));
-      zip.readEntry();
-    });
-  });
-}
 
 async function pdfText(bytes: Buffer): Promise<string> {
   const pdf = await getDocument({ data: new Uint8Array(bytes), isEvalSupported: false }).promise;
@@ -137,7 +114,7 @@ describe('downloads of saved and shared presets, and the bundle', () => {
     const second = await asBytes(owner.agent.get(`/api/presets/${created.body.id}/bundle`));
     expect(second.body.equals(first.body)).toBe(true);
 
-    const files = await unzip(first.body);
+    const files = await readZip(first.body);
     const names = [...files.keys()];
     expect(names[0]).toBe('READ-ME.txt');
     expect(names).toContain('fen-fifths-tuner-sheet.pdf');
@@ -159,7 +136,7 @@ describe('downloads of saved and shared presets, and the bundle', () => {
 
   it('leaves scale/octave files out of the bundle of a non-12 layout and says why in the read-me', async () => {
     const res = await asBytes(request(server.app).post('/api/preview/export/bundle').send(bp));
-    const files = await unzip(res.body);
+    const files = await readZip(res.body);
     expect([...files.keys()].some((n) => n.includes('mts-octave'))).toBe(false);
     expect(files.get('READ-ME.txt')!.toString()).toMatch(/Not included[\s\S]*mts-octave-1/);
   });

@@ -7,7 +7,6 @@ import { exportFileName } from '../../shared/export/export-file-name';
 import { renderFile } from '../exports/render';
 import type { SheetRevision } from '../exports/tuner-sheet';
 import { documentOrThrow } from '../http/documents';
-import { notFound } from '../http/errors';
 import { valueOrThrow } from '../http/validation';
 import { readRevision } from '../library/revisions';
 import { authorizePreset } from '../policy/policy';
@@ -45,7 +44,6 @@ export function exportsRouter(db: Database): Router {
   async function savedRevision(presetId: string, user: Express.User | undefined, revisionQuery: unknown) {
     const { preset } = await authorizePreset(db, user, presetId, 'read');
     const wanted = revisionQuery === undefined ? preset.latestRevision : Number(revisionQuery);
-    if (!Number.isInteger(wanted) || wanted < 1) throw notFound('revision');
     const revision = await readRevision(db, preset.id, wanted);
     return { revision, resolved: documentOrThrow(revision.document, 'document') };
   }

@@ -10,6 +10,8 @@ import { recordUpload, requireFile, singleUpload } from '../http/uploads';
 import { valueOrThrow } from '../http/validation';
 
 const systemExclusive = 0xf0;
+/** A preset document or a list of intervals is a few kilobytes; a text file past this is refused unread. */
+const largestTextBytes = 256 * 1024;
 
 function nameFrom(fileName: string): string {
   return fileName.replace(/\.[^.]*$/, '').replace(/[_-]+/g, ' ').trim().slice(0, 80) || 'Imported tuning';
@@ -17,6 +19,10 @@ function nameFrom(fileName: string): string {
 
 /** Reads text only when it is UTF-8 without control bytes: a binary file posted as text is refused. */
 function asText(bytes: Buffer): string {
+  if (bytes.length > largestTextBytes) {
+    const size = `${(bytes.length / 1024 / 1024).toFixed(1)} MB`;
+    throw new HttpError(413, 'too_large', `file: a preset or a list of intervals is at most ${largestTextBytes / 1024} kB; this file is ${size}.`, 'file');
+  }
   const text = new TextDecoder('utf-8', { fatal: false }).decode(bytes);
   if (text.includes('\uFFFD') || /[\x00-\x08\x0e-\x1f]/.test(text)) {
     throw new HttpError(400, 'unreadable', 'file: is neither an .syx file of MTS messages, a preset .json, nor a text list of intervals.', 'file');
@@ -27,7 +33,7 @@ function asText(bytes: Buffer): string {
 /** A preset document from an .syx of MTS messages, a preset .json, or a text list of intervals. */
 export function importsRouter(db: Database): Router {
   const router = Router();
-  router.post('/api/import', singleUpload('file'), async (req, res) => {
+  router.post('/api/import', ...singleUpload('file'), async (req, res) => {
     const file = requireFile(req.file);
     await recordUpload(db, req.user?.id, 'import', file);
     const name = nameFrom(file.originalname);

@@ -1,6 +1,7 @@
 import { and, eq } from 'drizzle-orm';
 import { type RequestHandler, Router } from 'express';
 import { inviteRequest, parseRequest } from '../../shared/library/requests';
+import { singleLine } from '../../shared/text/plain-text';
 import type { Config } from '../config';
 import type { Database } from '../db/client';
 import { bands, invites, memberships, users } from '../db/schema';
@@ -16,7 +17,9 @@ const inviteDays = 7;
 const roleWords = { owner: 'an owner', editor: 'an editor', viewer: 'a viewer' } as const;
 type Role = keyof typeof roleWords;
 
-function inviteMail(input: { to: string; bandName: string; inviter: string; role: Role; link: string; expiresAt: Date }) {
+/** The invitation mail; names people typed are put on one line, so that they cannot add lines of their own. */
+function inviteMail(written: { to: string; bandName: string; inviter: string; role: Role; link: string; expiresAt: Date }) {
+  const input = { ...written, bandName: singleLine(written.bandName), inviter: singleLine(written.inviter) };
   return {
     to: input.to,
     subject: `${input.inviter} invites you to the band ${input.bandName} on Keyloom`,

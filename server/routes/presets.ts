@@ -22,10 +22,9 @@ import { authorizeBandLibrary, authorizePreset, requireUser } from '../policy/po
 const trashDays = 30;
 const trashMs = trashDays * 24 * 3600 * 1000;
 
+/** A revision number from the address; readRevision answers 404 for one that no revision has. */
 function revisionNumber(text: string): number {
-  const n = Number(text);
-  if (!Number.isInteger(n) || n < 1) throw new HttpError(404, 'not_found', 'No such revision.');
-  return n;
+  return /^\d{1,10}$/.test(text) ? Number(text) : 0;
 }
 
 /** Deletes presets that have waited in the trash longer than `trashDays`; their revisions and links go with them. */
@@ -163,10 +162,13 @@ export function presetsRouter(db: Database): Router {
 
   router.get('/api/presets/:id/revisions/:n/changes', async (req, res) => {
     const { preset } = await authorizePreset(db, req.user, req.params['id'], 'read');
-    const to = revisionNumber(req.params['n']);
+    const after = await readRevision(db, preset.id, revisionNumber(req.params['n']));
+    const to = after.revision;
+    if (req.query['from'] === undefined && to === 1) {
+      throw new HttpError(400, 'invalid', 'from: revision 1 has nothing before it to compare with.', 'from');
+    }
     const from = req.query['from'] === undefined ? to - 1 : revisionNumber(String(req.query['from']));
-    if (from < 1) throw new HttpError(400, 'invalid', 'from: revision 1 has nothing before it to compare with.', 'from');
-    const [before, after] = await Promise.all([readRevision(db, preset.id, from), readRevision(db, preset.id, to)]);
+    const before = await readRevision(db, preset.id, from);
     res.json({ from, to, ...summarizeChanges(documentOrThrow(before.document), documentOrThrow(after.document)) });
   });
 

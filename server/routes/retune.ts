@@ -48,7 +48,7 @@ export function retuneRouter(db: Database): Router {
     return parsed.value;
   }
 
-  router.post('/api/retune', singleUpload('file'), async (req, res) => {
+  router.post('/api/retune', ...singleUpload('file'), async (req, res) => {
     const file = requireFile(req.file);
     const fields = (req.body ?? {}) as Record<string, unknown>;
     const mode = fields['mode'] ?? 'mts';
@@ -61,7 +61,7 @@ export function retuneRouter(db: Database): Router {
     const preset = await presetFor(fields, req.user);
     const tuning = valueOrThrow(tuningOfPreset(preset));
     const retuned = retuneSong(new Uint8Array(file.buffer), { keys: tuning.keys, output: preset.output }, mode as RetuneMode);
-    if (!retuned.ok) throw new ValidationError(retuned.errors.map((e) => ({ path: `file.${e.path}`, message: `file: ${e.message}` })));
+    if (!retuned.ok) throw new ValidationError(retuned.errors);
     const sha256 = await recordUpload(db, req.user?.id, 'retune', file);
     const { report } = retuned.value;
     const header = {

@@ -69,7 +69,10 @@ export function sharesRouter(db: Database, config: Config): Router {
     const id = req.params['id'];
     const share = isId(id) ? await db.query.shareLinks.findFirst({ where: eq(shareLinks.id, id) }) : undefined;
     if (!share) throw notFound('share link');
-    const { preset } = await authorizePreset(db, user, share.presetId, 'edit');
+    // Another preset's link answers as an unknown one does, so that share ids cannot be probed.
+    const { preset } = await authorizePreset(db, user, share.presetId, 'edit').catch((error: unknown) => {
+      throw error instanceof HttpError && error.status === 404 ? notFound('share link') : error;
+    });
     if (!share.revokedAt) {
       await db.transaction(async (tx) => {
         await tx.update(shareLinks).set({ revokedAt: new Date() }).where(eq(shareLinks.id, share.id));
@@ -82,9 +85,10 @@ export function sharesRouter(db: Database, config: Config): Router {
   });
 
   router.get('/api/shared/:token', async (req, res) => {
-    const { share, preset, revision } = await resolveShareToken(db, req.params['token']);
+    const { share, revision } = await resolveShareToken(db, req.params['token']);
     res.json({
-      name: preset.name,
+      // The revision's own name: a link pinned to revision 1 shows nothing of what came later.
+      name: (revision.document as { name: string }).name,
       revision: revision.revision,
       pinned: share.revision !== null,
       savedAt: revision.createdAt,

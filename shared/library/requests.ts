@@ -3,12 +3,17 @@
 // document's own field paths.
 import * as z from 'zod';
 import { schemaFaults } from '../preset/schema-faults';
+import { storableString } from '../text/plain-text';
 import { type Result, fail, succeed } from '../result';
 
 const id = z.uuid({ error: 'must be an id as the API gives them' });
-const note = z.string().trim().max(500, { error: 'must be at most 500 characters' });
-const bandRole = z.enum(['owner', 'editor', 'viewer'], { error: 'must be owner, editor or viewer' });
-const revision = z.int({ error: 'must be a whole number' }).min(1, { error: 'must be 1 or more' });
+const note = storableString().trim().max(500, { error: 'must be at most 500 characters' });
+const bandRole = z.enum(['owner', 'editor', 'viewer']);
+/** Revisions are numbered from 1; PostgreSQL's integer holds up to 2^31 - 1. */
+export const largestRevision = 2_147_483_647;
+const revision = z.int().min(1).max(largestRevision);
+/** Far past any library's last page, and small enough that the offset stays a safe integer. */
+const lastPage = 100_000;
 
 export const createPresetRequest = z.strictObject({ document: z.unknown(), bandId: id.optional(), note: note.optional() });
 export const saveRevisionRequest = z.strictObject({ document: z.unknown(), note: note.optional() });
@@ -16,7 +21,7 @@ export const restoreRevisionRequest = z.strictObject({ revision });
 export const forkPresetRequest = z.strictObject({ bandId: id.optional() });
 export const createShareRequest = z.strictObject({ revision: revision.optional() });
 export const bandNameRequest = z.strictObject({
-  name: z.string().trim().min(1, { error: 'must not be empty' }).max(80, { error: 'must be at most 80 characters' }),
+  name: storableString().trim().min(1, { error: 'must not be empty' }).max(80, { error: 'must be at most 80 characters' }),
 });
 export const memberRoleRequest = z.strictObject({ role: bandRole });
 export const inviteRequest = z.strictObject({
@@ -25,16 +30,16 @@ export const inviteRequest = z.strictObject({
 });
 
 export const presetListQuery = z.object({
-  q: z.string().trim().max(100).optional(),
-  sort: z.enum(['name', '-name', 'updated', '-updated'], { error: 'must be name, -name, updated or -updated' }).default('-updated'),
-  page: z.coerce.number().int().min(1, { error: 'must be 1 or more' }).default(1),
-  pageSize: z.coerce.number().int().min(1).max(100, { error: 'must be at most 100' }).default(20),
+  q: storableString().trim().max(100).optional(),
+  sort: z.enum(['name', '-name', 'updated', '-updated']).default('-updated'),
+  page: z.coerce.number().min(1).max(lastPage).int().default(1),
+  pageSize: z.coerce.number().min(1).max(100).int().default(20),
   bandId: id.optional(),
   trash: z.enum(['0', '1']).optional(),
 });
 
 /** Checks a body or query against its schema; faults name their field. */
 export function parseRequest<S extends z.ZodType>(schema: S, input: unknown): Result<z.output<S>> {
-  const parsed = schema.safeParse(input ?? {});
+  const parsed = schema.safeParse(input ?? {}, { reportInput: true });
   return parsed.success ? succeed(parsed.data) : fail(schemaFaults(parsed.error.issues));
 }

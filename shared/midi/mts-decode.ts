@@ -82,10 +82,21 @@ export interface DecodedMtsStream {
 }
 
 /** Splits bytes into system exclusive messages, F0 to F7; anything between them is a fault. */
+/**
+ * The most messages one stream is read for: a bank of 128 tuning programs in every form fits many times over.
+ * Reading stops there, so that a huge file is refused at once rather than decoded to the end.
+ */
+const mostMessages = 2048;
+/** Decoding stops once this many messages are at fault. */
+const mostFaultyMessages = 20;
+
 function splitMessages(bytes: Uint8Array): Result<Uint8Array[]> {
   const messages: Uint8Array[] = [];
   let start = 0;
   while (start < bytes.length) {
+    if (messages.length === mostMessages) {
+      return fail([messageFault(`the file holds more than ${mostMessages} messages; split it into smaller files`)]);
+    }
     if (bytes[start] !== systemExclusive) {
       return fail([
         messageFault(
@@ -115,15 +126,19 @@ export function decodeMtsStream(bytes: Uint8Array): Result<DecodedMtsStream> {
   if (!split.ok) return split;
   const messages: DecodedMtsMessage[] = [];
   const faults: FieldError[] = [];
-  split.value.forEach((message, index) => {
+  let faultyMessages = 0;
+  for (const [index, message] of split.value.entries()) {
     const decoded = decodeMtsMessage(message);
-    if (decoded.ok) messages.push(decoded.value);
-    else {
-      for (const error of decoded.errors) {
-        faults.push({ ...error, message: `${error.message} (message ${index + 1})` });
-      }
+    if (decoded.ok) {
+      messages.push(decoded.value);
+      continue;
     }
-  });
+    for (const error of decoded.errors) {
+      faults.push({ ...error, message: `${error.message} (message ${index + 1})` });
+    }
+    faultyMessages += 1;
+    if (faultyMessages === mostFaultyMessages) break;
+  }
   if (faults.length > 0) return fail(faults);
   const keys: KeyPitch[] = Array.from({ length: keyCount }, (_, key) => ({ key, hz: null }));
   for (const message of messages) {

@@ -1,6 +1,7 @@
 import type { FieldError } from '../result';
 import type { KeyPitch } from './frequency-word';
 import { unreachableKeysWarning } from './unreachable-keys';
+import { singleLine } from '../text/plain-text';
 
 /**
  * An SFZ sampler map: one region per mapped key that shifts one placeholder sample, recorded at
@@ -47,7 +48,7 @@ export interface SfzMap {
  */
 export function sfzMap(keys: readonly KeyPitch[], about: { name: string }): SfzMap {
   const placed = keys.flatMap(({ key, hz }) => (hz === null ? [] : [regionOf(key, hz)]));
-  const comment = (line: string) => `// ${line.replace(/[\r\n]+/g, ' ')}`;
+  const comment = (line: string) => `// ${singleLine(line)}`;
   const lines = [
     comment(`Keyloom sampler map: ${about.name}`),
     comment(`Replace ${sampleName} with your own sample of middle C`),

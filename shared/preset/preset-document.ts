@@ -3,6 +3,8 @@ import { type FieldError, fieldError, type Result, succeed, fail } from '../resu
 import { readInterval } from '../tuning/interval';
 import { layoutFaults } from '../tuning/key-table';
 import { buildScale, type ScaleSpec } from '../tuning/scale';
+import { largestScale } from '../tuning/scale-degrees';
+import { storableString } from '../text/plain-text';
 import { equalTemperedHz } from '../tuning/twelve-edo';
 import { schemaFaults } from './schema-faults';
 import { longestTuningName, tuningNameFrom, tuningNamePattern } from './tuning-name';
@@ -46,7 +48,8 @@ const scaleSchema = z.discriminatedUnion('kind', [
   }),
   z.strictObject({
     kind: z.literal('list'),
-    degrees: z.array(interval),
+    // The length is checked before the entries, so that a huge list is refused at once with one fault.
+    degrees: z.array(z.unknown()).max(largestScale - 1).pipe(z.array(interval)),
     period: interval.default('2/1'),
   }),
   z.strictObject({
@@ -109,8 +112,8 @@ const outputSchema = z
 export const presetDocumentSchema = z.strictObject({
   format: z.literal('keyloom.preset'),
   version: z.literal(presetVersion),
-  name: z.string().trim().min(1).max(200),
-  notes: z.string().max(20000).default(''),
+  name: storableString().trim().min(1).max(200),
+  notes: storableString().max(20000).default(''),
   scale: scaleSchema,
   mapping: mappingSchema,
   output: outputSchema.prefault({}),

@@ -25,6 +25,19 @@ function bound(issue: { inclusive?: boolean }, inclusiveWord: string, exclusiveW
   return issue.inclusive === false ? exclusiveWord : inclusiveWord;
 }
 
+/** Whether a size check is about a number's value (an int's safe range included) rather than a length. */
+function numeric(origin: string): boolean {
+  return origin === 'number' || origin === 'int' || origin === 'bigint';
+}
+
+/** The values allowed, as words: `owner, editor or viewer`; a single value is quoted as the literal it is. */
+function choices(values: readonly unknown[]): string {
+  if (values.length < 2 || !values.every((value) => typeof value === 'string')) {
+    return values.map((value) => JSON.stringify(value)).join(' or ');
+  }
+  return `${values.slice(0, -1).join(', ')} or ${values[values.length - 1]}`;
+}
+
 function countWord(origin: string): string {
   return origin === 'string' ? 'characters' : 'entries';
 }
@@ -58,20 +71,19 @@ function fault(issue: z.core.$ZodIssue): string {
       return `${issue.message}${received}`;
     }
     case 'too_small':
-      if (issue.origin === 'number') {
+      if (numeric(issue.origin)) {
         return `must be ${bound(issue, 'at least', 'above')} ${issue.minimum}${received}`;
       }
       if (issue.origin === 'string' && issue.minimum === 1) return 'must not be empty';
       return `must have at least ${issue.minimum} ${countWord(issue.origin)}`;
     case 'too_big':
-      if (issue.origin === 'number') {
+      if (numeric(issue.origin)) {
         return `must be ${bound(issue, 'at most', 'below')} ${issue.maximum}${received}`;
       }
       return `must have at most ${issue.maximum} ${countWord(issue.origin)}`;
     case 'invalid_value': {
       if (input === undefined) return 'is required';
-      const allowed = issue.values.map((value) => JSON.stringify(value)).join(' or ');
-      return `must be ${allowed}${received}`;
+      return `must be ${choices(issue.values)}${received}`;
     }
     default:
       return issue.message;

@@ -60,10 +60,21 @@ describe('generated scales', () => {
     ]);
     const manyCommas = builtScale({
       ...stack('3/2', '2/1', 1, 0),
-      temper: { comma: '81/80', fraction: '100000000' },
+      temper: { comma: '531441/524288', fraction: '8' },
     });
-    expect(manyCommas.generator?.ratio).toBeNull();
-    expect(manyCommas.generator?.cents).toBeCloseTo(701.9550008654 - 1e8 * 21.5062895967, 0);
+    // 531441/524288 to the 8th has terms of 8 x 20 bits, within the budget: still exact.
+    // (3/2) / (3^12/2^19)^8 = 2^151 / 3^95 (arithmetic).
+    expect(manyCommas.generator?.ratio && ratioToString(manyCommas.generator.ratio)).toBe(`${2n ** 151n}/${3n ** 95n}`);
+  });
+
+  it('refuses a comma fraction with huge terms or of more than 8 commas, naming the field', () => {
+    const refused = (fraction: string) => scaleFaults({ ...stack('3/2', '2/1', 11, 0), temper: { comma: '81/80', fraction } });
+    expect(refused('9'.repeat(400))).toEqual([
+      'scale.temper.fraction: 99999999999999999999... has a term past 9999: write a fraction such as 1/4 or 2/7',
+    ]);
+    expect(refused('1/99999')).toEqual(['scale.temper.fraction: 1/99999 has a term past 9999: write a fraction such as 1/4 or 2/7']);
+    expect(refused('9')).toEqual(['scale.temper.fraction: 9 tempers by more than 8 commas']);
+    expect(builtScale({ ...stack('3/2', '2/1', 11, 0), temper: { comma: '81/80', fraction: '8' } }).degrees).toHaveLength(12);
   });
 
   it('stacks inside a tritave period', () => {

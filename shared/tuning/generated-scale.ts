@@ -23,6 +23,11 @@ type GeneratedScaleSpec = Extract<ScaleSpec, { kind: 'generated' }>;
 
 const fractionPattern = /^(\d+)(?:\s*\/\s*(\d+))?$/;
 
+/** Terms of a comma fraction go up to 9999 (1/1200 is as fine as anyone tempers). */
+const largestFractionTerm = 9999n;
+/** Tempering by more than this many commas moves a generator out of all recognition. */
+const mostCommas = 8;
+
 /**
  * Exact arithmetic slows down as the terms of the ratios grow: a stack whose powers would pass
  * this many bits in numerator or denominator is computed in cents instead, and says so.
@@ -44,7 +49,15 @@ function parseCommaFraction(text: string, path: string): Result<Fraction> {
   if (denominator === 0n) return fail([fieldError(path, `${written} has a zero denominator`)]);
   const numerator = BigInt(match[1]);
   if (numerator === 0n) return fail([fieldError(path, `${written} is not a fraction above 0`)]);
-  return succeed(new Fraction(numerator, denominator));
+  if (numerator > largestFractionTerm || denominator > largestFractionTerm) {
+    const shown = written.length > 24 ? `${written.slice(0, 20)}...` : written;
+    return fail([fieldError(path, `${shown} has a term past ${largestFractionTerm}: write a fraction such as 1/4 or 2/7`)]);
+  }
+  const fraction = new Fraction(numerator, denominator);
+  if (fraction.compare(mostCommas) > 0) {
+    return fail([fieldError(path, `${written} tempers by more than ${mostCommas} commas`)]);
+  }
+  return succeed(fraction);
 }
 
 /**

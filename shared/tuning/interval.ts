@@ -5,6 +5,8 @@ import { fieldError, type Result, succeed, fail } from '../result';
 export type Interval = { kind: 'ratio'; ratio: Fraction } | { kind: 'cents'; cents: number };
 
 const longestText = 64;
+/** Sizes in cents go up to 100 octaves either way; past that no key, file or ear can follow. */
+const widestCents = 120_000;
 const howToWrite =
   'write a ratio such as 3/2, cents such as 701.955c, or equal steps such as 7\\12';
 
@@ -29,17 +31,22 @@ export function readInterval(text: string): Interval | string {
   if (ratio) return exactRatio(ratio[1], ratio[2], written);
   if (negativeRatioPattern.test(written)) return `${written} is not a ratio above 0`;
   const cents = centsPattern.exec(written);
-  if (cents) return { kind: 'cents', cents: Number(cents[1]) };
+  if (cents) return centsWithin(Number(cents[1]), written);
   const steps = equalStepsPattern.exec(written);
   if (steps) {
     const divisions = Number(steps[2]);
     if (divisions === 0) return `${written} divides the octave into 0 steps; use 1 or more`;
-    return { kind: 'cents', cents: (1200 * Number(steps[1])) / divisions };
+    return centsWithin((1200 * Number(steps[1])) / divisions, written);
   }
   if (bareDecimalPattern.test(written)) {
     return `${written} needs a unit: write ${written}c for cents or a ratio such as 3/2`;
   }
   return `"${written}" is not an interval: ${howToWrite}`;
+}
+
+function centsWithin(cents: number, written: string): Interval | string {
+  if (Math.abs(cents) > widestCents) return `${written} is wider than ${widestCents}c (100 octaves)`;
+  return { kind: 'cents', cents };
 }
 
 function exactRatio(numerator: string, denominator: string, written: string): Interval | string {
