@@ -4,6 +4,7 @@ import { loadConfig } from './config';
 import { applyMigrations, createDatabase } from './db/client';
 import { createMailer } from './mail/mailer';
 import { purgeExpiredTrash } from './routes/presets';
+import { stopWorkers } from './work/worker-pool';
 
 const config = loadConfig();
 const db = createDatabase(config.databaseUrl);
@@ -24,7 +25,7 @@ const server = createApp({ db, config, mailer }).listen(config.port, config.host
 
 function shutDown(signal: string) {
   console.log(`${signal}: closing`);
-  server.close(() => void db.$client.end().then(() => process.exit(0)));
+  server.close(() => void Promise.all([db.$client.end(), stopWorkers()]).then(() => process.exit(0)));
   server.closeAllConnections();
   setTimeout(() => process.exit(0), 5_000).unref();
 }

@@ -4,6 +4,7 @@ import { ZipArchive } from 'archiver';
 import type { Writable } from 'node:stream';
 import { exportFormats, renderExport } from '../../shared/export/export-catalogue';
 import type { ResolvedPreset } from '../../shared/preset/preset-document';
+import { bundleEntriesOffThread } from '../work/worker-pool';
 import { type SheetRevision, renderTunerSheet } from './tuner-sheet';
 import { exportFileName } from '../../shared/export/export-file-name';
 import { singleLine } from '../../shared/text/plain-text';
@@ -60,7 +61,7 @@ export async function bundleEntries(preset: ResolvedPreset, at: SheetRevision): 
 
 /** Streams the bundle's zip into `out` (an HTTP response or a file). */
 export async function streamBundle(preset: ResolvedPreset, at: SheetRevision, out: Writable): Promise<void> {
-  const entries = await bundleEntries(preset, at);
+  const entries = await bundleEntriesOffThread({ preset, at });
   const archive = new ZipArchive({ zlib: { level: 9 } });
   const finished = new Promise<void>((resolve, reject) => {
     archive.on('error', reject);

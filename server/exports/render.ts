@@ -6,7 +6,8 @@ import type { FieldError } from '../../shared/result';
 import { HttpError } from '../http/errors';
 import { ValidationError } from '../http/validation';
 import { exportFileName } from '../../shared/export/export-file-name';
-import { type SheetRevision, renderTunerSheet } from './tuner-sheet';
+import { tunerSheetOffThread } from '../work/worker-pool';
+import type { SheetRevision } from './tuner-sheet';
 
 export interface ExportedFile {
   fileName: string;
@@ -19,7 +20,7 @@ const allFormatIds = [...exportFormats.map((f) => f.id), 'tuner-sheet', 'bundle'
 
 export async function renderFile(preset: ResolvedPreset, format: string, at: SheetRevision): Promise<ExportedFile> {
   if (format === 'tuner-sheet') {
-    const bytes = await renderTunerSheet(preset, at);
+    const bytes = await tunerSheetOffThread({ preset, at });
     return { fileName: `${exportFileName(preset.name, '')}-tuner-sheet.pdf`, contentType: 'application/pdf', bytes, warnings: [] };
   }
   if (!allFormatIds.includes(format)) {

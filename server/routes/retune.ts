@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import { tuningOfPreset } from '../../shared/export/preset-tuning';
-import { retuneSong, type RetuneMode } from '../../shared/midi/song-retune';
+import type { RetuneMode } from '../../shared/midi/song-retune';
 import { parsePresetDocument, type ResolvedPreset } from '../../shared/preset/preset-document';
 import type { Database } from '../db/client';
 import { exportFileName } from '../../shared/export/export-file-name';
@@ -10,6 +10,7 @@ import { recordUpload, requireFile, singleUpload } from '../http/uploads';
 import { ValidationError, valueOrThrow } from '../http/validation';
 import { readRevision } from '../library/revisions';
 import { authorizePreset } from '../policy/policy';
+import { retuneOffThread } from '../work/worker-pool';
 
 /** The stolen notes listed in the report header at most; the count is always whole. */
 const listedStolenNotes = 100;
@@ -60,7 +61,7 @@ export function retuneRouter(db: Database): Router {
     }
     const preset = await presetFor(fields, req.user);
     const tuning = valueOrThrow(tuningOfPreset(preset));
-    const retuned = retuneSong(new Uint8Array(file.buffer), { keys: tuning.keys, output: preset.output }, mode as RetuneMode);
+    const retuned = await retuneOffThread({ song: new Uint8Array(file.buffer), keys: tuning.keys, output: preset.output, mode: mode as RetuneMode });
     if (!retuned.ok) throw new ValidationError(retuned.errors);
     const sha256 = await recordUpload(db, req.user?.id, 'retune', file);
     const { report } = retuned.value;

@@ -125,7 +125,7 @@ describe('parsePresetDocument', () => {
       'format: must be "keyloom.preset" (got "other")',
       'name: must not be empty',
       'mapping.rootKey: must be at most 127 (got 128)',
-      'mapping.rootHz: must be above 0 (got -5)',
+      'mapping.rootHz: must be at least 1 (got -5)',
       'mapping.concertA: must be at least 220 (got 100)',
     ]);
   });

@@ -67,7 +67,7 @@ const channel = z.int().min(1).max(16);
 const mappingSchema = z
   .strictObject({
     rootKey: midiKey,
-    rootHz: z.number().positive().max(20000).optional(),
+    rootHz: z.number().min(1).max(20000).optional(),
     concertA: z.number().min(220).max(880).default(440),
     keysPerPeriod: z.int().min(1).max(128).optional(),
     layout: z.array(z.int().min(0).nullable()).min(1).max(128).nullable().optional(),

@@ -5,6 +5,9 @@ import { describe, expect, it } from 'vitest';
 import { parsePresetDocument } from '../../shared/preset/preset-document';
 import { parseInterval } from '../../shared/tuning/interval';
 import { previewTable } from '../../shared/tuning/preview';
+import { exportFormats, renderExport } from '../../shared/export/export-catalogue';
+import { decodeMtsStream } from '../../shared/midi/mts-decode';
+import { firstNonFinite } from '../../shared/tuning/finite-numbers';
 
 const runs = 10_000;
 /** Any single case taking longer than this counts as a hang (generous: the machine may be busy with other work). */
@@ -43,7 +46,13 @@ describe('fuzzing the interval parser', () => {
 const mostly = <T>(right: fc.Arbitrary<T>) => fc.oneof({ weight: 12, arbitrary: right }, { weight: 1, arbitrary: fc.anything() });
 
 /** Documents near the real shape: each field sometimes right, sometimes anything at all. */
-const intervalText = fc.oneof({ weight: 1, arbitrary: intervalish }, { weight: 4, arbitrary: fc.constantFrom('3/2', '2/1', '3/1', '81/80', '1/4', '701.955c', '7\\12', '0/1', '1/0', '-3/2') });
+/** Sizes at the edges of what can be written: huge terms, huge cents, huge step counts. */
+const hugeText = fc.constantFrom('9'.repeat(400), '9'.repeat(63) + 'c', '3000000000\\1', '1/' + '9'.repeat(60), '9'.repeat(30) + '/7', '4294967296/1');
+const intervalText = fc.oneof(
+  { weight: 1, arbitrary: intervalish },
+  { weight: 4, arbitrary: fc.constantFrom('3/2', '2/1', '3/1', '81/80', '1/4', '701.955c', '7\\12', '0/1', '1/0', '-3/2') },
+  { weight: 1, arbitrary: hugeText },
+);
 const nearlyDocument = fc.record(
   {
     format: mostly(fc.constant('keyloom.preset')),
@@ -96,5 +105,40 @@ describe('fuzzing the preset document', () => {
     expect(accepted).toBeGreaterThan(100);
     global.gc?.();
     expect(process.memoryUsage().heapUsed - heapBefore).toBeLessThan(200 * 1024 * 1024);
+  });
+});
+
+describe('no table, file or stored document carries NaN or an infinite value', () => {
+  it('holds for the preview and every export format of every document that is accepted', () => {
+    let accepted = 0;
+    fc.assert(
+      fc.property(nearlyDocument, (input) => {
+        const result = parsePresetDocument(input);
+        if (!result.ok) return;
+        accepted++;
+        // What is stored is the document as sent: it went through JSON, so it holds no NaN; what is built from it:
+        expect(firstNonFinite(result.value)).toBeNull();
+        const table = previewTable(result.value);
+        expect(firstNonFinite(table)).toBeNull();
+        for (const key of table.keys) if (key.degree !== null) expect(key.hz).toBeGreaterThan(0);
+        for (const format of exportFormats) {
+          const file = renderExport(result.value, format.id);
+          if (!file.ok) continue;
+          const bytes = file.value.bytes;
+          if (format.extension === 'syx') {
+            // A layout with no mapped key gives a file with nothing to tune, which reads back as such.
+            const decoded = decodeMtsStream(bytes);
+            if (decoded.ok) expect(firstNonFinite(decoded.value.keys)).toBeNull();
+            else expect(decoded.errors[0].message, format.id).toMatch(/holds no tuning|holds nothing|empty/);
+          } else if (format.extension !== 'mid') {
+            const text = new TextDecoder().decode(bytes);
+            expect(text, format.id).not.toMatch(/NaN|Infinity/);
+            if (format.extension === 'json') expect(firstNonFinite(JSON.parse(text))).toBeNull();
+          }
+        }
+      }),
+      { numRuns: 5000 },
+    );
+    expect(accepted).toBeGreaterThan(50);
   });
 });

@@ -7,6 +7,7 @@ import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
 import { createDatabase, type Database } from '../../server/db/client';
 import { createMailer } from '../../server/mail/mailer';
+import { stopWorkers } from '../../server/work/worker-pool';
 
 export async function startTestServer(env: Record<string, string> = {}) {
   const github = await startFakeGitHub();
@@ -48,6 +49,7 @@ export async function startTestServer(env: Record<string, string> = {}) {
       await github.close();
       await mailbox.close();
       await db.$client.end();
+      await stopWorkers();
     },
   };
 }
