@@ -12,9 +12,6 @@ import { readRevision } from '../library/revisions';
 import { authorizePreset } from '../policy/policy';
 import { retuneOffThread } from '../work/worker-pool';
 
-/** The stolen notes listed in the report header at most; the count is always whole. */
-const listedStolenNotes = 100;
-
 /** What a file that is not MIDI looks like, so the refusal can say so. */
 function whatItIs(bytes: Buffer): string {
   const start = bytes.subarray(0, 4).toString('latin1');
@@ -65,18 +62,14 @@ export function retuneRouter(db: Database): Router {
     if (!retuned.ok) throw new ValidationError(retuned.errors);
     const sha256 = await recordUpload(db, req.user?.id, 'retune', file);
     const { report } = retuned.value;
-    const header = {
-      ...report,
-      notesStolenCount: report.notesStolen.length,
-      notesStolen: report.notesStolen.slice(0, listedStolenNotes),
-      uploadSha256: sha256,
-    };
+    const header = { ...report, uploadSha256: sha256 };
     const song = file.originalname.replace(/\.midi?$/i, '');
     res.type('audio/midi');
     res.setHeader('Content-Disposition', `attachment; filename="${exportFileName(song, '')}-${exportFileName(preset.name, '')}-${mode}.mid"`);
     res.setHeader('Keyloom-Report', encodeURIComponent(JSON.stringify(header)));
     res.setHeader('Access-Control-Expose-Headers', 'Keyloom-Report, Keyloom-Warnings');
-    res.send(Buffer.from(retuned.value.bytes));
+    const { song: bytes } = retuned.value;
+    res.send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
   });
 
   return router;

@@ -11,10 +11,22 @@ export type HeavyTask =
   | { kind: 'tuner-sheet'; preset: ResolvedPreset; at: SheetRevision }
   | { kind: 'bundle-entries'; preset: ResolvedPreset; at: SheetRevision };
 
+/** The stolen notes a retune answer lists at most; the count is always whole. */
+export const listedStolenNotes = 100;
+
+/** A retuned song as the route sends it: the bytes moved back without a copy, the report's lists cut short. */
+export function retune(task: Extract<HeavyTask, { kind: 'retune' }>) {
+  const retuned = retuneSong(task.song, { keys: task.keys, output: task.output }, task.mode);
+  if (!retuned.ok) return retuned;
+  const { bytes, report } = retuned.value;
+  const listed = { ...report, notesStolen: report.notesStolen.slice(0, listedStolenNotes), notesStolenCount: report.notesStolen.length };
+  return { ok: true as const, value: { song: bytes, report: listed } };
+}
+
 export default async function heavyWork(task: HeavyTask) {
   switch (task.kind) {
     case 'retune':
-      return retuneSong(task.song, { keys: task.keys, output: task.output }, task.mode);
+      return retune(task);
     case 'tuner-sheet':
       return new Uint8Array(await renderTunerSheet(task.preset, task.at));
     case 'bundle-entries':

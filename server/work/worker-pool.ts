@@ -3,9 +3,8 @@
 import { availableParallelism } from 'node:os';
 import Piscina from 'piscina';
 import { HttpError } from '../http/errors';
-import type { retuneSong } from '../../shared/midi/song-retune';
 import type { BundleEntry } from '../exports/bundle';
-import type { HeavyTask } from './heavy-work';
+import type { HeavyTask, retune as retuneOnThread } from './heavy-work';
 
 /** Tasks waiting for a thread at most; past that the server says it is busy rather than queueing without end. */
 const longestQueue = 64;
@@ -40,8 +39,8 @@ async function offThread(task: HeavyTask): Promise<unknown> {
 type TaskOf<K extends HeavyTask['kind']> = Omit<Extract<HeavyTask, { kind: K }>, 'kind'>;
 
 /** A song retuned on a worker thread. */
-export function retuneOffThread(task: TaskOf<'retune'>): Promise<ReturnType<typeof retuneSong>> {
-  return offThread({ kind: 'retune', ...task }) as Promise<ReturnType<typeof retuneSong>>;
+export function retuneOffThread(task: TaskOf<'retune'>): Promise<ReturnType<typeof retuneOnThread>> {
+  return offThread({ kind: 'retune', ...task }) as Promise<ReturnType<typeof retuneOnThread>>;
 }
 
 /** The tuner sheet PDF drawn on a worker thread. */
