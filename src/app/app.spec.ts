@@ -1,7 +1,7 @@
 import { HttpClient, provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import { provideRouter } from '@angular/router';
+import { Router, provideRouter } from '@angular/router';
 import { App } from './app';
 import { routes } from './app.routes';
 import { connectionInterceptor } from './auth/connection';
@@ -36,6 +36,21 @@ describe('App shell', () => {
     expect(links.map((a) => a.querySelector('.label')?.textContent?.trim())).toEqual(['Design', 'Library', 'Retune', 'Bands']);
     expect(links.map((a) => a.getAttribute('aria-label'))).toEqual(['Design', 'Library', 'Retune', 'Bands']);
     expect(links.map((a) => new URL(a.href).pathname)).toEqual(['/design', '/library', '/retune', '/bands']);
+  });
+
+  it('says when sign-in came back refused, and leaves no trace of it in the address', async () => {
+    const { fixture, element } = await render({ user: null });
+    const router = TestBed.inject(Router);
+    await router.navigateByUrl('/no/such/page?signin=failed');
+    await fixture.whenStable();
+    fixture.detectChanges();
+    const alert = element.querySelector('.notice[role="alert"]');
+    expect(alert?.textContent).toContain('Signing in did not finish');
+    expect(router.url).toBe('/no/such/page');
+    const dismiss = Array.from(alert!.querySelectorAll('button')).find((b) => b.textContent?.includes('Dismiss'))!;
+    dismiss.click();
+    fixture.detectChanges();
+    expect(element.querySelector('.notice')).toBeNull();
   });
 
   it('offers sign-in with GitHub to a visitor', async () => {

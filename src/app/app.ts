@@ -1,10 +1,10 @@
-import { Component, OnInit, inject } from '@angular/core';
+import { Component, OnInit, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatToolbarModule } from '@angular/material/toolbar';
 import { NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
-import { toSignal } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
 import { filter, map } from 'rxjs';
 import { Connection } from './auth/connection';
 import { Session } from './auth/session';
@@ -23,7 +23,10 @@ interface Destination {
   styleUrl: './app.scss',
 })
 export class App implements OnInit {
+  private readonly router = inject(Router);
   protected readonly session = inject(Session);
+  /** Set when sign-in came back refused (`?signin=failed`): the shell says so until dismissed. */
+  protected readonly signInFailed = signal(false);
   protected readonly connection = inject(Connection);
   /** Signing in from the shell comes back to the page the member was on. */
   protected readonly signInHref = toSignal(
@@ -44,6 +47,20 @@ export class App implements OnInit {
   ngOnInit(): void {
     void this.session.refresh();
   }
+
+  private readonly failedSignIns = this.router.events
+    .pipe(
+      filter((event) => event instanceof NavigationEnd),
+      takeUntilDestroyed(),
+    )
+    .subscribe((event) => {
+      const address = this.router.parseUrl(event.urlAfterRedirects);
+      if (address.queryParamMap.get('signin') !== 'failed') return;
+      this.signInFailed.set(true);
+      // The address keeps no trace of the failure, so a reload does not say it again.
+      delete address.queryParams['signin'];
+      void this.router.navigateByUrl(address, { replaceUrl: true });
+    });
 
   protected signOut(): void {
     void this.session.signOut();
