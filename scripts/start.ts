@@ -2,7 +2,7 @@
 import { applyMigrations, createDatabase } from '../server/db/client';
 import { ensureBuild } from './stack/build';
 import { demoIdentities, demoMembers, seedDemoData } from './stack/demo-data';
-import { ensureCluster } from './stack/postgres';
+import { type Cluster, ensureCluster } from './stack/postgres';
 import { ProcessGroup, waitForHttp } from './stack/processes';
 
 const log = (line: string) => console.log(`keyloom: ${line}`);
@@ -14,7 +14,14 @@ const ports = {
   smtp: Number(env['FAKE_SMTP_PORT'] ?? 2525),
 };
 
-const cluster = await ensureCluster(log);
+// The address people connect to stays put: when its port is taken, say what holds it and stop.
+let cluster: Cluster;
+try {
+  cluster = await ensureCluster(log);
+} catch (error) {
+  console.error(`keyloom: start failed: ${(error as Error).message}`);
+  process.exit(1);
+}
 let group: ProcessGroup | undefined;
 
 let stopping: Promise<void> | undefined;

@@ -43,7 +43,8 @@ function vitest(name: string, config: string): void {
   suites.push({ name, ok: ok && counts.failed === 0, counts });
 }
 
-const cluster = await ensureCluster(log);
+// Another checkout's `npm start` may hold the usual port: a test run then takes a free one, and says which.
+const cluster = await ensureCluster(log, { portIfTaken: 'pick-free' });
 try {
   log('type-checking the server, shared code, fakes, scripts and tests');
   check('type check', run(bin('tsc'), ['-p', 'server/tsconfig.json', '--noEmit']));

@@ -2,6 +2,7 @@
 import { execFile } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
 import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { createServer } from 'node:net';
 import { join, resolve } from 'node:path';
 import { promisify } from 'node:util';
 import pg from 'pg';
@@ -13,6 +14,8 @@ export const repoRoot = resolve(import.meta.dirname, '../..');
 export interface Cluster {
   port: number;
   dataDir: string;
+  /** The short folder under /tmp that holds the server's unix socket. */
+  socketDir: string;
   /** True when this call started the server; only then should the caller stop it. */
   startedHere: boolean;
   /** Connection URL for one database of the cluster. */
@@ -86,15 +89,89 @@ async function isRunning(binDir: string, dataDir: string): Promise<boolean> {
   }
 }
 
+/** postmaster.pid holds the server's pid, data folder, start time, then its port on the 4th line (utils/pidfile.h). */
+function runningPort(dataDir: string): number | undefined {
+  try {
+    const port = Number(readFileSync(join(dataDir, 'postmaster.pid'), 'utf8').split('\n')[3]);
+    return Number.isInteger(port) && port > 0 ? port : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+function listenOnce(port: number): Promise<number | undefined> {
+  return new Promise((resolve) => {
+    const server = createServer();
+    server.once('error', () => resolve(undefined));
+    server.listen({ port, host: '127.0.0.1', exclusive: true }, () => {
+      const { port: bound } = server.address() as { port: number };
+      server.close(() => resolve(bound));
+    });
+  });
+}
+
+const portIsFree = async (port: number) => (await listenOnce(port)) !== undefined;
+
+async function freePort(): Promise<number> {
+  const port = await listenOnce(0);
+  if (port === undefined) throw new Error('No free port on 127.0.0.1 for PostgreSQL.');
+  return port;
+}
+
+/** Who listens on the port, in words: `ss` names the process; without it, a PostgreSQL server still says so itself. */
+async function portHolder(port: number): Promise<string> {
+  try {
+    const { stdout } = await run('ss', ['-Hltnp', `sport = :${port}`]);
+    const pid = stdout.match(/pid=(\d+)/)?.[1];
+    const name = stdout.match(/users:\(\("([^"]+)"/)?.[1];
+    if (pid && name) {
+      const argv = readFileSync(`/proc/${pid}/cmdline`, 'utf8').split('\0');
+      const dataFolder = argv.includes('-D') ? argv[argv.indexOf('-D') + 1] : undefined;
+      if (name === 'postgres' || argv[0].endsWith('/postgres')) {
+        return dataFolder
+          ? `another PostgreSQL cluster (data folder ${dataFolder}, pid ${pid})`
+          : `another PostgreSQL server (pid ${pid})`;
+      }
+      return `another process (${name}, pid ${pid})`;
+    }
+  } catch {
+    // No ss, or no right to see the process: ask the port itself below.
+  }
+  const probe = new pg.Client({
+    host: '127.0.0.1', port, user: superuser, password: 'probe', database: 'postgres', connectionTimeoutMillis: 3000,
+  });
+  try {
+    await probe.connect();
+    return 'another PostgreSQL server';
+  } catch (error) {
+    // A PostgreSQL server refuses with an SQLSTATE of five characters; anything else is some other program.
+    const sqlState = /^[0-9A-Z]{5}$/.test(String((error as { code?: unknown }).code));
+    return sqlState ? 'another PostgreSQL server' : 'another process';
+  } finally {
+    await probe.end().catch(() => {});
+  }
+}
+
+async function nearbyFreePort(port: number): Promise<number | undefined> {
+  for (let next = port + 1; next <= Math.min(port + 20, 65535); next++) if (await portIsFree(next)) return next;
+  return undefined;
+}
+
 export interface ClusterOptions {
   /** A folder of the cluster's own (default: `.keyloom/` in the checkout); tests of outages use one apart. */
   stateDir?: string;
   port?: number;
+  /**
+   * When the port is held by something else, such as another checkout's cluster: `fail` (npm start, whose port is
+   * the one people connect to) or `pick-free` (test runs, which only need some port: a free one is taken and logged).
+   */
+  portIfTaken?: 'fail' | 'pick-free';
 }
 
 export async function ensureCluster(log: (line: string) => void = () => {}, options: ClusterOptions = {}): Promise<Cluster> {
   const binDir = postgresBinDir();
-  const port = options.port ?? Number(process.env['KEYLOOM_PG_PORT'] ?? 55432);
+  const wantedPort = options.port ?? Number(process.env['KEYLOOM_PG_PORT'] ?? 55432);
+  let port = wantedPort;
   const stateDir = options.stateDir ?? (await stateDirFor(repoRoot));
   const dataDir = join(stateDir, 'postgres');
   const socketDir = `/tmp/.keyloom-pg-${shortHash(dataDir)}`;
@@ -138,14 +215,45 @@ export async function ensureCluster(log: (line: string) => void = () => {}, opti
       const tail = existsSync(join(dataDir, 'keyloom-server.log'))
         ? (await asServerUser('tail', ['-n', '15', join(dataDir, 'keyloom-server.log')]))
         : '';
-      throw new Error(`PostgreSQL did not start (port ${port} taken? set KEYLOOM_PG_PORT):\n${tail}`, { cause: error });
+      const held = (await portIsFree(port)) ? '' : `; port ${port} is held by ${await portHolder(port)}`;
+      throw new Error(`PostgreSQL did not start on 127.0.0.1:${port}${held}:\n${tail}`, { cause: error });
     }
   };
+
+  /** The wanted port when it is free; otherwise a free one (test runs) or an error that says what holds it. */
+  const choosePort = async (): Promise<number> => {
+    if (await portIsFree(wantedPort)) return wantedPort;
+    const holder = await portHolder(wantedPort);
+    if (options.portIfTaken === 'pick-free') {
+      const free = await freePort();
+      log(`port ${wantedPort} is held by ${holder}; the test cluster uses port ${free}`);
+      return free;
+    }
+    const other = await nearbyFreePort(wantedPort);
+    throw new Error(
+      `PostgreSQL cannot start: port ${wantedPort} on 127.0.0.1 is held by ${holder}. ` +
+        `Stop that, or give this checkout's cluster another port: KEYLOOM_PG_PORT=${other ?? '<port>'} npm start`,
+    );
+  };
+
   let startedHere = false;
-  if (!(await isRunning(binDir, dataDir))) {
-    await startServer();
-    startedHere = true;
+  if (await isRunning(binDir, dataDir)) {
+    // Already running (started by a parent run, perhaps on a port of its choosing): its port is in postmaster.pid.
+    port = runningPort(dataDir) ?? wantedPort;
+  } else {
+    for (let attempt = 1; !startedHere; attempt++) {
+      port = await choosePort();
+      try {
+        await startServer();
+        startedHere = true;
+      } catch (error) {
+        // Between the check and the start, another program can take a free port: pick again, a few times.
+        if (options.portIfTaken !== 'pick-free' || attempt === 3 || (await portIsFree(port))) throw error;
+      }
+    }
   }
+  // Child processes of this run (vitest, the server) then connect to the same port without looking it up.
+  if (options.stateDir === undefined) process.env['KEYLOOM_PG_PORT'] = String(port);
 
   const admin = async <T>(work: (client: pg.Client) => Promise<T>): Promise<T> => {
     const client = new pg.Client({ connectionString: url('postgres') });
@@ -161,6 +269,7 @@ export async function ensureCluster(log: (line: string) => void = () => {}, opti
   return {
     port,
     dataDir,
+    socketDir,
     startedHere,
     url,
     async createDatabase(database, options = {}) {

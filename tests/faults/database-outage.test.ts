@@ -12,18 +12,19 @@ let cluster: Cluster;
 let server: Awaited<ReturnType<typeof startTestServer>>;
 
 beforeAll(async () => {
-  cluster = await ensureCluster(() => {}, { stateDir, port: 56000 + (process.pid % 1000) });
+  cluster = await ensureCluster(() => {}, { stateDir, port: 56000 + (process.pid % 1000), portIfTaken: 'pick-free' });
   await cluster.createDatabase('outage', { fastCommits: true });
   const db = createDatabase(cluster.url('outage'));
   await applyMigrations(db);
   await db.$client.end();
   server = await startTestServer({ DATABASE_URL: cluster.url('outage') });
-}, 60_000);
+}, 120_000);
 
 afterAll(async () => {
   await server?.close();
   await cluster?.stop().catch(() => {});
   rmSync(stateDir, { recursive: true, force: true });
+  if (cluster) rmSync(cluster.socketDir, { recursive: true, force: true });
 });
 
 describe('a database outage', () => {
@@ -56,5 +57,5 @@ describe('a database outage', () => {
     expect(back.status).toBe(200);
     expect(back.body.name).toBe('Outage Fifths');
     expect((await request(server.app).get('/api/health')).body).toEqual({ ok: true, db: true });
-  }, 60_000);
+  }, 120_000);
 });
