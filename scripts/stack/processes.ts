@@ -48,8 +48,8 @@ export class ProcessGroup {
   }
 }
 
-/** Polls a URL until it answers 200, or fails after the timeout. */
-export async function waitForHttp(url: string, timeoutMs = 30_000): Promise<void> {
+/** Polls a URL until it answers 200, or fails after the timeout (a minute: a busy machine starts a server slowly). */
+export async function waitForHttp(url: string, timeoutMs = 60_000): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   let last = '';
   while (Date.now() < deadline) {

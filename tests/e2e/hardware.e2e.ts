@@ -3,7 +3,7 @@
 import { readFileSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchChromium, screenshot } from './browser';
+import { launchChromium, newContext, screenshot } from './browser';
 
 type MidiMode = 'grant' | 'refuse' | 'missing' | 'drop after one';
 
@@ -56,7 +56,7 @@ beforeAll(async () => {
 afterAll(() => browser.close());
 
 async function designer(mode: MidiMode): Promise<Page> {
-  const context = await browser.newContext({ acceptDownloads: true, viewport: { width: 1280, height: 1000 } });
+  const context = await newContext(browser, { acceptDownloads: true, viewport: { width: 1280, height: 1000 } });
   const page = await context.newPage();
   await page.addInitScript(standInMidi, mode);
   await page.goto(`${inject('appUrl')}/design`);
@@ -126,21 +126,28 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     await page.getByRole('tab', { name: 'Scale' }).click();
     await page.getByLabel('Generator', { exact: true }).fill('696.578c');
     await expect.poll(async () => (await sentBytes(page)).length).toBeGreaterThan(0);
-    await page.waitForTimeout(400);
 
     const after = { ...before, scale: { ...(before['scale'] as object), generator: '696.578c' } };
     const [oldHz, newHz] = await Promise.all([keyHz(before), keyHz(after)]);
     const changed = newHz.flatMap((hz, key) => (hz !== null && hz !== oldHz[key] ? [key] : []));
-    const sent = await sentBytes(page);
     // REFERENCE.md: F0 7F dev 08 02 tt ll (kk xx yy zz)xll F7.
+    const keysIn = (messages: number[][]) =>
+      messages
+        .flatMap((message) => Array.from({ length: message[6] }, (_, index) => message[7 + 4 * index]))
+        .sort((a, b) => a - b);
+    // The settled edit's changes have all gone out once the keys sent are the keys changed (extra ones never match).
+    await expect.poll(async () => keysIn(await sentBytes(page))).toEqual(changed);
+    const sent = await sentBytes(page);
     for (const message of sent) expect(message.slice(0, 5)).toEqual([0xf0, 0x7f, 0x7f, 0x08, 0x02]);
-    const keys = sent.flatMap((message) => Array.from({ length: message[6] }, (_, index) => message[7 + 4 * index]));
+    const keys = keysIn(sent);
     expect(keys.length).toBeLessThan(newHz.filter((hz) => hz !== null).length);
-    expect(keys.sort((a, b) => a - b)).toEqual(changed);
+    expect(keys).toEqual(changed);
     const bytes = sent.reduce((sum, message) => sum + message.length, 0);
     await page.getByRole('tab', { name: 'Output' }).click();
     await expect.poll(() => page.getByLabel('Live follow counter').textContent()).toContain(`${sent.length} messages, ${bytes} bytes sent`);
     await screenshot(page, 'hardware-live-follow');
+    // Nothing else went out after the edit settled.
+    expect(await sentBytes(page)).toEqual(sent);
     await page.context().close();
   });
 

@@ -1,7 +1,7 @@
 import nodemailer from 'nodemailer';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchChromium, screenshot } from './browser';
+import { launchChromium, newPage, screenshot } from './browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -20,7 +20,7 @@ describe('the local mailbox page', () => {
       text: 'Join the band: http://127.0.0.1:3000/invites/example-token',
     });
 
-    const page = await browser.newPage();
+    const page = await newPage(browser);
     await page.goto(inject('mailboxUrl'));
     const subject = page.getByRole('link', { name: 'Mira Vale invites you to Copper Fen <as editor>' });
     await subject.click();

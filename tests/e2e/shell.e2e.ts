@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { isLoopback, launchChromium, screenshot } from './browser';
+import { isLoopback, launchChromium, newPage, screenshot } from './browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -10,7 +10,7 @@ afterAll(() => browser.close());
 
 describe('the app shell in Chromium', () => {
   it('loads with every non-loopback request aborted, attempts none, and has both fonts loaded', async () => {
-    const page = await browser.newPage();
+    const page = await newPage(browser);
     const outside: string[] = [];
     await page.route('**/*', (route) => {
       const url = route.request().url();
@@ -43,29 +43,36 @@ describe('the app shell in Chromium', () => {
     expect(outside).toEqual([]);
     expect(failures).toEqual([]);
     expect(fonts).toEqual({ roboto: true, symbols: true });
-    expect(new URL(page.url()).pathname).toBe('/design');
+    // The redirect from / may land after the shell has drawn its toolbar.
+    await expect.poll(() => new URL(page.url()).pathname).toBe('/design');
     await page.close();
   });
 
   it('navigates between the main destinations, and shows a clear page for an unknown address', async () => {
-    const page = await browser.newPage();
+    const page = await newPage(browser);
     await page.goto(`${inject('appUrl')}/design`);
+    const title = page.getByRole('heading', { level: 1 });
     for (const [label, heading] of [['Library', 'Library'], ['Retune', 'Retune a song'], ['Bands', 'Bands']]) {
       await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: label }).click();
-      await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe(heading);
+      // Each destination is a lazy route: its heading appears once its code has loaded, however long that takes.
+      await page.getByRole('heading', { level: 1, name: heading, exact: true }).waitFor();
+      expect(await title.textContent()).toBe(heading);
     }
-    expect(await page.title()).toBe('Bands · Keyloom');
+    await expect.poll(() => page.title()).toBe('Bands · Keyloom');
 
     await page.goto(`${inject('appUrl')}/no/such/page`);
-    await expect.poll(() => page.getByRole('heading', { level: 1 }).textContent()).toBe('Nothing plays on this key');
+    await page.getByRole('heading', { level: 1, name: 'Nothing plays on this key', exact: true }).waitFor();
+    expect(await title.textContent()).toBe('Nothing plays on this key');
     await screenshot(page, 'not-found');
     await page.close();
   });
 
   it('fits a 390 px wide screen without sideways scrolling', async () => {
-    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    const page = await newPage(browser, { viewport: { width: 390, height: 844 } });
     await page.goto(`${inject('appUrl')}/design`);
     await page.getByRole('link', { name: 'Sign in with GitHub' }).waitFor();
+    // Measure the designer itself, not the shell alone while the route's code is still loading.
+    await page.getByLabel('Preset name').waitFor();
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     await screenshot(page, 'shell-390px');
     expect(overflow).toBeLessThanOrEqual(0);

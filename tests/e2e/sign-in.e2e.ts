@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import { launchChromium, screenshot } from './browser';
+import { launchChromium, newPage, screenshot } from './browser';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -10,7 +10,7 @@ afterAll(() => browser.close());
 
 describe('signing in through the GitHub stand-in', () => {
   it('picks a demo member on the provider page, comes back signed in, and signs out', async () => {
-    const page = await browser.newPage();
+    const page = await newPage(browser);
     await page.goto(`${inject('appUrl')}/design`);
     await page.getByRole('link', { name: 'Sign in with GitHub' }).click();
 
@@ -22,8 +22,10 @@ describe('signing in through the GitHub stand-in', () => {
     const member = page.getByRole('button', { name: /Signed in as Mira Vale/ });
     await member.waitFor();
     expect(await member.locator('img').getAttribute('src')).toMatch(/\/avatars\/mira-vale\.svg$/);
-    const avatarLoaded = await member.locator('img').evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0);
-    expect(avatarLoaded).toBe(true);
+    // The avatar is a file of its own: it may still be on its way when the button shows.
+    await expect
+      .poll(() => member.locator('img').evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0))
+      .toBe(true);
     await screenshot(page, 'signed-in');
 
     await member.click();

@@ -13,7 +13,7 @@ beforeAll(async () => {
   github = await startFakeGitHub();
   const env = { DATABASE_URL: inject('databaseUrl'), FAKE_GITHUB_URL: github.url, SESSION_SECRET: 'shared-by-both-instances' };
   [first, second] = await Promise.all([startServerProcess(env), startServerProcess(env)]);
-}, 60_000);
+}, 120_000);
 
 afterAll(async () => {
   await Promise.all([first?.stop(), second?.stop()]);

@@ -11,7 +11,7 @@ export default defineConfig({
     globalSetup: ['tests/global-setup.ts'],
     fileParallelism: false,
     testTimeout: 120_000,
-    hookTimeout: 60_000,
+    hookTimeout: 120_000,
     pool: 'forks',
   },
 });

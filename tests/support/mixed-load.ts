@@ -22,10 +22,17 @@ export interface LoadOptions {
   appUrl: () => string;
   clients: number;
   seconds: number;
+  /**
+   * When given, the run goes on after `seconds` until this holds, for at most two minutes more: a busy machine gets
+   * the time it needs to show what a test waits for, and the test still checks the outcome itself.
+   */
+  until?: (report: LoadReport) => boolean;
   /** Logins are `${loginPrefix}-${n}`. */
   loginPrefix: string;
-  /** While this says true, failed requests are counted apart and retried. */
+  /** While this says true, failed requests (and those started while it did) are counted apart and retried. */
   outage?: () => boolean;
+  /** Told of each save the server acknowledged, as it happens. */
+  onAcknowledged?: (ack: Acknowledged) => void;
 }
 
 const document = (name: string, up: number) => ({
@@ -39,6 +46,9 @@ const document = (name: string, up: number) => ({
 export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
   const report: LoadReport = { requests: 0, failures: [], failuresDuringOutage: 0, acknowledged: [] };
   const deadline = Date.now() + options.seconds * 1000;
+  const patience = deadline + 120_000;
+  const running = () =>
+    Date.now() < deadline || (options.until !== undefined && !options.until(report) && Date.now() < patience);
 
   /** One request and the reading of its answer; a failure is counted (or set apart during an outage), never thrown. */
   async function attempt<T>(
@@ -48,6 +58,8 @@ export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
     init?: RequestInit & { json?: unknown },
   ): Promise<T | null> {
     report.requests++;
+    // A request sent to a server that is down fails when it fails, perhaps after the server is back.
+    const sentDuringOutage = options.outage?.() ?? false;
     const body = init?.json === undefined ? init?.body : JSON.stringify(init.json);
     const headers = init?.json === undefined ? init?.headers : { 'content-type': 'application/json' };
     const what = `${init?.method ?? 'GET'} ${path}`;
@@ -55,10 +67,10 @@ export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
       const res = await jar.fetch(`${options.appUrl()}${path}`, { ...init, body, headers });
       if (res.status >= 200 && res.status < 400) return await read(res);
       const text = await res.text();
-      if (options.outage?.() || res.status === 503) report.failuresDuringOutage++;
+      if (sentDuringOutage || options.outage?.() || res.status === 503) report.failuresDuringOutage++;
       else report.failures.push(`${what}: ${res.status} ${text.slice(0, 120)}`);
     } catch (error) {
-      if (options.outage?.()) report.failuresDuringOutage++;
+      if (sentDuringOutage || options.outage?.()) report.failuresDuringOutage++;
       else report.failures.push(`${what}: ${(error as Error).message}`);
     }
     await new Promise((r) => setTimeout(r, 100));
@@ -67,7 +79,7 @@ export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
 
   async function client(n: number): Promise<void> {
     const jar = new CookieJar();
-    while (Date.now() < deadline) {
+    while (running()) {
       try {
         await jar.signIn(options.appUrl(), `${options.loginPrefix}-${n}`);
         break;
@@ -76,7 +88,7 @@ export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
       }
     }
     let presetId: string | null = null;
-    for (let i = 0; Date.now() < deadline; i++) {
+    for (let i = 0; running(); i++) {
       if (!presetId) {
         presetId = await attempt(jar, '/api/presets', async (res) => (await res.json()).id as string, {
           method: 'POST', json: { document: document(`Load ${n}`, 5), note: 'start' },
@@ -92,7 +104,11 @@ export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
           const revision = await attempt(jar, `/api/presets/${presetId}/revisions`, async (res) => (await res.json()).revision as number, {
             method: 'POST', json: { document: document(`Load ${n}`, 1 + (i % 11)), note },
           });
-          if (revision !== null) report.acknowledged.push({ presetId, revision, note, at: Date.now() });
+          if (revision !== null) {
+            const ack = { presetId, revision, note, at: Date.now() };
+            report.acknowledged.push(ack);
+            options.onAcknowledged?.(ack);
+          }
           break;
         }
         case 2:
