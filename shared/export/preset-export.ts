@@ -6,7 +6,9 @@ import type { PresetDocument, ResolvedPreset } from '../preset/preset-document';
  * is left out when there is none, since the document has no way to say "no layout" but silence).
  */
 export function presetDocumentFile(preset: ResolvedPreset): string {
-  const { layout, ...mapping } = preset.mapping;
+  // The anchor is written as the musician set it; the root's pitch then follows from it, as it did here.
+  const { layout, anchor, rootHz, ...rest } = preset.mapping;
+  const mapping = anchor ? { ...rest, anchor } : { ...rest, rootHz };
   const document: PresetDocument = {
     format: preset.format,
     version: preset.version,

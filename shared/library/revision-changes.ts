@@ -42,7 +42,7 @@ function settingChanges(before: ResolvedPreset, after: ResolvedPreset): SettingC
     ['name', before.name, after.name],
     ['notes', before.notes, after.notes],
     ['scale.kind', before.scale.kind, after.scale.kind],
-    ...(['rootKey', 'rootHz', 'concertA', 'keysPerPeriod', 'layout'] as const).map(
+    ...(['rootKey', 'rootHz', 'anchor', 'concertA', 'keysPerPeriod', 'layout'] as const).map(
       (f): [string, unknown, unknown] => [`mapping.${f}`, before.mapping[f], after.mapping[f]],
     ),
     ...(['deviceId', 'program', 'bank', 'tuningName', 'bendRange', 'memberChannels'] as const).map(

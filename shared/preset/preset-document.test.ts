@@ -1,5 +1,8 @@
 import * as fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { presetDocumentFile } from '../export/preset-export';
+import { scaleSpecs } from '../tuning/scale.testing';
+import { previewTable } from '../tuning/preview';
 import { parsePresetDocument, type PresetDocument, type ResolvedPreset } from './preset-document';
 
 /** The example preset document of DESIGN.md, field for field. */
@@ -48,7 +51,8 @@ function faults(input: unknown): string[] {
 
 describe('parsePresetDocument', () => {
   it('reads the example document of DESIGN.md as written', () => {
-    expect(resolved(designExample)).toEqual(designExample);
+    // Resolving adds only what the document leaves unsaid: here, that it names no anchor key.
+    expect(resolved(designExample)).toEqual({ ...designExample, mapping: { ...designExample.mapping, anchor: null } });
   });
 
   it('reads a document it resolved again as the same document', () => {
@@ -235,5 +239,75 @@ describe('parsePresetDocument', () => {
         }
       }),
     );
+  });
+});
+
+describe('the anchor: the key that sounds the pitch a musician tunes to', () => {
+  const meantone = (mapping: object) => ({
+    format: 'keyloom.preset',
+    version: 1,
+    name: 'Quarter-comma from E-flat',
+    scale: { kind: 'generated', generator: '3/2', up: 8, down: 3, temper: { comma: '81/80', fraction: '1/4' } },
+    mapping: { rootKey: 60, ...mapping },
+  });
+
+  it('makes A sound 415 Hz in quarter-comma meantone, the root following', () => {
+    const anchored = parsePresetDocument(meantone({ anchor: { key: 69, hz: 415 } }));
+    if (!anchored.ok) throw new Error(anchored.errors[0].message);
+    // With A4 anchored at 415 Hz on key 69, C4 = 248.2279 Hz: arithmetic, 415 / 5^(3/4) * 2 (REFERENCE values).
+    expect(anchored.value.mapping.rootHz).toBeCloseTo(248.2279, 4);
+    expect(anchored.value.mapping.rootHz).toBeCloseTo((415 / 5 ** 0.75) * 2, 9);
+    const a = previewTable(anchored.value).keys[69];
+    expect(a.hz).toBeCloseTo(415, 9);
+
+    // Without the anchor, concert A = 415 only moves the equal-tempered reference: A sounds 412.547 Hz.
+    const referenceOnly = parsePresetDocument(meantone({ concertA: 415 }));
+    if (!referenceOnly.ok) throw new Error('refused');
+    expect(previewTable(referenceOnly.value).keys[69].hz).toBeCloseTo(412.547, 3);
+  });
+
+  it('is refused beside rootHz, and on a key that plays no degree', () => {
+    const both = parsePresetDocument(meantone({ rootHz: 250, anchor: { key: 69, hz: 415 } }));
+    expect(both.ok ? [] : both.errors.map((e) => e.path)).toEqual(['mapping.anchor']);
+    const unmapped = parsePresetDocument({
+      ...meantone({ anchor: { key: 61, hz: 277 }, layout: [0, null, 2, 4, 5, 7, 8, 9, 10, 11, 1, 3] }),
+    });
+    expect(unmapped.ok ? '' : unmapped.errors[0].message).toBe('mapping.anchor.key: 61 plays no degree in this layout: anchor a key that does');
+  });
+
+  it('keeps its key at its pitch to 1e-9 relative for every kind of scale and layout', () => {
+    fc.assert(
+      fc.property(
+        scaleSpecs,
+        fc.integer({ min: 0, max: 127 }),
+        fc.integer({ min: 0, max: 127 }),
+        fc.double({ min: 20, max: 4000, noNaN: true }),
+        fc.option(fc.array(fc.option(fc.nat({ max: 3 }), { nil: null, freq: 4 }), { minLength: 1, maxLength: 24 }), { nil: undefined }),
+        (scale, rootKey, key, hz, layout) => {
+          const parsed = parsePresetDocument({
+            format: 'keyloom.preset', version: 1, name: 'Anchored', scale, mapping: { rootKey, layout, anchor: { key, hz } },
+          });
+          if (!parsed.ok) {
+            // Refused only for a reason of its own: an unmapped anchor key, a layout naming a missing degree, or a
+            // root pushed out of the audible range.
+            expect(parsed.errors[0].path).toMatch(/^mapping\.(anchor\.(key|hz)|layout\[\d+\])$/);
+            return;
+          }
+          const sounded = previewTable(parsed.value).keys[key].hz!;
+          expect(Math.abs(sounded / hz - 1)).toBeLessThan(1e-9);
+        },
+      ),
+      { numRuns: 500 },
+    );
+  });
+
+  it('travels in the preset file as written, and reads back to the same tuning', () => {
+    const anchored = parsePresetDocument(meantone({ anchor: { key: 69, hz: 415 } }));
+    if (!anchored.ok) throw new Error('refused');
+    const file = JSON.parse(presetDocumentFile(anchored.value));
+    expect(file.mapping.anchor).toEqual({ key: 69, hz: 415 });
+    expect(file.mapping.rootHz).toBeUndefined();
+    const again = parsePresetDocument(file);
+    expect(again.ok && again.value.mapping.rootHz).toBe(anchored.value.mapping.rootHz);
   });
 });

@@ -1,7 +1,7 @@
 import * as z from 'zod';
 import { type FieldError, fieldError, type Result, succeed, fail } from '../result';
 import { readInterval } from '../tuning/interval';
-import { layoutFaults } from '../tuning/key-table';
+import { keyPlace, layoutFaults } from '../tuning/key-table';
 import { buildScale, type ScaleSpec } from '../tuning/scale';
 import { largestScale } from '../tuning/scale-degrees';
 import { storableString } from '../text/plain-text';
@@ -64,13 +64,17 @@ const midiKey = z.int().min(0).max(127);
 const sevenBit = z.int().min(0).max(127);
 const channel = z.int().min(1).max(16);
 
+/** A pitch in Hz: from 1 Hz (below that it is a rhythm, not a pitch) to 20 kHz. */
+const pitchHz = z.number().min(1).max(20000);
+
 const mappingSchema = z
   .strictObject({
     rootKey: midiKey,
-    rootHz: z.number().min(1).max(20000).optional(),
+    rootHz: pitchHz.optional(),
     concertA: z.number().min(220).max(880).default(440),
     keysPerPeriod: z.int().min(1).max(128).optional(),
     layout: z.array(z.int().min(0).nullable()).min(1).max(128).nullable().optional(),
+    anchor: z.strictObject({ key: midiKey, hz: pitchHz }).nullable().optional(),
   })
   .superRefine((mapping, context) => {
     const { layout, keysPerPeriod } = mapping;
@@ -131,8 +135,13 @@ export interface ResolvedPreset {
   scale: ScaleSpec;
   mapping: {
     rootKey: number;
-    /** The pitch of the root key; when not written, its equal-tempered pitch at `concertA`. */
+    /**
+     * The pitch of the root key: as written; from the anchor, so that the anchor key sounds its pitch; or
+     * else the root key's equal-tempered pitch at `concertA`.
+     */
     rootHz: number;
+    /** The key that sounds exactly `hz` in the tuning, when the document names one. */
+    anchor: { key: number; hz: number } | null;
     concertA: number;
     /** The layout's length; without a layout, the scale size. */
     keysPerPeriod: number;
@@ -183,12 +192,33 @@ export function parsePresetDocument(input: unknown): Result<ResolvedPreset> {
       ),
     ]);
   }
+  let rootHz = mapping.rootHz ?? equalTemperedHz(mapping.rootKey, mapping.concertA);
+  const anchor = mapping.anchor ?? null;
+  if (anchor) {
+    const place = keyPlace(scale.value, { rootKey: mapping.rootKey, layout }, anchor.key);
+    if (!place) {
+      const fault = `${anchor.key} plays no degree in this layout: anchor a key that does`;
+      return fail([fieldError('mapping.anchor.key', fault)]);
+    }
+    const anchoredHz = anchor.hz / 2 ** (place.centsFromRoot / 1200);
+    // A resolved preset carries both, and they agree; a document written with two different pitches is refused.
+    if (mapping.rootHz !== undefined && Math.abs(anchoredHz / mapping.rootHz - 1) > 1e-9) {
+      const fault = 'and rootHz both set the pitch: give one of them (the anchor is the key a musician tunes to)';
+      return fail([fieldError('mapping.anchor', fault)]);
+    }
+    rootHz = anchoredHz;
+    if (!Number.isFinite(rootHz) || rootHz < 1 || rootHz > 20000) {
+      const fault = `${anchor.hz} Hz on key ${anchor.key} puts the root key at ${rootHz} Hz, outside 1 to 20000 Hz`;
+      return fail([fieldError('mapping.anchor.hz', fault)]);
+    }
+  }
   return succeed({
     ...about,
     scale: scaleSpec,
     mapping: {
       rootKey: mapping.rootKey,
-      rootHz: mapping.rootHz ?? equalTemperedHz(mapping.rootKey, mapping.concertA),
+      rootHz,
+      anchor,
       concertA: mapping.concertA,
       keysPerPeriod: layout ? layout.length : size,
       layout,

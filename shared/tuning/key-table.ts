@@ -60,30 +60,45 @@ function unmapped(key: number): KeyEntry {
 }
 
 /**
+ * The degree `key` plays and how far above (+) or below (-) the root key's pitch it sounds, in cents,
+ * or null when the key is unmapped: the one rule of how a layout lays degrees on keys, used by the
+ * key table and by the anchor.
+ */
+export function keyPlace(
+  scale: Scale,
+  mapping: Pick<KeyMapping, 'rootKey' | 'layout'>,
+  key: number,
+): { degree: number; centsFromRoot: number } | null {
+  const { rootKey, layout } = mapping;
+  const blockSize = layout ? layout.length : scale.degrees.length;
+  const offset = key - rootKey;
+  const block = Math.floor(offset / blockSize);
+  const place = offset - block * blockSize;
+  const degree = layout ? layout[place] : place;
+  if (degree === null || degree >= scale.degrees.length) return null;
+  return { degree, centsFromRoot: block * scale.period.cents + scale.degrees[degree].cents };
+}
+
+/**
  * Lays the scale across the 128 keys. A key whose layout entry is null, or names a degree the scale
  * lacks, is unmapped. Pitches outside what MTS can express keep their true frequency and are
  * flagged, never wrapped.
  */
 export function mapKeys(scale: Scale, mapping: KeyMapping): KeyTable {
-  const { rootKey, rootHz, concertA, layout } = mapping;
-  const blockSize = layout ? layout.length : scale.degrees.length;
+  const { rootHz, concertA } = mapping;
   const table: KeyTable = [];
   for (let key = 0; key < keyCount; key++) {
-    const offset = key - rootKey;
-    const block = Math.floor(offset / blockSize);
-    const place = offset - block * blockSize;
-    const degree = layout ? layout[place] : place;
-    if (degree === null || degree >= scale.degrees.length) {
+    const place = keyPlace(scale, mapping, key);
+    if (!place) {
       table.push(unmapped(key));
       continue;
     }
-    const centsFromRoot = block * scale.period.cents + scale.degrees[degree].cents;
-    const hz = rootHz * 2 ** (centsFromRoot / 1200);
+    const hz = rootHz * 2 ** (place.centsFromRoot / 1200);
     table.push({
       key,
-      degree,
+      degree: place.degree,
       hz,
-      centsFromRoot,
+      centsFromRoot: place.centsFromRoot,
       centsFrom12: centsFromEqualTempered(hz, key, concertA),
       outOfMtsRange: outsideMts(hz),
     });
