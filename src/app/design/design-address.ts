@@ -17,6 +17,7 @@ const shortNames: Record<string, string> = {
   temper: 't', comma: 'c', fraction: 'f', divisions: 'e', degrees: 'r', from: 'a', to: 'b', sub: 'h',
   mapping: 'm', rootKey: 'K', rootHz: 'H', concertA: 'A', keysPerPeriod: 'P', layout: 'L', output: 'O',
   deviceId: 'D', program: 'G', bank: 'B', tuningName: 'N', bendRange: 'R', memberChannels: 'C',
+  anchor: 'Y', key: 'y', hz: 'z',
 };
 const scaleKinds: ScaleKind[] = ['generated', 'equal', 'list', 'harmonic'];
 const longNames = Object.fromEntries(Object.entries(shortNames).map(([long, short]) => [short, long]));

@@ -7,6 +7,7 @@ import { Audition } from '../audition/audition';
 import { ControllerInput } from '../audition/controller-input';
 import { PlayPanel } from '../audition/play-panel';
 import { StripPlaying } from '../audition/strip-playing';
+import { AnchorPicking } from '../keys/anchor-picking';
 import { Session } from '../auth/session';
 import { LiveFollow } from '../hardware/live-follow';
 import { MidiAccess } from '../hardware/midi-access';
@@ -44,7 +45,7 @@ function isTyping(target: EventTarget | null): boolean {
   imports: [
     MatButtonModule, MatIconModule, MatProgressBarModule, MatTabsModule, DesignField, DownloadMenu, ScaleForm,
     ScaleSummary, PeriodRing, DegreeTable, OffsetChart, IntervalMatrix, ReferencePitch, KeyboardStrip, LayoutEditor,
-    OutputSettings, PlayPanel, StripPlaying, SendPanel,
+    OutputSettings, PlayPanel, StripPlaying, AnchorPicking, SendPanel,
   ],
   providers: [DesignState, DesignAddress, SavedPreset, Audition, MidiAccess, ControllerInput, TuningSender, LiveFollow],
   templateUrl: './design-page.html',

@@ -32,13 +32,16 @@ interface ShownDesign {
 
 type ScaleField = 'generator' | 'period' | 'up' | 'down' | 'divisions' | 'degrees' | 'from' | 'to' | 'sub';
 type MappingField = 'rootKey' | 'rootHz' | 'concertA';
+
+/** How the design's pitch is set: the root from concert A, the root's pitch typed, or one key tuned to a pitch. */
+export type PitchSource = 'concert' | 'root' | 'anchor';
 type OutputField = 'deviceId' | 'program' | 'bank' | 'tuningName' | 'bendRange';
 
 /** The document paths that have a field of their own; faults elsewhere are listed above the analysis. */
 const fieldPaths = [
   'name', 'scale.generator', 'scale.period', 'scale.up', 'scale.down', 'scale.temper.comma',
   'scale.temper.fraction', 'scale.divisions', 'scale.degrees', 'scale.from', 'scale.to', 'scale.sub',
-  'mapping.rootKey', 'mapping.rootHz', 'mapping.concertA', 'mapping.keysPerPeriod', 'mapping.layout',
+  'mapping.rootKey', 'mapping.rootHz', 'mapping.concertA', 'mapping.keysPerPeriod', 'mapping.layout', 'mapping.anchor',
   'output.deviceId', 'output.program', 'output.bank', 'output.tuningName', 'output.bendRange',
   'output.memberChannels',
 ];
@@ -105,6 +108,12 @@ export class DesignState {
   readonly scaleSize = computed(() => this.shown()?.table.analysis.size ?? 0);
   readonly layout = computed(() => this.draft().mapping.layout ?? null);
   readonly keysPerPeriod = computed(() => this.layout()?.length ?? this.scaleSize());
+  readonly pitchSource = computed<PitchSource>(() => {
+    const { anchor, rootHz } = this.draft().mapping;
+    return anchor ? 'anchor' : rootHz !== undefined ? 'root' : 'concert';
+  });
+  /** True while the next key pressed on the strip becomes the anchor key. */
+  readonly pickingAnchorKey = signal(false);
 
   /** The fault at a field (else the first inside it), without the path that the field already names. */
   faultAt(field: string): string | null {
@@ -160,6 +169,37 @@ export class DesignState {
 
   setMappingField(field: MappingField, value: Typed | undefined): void {
     this.change((draft) => ({ ...draft, mapping: withField<DraftMapping>(draft.mapping, field, value) }));
+  }
+
+  /**
+   * Chooses how the pitch is set. Tuning one key starts from A4 at concert A; typing the root's pitch starts
+   * from the pitch the root has now, so that nothing moves until the musician changes it.
+   */
+  setPitchSource(source: PitchSource, rootHzNow: number | null): void {
+    this.pickingAnchorKey.set(false);
+    this.change((draft) => {
+      const { anchor: _, rootHz: __, ...mapping } = draft.mapping;
+      if (source === 'anchor') return { ...draft, mapping: { ...mapping, anchor: { key: 69, hz: mapping.concertA ?? 440 } } };
+      if (source === 'root') return { ...draft, mapping: { ...mapping, rootHz: rootHzNow ?? 261.6256 } };
+      return { ...draft, mapping };
+    });
+  }
+
+  /** Sets the anchor key or its pitch (the other part stays as it is). */
+  setAnchor(part: Partial<Record<'key' | 'hz', Typed | undefined>>): void {
+    this.change((draft) => {
+      const { rootHz: _, ...mapping } = draft.mapping;
+      let anchor = { ...(draft.mapping.anchor ?? {}) };
+      for (const [field, value] of Object.entries(part)) anchor = withField(anchor, field, value);
+      return { ...draft, mapping: { ...mapping, anchor } };
+    });
+  }
+
+  /** The key pressed on the strip while picking becomes the anchor key; picking then stops. */
+  pickAnchorKey(key: number): void {
+    if (!this.pickingAnchorKey()) return;
+    this.pickingAnchorKey.set(false);
+    this.setAnchor({ key });
   }
 
   setOutputField(field: OutputField, value: Typed | undefined): void {

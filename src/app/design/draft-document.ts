@@ -19,9 +19,16 @@ export type DraftScale =
   | { kind: 'list'; degrees: string[]; period: string }
   | { kind: 'harmonic'; from?: Typed; to?: Typed; sub?: boolean };
 
+export interface DraftAnchor {
+  key?: Typed;
+  hz?: Typed;
+}
+
 export interface DraftMapping {
   rootKey?: Typed;
   rootHz?: Typed;
+  /** The key a musician tunes to and its pitch; the root's pitch then follows. */
+  anchor?: DraftAnchor;
   concertA?: Typed;
   /** Only while the field holds something that is not a whole number; otherwise the layout's length. */
   keysPerPeriod?: Typed;

@@ -4,7 +4,7 @@ import { previewTable } from '@shared/tuning/preview';
 import { KeyboardStrip } from './keyboard-strip';
 
 describe('KeyboardStrip', () => {
-  function render(mapping: unknown) {
+  function render(mapping: unknown, anchorKey: number | null = null) {
     const parsed = parsePresetDocument({
       format: 'keyloom.preset', version: 1, name: 'T', scale: { kind: 'generated', generator: '3/2', up: 5, down: 1 }, mapping,
     });
@@ -13,6 +13,7 @@ describe('KeyboardStrip', () => {
     fixture.componentRef.setInput('keys', previewTable(parsed.value).keys);
     fixture.componentRef.setInput('rootKey', parsed.value.mapping.rootKey);
     fixture.componentRef.setInput('scaleSize', 7);
+    fixture.componentRef.setInput('anchorKey', anchorKey);
     fixture.detectChanges();
     const element = fixture.nativeElement as HTMLElement;
     const key = (n: number) => element.querySelector<SVGGElement>(`g.key[data-key="${n}"]`)!;
@@ -32,6 +33,16 @@ describe('KeyboardStrip', () => {
     expect(key(62).querySelector('text')?.textContent).toBe('2');
     expect(key(67).querySelector('text')?.textContent).toBe('0');
     expect(key(60).querySelector('title')?.textContent).toBe('Key 60 (C4): degree 0, 261.626 Hz');
+  });
+
+  it('marks the key tuned to the reference pitch, and says so below', () => {
+    const plain = render({ rootKey: 60 });
+    expect(plain.element.querySelector('g.key.anchor')).toBeNull();
+    expect(plain.element.querySelector('.legend')?.textContent).not.toContain('tuned to the reference pitch');
+    const { element, key } = render({ rootKey: 60, anchor: { key: 69, hz: 415 } }, 69);
+    expect(key(69).classList).toContain('anchor');
+    expect(element.querySelectorAll('g.key.anchor').length).toBe(1);
+    expect(element.querySelector('.legend')?.textContent).toContain('key 69 is tuned to the reference pitch');
   });
 
   it('marks unmapped keys, hatched and crossed, and says how many there are', () => {

@@ -18,6 +18,7 @@ interface DrawnKey {
   mapped: boolean;
   outside: boolean;
   root: boolean;
+  anchor: boolean;
   fill: string;
   label: string;
   labelY: number;
@@ -44,7 +45,7 @@ function fillFor(degree: number, size: number, black: boolean): string {
         </defs>
         @for (key of drawn(); track key.key) {
           <g class="key" [class.black]="key.black" [class.unmapped]="!key.mapped" [class.outside]="key.outside"
-             [class.root]="key.root" [attr.data-key]="key.key">
+             [class.root]="key.root" [class.anchor]="key.anchor" [attr.data-key]="key.key">
             <title>{{ key.title }}</title>
             <rect [attr.x]="key.x" y="0" [attr.width]="key.width" [attr.height]="key.height" rx="2"
                   [attr.fill]="key.mapped ? key.fill : 'url(#unmapped-hatch)'" />
@@ -59,6 +60,9 @@ function fillFor(degree: number, size: number, black: boolean): string {
     <p class="legend">
       <span class="swatch unmapped-swatch" aria-hidden="true"></span> hatched keys are unmapped and play nothing;
       <span class="swatch root-swatch" aria-hidden="true"></span> the root key plays degree 0.
+      @if (anchorKey() !== null) {
+        <span class="swatch anchor-swatch" aria-hidden="true"></span> key {{ anchorKey() }} is tuned to the reference pitch.
+      }
       @if (outsideCount() > 0) { <strong class="outside-note">{{ outsideCount() }} keys lie outside what MTS can express.</strong> }
     </p>
   `,
@@ -71,6 +75,7 @@ function fillFor(degree: number, size: number, black: boolean): string {
     .key.black text { fill: #fff; }
     .key.unmapped text { fill: var(--mat-sys-on-surface-variant); }
     .key.root rect { stroke: var(--mat-sys-tertiary); stroke-width: 3; }
+    .key.anchor rect { stroke: var(--mat-sys-primary); stroke-width: 3; stroke-dasharray: 4 2; }
     .key.outside rect { stroke: var(--mat-sys-error); stroke-dasharray: 3 2; stroke-width: 2; }
     .hatch-ground { fill: var(--mat-sys-surface-container-high); }
     .key.black .hatch-ground { fill: var(--mat-sys-surface-container-highest); }
@@ -80,6 +85,7 @@ function fillFor(degree: number, size: number, black: boolean): string {
     .swatch { display: inline-block; width: 12px; height: 12px; vertical-align: -2px; border: 1px solid var(--mat-sys-outline); }
     .unmapped-swatch { background: repeating-linear-gradient(45deg, var(--mat-sys-outline) 0 2px, transparent 2px 5px); }
     .root-swatch { border: 3px solid var(--mat-sys-tertiary); width: 8px; height: 8px; }
+    .anchor-swatch { border: 3px dashed var(--mat-sys-primary); width: 8px; height: 8px; }
     .outside-note { color: var(--mat-sys-error); }
   `,
 })
@@ -88,6 +94,8 @@ export class KeyboardStrip {
   readonly rootKey = input.required<number>();
   /** The scale's size, which sets the colours. */
   readonly scaleSize = input.required<number>();
+  /** The key tuned to the reference pitch, when the design names one. */
+  readonly anchorKey = input<number | null>(null);
   private readonly scroller = viewChild.required<ElementRef<HTMLElement>>('scroller');
   private readonly destroyRef = inject(DestroyRef);
   protected readonly labelRow = labelRow;
@@ -143,6 +151,7 @@ export class KeyboardStrip {
       mapped,
       outside: entry.outOfMtsRange,
       root: entry.key === this.rootKey(),
+      anchor: entry.key === this.anchorKey(),
       fill: mapped ? fillFor(entry.degree!, this.scaleSize(), black) : '',
       label: mapped ? String(entry.degree) : '×',
       labelY: black ? blackHeight - 6 : whiteHeight - 8,
