@@ -43,9 +43,10 @@ describe('an interval list upload', () => {
   it('is refused at the first line past the largest scale', async () => {
     const text = Buffer.from('# fifths\n' + '3/2\n'.repeat(1000));
     const answer = await request(server.app).post('/api/import').attach('file', text, 'fifths.txt');
-    // The refusal names the line where reading stopped: the 256th degree, on line 257 after the comment.
-    expectJsonError(answer, 400, 'line 257');
-    expect(answer.body.error.message).toBe('line 257: more than 255 degrees: a scale holds at most 256 with its tonic');
+    // The refusal names the line where reading stopped: the 257th entry (room is kept for a leading 1/1), on line
+    // 258 after the comment.
+    expectJsonError(answer, 400, 'line 258');
+    expect(answer.body.error.message).toBe('line 258: more than 255 degrees: a scale holds at most 256 with its tonic');
     expect(answer.body.error.details).toHaveLength(1);
   });
 

@@ -28,3 +28,15 @@ describe('presetFromIntervalList', () => {
     expect(result.ok ? '' : result.errors[0].message).toMatch(/^file: no intervals found/);
   });
 });
+
+describe('presetFromIntervalList, as musicians paste lists', () => {
+  it('reads a list on one line with commas, drops the leading 1/1, takes the closing 2/1 as the period, and says so', () => {
+    const result = presetFromIntervalList('1/1, 9/8, 5/4, 4/3, 3/2, 5/3, 15/8, 2/1\n', 'Pasted');
+    if (!result.ok) throw new Error(result.errors[0].message);
+    expect(result.value.scale).toEqual({ kind: 'list', degrees: ['9/8', '5/4', '4/3', '3/2', '5/3', '15/8'], period: '2/1' });
+    expect(result.value.notes).toBe(
+      'Imported from a list of intervals. The leading 1/1 is the tonic, which every scale has: it was left out of the list. ' +
+        'The closing 2/1 is the period: it was taken as the period, not as a degree.',
+    );
+  });
+});

@@ -1,7 +1,9 @@
-// A scale from plain text: one interval a line, `#` starts a comment, and a line `period 3/1` sets the period
-// (2/1 when there is none). The tonic is implied; a line for it or for the period is refused.
+// A scale from plain text: intervals one a line or several to a line (separated by commas or spaces), `#` starts a
+// comment, and a line `period 3/1` sets the period (2/1 when there is none). The tonic is implied: a leading 1/1 is
+// dropped, and a closing entry equal to the period is taken as the period, both said in the preset's notes.
 import type { PresetDocument } from '../preset/preset-document';
 import { type FieldError, type Result, fail, fieldError, succeed } from '../result';
+import { entriesOf, withoutTonicAndPeriod } from '../tuning/degree-list';
 import { readInterval } from '../tuning/interval';
 import { largestScale } from '../tuning/scale-degrees';
 
@@ -38,29 +40,34 @@ export function presetFromIntervalList(text: string, name: string): Result<Prese
     const line = raw.replace(/#.*/, '').trim();
     if (line === '') continue;
     const periodLine = /^period\s*[:=]?\s*(.+)$/i.exec(line);
-    const written = periodLine ? periodLine[1].trim() : line;
-    const read = readInterval(written);
-    if (typeof read === 'string') {
-      faults.push(fieldError(where, read));
-      if (faults.length === mostFaults) return fail(faults);
-      continue;
-    }
-    if (periodLine) {
-      period = written;
-    } else if (degrees.length === largestScale - 1) {
-      return fail([fieldError(where, `more than ${largestScale - 1} degrees: a scale holds at most ${largestScale} with its tonic`)]);
-    } else {
-      degrees.push(written);
+    for (const written of periodLine ? [periodLine[1].trim()] : entriesOf(line)) {
+      const read = readInterval(written);
+      if (typeof read === 'string') {
+        faults.push(fieldError(where, read));
+        if (faults.length === mostFaults) return fail(faults);
+        continue;
+      }
+      if (periodLine) {
+        period = written;
+      } else if (degrees.length === largestScale) {
+        // One more than a scale holds above its tonic: room for a leading 1/1 that is dropped below.
+        return fail([fieldError(where, `more than ${largestScale - 1} degrees: a scale holds at most ${largestScale} with its tonic`)]);
+      } else {
+        degrees.push(written);
+      }
     }
   }
   if (faults.length > 0) return fail(faults);
-  if (degrees.length === 0) return fail([fieldError('file', 'no intervals found: write one interval a line, such as 9/8 or 203.9c')]);
+  const reading = withoutTonicAndPeriod(degrees, period);
+  if (reading.degrees.length === 0) {
+    return fail([fieldError('file', 'no intervals found: write one interval a line, such as 9/8 or 203.9c')]);
+  }
   return succeed({
     format: 'keyloom.preset',
     version: 1,
     name,
-    notes: 'Imported from a list of intervals.',
-    scale: { kind: 'list', degrees, period },
+    notes: ['Imported from a list of intervals.', ...reading.notices].join(' '),
+    scale: { kind: 'list', degrees: reading.degrees, period },
     mapping: { rootKey: 60 },
   });
 }
