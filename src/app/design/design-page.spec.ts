@@ -1,10 +1,11 @@
 import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { MatDialog } from '@angular/material/dialog';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import { of } from 'rxjs';
+import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { Session } from '../auth/session';
 import { decodeDesign, encodeDesign } from './design-address';
 import { DesignPage } from './design-page';
@@ -43,6 +44,16 @@ describe('DesignPage', () => {
     return { harness, element, nameInput: () => element.querySelector<HTMLInputElement>('app-design-field.name input')! };
   }
 
+  /** The one request for `url`, once the page has sent it. */
+  async function requestFor(url: string): Promise<TestRequest> {
+    const sent = await waitFor(`a request for ${url}`, () => {
+      const found = http.match(url);
+      return found.length > 0 ? found : null;
+    });
+    expect(sent.length).withContext(`requests for ${url}`).toBe(1);
+    return sent[0];
+  }
+
   it('shows the designer signed out, with a sign-in that comes back to this very design', async () => {
     const { element } = await open('/design', null);
     expect(element.querySelector('h1')?.textContent).toBe('Design a scale');
@@ -67,11 +78,18 @@ describe('DesignPage', () => {
 
     nameInput().value = 'Bookmarked again';
     nameInput().dispatchEvent(new Event('input'));
-    await new Promise((resolve) => setTimeout(resolve, 600));
-    await harness.fixture.whenStable();
-    const address = new URL(TestBed.inject(Router).url, 'http://keyloom.test');
-    expect(decodeDesign(address.searchParams.get('d')!)).toEqual({ ...design, name: 'Bookmarked again' });
-  });
+    const router = TestBed.inject(Router);
+    const written = await waitFor(
+      'the address to hold the new name',
+      () => {
+        const d = new URL(router.url, 'http://keyloom.test').searchParams.get('d');
+        const held = d ? decodeDesign(d) : null;
+        return typeof held === 'object' && held?.name === 'Bookmarked again' ? held : null;
+      },
+      () => harness.fixture.whenStable(),
+    );
+    expect(written).toEqual({ ...design, name: 'Bookmarked again' });
+  }, patientSpecMs);
 
   it('says so when the address holds a design it cannot read, and starts a new one', async () => {
     const { element } = await open('/design?d=1.broken', null);
@@ -81,8 +99,7 @@ describe('DesignPage', () => {
 
   it('opens a saved preset with its revision, read-only for a reader, with a fork button', async () => {
     const opening = open('/presets/p-7', member);
-    await new Promise((resolve) => setTimeout(resolve));
-    http.expectOne('/api/presets/p-7').flush({
+    (await requestFor('/api/presets/p-7')).flush({
       id: 'p-7', name: 'Guest tuning', bandId: null, revision: 3, document: { ...newDraft(), name: 'Guest tuning' }, access: 'read',
     });
     const { harness, element, nameInput } = await opening;
@@ -93,21 +110,20 @@ describe('DesignPage', () => {
     expect(buttons.some((text) => text?.includes('Fork to my library'))).toBeTrue();
     expect(buttons.some((text) => text?.includes('Save'))).toBeFalse();
     expect(element.querySelector('fieldset')?.disabled).toBeTrue();
-  });
+  }, patientSpecMs);
 
   it('saves with Ctrl+S when signed in, asking first which library to save into', async () => {
     await open('/design', member);
     document.dispatchEvent(new KeyboardEvent('keydown', { key: 's', code: 'KeyS', ctrlKey: true, cancelable: true }));
-    await new Promise((resolve) => setTimeout(resolve));
-    http.expectOne('/api/bands').flush({ items: [] });
-  });
+    (await requestFor('/api/bands')).flush({ items: [] });
+  }, patientSpecMs);
 
   it('says why Ctrl+S cannot save for a visitor who has not signed in', async () => {
     await open('/design', null);
     document.dispatchEvent(new KeyboardEvent('keydown', { key: 's', code: 'KeyS', ctrlKey: true, cancelable: true }));
-    await new Promise((resolve) => setTimeout(resolve));
-    expect(document.querySelector('.mat-mdc-snack-bar-label')?.textContent).toContain('Sign in to save');
-  });
+    const label = await waitFor('a snack bar', () => document.querySelector('.mat-mdc-snack-bar-label'));
+    expect(label.textContent).toContain('Sign in to save');
+  }, patientSpecMs);
 
   it('switches tabs with Alt and a number', async () => {
     const { harness, element } = await open('/design', null);

@@ -1,5 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { renderExport } from '@shared/export/export-catalogue';
+import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { DesignState } from '../design/design-state';
 import { LiveFollow, followDebounceMs } from './live-follow';
 import { MidiAccess, midiAccessFaults } from './midi-access';
@@ -81,20 +82,21 @@ describe('TuningSender and LiveFollow', () => {
     follow.start();
     state.setMappingField('rootHz', 262);
     TestBed.tick();
-    await new Promise((resolve) => setTimeout(resolve, followDebounceMs + 50));
+    // A settled edit goes out in one go, so the first message means all of them are there.
+    await waitFor(`the changed keys, sent ${followDebounceMs} ms after the edit`, () => port.sent.length > 0);
     const changedKeys = port.sent.reduce((count, message) => count + message[6], 0);
     const mapped = state.shown()!.table.keys.filter((key) => key.hz !== null).length;
     expect(changedKeys).toBe(mapped);
     port.sent = [];
     state.setScaleField('up', 6);
     TestBed.tick();
-    await new Promise((resolve) => setTimeout(resolve, followDebounceMs + 50));
+    await waitFor(`the keys the next edit changed, sent ${followDebounceMs} ms after it`, () => port.sent.length > 0);
     expect(port.sent.length).toBeGreaterThan(0);
     const keys = port.sent.flatMap((message) => Array.from({ length: message[6] }, (_, index) => message[7 + 4 * index]));
     expect(keys.length).toBeLessThan(mapped);
     expect(follow.messagesSent()).toBeGreaterThan(port.sent.length);
     expect(follow.bytesSent()).toBeGreaterThan(0);
-  });
+  }, patientSpecMs);
 
   it('explains a browser without Web MIDI and a refusal', async () => {
     request.and.callFake(() => Promise.reject(new DOMException('denied', 'SecurityError')));

@@ -123,16 +123,36 @@ describe('LibraryPage', () => {
   });
 
   it('searches by name once typing pauses', async () => {
-    await open('/library');
-    const input = page().querySelector<HTMLInputElement>('input[type="search"]')!;
-    for (const text of ['f', 'fe', 'fen']) {
-      input.value = text;
-      input.dispatchEvent(new Event('input'));
+    // The page's time is the test's to move, so "not yet" holds however slow the machine is.
+    jasmine.clock().install();
+    jasmine.clock().mockDate();
+    const noPresetRequest = () => http.expectNone((request) => request.url === '/api/presets');
+    try {
+      await open('/library');
+      // The empty search the page starts with passes its pause and asks for nothing new.
+      jasmine.clock().tick(300);
+      harness.detectChanges();
+      noPresetRequest();
+      const input = page().querySelector<HTMLInputElement>('input[type="search"]')!;
+      for (const text of ['f', 'fe', 'fen']) {
+        input.value = text;
+        input.dispatchEvent(new Event('input'));
+        harness.detectChanges();
+        jasmine.clock().tick(100);
+        harness.detectChanges();
+        noPresetRequest();
+      }
+      // 300 ms after the first key the search waits still: it counts its pause from the last key.
+      jasmine.clock().tick(199);
+      harness.detectChanges();
+      noPresetRequest();
+      jasmine.clock().tick(1);
+      harness.detectChanges();
+      // Runs the change detection Angular scheduled on the test's clock before that clock goes.
+      jasmine.clock().tick(0);
+    } finally {
+      jasmine.clock().uninstall();
     }
-    await settle();
-    http.expectNone((request) => request.url === '/api/presets');
-    await new Promise((resolve) => setTimeout(resolve, 350));
-    await settle();
     const request = presetRequest();
     expect(request.request.params.get('q')).toBe('fen');
     request.flush({ items: [], total: 0, page: 1, pageSize: 20 });

@@ -9,6 +9,7 @@ import { MatRadioButtonHarness } from '@angular/material/radio/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
+import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { Member, Session } from '../auth/session';
 import { encodeDesign } from '../design/design-address';
 import { draftFrom } from '../design/draft-document';
@@ -73,12 +74,8 @@ describe('RetunePage', () => {
   }
 
   /** Waits for work the page does outside Angular's knowledge (reading a Blob) to show. */
-  async function until(shown: () => unknown) {
-    for (let tries = 0; tries < 50 && !shown(); tries++) {
-      await new Promise((resolve) => setTimeout(resolve, 10));
-      await settle();
-    }
-    expect(shown()).toBeTruthy();
+  async function until(what: string, shown: () => unknown) {
+    await waitFor(what, shown, settle);
   }
 
   async function open(url: string, member: Member | null) {
@@ -234,8 +231,8 @@ describe('RetunePage', () => {
     expect(form.get('presetId')).toBeNull();
     expect(JSON.parse(form.get('preset') as string)).toEqual(jasmine.objectContaining({ name: 'Fen Fifths', scale: fenFifthsDocument.scale }));
     request.flush(null, { status: 500, statusText: 'Server Error' });
-    await until(() => page().querySelector('.refusal'));
-  });
+    await until('the refusal', () => page().querySelector('.refusal'));
+  }, patientSpecMs);
 
   it('shows the server\'s refusal in its own words', async () => {
     await openSignedIn();
@@ -247,12 +244,12 @@ describe('RetunePage', () => {
     // The refusal of server/routes/retune.ts for a file that starts with "PK".
     const refusal = { error: { code: 'not_midi', message: 'file: is not a Standard MIDI File; it looks like a zip archive.', field: 'file' } };
     request.flush(new Blob([JSON.stringify(refusal)], { type: 'application/json' }), { status: 400, statusText: 'Bad Request' });
-    await until(() => page().querySelector('.refusal-message'));
+    await until('the refusal\'s message', () => page().querySelector('.refusal-message'));
     expect(text('.refusal h2')).toBe('The song was not retuned');
     expect(text('.refusal-message')).toBe('file: is not a Standard MIDI File; it looks like a zip archive.');
     expect(page().querySelector('a.download')).toBeNull();
     expect(page().querySelector('button.retune')!.getAttribute('aria-disabled')).not.toBe('true');
-  });
+  }, patientSpecMs);
 
   it('reads a chosen preset file in the browser and names its faults before anything is sent', async () => {
     await open('/retune', null);
@@ -260,7 +257,7 @@ describe('RetunePage', () => {
     await choose(song());
     const broken = { ...fenFifthsDocument, scale: { kind: 'generated', generator: '1.5', up: 5 } };
     await choose(new File([JSON.stringify(broken)], 'fen-fifths.json', { type: 'application/json' }), 1);
-    await until(() => page().querySelector('.preset-faults'));
+    await until('the preset file\'s faults', () => page().querySelector('.preset-faults'));
     expect(text('.preset-faults')).toContain('scale.generator');
     pressRetune();
     await settle();
@@ -268,11 +265,14 @@ describe('RetunePage', () => {
     http.expectNone('/api/retune');
 
     await choose(new File([JSON.stringify(fenFifthsDocument)], 'fen-fifths.json', { type: 'application/json' }), 1);
-    await until(() => page().querySelector('.chosen .file-name') && text('.card:nth-child(2) .chosen').includes('Fen Fifths'));
+    await until(
+      'the preset file chosen',
+      () => page().querySelector('.chosen .file-name') && text('.card:nth-child(2) .chosen').includes('Fen Fifths'),
+    );
     const request = await retuneRequest();
     expect(JSON.parse((request.request.body as FormData).get('preset') as string)).toEqual(fenFifthsDocument);
     request.flush(new Blob([midiBytes]));
     await settle();
     expect(page().querySelector('a.download')!.getAttribute('download')).toBe('retuned-mts.mid');
-  });
+  }, patientSpecMs);
 });
