@@ -54,6 +54,18 @@ describe('the tuner sheet', () => {
     expect(text).toContain('What to dial into a tuner (A4 = 440 Hz)');
   });
 
+  it('writes "about" for an approximate ratio, and the exact ratio a tempered degree equals', async () => {
+    const meantone = preset({
+      name: 'Quarter-comma', scale: { kind: 'generated', generator: '3/2', up: 8, down: 3, temper: { comma: '81/80', fraction: '1/4' } },
+      mapping: { rootKey: 60 },
+    });
+    const text = await pdfText(await renderTunerSheet(meantone, saved));
+    // REFERENCE.md: the quarter-comma fifth is 696.578 c, 5.377 c narrow of 3/2; G# is exactly 25/16.
+    expect(text).toContain('about 3/2 (−5.4c)');
+    expect(text).toContain('25/16');
+    expect(text).not.toContain('≈');
+  });
+
   it('gives the same bytes for the same revision', async () => {
     const [a, b] = await Promise.all([renderTunerSheet(fifths, saved), renderTunerSheet(fifths, saved)]);
     expect(a.equals(b)).toBe(true);

@@ -137,7 +137,8 @@ export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Pro
     ],
     table.degrees.map((d) => [
       String(d.degree),
-      d.ratio ?? (d.approximation ? `≈ ${d.approximation.ratio}` : '—'),
+      // Written as a word: the font's Latin subset has no glyph for the approximately-equal sign.
+      d.ratio ?? (d.approximation ? `about ${d.approximation.ratio} (${d.approximation.errorCents >= 0 ? '+' : '−'}${Math.abs(d.approximation.errorCents).toFixed(1)}c)` : '—'),
       d.cents.toFixed(3),
       d.step.cents.toFixed(3),
       (rootHz * 2 ** (d.cents / 1200)).toFixed(3),

@@ -162,7 +162,9 @@ function versionFault(input: unknown): FieldError | null {
   const { version } = input;
   if (version === undefined || version === presetVersion) return null;
   const fault = `is not a version this Keyloom reads (it reads version ${presetVersion})`;
-  return fieldError('version', `${JSON.stringify(version)} ${fault}`);
+  // Quoted only when short: a huge value must not come back whole in the answer.
+  const quoted = JSON.stringify(version) ?? String(version);
+  return fieldError('version', `${quoted.length <= 40 ? quoted : 'this'} ${fault}`);
 }
 
 /**

@@ -96,7 +96,10 @@ function fault(issue: z.core.$ZodIssue): string {
 export function schemaFaults(issues: readonly z.core.$ZodIssue[]): FieldError[] {
   return issues.flatMap((issue) =>
     issue.code === 'unrecognized_keys'
-      ? issue.keys.map((key) => fieldError(fieldPath([...issue.path, key]), 'is not a field here'))
+      ? issue.keys.map((key) =>
+          // A key too long to quote is named by its start: the answer stays short.
+          fieldError(fieldPath([...issue.path, key.length > 40 ? `${key.slice(0, 40)}...` : key]), 'is not a field here'),
+        )
       : [fieldError(fieldPath(issue.path), fault(issue))],
   );
 }

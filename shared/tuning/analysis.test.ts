@@ -36,9 +36,10 @@ describe('analyzeScale', () => {
     });
     const { degrees } = analyzeScale(meantone, fromMiddleC);
     const third = degrees.find((degree) => degree.stackPosition === 4);
-    // REFERENCE.md: arithmetic (four fifths of 5^(1/4) make 5/1, two octaves above a pure 5/4)
-    expect(third?.approximation && ratioToString(third.approximation.ratio)).toBe('5/4');
-    expect(third?.approximation?.errorCents).toBeCloseTo(0, 9);
+    // REFERENCE.md: arithmetic (four fifths of 5^(1/4) make 5/1, two octaves above a pure 5/4): exactly 5/4,
+    // so the third is shown as that ratio and approximates nothing.
+    expect(third?.ratio && ratioToString(third.ratio)).toBe('5/4');
+    expect(third?.approximation).toBeNull();
     const fifth = degrees.find((degree) => degree.stackPosition === 1);
     // REFERENCE.md: standard acoustics texts (quarter-comma fifth); definition (3/2)
     expect(fifth?.approximation?.errorCents).toBeCloseTo(696.5784284662 - 701.9550008654, 9);
@@ -58,12 +59,21 @@ describe('analyzeScale', () => {
     );
   });
 
-  it('draws approximations from the odd limit it is given', () => {
-    const scale = builtScale({ kind: 'equal', divisions: 12, period: '2/1' });
-    const seventeen = analyzeScale(scale, fromMiddleC, { oddLimit: 17 });
-    expect(seventeen.oddLimit).toBe(17);
-    expect(ratioToString(seventeen.degrees[1].approximation!.ratio)).toBe('18/17');
-    const fifteen = analyzeScale(scale, fromMiddleC);
-    expect(ratioToString(fifteen.degrees[1].approximation!.ratio)).toBe('16/15');
+  it('shows a tempered degree that equals a ratio as that ratio, and names nothing that misleads', () => {
+    const meantone = builtScale({
+      kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3, temper: { comma: '81/80', fraction: '1/4' },
+    });
+    const degrees = analyzeScale(meantone, fromMiddleC).degrees;
+    const byName = (cents: number) => degrees.find((d) => Math.abs(d.cents - cents) < 0.01)!;
+    // REFERENCE: quarter-comma meantone, the eighth fifth up (G#) is exactly 25/16, 772.627 c; E is 5/4.
+    expect(ratioToString(byName(772.627).ratio!)).toBe('25/16');
+    expect(byName(772.627).approximation).toBeNull();
+    expect(ratioToString(byName(386.314).ratio!)).toBe('5/4');
+    for (const degree of degrees) {
+      if (degree.approximation) expect(Math.abs(degree.approximation.errorCents)).toBeLessThanOrEqual(6);
+    }
+    const thirtyOne = analyzeScale(builtScale({ kind: 'equal', divisions: 31, period: '2/1' }), fromMiddleC).degrees;
+    // 31 equal divisions: the first step (38.71 c) must not read "about 1/1".
+    expect(thirtyOne[1].approximation && ratioToString(thirtyOne[1].approximation.ratio)).not.toBe('1/1');
   });
 });

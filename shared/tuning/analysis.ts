@@ -1,6 +1,6 @@
 import { type Beat, beatRates } from './beats';
 import { type IntervalSize, intervalBetween } from './interval-size';
-import { type RatioApproximation, nearestRatio, simpleRatios } from './ratio-approximation';
+import { type RatioApproximation, exactRatioOf, nearestSimpleRatio } from './ratio-approximation';
 import type { Scale } from './scale';
 import type { ScaleDegree } from './scale-degrees';
 import { type StackAnalysis, analyzeStack } from './stack-analysis';
@@ -9,7 +9,7 @@ import { nearestEqualTemperedNote } from './twelve-edo';
 
 export interface DegreeAnalysis extends ScaleDegree {
   degree: number;
-  /** For a degree with no exact ratio, the nearest ratio within the odd limit; else null. */
+  /** For a degree that is no exact ratio, the simplest ratio within 6 cents (ratioSearch); else null. */
   approximation: RatioApproximation | null;
   /** The step up to the next degree (from the last degree, up to the period). */
   step: IntervalSize;
@@ -29,16 +29,7 @@ export interface ScaleAnalysis {
    * interval from degree i to degree i + j, a period higher once it passes the top.
    */
   intervalMatrix: number[][];
-  /** The odd limit the approximations were drawn from. */
-  oddLimit: number;
 }
-
-export interface AnalysisOptions {
-  /** The largest odd number allowed in the ratios that approximate tempered degrees. */
-  oddLimit: number;
-}
-
-const defaultOddLimit = 15;
 
 /** The step from each degree to the next, the last one up to the period. */
 function stepsOf(scale: Scale): IntervalSize[] {
@@ -66,23 +57,20 @@ function intervalMatrix(scale: Scale): number[][] {
 }
 
 /** Everything the designer shows about a scale played from `rootHz`, with A4 at `concertA`. */
-export function analyzeScale(
-  scale: Scale,
-  pitch: { rootHz: number; concertA: number },
-  options: AnalysisOptions = { oddLimit: defaultOddLimit },
-): ScaleAnalysis {
+export function analyzeScale(scale: Scale, pitch: { rootHz: number; concertA: number }): ScaleAnalysis {
   const steps = stepsOf(scale);
   const beats = beatRates(scale, pitch.rootHz);
-  const candidates = simpleRatios(options.oddLimit, scale.period.cents);
   const degrees = scale.degrees.map((degree, index) => {
     const hz = pitch.rootHz * 2 ** (degree.cents / 1200);
     const { name, offsetCents } = nearestEqualTemperedNote(hz, pitch.concertA);
+    // A tempered degree that equals a ratio is shown as that ratio, not as an approximation of another.
+    const ratio = degree.ratio ?? exactRatioOf(degree.cents);
     return {
       degree: index,
       cents: degree.cents,
-      ratio: degree.ratio,
+      ratio,
       stackPosition: degree.stackPosition,
-      approximation: degree.ratio ? null : nearestRatio(degree.cents, candidates),
+      approximation: ratio ? null : nearestSimpleRatio(degree.cents),
       step: steps[index],
       nearestNote: { name, offsetCents },
       fifth: beats[index].fifth,
@@ -94,6 +82,5 @@ export function analyzeScale(
     stepPattern: stepPattern(steps),
     stack: analyzeStack(scale),
     intervalMatrix: intervalMatrix(scale),
-    oddLimit: options.oddLimit,
   };
 }

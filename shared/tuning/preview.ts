@@ -6,6 +6,7 @@ import { ratioToString } from './interval';
 import type { IntervalSize } from './interval-size';
 import { type KeyTable, mapKeys } from './key-table';
 import { buildScale } from './scale';
+import { ratioSearch } from './ratio-approximation';
 
 /** An interval as JSON: its exact ratio as text ("531441/524288") or null, and its cents. */
 export interface SizeJson {
@@ -40,7 +41,8 @@ export interface PreviewTable {
   analysis: {
     size: number;
     period: SizeJson;
-    oddLimit: number;
+    /** How the `approximation` of a degree was chosen. */
+    ratioSearch: typeof ratioSearch;
     stepPattern: {
       sizes: (SizeJson & { letter: string; count: number })[];
       pattern: string;
@@ -114,7 +116,7 @@ export function previewTable(preset: ResolvedPreset): PreviewTable {
     analysis: {
       size: scale.degrees.length,
       period: sizeJson(scale.period),
-      oddLimit: analysis.oddLimit,
+      ratioSearch,
       stepPattern: {
         sizes: stepPattern.sizes.map((size) => ({
           ...sizeJson(size),

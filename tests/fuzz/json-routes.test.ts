@@ -78,7 +78,7 @@ const hostile: fc.Arbitrary<unknown> = fc.oneof(
   fc.constantFrom('1e308', '2147483648', '9'.repeat(400), '-1', '1.5', 'NaN', 'Infinity'),
   fc.constantFrom(() => Array.from({ length: 100_000 }, () => 1.5), () => Array.from({ length: 30_000 }, () => '3/2')).map((make) => make()),
   fc.constantFrom(() => 'x'.repeat(400_000), () => '3/2 '.repeat(100_000)).map((make) => make()),
-  fc.constantFrom(null, true, {}, [], { '\u0000': 1 }),
+  fc.constantFrom(null, true, {}, [], { '\u0000': 1 }, { ['k'.repeat(300_000)]: 1 }),
 );
 
 /** The paths of the leaves and objects in a value, where a hostile value can go. */

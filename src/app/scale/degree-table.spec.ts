@@ -35,8 +35,13 @@ describe('DegreeTable', () => {
     expect(second[6]).toBe('294.329');
   });
 
-  it('shows the nearest simple ratio of a tempered degree as an approximation', () => {
+  it('shows the simplest ratio within 6 cents of a tempered degree as an approximation, and none past that', () => {
     const rows = render({ kind: 'equal', divisions: 12 });
-    expect(rows[4][1]).toBe('≈ 5/4 (+13.7¢)');
+    // The equal-tempered fifth is 1.955 cents narrow of 3/2 (REFERENCE: 1200 log2(3/2) = 701.955).
+    expect(rows[7][1]).toBe('≈ 3/2 (−2.0¢)');
+    // 5/4 lies 13.7 cents from the equal-tempered third: too far to name; 63/50 lies within 0.1 cent.
+    expect(rows[4][1]).toBe('≈ 63/50 (−0.1¢)');
+    // Nothing of the 7-limit with terms up to 256 lies within 6 cents of the tritone.
+    expect(rows[6][1]).toBe('–');
   });
 });
