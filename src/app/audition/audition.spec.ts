@@ -14,11 +14,13 @@ describe('Audition', () => {
   });
 
   it('plays a key at its mapped frequency, and in equal temperament only when comparing', () => {
-    // The starting design lays 1/1 9/8 81/64 4/3 3/2 ... on consecutive keys from C4 (key 60), so key 64 plays 3/2.
-    // REFERENCE.md: G 3/2 above equal-tempered C4 is 392.4383 Hz; equal-tempered E4 (key 64) is 329.6276 Hz.
-    expect(audition.hzOfKey(64)).toBeCloseTo(392.4383, 4);
+    // The starting design lays 1/1 9/8 81/64 4/3 3/2 ... on their nearest keys from C4 (key 60): key 67 plays 3/2.
+    // REFERENCE.md: G 3/2 above equal-tempered C4 is 392.4383 Hz, E 81/64 331.1199 Hz; equal-tempered G4 (key 67)
+    // is 391.9954 Hz.
+    expect(audition.hzOfKey(67)).toBeCloseTo(392.4383, 4);
+    expect(audition.hzOfKey(64)).toBeCloseTo(331.1199, 4);
     audition.setCompare(true);
-    expect(audition.hzOfKey(64)).toBeCloseTo(329.6276, 4);
+    expect(audition.hzOfKey(67)).toBeCloseTo(391.9954, 4);
   });
 
   it('holds released keys while sustain is on and lets them go with it', () => {
@@ -52,15 +54,16 @@ describe('PlayPanel', () => {
     key('KeyD');
     expect(press).toHaveBeenCalledWith(62);
     key('KeyD', 'keyup');
+    // The starting design's seven degrees lie on their nearest keys, twelve keys a period: X moves up by twelve.
     key('KeyX');
     key('KeyA');
-    expect(press).toHaveBeenCalledWith(67);
+    expect(press).toHaveBeenCalledWith(72);
     const field = document.createElement('input');
     document.body.append(field);
     key('KeyS', 'keydown', field);
     field.remove();
     expect(press).toHaveBeenCalledTimes(2);
     await fixture.whenStable();
-    expect(fixture.nativeElement.textContent).toContain('play keys 67–89');
+    expect(fixture.nativeElement.textContent).toContain('play keys 72–94');
   });
 });

@@ -33,7 +33,25 @@ describe('DesignState', () => {
     expect(state.draft().scale).toEqual({ kind: 'generated', generator: '3/2', period: '2/1', up: 11, down: 1 });
   });
 
+  it('starts a scale of fewer than 12 degrees on its nearest keys, and follows the scale until keys are laid by hand', () => {
+    // Five fifths up and one down from C: F C G D A E B on the white keys (from memory: the diatonic white keys).
+    expect(state.layout()).toEqual([0, null, 1, null, 2, 3, null, 4, null, 5, null, 6]);
+    expect(state.nearestKeysByDefault()).toBeTrue();
+    state.setScaleField('up', 6);
+    expect(state.layout()).toEqual([0, null, 1, null, 2, 3, 4, 5, null, 6, null, 7]);
+    state.setScaleField('up', 10);
+    // Twelve degrees: one a key again, no layout at all.
+    expect(state.layout()).toBeNull();
+    state.setScaleField('up', 5);
+    state.useConsecutiveKeys();
+    expect(state.nearestKeysByDefault()).toBeFalse();
+    expect(state.layout()).toBeNull();
+    state.setScaleField('up', 4);
+    expect(state.layout()).toBeNull();
+  });
+
   it('grows and cuts the key layout without losing keys on the way (12, then 1, then 19)', () => {
+    state.useConsecutiveKeys();
     state.setKeysPerPeriod('12');
     expect(state.layout()).toEqual([0, 1, 2, 3, 4, 5, 6, null, null, null, null, null]);
     state.setKeysPerPeriod('1');

@@ -2,6 +2,7 @@ import { Injectable, computed, linkedSignal, signal } from '@angular/core';
 import { type ResolvedPreset, parsePresetDocument } from '@shared/preset/preset-document';
 import type { FieldError } from '@shared/result';
 import { type PreviewTable, previewTable } from '@shared/tuning/preview';
+import { buildScale } from '@shared/tuning/scale';
 import { nearestKeyLayout } from '../keys/nearest-key-layout';
 import {
   type DraftDocument,
@@ -114,6 +115,16 @@ export class DesignState {
   });
   /** True while the next key pressed on the strip becomes the anchor key. */
   readonly pickingAnchorKey = signal(false);
+  /**
+   * True while a new design lays a scale of fewer than 12 degrees in an octave on its nearest keys as it is edited
+   * (seven degrees on the white keys, not on seven keys in a row). Laying out keys by hand, or opening a saved
+   * design, turns it off.
+   */
+  readonly nearestKeysByDefault = signal(true);
+
+  constructor() {
+    this.followNearestKeys();
+  }
 
   /** The fault at a field (else the first inside it), without the path that the field already names. */
   faultAt(field: string): string | null {
@@ -131,6 +142,7 @@ export class DesignState {
     this.savedJson.set(origin ? canonicalJson(draft) : null);
     this.shelvedScales.clear();
     this.widestLayout = null;
+    this.nearestKeysByDefault.set(false);
   }
 
   /** Brings back edits that the address kept on top of the preset just opened. */
@@ -156,15 +168,18 @@ export class DesignState {
       this.shelvedScales.set(draft.scale.kind, draft.scale);
       return { ...draft, scale: this.shelvedScales.get(kind) ?? startingScale(kind) };
     });
+    this.followNearestKeys();
   }
 
   setScaleField(field: ScaleField, value: Typed | string[] | boolean | undefined): void {
     this.change((draft) => ({ ...draft, scale: withField(draft.scale, field, value) }));
+    this.followNearestKeys();
   }
 
   /** Tempers a generated scale's generator by a fraction of a comma, or stops tempering (undefined). */
   setTemper(temper: DraftTemper | undefined): void {
     this.change((draft) => ({ ...draft, scale: withField(draft.scale, 'temper', temper) }));
+    this.followNearestKeys();
   }
 
   setMappingField(field: MappingField, value: Typed | undefined): void {
@@ -224,6 +239,7 @@ export class DesignState {
       this.change((draft) => ({ ...draft, mapping: { ...draft.mapping, keysPerPeriod: typed } }));
       return;
     }
+    this.nearestKeysByDefault.set(false);
     const base = this.widestLayout ?? this.layout() ?? this.consecutiveLayout();
     const layout = Array.from({ length: typed }, (_, index) => base[index] ?? null);
     if (layout.length > base.length) this.widestLayout = layout;
@@ -232,6 +248,7 @@ export class DesignState {
 
   /** Makes the key at `index` of each block play `degree`, or nothing (null). */
   assignKey(index: number, degree: number | null): void {
+    this.nearestKeysByDefault.set(false);
     const layout = [...(this.layout() ?? this.consecutiveLayout())];
     layout[index] = degree;
     this.widestLayout = layout;
@@ -240,6 +257,7 @@ export class DesignState {
 
   /** Drops the layout: consecutive keys play consecutive degrees. */
   useConsecutiveKeys(): void {
+    this.nearestKeysByDefault.set(false);
     this.widestLayout = null;
     this.writeLayout(null);
   }
@@ -253,6 +271,24 @@ export class DesignState {
     this.widestLayout = layout;
     this.writeLayout(layout);
     return true;
+  }
+
+  /**
+   * While `nearestKeysByDefault` holds: a scale of fewer than 12 degrees with an octave period goes on its nearest
+   * keys (when no two share one); any other scale on consecutive keys. A scale that does not build yet is left as
+   * it is until it does.
+   */
+  private followNearestKeys(): void {
+    if (!this.nearestKeysByDefault() || this.readOnly()) return;
+    const { keysPerPeriod: _, layout: __, ...mapping } = this.draft().mapping;
+    const parsed = parsePresetDocument({ ...this.draft(), mapping });
+    if (!parsed.ok) return;
+    const built = buildScale(parsed.value.scale);
+    if (!built.ok) return;
+    const { degrees, period } = built.value;
+    const octave = Math.abs(period.cents - 1200) < 1e-6;
+    const layout = octave && degrees.length < 12 ? nearestKeyLayout(degrees.map((d) => d.cents), period.cents) : null;
+    this.writeLayout(layout);
   }
 
   private consecutiveLayout(): (number | null)[] {

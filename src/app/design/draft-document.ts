@@ -72,14 +72,17 @@ export function startingScale(kind: ScaleKind): DraftScale {
   }
 }
 
-/** A new design: five pure fifths up and one down from middle C, every output setting at its default. */
+/**
+ * A new design: five pure fifths up and one down from middle C on the white keys (each degree on its nearest key,
+ * as the designer lays out scales of fewer than 12 degrees), every output setting at its default.
+ */
 export function newDraft(): DraftDocument {
   return {
     format: 'keyloom.preset',
     version: 1,
     name: 'New scale',
     scale: startingScale('generated'),
-    mapping: { rootKey: 60, concertA: 440 },
+    mapping: { rootKey: 60, concertA: 440, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
     output: { deviceId: 127, program: 0, bank: 0, bendRange: 2, memberChannels: [2, 16] },
   };
 }

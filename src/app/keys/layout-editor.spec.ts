@@ -3,14 +3,31 @@ import { DesignState } from '../design/design-state';
 import { LayoutEditor } from './layout-editor';
 
 describe('LayoutEditor', () => {
-  async function render() {
+  /** The editor, with the starting design on consecutive keys (one click) unless it is to stay on its nearest keys. */
+  async function render(nearestKeys = false) {
     TestBed.configureTestingModule({ imports: [LayoutEditor], providers: [DesignState] });
+    if (!nearestKeys) TestBed.inject(DesignState).useConsecutiveKeys();
     const fixture = TestBed.createComponent(LayoutEditor);
     await fixture.whenStable();
     const element = fixture.nativeElement as HTMLElement;
     const keys = () => Array.from(element.querySelectorAll<HTMLButtonElement>('button.layout-key'));
     return { fixture, element, keys, state: TestBed.inject(DesignState) };
   }
+
+  it('starts seven degrees on their nearest keys, says so, and keeps one degree per key a click away', async () => {
+    const { fixture, element, keys, state } = await render(true);
+    expect(keys().length).toBe(12);
+    expect(keys().map((key) => key.textContent?.replace(/\s+/g, ''))).toEqual([
+      'C40', 'C#4–', 'D41', 'D#4–', 'E42', 'F43', 'F#4–', 'G44', 'G#4–', 'A45', 'A#4–', 'B46',
+    ]);
+    expect(element.querySelector('.notice')?.textContent).toContain('each degree starts on the key of its nearest');
+    const oneEach = Array.from(element.querySelectorAll('button')).find((b) => b.textContent?.trim() === 'One degree per key')!;
+    oneEach.click();
+    await fixture.whenStable();
+    expect(state.layout()).toBeNull();
+    expect(keys().length).toBe(7);
+    expect(element.querySelector('.notice')).toBeNull();
+  });
 
   it('shows one period of keys from the root, each with the degree it plays and an accessible name', async () => {
     const { keys } = await render();

@@ -34,7 +34,14 @@ interface LayoutKey {
         </button>
         <button mat-stroked-button type="button" (click)="placeOnNearestKeys()">Place degrees on nearest keys</button>
       </div>
-      @if (notice()) { <p class="notice" role="status">{{ notice() }}</p> }
+      @if (notice()) {
+        <p class="notice" role="status">{{ notice() }}</p>
+      } @else if (state.nearestKeysByDefault() && state.layout()) {
+        <p class="notice" role="status">
+          Fewer than 12 degrees in an octave: each degree starts on the key of its nearest equal-tempered note, and the
+          keys between play nothing. "One degree per key" puts them on keys in a row instead.
+        </p>
+      }
       <ol class="layout" aria-label="Keys of one period from the root key">
         @for (key of keys(); track key.index) {
           <li>
