@@ -44,7 +44,11 @@ function describeScale(scale: ResolvedPreset['scale']): string {
   switch (scale.kind) {
     case 'generated':
       return `Generator ${scale.generator} in period ${scale.period}, ${scale.up} up and ${scale.down} down` +
-        (scale.temper ? `, narrowed by ${scale.temper.fraction} of ${scale.temper.comma}` : '');
+        (Array.isArray(scale.temper)
+          ? `, ${scale.temper.filter((link) => link !== null).length} of its ${scale.temper.length} links tempered one by one`
+          : scale.temper
+            ? `, narrowed by ${scale.temper.fraction} of ${scale.temper.comma}`
+            : '');
     case 'equal':
       return `${scale.divisions} equal divisions of ${scale.period}`;
     case 'list':

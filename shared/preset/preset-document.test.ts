@@ -152,7 +152,7 @@ describe('parsePresetDocument', () => {
     const temper = { comma: '81/80', fraction: { quarter: true } };
     expect(
       faults({ ...smallest, scale: { kind: 'generated', generator: '3/2', up: 5, temper } }),
-    ).toEqual(['scale.temper.fraction: must be a fraction such as "1/4"']);
+    ).toEqual(['scale.temper.fraction: must be a fraction such as "1/4", "-1/6" or "0.25"']);
   });
 
   it('names unknown kinds and unknown fields', () => {

@@ -25,6 +25,14 @@ const interval = z
 
 const generatorCount = z.int().min(0);
 
+/** A generator narrowed by a fraction of a comma; a list of these (null: pure) tempers a chain link by link. */
+const temperLink = z.strictObject({
+  comma: interval,
+  fraction: z
+    .union([z.string().max(64), z.number()], { error: 'must be a fraction such as "1/4", "-1/6" or "0.25"' })
+    .transform(String),
+});
+
 const scaleSchema = z.discriminatedUnion('kind', [
   z.strictObject({
     kind: z.literal('generated'),
@@ -32,14 +40,7 @@ const scaleSchema = z.discriminatedUnion('kind', [
     period: interval.default('2/1'),
     up: generatorCount,
     down: generatorCount.default(0),
-    temper: z
-      .strictObject({
-        comma: interval,
-        fraction: z
-          .union([z.string(), z.number()], { error: 'must be a fraction such as "1/4"' })
-          .transform(String),
-      })
-      .optional(),
+    temper: z.union([temperLink, z.array(temperLink.nullable()).max(largestScale - 1)]).optional(),
   }),
   z.strictObject({
     kind: z.literal('equal'),

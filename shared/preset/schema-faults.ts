@@ -94,12 +94,25 @@ function fault(issue: z.core.$ZodIssue): string {
  * Turns zod issues into faults that name their field; an unknown key becomes a fault at that key.
  */
 export function schemaFaults(issues: readonly z.core.$ZodIssue[]): FieldError[] {
-  return issues.flatMap((issue) =>
-    issue.code === 'unrecognized_keys'
+  return issues.flatMap((issue) => {
+    const inner = shapeMatchedOption(issue);
+    if (inner) return schemaFaults(inner.map((option) => ({ ...option, path: [...issue.path, ...option.path] })));
+    return issue.code === 'unrecognized_keys'
       ? issue.keys.map((key) =>
           // A key too long to quote is named by its start: the answer stays short.
           fieldError(fieldPath([...issue.path, key.length > 40 ? `${key.slice(0, 40)}...` : key]), 'is not a field here'),
         )
-      : [fieldError(fieldPath(issue.path), fault(issue))],
-  );
+      : [fieldError(fieldPath(issue.path), fault(issue))];
+  });
+}
+
+/**
+ * For a plain union (a temper that is one link or a list of links), the faults of the one option whose shape the
+ * input has: its faults lie inside the value rather than at the value itself. Null when no single option fits.
+ */
+function shapeMatchedOption(issue: z.core.$ZodIssue): z.core.$ZodIssue[] | null {
+  if (issue.code !== 'invalid_union' || ('discriminator' in issue && issue.discriminator)) return null;
+  const options = 'errors' in issue && Array.isArray(issue.errors) ? (issue.errors as z.core.$ZodIssue[][]) : [];
+  const fitting = options.filter((option) => option.length > 0 && option.every((inner) => inner.path.length > 0));
+  return fitting.length === 1 ? fitting[0] : null;
 }

@@ -133,9 +133,11 @@ describe('generated scales', () => {
         down: 0,
         temper: { comma, fraction },
       });
-    expect(tempered('81/80', '0')).toEqual(['scale.temper.fraction: 0 is not a fraction above 0']);
-    expect(tempered('81/80', '0.25')).toEqual([
-      'scale.temper.fraction: "0.25" is not a fraction: write one such as 1/4',
+    expect(tempered('81/80', 'a quarter')).toEqual([
+      'scale.temper.fraction: "a quarter" is not a fraction: write one such as 1/4, -1/6 or 0.25',
+    ]);
+    expect(tempered('81/80', '0.1234567')).toEqual([
+      'scale.temper.fraction: "0.1234567" is not a fraction: write one such as 1/4, -1/6 or 0.25',
     ]);
     expect(tempered('1/1', '1/4')).toEqual([
       'scale.temper.comma: 1/1 is a unison, so it tempers nothing',

@@ -5,7 +5,7 @@ import type { Beat } from './beats';
 import { ratioToString } from './interval';
 import type { IntervalSize } from './interval-size';
 import { type KeyTable, mapKeys } from './key-table';
-import { buildScale } from './scale';
+import { buildScale, type Scale } from './scale';
 import { ratioSearch } from './ratio-approximation';
 
 /** An interval as JSON: its exact ratio as text ("531441/524288") or null, and its cents. */
@@ -54,6 +54,11 @@ export interface PreviewTable {
       comma: SizeJson;
       wolf: (SizeJson & { from: number; to: number; deviationCents: number }) | null;
       mosSizes: number[];
+      /**
+       * The chain from its lowest note up: each link from one stack position to the next, its size and how far it
+       * lies from the generator as written (negative: narrowed).
+       */
+      chain: (SizeJson & { from: number; to: number; deviationCents: number })[];
     } | null;
     intervalMatrix: number[][];
   };
@@ -83,6 +88,18 @@ function mtsRangeWarning(keys: KeyTable): FieldError[] {
   const which = outside.length === 1 ? `key ${outside[0]} lies` : `keys ${keyRuns(outside)} lie`;
   const range = 'outside the pitches MTS can express (8.1758 to 13289.6566 Hz)';
   return [fieldError('mapping', `${which} ${range}`)];
+}
+
+function chainJson(scale: Scale): NonNullable<PreviewTable['analysis']['stack']>['chain'] {
+  if (!scale.chain) return [];
+  const lowest = Math.min(...scale.degrees.map((degree) => degree.stackPosition ?? 0));
+  const { pure, links } = scale.chain;
+  return links.map((link, index) => ({
+    from: lowest + index,
+    to: lowest + index + 1,
+    ...sizeJson(link),
+    deviationCents: link.cents - pure.cents,
+  }));
 }
 
 /**
@@ -137,6 +154,7 @@ export function previewTable(preset: ResolvedPreset): PreviewTable {
           deviationCents: stack.wolf.deviationCents,
         },
         mosSizes: stack.mosSizes,
+        chain: chainJson(scale),
       },
       intervalMatrix: analysis.intervalMatrix,
     },

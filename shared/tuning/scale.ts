@@ -15,13 +15,26 @@ export type ScaleSpec =
       period: string;
       up: number;
       down: number;
-      temper?: { comma: string; fraction: string };
+      /** One fraction of a comma for every generator, or one link each from the chain's lowest note up (null: pure). */
+      temper?: TemperLink | (TemperLink | null)[];
     }
   | { kind: 'equal'; divisions: number; period: string }
   | { kind: 'list'; degrees: string[]; period: string }
   | { kind: 'harmonic'; from: number; to: number; sub: boolean };
 
 type ScaleKind = ScaleSpec['kind'];
+
+/** A generator narrowed by a fraction of a comma (a negative fraction widens it). */
+export interface TemperLink {
+  comma: string;
+  fraction: string;
+}
+
+/** A generated scale's chain: the generator as written, and each link's size from the lowest note up. */
+export interface Chain {
+  pure: IntervalSize;
+  links: IntervalSize[];
+}
 
 /**
  * A built scale: its degrees inside one period, sorted from the tonic (degree 0, always unison)
@@ -33,8 +46,13 @@ export interface Scale {
   kind: ScaleKind;
   degrees: ScaleDegree[];
   period: IntervalSize;
-  /** The generator as stacked, after any tempering, for generated scales; null for other kinds. */
+  /**
+   * The generator as stacked for generated scales: tempered when one fraction tempers every link, as written when
+   * the links are tempered one by one (each link's size is in `chain`); null for other kinds.
+   */
   generator: IntervalSize | null;
+  /** For generated scales, the chain of links; null for other kinds. */
+  chain?: Chain | null;
   warnings: FieldError[];
 }
 

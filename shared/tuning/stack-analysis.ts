@@ -83,15 +83,14 @@ export function analyzeStack(scale: Scale): StackAnalysis | null {
   const positions = degrees.map((degree) => degree.stackPosition ?? 0);
   const top = positions.indexOf(Math.max(...positions));
   const bottom = positions.indexOf(Math.min(...positions));
+  // The step from the top of the chain round to its bottom: the one that closes the circle. With one generator
+  // throughout it misses the generator by the comma; a chain tempered link by link may close it exactly.
+  const closing = reduceIntoPeriod(intervalBetween(degrees[top], degrees[bottom]), period).reduced;
+  let deviationCents = closing.cents - reducedGenerator.cents;
+  if (deviationCents > period.cents / 2) deviationCents -= period.cents;
+  if (deviationCents < -period.cents / 2) deviationCents += period.cents;
   const wolf =
-    size < 2 || Math.abs(comma.cents) < sameSizeCents
-      ? null
-      : {
-          from: top,
-          to: bottom,
-          size: reduceIntoPeriod(repeatInterval(generator, 1 - size), period).reduced,
-          deviationCents: -comma.cents,
-        };
+    size < 2 || Math.abs(deviationCents) < sameSizeCents ? null : { from: top, to: bottom, size: closing, deviationCents };
   return {
     generator,
     reducedGenerator,
