@@ -40,6 +40,9 @@ export function sameSize(a: IntervalSize, b: IntervalSize): boolean {
   return Math.abs(a.cents - b.cents) < sameSizeCents;
 }
 
+/** The largest power of the period, in bits, that reducing into the period computes exactly. */
+const largestExactPowerBits = 4096;
+
 /**
  * Brings an interval into [unison, period) by whole periods, and says how many periods it took
  * (negative when it had to go up). An exact ratio is divided by period^k at once, k estimated from
@@ -51,7 +54,10 @@ export function reduceIntoPeriod(
   period: IntervalSize,
 ): { reduced: IntervalSize; periods: number } {
   let periods = Math.floor(interval.cents / period.cents);
-  if (interval.ratio && period.ratio) {
+  // Exact only while period^k stays small: a huge interval in a tiny period (1/10^60 in 81/80) would need powers
+  // of tens of thousands of bits, and is measured in cents instead.
+  const periodBits = period.ratio ? Math.max(period.ratio.n.toString(2).length, period.ratio.d.toString(2).length) : 0;
+  if (interval.ratio && period.ratio && Math.abs(periods) * periodBits <= largestExactPowerBits) {
     let reduced = interval.ratio.div(period.ratio.pow(periods));
     if (reduced.compare(1) < 0) {
       reduced = reduced.mul(period.ratio);

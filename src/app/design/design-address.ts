@@ -102,6 +102,9 @@ export class DesignAddress {
     toObservable(this.encoded, { injector: this.injector })
       .pipe(debounceTime(addressDelayMs), distinctUntilChanged(), takeUntilDestroyed(this.destroyRef))
       .subscribe((d) => {
+        // A navigation under way (the musician went to another page while typing paused) must not be overtaken by
+        // this rewrite, which would bring them back here; the page it leaves is being left anyway.
+        if (this.router.currentNavigation()) return;
         void this.router.navigate([], {
           relativeTo: this.route,
           queryParams: { d },

@@ -41,7 +41,7 @@ type OutputField = 'deviceId' | 'program' | 'bank' | 'tuningName' | 'bendRange';
 /** The document paths that have a field of their own; faults elsewhere are listed above the analysis. */
 const fieldPaths = [
   'name', 'scale.generator', 'scale.period', 'scale.up', 'scale.down', 'scale.temper.comma',
-  'scale.temper.fraction', 'scale.divisions', 'scale.degrees', 'scale.from', 'scale.to', 'scale.sub',
+  'scale.temper.fraction', 'scale.temper', 'scale.divisions', 'scale.degrees', 'scale.from', 'scale.to', 'scale.sub',
   'mapping.rootKey', 'mapping.rootHz', 'mapping.concertA', 'mapping.keysPerPeriod', 'mapping.layout', 'mapping.anchor',
   'output.deviceId', 'output.program', 'output.bank', 'output.tuningName', 'output.bendRange',
   'output.memberChannels',
@@ -59,6 +59,20 @@ function canonicalJson(value: unknown): string {
       ? Object.fromEntries(Object.entries(inner).sort(([a], [b]) => a.localeCompare(b)))
       : inner,
   );
+}
+
+/**
+ * After `up` or `down` changed, the chain's links keep their places between the same notes: links that no longer
+ * exist go, new ones start pure. Nothing changes unless the chain is tempered link by link.
+ */
+function withChainLength(before: DraftScale, after: DraftScale): DraftScale {
+  if (before.kind !== 'generated' || after.kind !== 'generated' || !Array.isArray(after.temper)) return after;
+  const count = (value: Typed | undefined) => (typeof value === 'number' && Number.isInteger(value) && value >= 0 ? value : null);
+  const [downBefore, upAfter, downAfter] = [count(before.down ?? 0), count(after.up), count(after.down ?? 0)];
+  if (downBefore === null || upAfter === null || downAfter === null) return after;
+  const links = after.temper;
+  const temper = Array.from({ length: upAfter + downAfter }, (_, index) => links[index - downAfter + downBefore] ?? null);
+  return { ...after, temper };
 }
 
 /** Sets a field, or removes it when the value is undefined. */
@@ -172,12 +186,18 @@ export class DesignState {
   }
 
   setScaleField(field: ScaleField, value: Typed | string[] | boolean | undefined): void {
-    this.change((draft) => ({ ...draft, scale: withField(draft.scale, field, value) }));
+    this.change((draft) => {
+      const scale = withField(draft.scale, field, value);
+      return { ...draft, scale: field === 'up' || field === 'down' ? withChainLength(draft.scale, scale) : scale };
+    });
     this.followNearestKeys();
   }
 
-  /** Tempers a generated scale's generator by a fraction of a comma, or stops tempering (undefined). */
-  setTemper(temper: DraftTemper | undefined): void {
+  /**
+   * Tempers a generated scale: every generator by one fraction of a comma, the chain link by link (a list from its
+   * lowest note up, null for a pure link), or not at all (undefined).
+   */
+  setTemper(temper: DraftTemper | (DraftTemper | null)[] | undefined): void {
     this.change((draft) => ({ ...draft, scale: withField(draft.scale, 'temper', temper) }));
     this.followNearestKeys();
   }

@@ -14,7 +14,15 @@ export interface DraftTemper {
 }
 
 export type DraftScale =
-  | { kind: 'generated'; generator: string; period: string; up?: Typed; down?: Typed; temper?: DraftTemper }
+  | {
+      kind: 'generated';
+      generator: string;
+      period: string;
+      up?: Typed;
+      down?: Typed;
+      /** One fraction for every generator, or one link each from the chain's lowest note up (null: pure). */
+      temper?: DraftTemper | (DraftTemper | null)[];
+    }
   | { kind: 'equal'; divisions?: Typed; period: string }
   | { kind: 'list'; degrees: string[]; period: string }
   | { kind: 'harmonic'; from?: Typed; to?: Typed; sub?: boolean };

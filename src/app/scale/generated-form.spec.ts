@@ -51,7 +51,9 @@ describe('GeneratedForm', () => {
 
   it('tempers the generator by a quarter of 81/80 when asked, and names the narrowed size', async () => {
     const { element, fixture, state } = await render();
-    element.querySelector<HTMLInputElement>('mat-checkbox input')!.click();
+    Array.from(element.querySelectorAll<HTMLButtonElement>('mat-button-toggle button'))
+      .find((button) => button.textContent?.includes('Temper every generator alike'))!
+      .click();
     await fixture.whenStable();
     expect(state.draft().scale).toEqual(jasmine.objectContaining({ temper: { comma: '81/80', fraction: '1/4' } }));
     // 3/2 narrowed by 1/4 of 81/80 is 696.578c (DESIGN.md, "Scale kinds").

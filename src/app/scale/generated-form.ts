@@ -1,15 +1,22 @@
 import { Component, computed, inject } from '@angular/core';
-import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { DesignField } from '../design/design-field';
 import { DesignState } from '../design/design-state';
-import { type DraftScale, typedFrom, typedText } from '../design/draft-document';
+import { type DraftScale, type DraftTemper, typedFrom, typedText } from '../design/draft-document';
+import { ChainEditor } from './chain-editor';
+
+/** Pure generators, one fraction of a comma for all of them, or a fraction (or none) for each link of the chain. */
+type Tempering = 'pure' | 'every' | 'links';
 
 type GeneratedScale = Extract<DraftScale, { kind: 'generated' }>;
 
-/** A stack of generators: how many above and below the tonic, and an optional tempering by a comma. */
+/**
+ * A stack of generators: how many above and below the tonic, and how they are tempered: not at all, all alike by a
+ * fraction of a comma, or link by link (well temperaments).
+ */
 @Component({
   selector: 'app-generated-form',
-  imports: [DesignField, MatCheckboxModule],
+  imports: [DesignField, MatButtonToggleModule, ChainEditor],
   template: `
     @if (scale(); as scale) {
       <div class="fields">
@@ -23,10 +30,15 @@ type GeneratedScale = Extract<DraftScale, { kind: 'generated' }>;
         <app-design-field label="Generators down" path="scale.down" inputMode="numeric" [value]="text(scale.down)"
                           (edited)="state.setScaleField('down', typedFrom($event))" hint="Stacked below the tonic" />
       </div>
-      <mat-checkbox [checked]="!!scale.temper" (change)="temper($event.checked)" [disabled]="state.readOnly()">
-        Temper the generator by part of a comma
-      </mat-checkbox>
-      @if (scale.temper; as temper) {
+      <mat-button-toggle-group class="tempering" [value]="tempering()" (change)="temper($event.value)"
+                               [disabled]="state.readOnly()" aria-label="Tempering">
+        <mat-button-toggle value="pure">Pure generators</mat-button-toggle>
+        <mat-button-toggle value="every">Temper every generator alike</mat-button-toggle>
+        <mat-button-toggle value="links">Temper link by link</mat-button-toggle>
+      </mat-button-toggle-group>
+      @if (tempering() === 'links') {
+        <app-chain-editor />
+      } @else if (uniformTemper(); as temper) {
         <div class="fields">
           <app-design-field label="Comma" path="scale.temper.comma" [value]="temper.comma"
                             (edited)="state.setTemper({ comma: $event, fraction: temper.fraction })"
@@ -41,7 +53,7 @@ type GeneratedScale = Extract<DraftScale, { kind: 'generated' }>;
   styles: `
     :host { display: block; }
     .fields { display: grid; gap: 4px 16px; grid-template-columns: repeat(auto-fill, minmax(150px, 1fr)); margin-bottom: 8px; }
-    mat-checkbox { display: block; margin: 0 0 12px -8px; }
+    .tempering { margin: 0 0 12px; flex-wrap: wrap; }
   `,
 })
 export class GeneratedForm {
@@ -58,7 +70,27 @@ export class GeneratedForm {
     return `How much of it each generator gives up, such as 1/4${narrowed}`;
   });
 
-  protected temper(on: boolean): void {
-    this.state.setTemper(on ? { comma: '81/80', fraction: '1/4' } : undefined);
+  protected readonly tempering = computed<Tempering>(() => {
+    const temper = this.scale()?.temper;
+    return Array.isArray(temper) ? 'links' : temper ? 'every' : 'pure';
+  });
+  protected readonly uniformTemper = computed(() => {
+    const temper = this.scale()?.temper;
+    return temper && !Array.isArray(temper) ? temper : null;
+  });
+
+  /**
+   * Switches the tempering. Every generator alike starts at a quarter of 81/80 (quarter-comma meantone); link by
+   * link starts from what there was: each link tempered as every generator was, or every link pure.
+   */
+  protected temper(tempering: Tempering): void {
+    const scale = this.scale();
+    if (!scale) return;
+    if (tempering === 'pure') return this.state.setTemper(undefined);
+    if (tempering === 'every') return this.state.setTemper({ comma: '81/80', fraction: '1/4' });
+    const uniform = this.uniformTemper();
+    const linkCount = Number(scale.up ?? 0) + Number(scale.down ?? 0);
+    const links: (DraftTemper | null)[] = Array.from({ length: Number.isInteger(linkCount) ? linkCount : 0 }, () => uniform && { ...uniform });
+    this.state.setTemper(links);
   }
 }
