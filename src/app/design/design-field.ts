@@ -12,7 +12,7 @@ import { FieldFault } from './field-fault';
   selector: 'app-design-field',
   imports: [MatFormFieldModule, MatInputModule, FieldFault],
   template: `
-    <mat-form-field [subscriptSizing]="'dynamic'">
+    <mat-form-field [subscriptSizing]="'dynamic'" [floatLabel]="floatLabel()">
       <mat-label>{{ label() }}</mat-label>
       <input matInput #field [value]="value()" (input)="edited.emit(field.value)" [appFault]="fault()"
              [attr.inputmode]="inputMode()" [placeholder]="placeholder()" [readonly]="state.readOnly()"
@@ -34,6 +34,8 @@ export class DesignField {
   readonly placeholder = input<string>('');
   readonly suffix = input<string>('');
   readonly inputMode = input<'text' | 'numeric' | 'decimal'>('text');
+  /** `always` keeps the label above the field, so that a placeholder shows in an empty one. */
+  readonly floatLabel = input<'auto' | 'always'>('auto');
   readonly maxLength = input<number | null>(null);
   readonly edited = output<string>();
   protected readonly fault = computed(() => this.state.faultAt(this.path()));

@@ -61,7 +61,7 @@ const centre = 140;
               <th scope="row">{{ row.name }}</th>
               <td>
                 <app-design-field [label]="'Link ' + row.name" [path]="'scale.temper[' + row.index + ']'" [value]="row.fraction"
-                                  (edited)="setLink(row.index, $event)" placeholder="pure" />
+                                  (edited)="setLink(row.index, $event)" placeholder="pure" floatLabel="always" />
               </td>
               <td class="number">{{ row.sizeText }}</td>
               <td class="number" [class.narrow]="(row.deviation ?? 0) < -0.0005" [class.wide]="(row.deviation ?? 0) > 0.0005">
@@ -164,7 +164,8 @@ export class ChainEditor {
     const chord = (from: number, to: number, deviation: number, gap: boolean) => {
       const [a, b] = [point(from), point(to)];
       const label = point(from + (to === 0 ? count - from : to - from) / 2, circleRadius - 26);
-      const text = Math.abs(deviation) < 0.0005 ? '0' : deviation.toFixed(1).replace('-', '−');
+      // Pure links go unlabelled: the numbers are where the tempering is.
+      const text = Math.abs(deviation) < 0.0005 ? '' : deviation.toFixed(1).replace('-', '−');
       return { x1: a.x, y1: a.y, x2: b.x, y2: b.y, deviation, gap, label: text, labelX: label.x, labelY: label.y + 3 };
     };
     const links = chain.map((link, index) => chord(index, index + 1, link.deviationCents, false));
