@@ -7,6 +7,9 @@ import type { IntervalSize } from './interval-size';
 import { type KeyTable, mapKeys } from './key-table';
 import { buildScale, type Scale } from './scale';
 import { ratioSearch } from './ratio-approximation';
+import { isChainOfFifths } from './chain-names';
+import { chainIntervalName, degreeNames } from './degree-names';
+import { reduceIntoPeriod } from './interval-size';
 
 /** An interval as JSON: its exact ratio as text ("531441/524288") or null, and its cents. */
 export interface SizeJson {
@@ -15,6 +18,8 @@ export interface SizeJson {
 }
 
 export interface PreviewDegree extends SizeJson {
+  /** What the degree is called: along the chain of fifths, in ups and downs, or by step; no two alike. */
+  name: string;
   degree: number;
   /** For a degree with no exact ratio, the nearest ratio within the odd limit, and the error. */
   approximation: { ratio: string; errorCents: number } | null;
@@ -52,7 +57,8 @@ export interface PreviewTable {
       generator: SizeJson;
       reducedGenerator: SizeJson;
       comma: SizeJson;
-      wolf: (SizeJson & { from: number; to: number; deviationCents: number }) | null;
+      /** `name`: for a chain of fifths, the interval the wolf is, such as `diminished sixth G♯–E♭`; else null. */
+      wolf: (SizeJson & { from: number; to: number; deviationCents: number; name: string | null }) | null;
       mosSizes: number[];
       /**
        * The chain from its lowest note up: each link from one stack position to the next, its size and how far it
@@ -90,6 +96,17 @@ function mtsRangeWarning(keys: KeyTable): FieldError[] {
   return [fieldError('mapping', `${which} ${range}`)];
 }
 
+/** The wolf as the interval it is along a chain of fifths (`diminished sixth G♯–E♭`); null for other chains. */
+function wolfName(scale: Scale, names: string[], from: number, to: number): string | null {
+  const { generator, period, degrees } = scale;
+  if (!generator) return null;
+  const reduced = reduceIntoPeriod(generator, period).reduced.cents;
+  if (!isChainOfFifths(reduced, period.cents)) return null;
+  const direction = reduced < 600 ? -1 : 1;
+  const fifths = direction * ((degrees[to].stackPosition ?? 0) - (degrees[from].stackPosition ?? 0));
+  return `${chainIntervalName(fifths)} ${names[from]}–${names[to]}`;
+}
+
 function chainJson(scale: Scale): NonNullable<PreviewTable['analysis']['stack']>['chain'] {
   if (!scale.chain) return [];
   const lowest = Math.min(...scale.degrees.map((degree) => degree.stackPosition ?? 0));
@@ -115,9 +132,11 @@ export function previewTable(preset: ResolvedPreset): PreviewTable {
   const analysis = analyzeScale(scale, preset.mapping);
   const table = mapKeys(scale, preset.mapping);
   const { stack, stepPattern } = analysis;
+  const names = degreeNames(scale, preset.mapping.rootKey % 12);
   return {
     degrees: analysis.degrees.map((degree) => ({
       degree: degree.degree,
+      name: names[degree.degree],
       ratio: degree.ratio && ratioToString(degree.ratio),
       cents: degree.cents,
       approximation: degree.approximation && {
@@ -152,6 +171,7 @@ export function previewTable(preset: ResolvedPreset): PreviewTable {
           to: stack.wolf.to,
           ...sizeJson(stack.wolf.size),
           deviationCents: stack.wolf.deviationCents,
+          name: wolfName(scale, names, stack.wolf.from, stack.wolf.to),
         },
         mosSizes: stack.mosSizes,
         chain: chainJson(scale),

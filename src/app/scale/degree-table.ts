@@ -5,6 +5,7 @@ import { centsText, signedCentsText } from './cents-text';
 
 interface DegreeRow {
   degree: number;
+  name: string;
   ratio: string;
   approximate: boolean;
   cents: string;
@@ -28,6 +29,7 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
   const approximation = degree.approximation;
   return {
     degree: degree.degree,
+    name: degree.name,
     ratio: degree.ratio ?? (approximation ? `≈ ${approximation.ratio} (${signedCentsText(approximation.errorCents)})` : '–'),
     approximate: degree.ratio === null,
     cents: centsText(degree.cents),
@@ -40,7 +42,7 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
   };
 }
 
-/** Every degree of the scale: its ratio, cents, the step up from it, its nearest note and pitch. */
+/** Every degree of the scale: its name, ratio, cents, the step up from it, its nearest note and pitch. */
 @Component({
   selector: 'app-degree-table',
   imports: [MatTableModule],
@@ -51,6 +53,10 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
         <ng-container matColumnDef="degree">
           <th mat-header-cell *matHeaderCellDef scope="col">Degree</th>
           <td mat-cell *matCellDef="let row">{{ row.degree }}</td>
+        </ng-container>
+        <ng-container matColumnDef="name">
+          <th mat-header-cell *matHeaderCellDef scope="col">Name</th>
+          <td mat-cell *matCellDef="let row">{{ row.name }}</td>
         </ng-container>
         <ng-container matColumnDef="ratio">
           <th mat-header-cell *matHeaderCellDef scope="col">Ratio</th>
@@ -100,7 +106,7 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
 export class DegreeTable {
   readonly degrees = input.required<PreviewDegree[]>();
   readonly rootHz = input.required<number>();
-  protected readonly columns = ['degree', 'ratio', 'cents', 'step', 'note', 'offset', 'hz', 'fifthBeats', 'thirdBeats'];
+  protected readonly columns = ['degree', 'name', 'ratio', 'cents', 'step', 'note', 'offset', 'hz', 'fifthBeats', 'thirdBeats'];
   protected readonly trackDegree = (_index: number, row: DegreeRow) => row.degree;
   protected readonly rows = computed(() => this.degrees().map((degree) => rowOf(degree, this.rootHz())));
 }

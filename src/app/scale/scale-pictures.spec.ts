@@ -54,6 +54,9 @@ describe('The pictures of a scale', () => {
     // Seven fifths up overshoot four octaves by 2187/2048 (arithmetic: 3^7 / 2^11).
     expect(said['Comma']).toBe('2187/2048 (113.685¢)');
     expect(said['Wolf']).toContain('degree 6 to degree 3');
+    // The wolf runs from B up to F: the diminished fifth 1024/729 (588.270c), narrower than the fifth by the comma
+    // of seven notes, 2187/2048 (113.685c; arithmetic).
+    expect(said['Wolf']).toBe('the diminished fifth B–F (degree 6 to degree 3) is 1024/729 (588.270¢), 113.685¢ narrow of the fifth');
     expect(said['MOS sizes']).toBe('2, 3, 5, 7, 12, 17, 29, 41, 53');
   });
 });

@@ -1,6 +1,6 @@
 import { Component, computed, input } from '@angular/core';
 import type { PreviewTable, SizeJson } from '@shared/tuning/preview';
-import { centsText, signedCentsText } from './cents-text';
+import { centsText } from './cents-text';
 
 function sizeText(size: SizeJson): string {
   return size.ratio ? `${size.ratio} (${centsText(size.cents)})` : centsText(size.cents);
@@ -35,8 +35,13 @@ function sizeText(size: SizeJson): string {
           <dt>Wolf</dt>
           <dd>
             @if (stack.wolf; as wolf) {
-              degree {{ wolf.from }} to degree {{ wolf.to }}: {{ sizeOf(wolf) }},
-              {{ signed(wolf.deviationCents) }} from the other generators
+              @if (wolf.name) {
+                the {{ wolf.name }} (degree {{ wolf.from }} to degree {{ wolf.to }}) is {{ sizeOf(wolf) }},
+                {{ wideOrNarrow(wolf.deviationCents) }} of the fifth
+              } @else {
+                degree {{ wolf.from }} to degree {{ wolf.to }}: {{ sizeOf(wolf) }},
+                {{ wideOrNarrow(wolf.deviationCents) }} of the generator
+              }
             } @else {
               none: the stack closes
             }
@@ -65,5 +70,8 @@ export class ScaleSummary {
   readonly table = input.required<PreviewTable>();
   protected readonly period = computed(() => sizeText(this.table().analysis.period));
   protected readonly sizeOf = sizeText;
-  protected readonly signed = signedCentsText;
+  /** A deviation in words: `41.059¢ wide`, `23.460¢ narrow`. */
+  protected wideOrNarrow(cents: number): string {
+    return `${centsText(Math.abs(cents))} ${cents >= 0 ? 'wide' : 'narrow'}`;
+  }
 }
