@@ -118,6 +118,36 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     await page.context().close();
   });
 
+  it("Werckmeister's third, A4 = 415 on the A key, sent to an instrument", async () => {
+    const page = await designer('grant');
+    await page.getByRole('radio', { name: 'Temper link by link' }).click();
+    await page.getByRole('button', { name: 'Werckmeister III' }).click();
+    await expect.poll(() => page.locator('.closing').textContent()).toContain('The circle closes');
+    await screenshot(page, 'werckmeister-chain');
+    await page.getByRole('tab', { name: 'Keys' }).click();
+    await page.getByRole('radio', { name: 'Tune one key' }).click();
+    await page.getByRole('button', { name: 'A = 415' }).click();
+    await expect.poll(() => page.locator('app-reference-pitch .summary').textContent()).toContain('Key 69 (A4) sounds 415 Hz');
+    await screenshot(page, 'werckmeister-a415-keys');
+    await openSendPanel(page);
+    await page.getByRole('button', { name: 'Send tuning' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Send and replace' }).click();
+    await expect.poll(() => page.getByText('Sent 1 message (408 bytes).').count()).toBe(1);
+
+    const document = await presetDocument(page);
+    expect(document['mapping']).toMatchObject({ anchor: { key: 69, hz: 415 } });
+    const [sent] = await sentBytes(page);
+    expect(sent).toEqual([...new Uint8Array(await (await preview('export/mts-bulk', document)).arrayBuffer())]);
+    // REFERENCE.md (MTS bulk dump): key k's frequency word at byte 22 + 3k, f = 440 * 2^((xx + (128 yy + zz) / 16384
+    // - 69) / 12). Key 69 sounds 415 Hz to within half a unit (0.003 cents).
+    const word = (key: number) => sent.slice(22 + 3 * key, 25 + 3 * key);
+    const hzOf = ([xx, yy, zz]: number[]) => 440 * 2 ** ((xx + (128 * yy + zz) / 16384 - 69) / 12);
+    expect(Math.abs(1200 * Math.log2(hzOf(word(69)) / 415))).toBeLessThan(0.0031);
+    // Werckmeister III from C: A is 888.270 c above C (Barbour, 1951; from memory), so C4 sounds 415 / 2^(888.27/1200).
+    expect(hzOf(word(60))).toBeCloseTo(415 / 2 ** (888.27 / 1200), 2);
+    await page.context().close();
+  });
+
   it('live follow sends single-note changes for exactly the keys whose pitch an edit changed', async () => {
     const page = await designer('grant');
     await openSendPanel(page);

@@ -63,7 +63,11 @@ function fillFor(degree: number, size: number, black: boolean): string {
       @if (anchorKey() !== null) {
         <span class="swatch anchor-swatch" aria-hidden="true"></span> key {{ anchorKey() }} is tuned to the reference pitch.
       }
-      @if (outsideCount() > 0) { <strong class="outside-note">{{ outsideCount() }} keys lie outside what MTS can express.</strong> }
+      @if (outsideCount() > 0) {
+        <strong class="outside-note">
+          {{ outsideCount() === 1 ? '1 key lies' : outsideCount() + ' keys lie' }} outside what MTS can express.
+        </strong>
+      }
     </p>
   `,
   styles: `
