@@ -66,6 +66,18 @@ describe('the tuner sheet', () => {
     expect(text).not.toContain('≈');
   });
 
+  it('follows the anchor: the tuned key and the root it gives', async () => {
+    const anchored = preset({
+      name: 'Quarter-comma at 415', scale: { kind: 'generated', generator: '3/2', up: 8, down: 3, temper: { comma: '81/80', fraction: '1/4' } },
+      mapping: { rootKey: 60, anchor: { key: 69, hz: 415 } },
+    });
+    const text = await pdfText(await renderTunerSheet(anchored, saved));
+    // REFERENCE.md: with A4 anchored at 415 Hz on key 69 in quarter-comma meantone, C4 = 248.2279 Hz (arithmetic).
+    expect(text).toContain('Key A4 (69) sounds 415 Hz; Root key C4 (60) = 248.2279 Hz');
+    const rows = tunerRows(anchored);
+    expect(rows.find((row) => row.key === 'A4 (69)')!.hz).toBeCloseTo(415, 9);
+  });
+
   it('gives the same bytes for the same revision', async () => {
     const [a, b] = await Promise.all([renderTunerSheet(fifths, saved), renderTunerSheet(fifths, saved)]);
     expect(a.equals(b)).toBe(true);

@@ -90,8 +90,9 @@ export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Pro
   doc.font('regular').fontSize(10).fillColor('#444');
   doc.text(at.revision ? `Revision ${at.revision}, saved ${created.toISOString().slice(0, 10)}` : 'Unsaved design');
   doc.text(describeScale(preset.scale));
-  const { rootKey, rootHz, concertA } = preset.mapping;
-  doc.text(`Root key ${noteName(rootKey)} (${rootKey}) = ${rootHz.toFixed(4)} Hz; tuner reference A4 = ${concertA} Hz`);
+  const { rootKey, rootHz, concertA, anchor } = preset.mapping;
+  const tunedKey = anchor ? `Key ${noteName(anchor.key)} (${anchor.key}) sounds ${anchor.hz} Hz; ` : '';
+  doc.text(`${tunedKey}Root key ${noteName(rootKey)} (${rootKey}) = ${rootHz.toFixed(4)} Hz; tuner reference A4 = ${concertA} Hz`);
   doc.fillColor('black').moveDown();
 
   function drawTable(title: string, columns: Column[], cells: string[][]) {

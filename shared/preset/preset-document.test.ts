@@ -1,3 +1,4 @@
+import { midiToFreq } from '@tonaljs/midi';
 import * as fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { presetDocumentFile } from '../export/preset-export';
@@ -299,6 +300,15 @@ describe('the anchor: the key that sounds the pitch a musician tunes to', () => 
       ),
       { numRuns: 500 },
     );
+  });
+
+  it('anchored at A4 = 440 in twelve equal divisions, plays the MIDI key-frequency rule on every key', () => {
+    const parsed = parsePresetDocument({
+      format: 'keyloom.preset', version: 1, name: '12', scale: { kind: 'equal', divisions: 12 }, mapping: { rootKey: 60, anchor: { key: 69, hz: 440 } },
+    });
+    if (!parsed.ok) throw new Error('refused');
+    // An independent library for key to frequency (REFERENCE.md): @tonaljs/midi midiToFreq, 440 * 2^((n - 69) / 12).
+    previewTable(parsed.value).keys.forEach((key) => expect(key.hz! / midiToFreq(key.key)).toBeCloseTo(1, 12));
   });
 
   it('travels in the preset file as written, and reads back to the same tuning', () => {
