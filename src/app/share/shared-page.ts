@@ -15,6 +15,7 @@ import { DegreeTable } from './degree-table';
 import { exportFormats } from '../output/export-formats';
 import { readPresetDocument } from '../scale/preset-reading';
 import { ShareApi, SharedPreset } from './share-api';
+import { noteName } from '@shared/tuning/twelve-edo';
 
 /** What a share link opens, for anyone: the preset read-only, its degrees, downloads, and a fork. */
 @Component({
@@ -45,6 +46,15 @@ export class SharedPage {
   protected readonly faults = this.reading.faults;
   protected readonly preset = this.reading.preset;
   protected readonly preview = this.reading.preview;
+  /** Where the tuning's pitch sits: the key tuned to a pitch when there is one, and the root key's pitch. */
+  protected readonly pitch = computed(() => {
+    const mapping = this.preset()?.mapping;
+    if (!mapping) return null;
+    const root = `root key ${mapping.rootKey} (${noteName(mapping.rootKey)}) sounds ${mapping.rootHz.toFixed(4)} Hz`;
+    return mapping.anchor
+      ? `Key ${mapping.anchor.key} (${noteName(mapping.anchor.key)}) sounds ${mapping.anchor.hz} Hz; ${root}.`
+      : `The ${root}.`;
+  });
   protected readonly downloads = computed(() => {
     const twelve = this.preset()?.mapping.keysPerPeriod === 12;
     return exportFormats
