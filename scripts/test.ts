@@ -79,7 +79,8 @@ try {
     vitest('e2e', 'tests/e2e/vitest.config.ts');
   }
 } finally {
-  if (cluster.startedHere) await cluster.stop();
+  // A failure to stop is said, and the summary below still printed.
+  if (cluster.startedHere) await cluster.stop().catch((error: Error) => log(`stopping PostgreSQL: ${error.message.split('\n')[0]}`));
 }
 
 const total = suites.reduce(

@@ -286,6 +286,8 @@ export async function ensureCluster(log: (line: string) => void = () => {}, opti
       await admin((client) => client.query(`DROP DATABASE IF EXISTS ${pg.escapeIdentifier(database)} WITH (FORCE)`));
     },
     async stop() {
+      // Stopped already (by whoever else held it last): nothing to do, and no reason to fail the run's summary.
+      if (!(await isRunning(binDir, dataDir))) return;
       log('stopping PostgreSQL');
       await asServerUser(join(binDir, 'pg_ctl'), ['stop', '-D', dataDir, '-m', 'fast', '-w']);
     },

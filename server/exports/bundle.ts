@@ -20,6 +20,7 @@ const takenBy: Record<string, string> = {
   'mpe-smf': 'MPE instruments and synths without MTS: one note per channel with pitch bends',
   'bend-csv': 'your own scripts and spreadsheets: the note and pitch bend that sound each key',
   'bend-json': 'your own scripts: the same table as JSON',
+  'key-csv': 'your own scripts and spreadsheets, and printing: the pitch every key plays',
   sfz: 'samplers that read SFZ maps: one region per key with its pitch centre and fine tune',
   preset: 'Keyloom itself: import it to get this exact preset back',
 };

@@ -61,6 +61,7 @@ describe('the export catalogue', () => {
       'mpe-smf',
       'bend-csv',
       'bend-json',
+      'key-csv',
       'sfz',
       'preset',
     ]);
@@ -85,6 +86,7 @@ describe('the export catalogue', () => {
       ['mpe-smf', 'fifths-from-f-mpe.mid', 'audio/midi'],
       ['bend-csv', 'fifths-from-f-bends.csv', 'text/csv; charset=utf-8'],
       ['bend-json', 'fifths-from-f-bends.json', 'application/json; charset=utf-8'],
+      ['key-csv', 'fifths-from-f-keys.csv', 'text/csv; charset=utf-8'],
       ['sfz', 'fifths-from-f.sfz', 'text/plain; charset=utf-8'],
       ['preset', 'fifths-from-f.json', 'application/json; charset=utf-8'],
     ]);

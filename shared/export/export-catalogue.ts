@@ -8,6 +8,7 @@ import { encodeSingleNoteChanges } from '../midi/mts-single-note';
 import { sfzMap } from '../midi/sfz-map';
 import { mpePhraseFile, tuningPhraseFile } from '../midi/tuning-phrase';
 import { exportFileName } from './export-file-name';
+import { keyTableCsv } from './key-table-csv';
 import { presetDocumentFile } from './preset-export';
 import { type PresetTuning, tuningOfPreset } from './preset-tuning';
 
@@ -75,6 +76,13 @@ export const exportFormats = [
     fileSuffix: '-bends',
     contentType: 'application/json; charset=utf-8',
     description: 'Pitch-bend table as JSON: channel, note, 14-bit bend and error per mapped key',
+  },
+  {
+    id: 'key-csv',
+    extension: 'csv',
+    fileSuffix: '-keys',
+    contentType: 'text/csv; charset=utf-8',
+    description: 'Key table as CSV: every one of the 128 keys with its note, degree, Hz and cents from 12-TET',
   },
   {
     id: 'sfz',
@@ -169,6 +177,8 @@ function render(
       const table = bendTable(keys, output);
       return succeed(text(bendTableJson(table), table.warnings));
     }
+    case 'key-csv':
+      return succeed(text(keyTableCsv(keys)));
     case 'sfz': {
       const map = sfzMap(keys, { name: preset.name });
       return succeed(text(map.text, map.warnings));

@@ -8,6 +8,7 @@ import { ControllerInput } from '../audition/controller-input';
 import { PlayPanel } from '../audition/play-panel';
 import { StripPlaying } from '../audition/strip-playing';
 import { AnchorPicking } from '../keys/anchor-picking';
+import { KeyTable } from '../keys/key-table';
 import { Session } from '../auth/session';
 import { LiveFollow } from '../hardware/live-follow';
 import { MidiAccess } from '../hardware/midi-access';
@@ -45,7 +46,7 @@ function isTyping(target: EventTarget | null): boolean {
   imports: [
     MatButtonModule, MatIconModule, MatProgressBarModule, MatTabsModule, DesignField, DownloadMenu, ScaleForm,
     ScaleSummary, PeriodRing, DegreeTable, OffsetChart, IntervalMatrix, ReferencePitch, KeyboardStrip, LayoutEditor,
-    OutputSettings, PlayPanel, StripPlaying, AnchorPicking, SendPanel,
+    OutputSettings, PlayPanel, StripPlaying, AnchorPicking, KeyTable, SendPanel,
   ],
   providers: [DesignState, DesignAddress, SavedPreset, Audition, MidiAccess, ControllerInput, TuningSender, LiveFollow],
   templateUrl: './design-page.html',

@@ -34,10 +34,10 @@ describe('DownloadMenu', () => {
     button.click();
     await fixture.whenStable();
     const items = Array.from(document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]'));
-    expect(items.length).toBe(13);
+    expect(items.length).toBe(14);
     expect(items[0].querySelector('.format-name')?.textContent).toContain('MTS bulk dump');
     expect(items[0].querySelector('.format-use')?.textContent).toContain('All 128 keys in one message');
-    expect(items[12].getAttribute('aria-label')).toContain('Bundle of everything (.zip)');
+    expect(items[13].getAttribute('aria-label')).toContain('Bundle of everything (.zip)');
   });
 
   it('downloads a saved preset as saved, and a changed one as it stands', async () => {
@@ -53,7 +53,7 @@ describe('DownloadMenu', () => {
     state.rename('Changed');
     button.click();
     await fixture.whenStable();
-    document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]')[12].click();
+    document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]')[13].click();
     const request = http.expectOne({ method: 'POST', url: '/api/preview/export/bundle' });
     expect(request.request.body).toEqual(jasmine.objectContaining({ name: 'Changed' }));
     request.flush(new Blob(['PK']));

@@ -74,7 +74,7 @@ describe('Downloads', () => {
   it('offers every export format of DESIGN.md, each with a line on what it is for', () => {
     expect(exportFormats.map((candidate) => candidate.id)).toEqual([
       'mts-bulk', 'mts-bulk-bank', 'mts-notes', 'mts-octave-1', 'mts-octave-2', 'smf', 'mpe-smf', 'bend-csv',
-      'bend-json', 'sfz', 'tuner-sheet', 'preset', 'bundle',
+      'bend-json', 'key-csv', 'sfz', 'tuner-sheet', 'preset', 'bundle',
     ]);
     expect(exportFormats.every((candidate) => candidate.use.length > 20)).toBeTrue();
   });

@@ -19,6 +19,7 @@ export const exportFormats: readonly ExportFormat[] = [
   { id: 'mpe-smf', label: 'MPE MIDI file', extension: 'mid', use: 'The same phrase as one note per channel with pitch bends, for synths without MTS.' },
   { id: 'bend-csv', label: 'Pitch-bend table (CSV)', extension: 'csv', use: 'Per key: channel, note to play, 14-bit bend and the error left, for spreadsheets.' },
   { id: 'bend-json', label: 'Pitch-bend table (JSON)', extension: 'json', use: 'The same table for scripts and plug-ins.' },
+  { id: 'key-csv', label: 'Key table (CSV)', extension: 'csv', use: 'All 128 keys: note, degree, Hz and cents from 12-tone equal, mapped or not.' },
   { id: 'sfz', label: 'SFZ sampler map', extension: 'sfz', use: 'A region per mapped key with its pitch centre and fine tune.' },
   { id: 'tuner-sheet', label: 'Tuner sheet', extension: 'pdf', use: 'A printable page of cent offsets per note, for tuning acoustic instruments.' },
   { id: 'preset', label: 'Preset document', extension: 'json', use: 'This design as a Keyloom preset file, to import or keep.' },

@@ -84,7 +84,7 @@ describe('SharedPage', () => {
     await open(null, { ...shared, document: seven });
     const hrefs = Array.from(page().querySelectorAll<HTMLAnchorElement>('.downloads li a')).map((a) => a.getAttribute('href'));
     expect(hrefs.some((href) => href!.includes('mts-octave'))).toBeFalse();
-    expect(hrefs.length).toBe(10);
+    expect(hrefs.length).toBe(11);
   });
 
   it('asks a signed-out guest to sign in before forking, and to come back here', async () => {
