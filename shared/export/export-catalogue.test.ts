@@ -119,8 +119,8 @@ describe('the export catalogue', () => {
     expect(!refused.ok && refused.errors[0]).toEqual({
       path: 'mapping.keysPerPeriod',
       message:
-        'mapping.keysPerPeriod: is 19, but scale/octave tuning repeats a block of 12 keys; ' +
-        'send a bulk dump or single-note changes instead',
+        'mapping.keysPerPeriod: this layout repeats every 19 keys, and scale/octave tuning needs 12 keys an ' +
+        'octave: send a bulk dump or single-note changes instead',
     });
     expect(renderExport(nineteenEqual, 'mts-bulk').ok).toBe(true);
   });
@@ -198,7 +198,7 @@ describe('the export catalogue', () => {
         if (result.ok) expect(result.value.bytes.length).toBeGreaterThan(0);
         else {
           expect(format).toMatch(/^mts-octave/);
-          expect(result.errors[0].message).toMatch(/scale\/octave tuning repeats/);
+          expect(result.errors[0].message).toMatch(/scale\/octave tuning needs/);
         }
       }),
       { numRuns: 300 },

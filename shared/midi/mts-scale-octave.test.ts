@@ -73,10 +73,10 @@ describe('MTS scale/octave tuning (08 08, 08 09)', () => {
     const tritave = octaveOffsets(twelveEqualKeys, { keysPerPeriod: 13, periodCents: 1901.955 });
     expect(tritave.ok).toBe(false);
     expect(!tritave.ok && tritave.errors.map((error) => error.message)).toEqual([
-      'mapping.keysPerPeriod: is 13, but scale/octave tuning repeats a block of 12 keys; ' +
-        'send a bulk dump or single-note changes instead',
-      'scale.period: is 1901.955 cents, but scale/octave tuning repeats every octave ' +
-        '(2/1, 1200 cents); send a bulk dump or single-note changes instead',
+      'mapping.keysPerPeriod: this layout repeats every 13 keys, and scale/octave tuning needs 12 keys an ' +
+        'octave: send a bulk dump or single-note changes instead',
+      'scale.period: this scale repeats every 1901.955 cents, and scale/octave tuning needs an octave ' +
+        '(2/1, 1200 cents): send a bulk dump or single-note changes instead',
     ]);
     expect(octaveOffsets(twelveEqualKeys, { keysPerPeriod: 31, periodCents: 1200 }).ok).toBe(false);
   });

@@ -45,8 +45,8 @@ export function octaveOffsets(
     faults.push(
       fieldError(
         'mapping.keysPerPeriod',
-        `is ${layout.keysPerPeriod}, but scale/octave tuning repeats a block of 12 keys; ` +
-          'send a bulk dump or single-note changes instead',
+        `this layout repeats every ${layout.keysPerPeriod} keys, and scale/octave tuning needs 12 keys an ` +
+          'octave: send a bulk dump or single-note changes instead',
       ),
     );
   }
@@ -54,8 +54,8 @@ export function octaveOffsets(
     faults.push(
       fieldError(
         'scale.period',
-        `is ${layout.periodCents.toFixed(3)} cents, but scale/octave tuning repeats every ` +
-          'octave (2/1, 1200 cents); send a bulk dump or single-note changes instead',
+        `this scale repeats every ${layout.periodCents.toFixed(3)} cents, and scale/octave tuning needs an ` +
+          'octave (2/1, 1200 cents): send a bulk dump or single-note changes instead',
       ),
     );
   }

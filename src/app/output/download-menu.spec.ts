@@ -40,6 +40,23 @@ describe('DownloadMenu', () => {
     expect(items[13].getAttribute('aria-label')).toContain('Bundle of everything (.zip)');
   });
 
+  it('greys out the formats a design cannot be written in, saying why in plain words', async () => {
+    const { fixture, button, state } = await render();
+    state.chooseKind('equal');
+    state.setScaleField('divisions', 31);
+    button.click();
+    await fixture.whenStable();
+    const items = Array.from(document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]'));
+    const disabled = items.filter((item) => item.disabled).map((item) => item.querySelector('.format-name')?.textContent?.trim());
+    expect(disabled).toEqual(['MTS scale/octave, 1-byte .syx', 'MTS scale/octave, 2-byte .syx']);
+    const octave = items.find((item) => item.disabled)!;
+    expect(octave.querySelector('.format-use')?.textContent).toContain(
+      'Not for this design: This layout repeats every 31 keys, and scale/octave tuning needs 12 keys an octave',
+    );
+    expect(octave.getAttribute('aria-label')).toContain('not for this design');
+    expect(items.filter((item) => !item.disabled).length).toBe(12);
+  });
+
   it('downloads a saved preset as saved, and a changed one as it stands', async () => {
     const { fixture, button, state } = await render();
     state.open(newDraft(), { id: 'p-3', revision: 2, bandId: null, access: 'own' });

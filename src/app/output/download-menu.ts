@@ -9,6 +9,7 @@ import { DesignState } from '../design/design-state';
 import type { ExportSource } from './downloads';
 import { Downloads } from './downloads';
 import { type ExportFormat, exportFormats } from './export-formats';
+import { exportRefusals } from './export-refusals';
 
 /** The download button and its menu of every export format, each with a line on what it is for. */
 @Component({
@@ -17,17 +18,23 @@ import { type ExportFormat, exportFormats } from './export-formats';
   template: `
     <span [matTooltip]="blocked() ?? ''" [matTooltipDisabled]="!blocked()">
       <button mat-stroked-button class="download" [matMenuTriggerFor]="formatMenu" [disabled]="blocked() !== null || busy()"
+              (menuOpened)="menuOpen.set(true)"
               [attr.aria-label]="blocked() ? 'Download (' + blocked() + ')' : 'Download'">
         <mat-icon aria-hidden="true">download</mat-icon>
         <span class="label">{{ busy() ? 'Downloading…' : 'Download' }}</span>
       </button>
     </span>
-    <mat-menu #formatMenu="matMenu" class="download-formats" xPosition="before">
+    <mat-menu #formatMenu="matMenu" class="download-formats" xPosition="before" (closed)="menuOpen.set(false)">
       @for (format of formats; track format.id) {
-        <button mat-menu-item class="format" (click)="downloadFormat(format)"
-                [attr.aria-label]="format.label + ' (.' + format.extension + '): ' + format.use">
+        @let refused = refusals().get(format.id);
+        <button mat-menu-item class="format" (click)="downloadFormat(format)" [disabled]="!!refused"
+                [attr.aria-label]="format.label + ' (.' + format.extension + '): ' + (refused ? 'not for this design: ' + refused : format.use)">
           <span class="format-name">{{ format.label }} <span class="extension">.{{ format.extension }}</span></span>
-          <span class="format-use">{{ format.use }}</span>
+          @if (refused) {
+            <span class="format-use refused">Not for this design: {{ refused }}</span>
+          } @else {
+            <span class="format-use">{{ format.use }}</span>
+          }
         </button>
       }
     </mat-menu>
@@ -38,6 +45,7 @@ import { type ExportFormat, exportFormats } from './export-formats';
     .format-name { display: block; font: var(--mat-sys-label-large); }
     .extension { color: var(--mat-sys-on-surface-variant); }
     .format-use { display: block; white-space: normal; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
+    .format-use.refused { font-style: italic; }
     @media (max-width: 720px) { .download .label { display: none; } .download mat-icon { margin: 0; } }
   `,
 })
@@ -47,6 +55,12 @@ export class DownloadMenu {
   private readonly snackBar = inject(MatSnackBar);
   protected readonly formats = exportFormats;
   protected readonly busy = signal(false);
+  protected readonly menuOpen = signal(false);
+  /** Formats this design cannot be written in, with the reason: worked out while the menu is open. */
+  protected readonly refusals = computed(() => {
+    const preset = this.menuOpen() ? this.state.shown()?.preset : undefined;
+    return preset ? exportRefusals(preset) : new Map<string, string>();
+  });
   /** Why nothing can be downloaded now, or null. */
   protected readonly blocked = computed(() => (this.state.faults().length > 0 ? 'fix the faults in the design first' : null));
   /** A saved preset downloads as saved; a changed or unsaved design goes to the server as it stands. */

@@ -5,16 +5,14 @@ export interface ExportFormat {
   extension: string;
   /** One line on what the file is for. */
   use: string;
-  /** Scale/octave tuning carries 12 notes per octave and is refused for other layouts. */
-  twelvePerOctaveOnly?: boolean;
 }
 
 export const exportFormats: readonly ExportFormat[] = [
   { id: 'mts-bulk', label: 'MTS bulk dump', extension: 'syx', use: 'All 128 keys in one message, for synths that take a tuning dump.' },
   { id: 'mts-bulk-bank', label: 'MTS bulk dump with bank', extension: 'syx', use: 'The same dump addressed to a tuning bank and program.' },
   { id: 'mts-notes', label: 'MTS single-note changes', extension: 'syx', use: 'Real-time changes for every mapped key; they apply while you play.' },
-  { id: 'mts-octave-1', label: 'MTS scale/octave, 1-byte', extension: 'syx', use: 'Twelve offsets repeated in every octave, in whole cents; 12-key layouts only.', twelvePerOctaveOnly: true },
-  { id: 'mts-octave-2', label: 'MTS scale/octave, 2-byte', extension: 'syx', use: 'Twelve finer offsets repeated in every octave; 12-key layouts only.', twelvePerOctaveOnly: true },
+  { id: 'mts-octave-1', label: 'MTS scale/octave, 1-byte', extension: 'syx', use: 'Twelve offsets repeated in every octave, in whole cents; 12-key layouts only.' },
+  { id: 'mts-octave-2', label: 'MTS scale/octave, 2-byte', extension: 'syx', use: 'Twelve finer offsets repeated in every octave; 12-key layouts only.' },
   { id: 'smf', label: 'MIDI file with the tuning', extension: 'mid', use: 'The tuning at the start, then a short phrase that walks the scale.' },
   { id: 'mpe-smf', label: 'MPE MIDI file', extension: 'mid', use: 'The same phrase as one note per channel with pitch bends, for synths without MTS.' },
   { id: 'bend-csv', label: 'Pitch-bend table (CSV)', extension: 'csv', use: 'Per key: channel, note to play, 14-bit bend and the error left, for spreadsheets.' },

@@ -79,12 +79,19 @@ describe('SharedPage', () => {
     expect([...hrefs].sort()).toEqual(expected.sort());
   });
 
-  it('leaves out the scale/octave formats for a layout that is not twelve keys per octave', async () => {
+  it('names the scale/octave formats without a link for a layout that is not twelve keys per octave, saying why', async () => {
     const seven = { ...fenFifths, mapping: { rootKey: 60 } };
     await open(null, { ...shared, document: seven });
     const hrefs = Array.from(page().querySelectorAll<HTMLAnchorElement>('.downloads li a')).map((a) => a.getAttribute('href'));
     expect(hrefs.some((href) => href!.includes('mts-octave'))).toBeFalse();
     expect(hrefs.length).toBe(11);
+    const refused = Array.from(page().querySelectorAll('.downloads li')).filter((li) => li.querySelector('.refused-format'));
+    expect(refused.map((li) => li.querySelector('.refused-format')!.textContent!.trim())).toEqual([
+      'MTS scale/octave, 1-byte (.syx)', 'MTS scale/octave, 2-byte (.syx)',
+    ]);
+    expect(refused[0].textContent).toContain(
+      'Not for this preset: This layout repeats every 7 keys, and scale/octave tuning needs 12 keys an octave',
+    );
   });
 
   it('asks a signed-out guest to sign in before forking, and to come back here', async () => {

@@ -16,6 +16,7 @@ import { exportFormats } from '../output/export-formats';
 import { readPresetDocument } from '../scale/preset-reading';
 import { ShareApi, SharedPreset } from './share-api';
 import { noteName } from '@shared/tuning/twelve-edo';
+import { exportRefusals } from '../output/export-refusals';
 
 /** What a share link opens, for anyone: the preset read-only, its degrees, downloads, and a fork. */
 @Component({
@@ -55,11 +56,13 @@ export class SharedPage {
       ? `Key ${mapping.anchor.key} (${noteName(mapping.anchor.key)}) sounds ${mapping.anchor.hz} Hz; ${root}.`
       : `The ${root}.`;
   });
+  /** Every file of the preset; those it cannot be written in are named with the reason instead of a link. */
   protected readonly downloads = computed(() => {
-    const twelve = this.preset()?.mapping.keysPerPeriod === 12;
+    const preset = this.preset();
+    const refusals = preset ? exportRefusals(preset) : new Map<string, string>();
     return exportFormats
-      .filter((format) => format.id !== 'bundle' && (twelve || !format.twelvePerOctaveOnly))
-      .map((format) => ({ ...format, href: this.shareApi.exportUrl(this.token(), format.id) }));
+      .filter((format) => format.id !== 'bundle')
+      .map((format) => ({ ...format, href: this.shareApi.exportUrl(this.token(), format.id), refused: refusals.get(format.id) ?? null }));
   });
   protected readonly bundleHref = computed(() => this.shareApi.bundleUrl(this.token()));
 
