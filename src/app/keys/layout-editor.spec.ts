@@ -32,7 +32,7 @@ describe('LayoutEditor', () => {
   it('shows one period of keys from the root, each with the degree it plays and an accessible name', async () => {
     const { keys } = await render();
     expect(keys().length).toBe(7);
-    expect(keys()[1].getAttribute('aria-label')).toBe('Key 2 of the period (C#4), plays degree 1: choose its degree');
+    expect(keys()[1].getAttribute('aria-label')).toBe('C#4 1: key 2 of the period, plays degree 1; choose its degree');
   });
 
   it('leaves a key unmapped when that is chosen from its menu', async () => {

@@ -48,8 +48,7 @@ interface LayoutKey {
             <button mat-stroked-button type="button" class="layout-key" [class.unmapped]="key.degree === null"
                     [class.faulty]="key.fault !== null" [matMenuTriggerFor]="degreeMenu"
                     [matMenuTriggerData]="{ index: key.index }" [attr.aria-label]="key.name">
-              <span class="note">{{ key.note }}</span>
-              <span class="degree">{{ key.degree ?? '–' }}</span>
+              <span class="note">{{ key.note }}</span>&ngsp;<span class="degree">{{ key.degree ?? '–' }}</span>
             </button>
           </li>
         }
@@ -103,7 +102,8 @@ export class LayoutEditor {
         note,
         degree,
         fault: this.state.faultAt(`mapping.layout[${index}]`),
-        name: `Key ${index + 1} of the period (${note}), ${plays}: choose its degree`,
+        // The name starts with what the button shows (its note and degree), as speech input needs.
+        name: `${note} ${degree ?? '–'}: key ${index + 1} of the period, ${plays}; choose its degree`,
       };
     });
   });
