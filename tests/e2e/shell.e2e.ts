@@ -76,6 +76,22 @@ describe('the app shell in Chromium', () => {
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     await screenshot(page, 'shell-390px');
     expect(overflow).toBeLessThanOrEqual(0);
+
+    // Twelve degrees: the offset chart fits the phone's width whole, and the degree table keeps its first columns
+    // in view while it scrolls sideways.
+    await page.getByLabel('Generators up').fill('8');
+    await page.getByLabel('Generators down').fill('3');
+    await page.locator('app-offset-chart text.note').nth(11).waitFor();
+    const chart = await page.locator('app-offset-chart .scroller').evaluate((s) => s.scrollWidth - s.clientWidth);
+    expect(chart).toBeLessThanOrEqual(0);
+    const table = page.locator('app-degree-table .scroller');
+    await table.evaluate((s) => (s.scrollLeft = s.scrollWidth));
+    const [firstCell, frame] = await Promise.all([
+      page.locator('app-degree-table tbody tr').first().locator('td').first().boundingBox(),
+      table.boundingBox(),
+    ]);
+    expect(firstCell!.x).toBeGreaterThanOrEqual(frame!.x - 1);
+    await screenshot(page, 'degrees-390px-scrolled');
     await page.close();
   });
 });

@@ -50,11 +50,12 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
     <div class="scroller" tabindex="0" role="region" aria-label="Degrees, scrolls sideways">
       <table mat-table [dataSource]="rows()" [trackBy]="trackDegree" class="degrees">
         <caption class="visually-hidden">Degrees of the scale played from {{ rootHz().toFixed(3) }} Hz</caption>
-        <ng-container matColumnDef="degree">
+        <!-- The degree and its name stay in view while the table scrolls sideways on a phone. -->
+        <ng-container matColumnDef="degree" sticky>
           <th mat-header-cell *matHeaderCellDef scope="col">Degree</th>
           <td mat-cell *matCellDef="let row">{{ row.degree }}</td>
         </ng-container>
-        <ng-container matColumnDef="name">
+        <ng-container matColumnDef="name" sticky>
           <th mat-header-cell *matHeaderCellDef scope="col">Name</th>
           <td mat-cell *matCellDef="let row">{{ row.name }}</td>
         </ng-container>
@@ -99,6 +100,7 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
     .scroller { overflow-x: auto; max-width: 100%; }
     .degrees { min-width: 640px; font-variant-numeric: tabular-nums; }
     .mat-mdc-cell, .mat-mdc-header-cell { padding: 0 10px; white-space: nowrap; }
+    .mat-mdc-table-sticky { background: var(--mat-sys-surface); }
     .approximate { color: var(--mat-sys-on-surface-variant); font-style: italic; }
     abbr { text-decoration: none; }
   `,

@@ -24,7 +24,8 @@ interface Bar {
   selector: 'app-offset-chart',
   template: `
     <div class="scroller">
-      <svg [attr.width]="width()" [attr.height]="height" [attr.viewBox]="'0 0 ' + width() + ' ' + height" role="img"
+      <svg [attr.viewBox]="'0 0 ' + width() + ' ' + height" [style.max-width.px]="width()" [style.min-width.px]="narrowest()"
+           preserveAspectRatio="xMinYMin meet" role="img"
            aria-label="Chart of each degree's offset from the nearest equal-tempered note; the degree table lists the same figures">
         @for (line of gridLines; track line.cents) {
           <line class="grid" [class.zero]="line.cents === 0" [attr.x1]="axisWidth" [attr.x2]="width()" [attr.y1]="line.y" [attr.y2]="line.y" />
@@ -43,7 +44,8 @@ interface Bar {
   `,
   styles: `
     .scroller { overflow-x: auto; max-width: 100%; }
-    svg { display: block; font: var(--mat-sys-body-small); }
+    /* Shrinks to fit a phone's width, down to a readable size; past that the chart scrolls. */
+    svg { display: block; width: 100%; height: auto; font: var(--mat-sys-body-small); }
     .grid { stroke: var(--mat-sys-outline-variant); stroke-dasharray: 3 3; }
     .grid.zero { stroke: var(--mat-sys-outline); stroke-dasharray: none; }
     .axis { fill: var(--mat-sys-on-surface-variant); text-anchor: end; font-size: 11px; }
@@ -64,6 +66,8 @@ export class OffsetChart {
     y: this.yOf(cents),
     label: cents === 0 ? '0¢' : signedCentsText(cents, 0),
   }));
+  /** The least width the chart shrinks to: about 18 px a bar, below which labels stop being readable. */
+  protected readonly narrowest = computed(() => Math.min(this.width(), axisWidth + this.degrees().length * 18));
   protected readonly width = computed(() => axisWidth + Math.max(this.degrees().length, 8) * slotWidth);
   protected readonly bars = computed(() =>
     this.degrees().map((degree, index): Bar => {
