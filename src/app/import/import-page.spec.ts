@@ -73,10 +73,10 @@ describe('ImportPage', () => {
     const rows = Array.from(page().querySelectorAll('app-degree-table tbody tr')).map((row) =>
       Array.from(row.children).map((cell) => cell.textContent!.trim()),
     );
-    expect(rows.map((row) => row[1])).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
-    // 1200·log2(9/8) = 203.91 cents and 1200·log2(81/64) = 407.82 cents (from memory, checked by the shared tests).
-    expect(rows[1][2]).toBe('203.91');
-    expect(rows[2][2]).toBe('407.82');
+    expect(rows.map((row) => row[2])).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
+    // 1200·log2(9/8) = 203.910 cents and 1200·log2(81/64) = 407.820 cents (from memory, checked by the shared tests).
+    expect(rows[1][3]).toBe('203.910¢');
+    expect(rows[2][3]).toBe('407.820¢');
 
     const open = page().querySelector<HTMLAnchorElement>('a.open')!;
     expect(open.textContent).toContain('Open in the designer');

@@ -12,7 +12,7 @@ import { apiErrorMessage } from '../library/api-error';
 import { FileDrop } from '../retune/file-drop';
 import { fileSize, uploadFault } from '../retune/upload-limit';
 import { readPresetDocument } from '../scale/preset-reading';
-import { DegreeTable } from '../share/degree-table';
+import { DegreeTable } from '../scale/degree-table';
 import { ImportApi, ImportKind, ImportedTuning } from './import-api';
 import { importNotes } from './import-notes';
 

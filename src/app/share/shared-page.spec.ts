@@ -66,9 +66,11 @@ describe('SharedPage', () => {
       Array.from(tr.children).map((cell) => cell.textContent!.trim()),
     );
     expect(rows.length).toBe(7);
-    // Pure fifth 3/2 = 701.955c, 1.955c above the equal-tempered G (from memory: 1200·log2(3/2)).
-    expect(rows[4]).toEqual(['4', '3/2', '701.96', 'G4', '+1.96c']);
-    expect(rows[3]).toEqual(['3', '4/3', '498.04', 'F4', '−1.96c']);
+    // In the designer's style: pure fifth 3/2 = 701.955¢, 1.955¢ above the equal-tempered G (REFERENCE.md:
+    // 1200 log2(3/2)), and its pitch from middle C, 392.438 Hz (REFERENCE.md: G 3/2 = 392.4383 Hz).
+    expect(rows[4].slice(0, 7)).toEqual(['4', 'G', '3/2', '701.955¢', '9/8', 'G4', '+2.0¢']);
+    expect(rows[4][7]).toBe('392.438');
+    expect(rows[3].slice(0, 4)).toEqual(['3', 'F', '4/3', '498.045¢']);
   });
 
   it('offers every format of the export catalogue and the tuner sheet through the share link, the bundle first', async () => {

@@ -11,7 +11,7 @@ import { Session } from '../auth/session';
 import { apiErrorMessage, isNotFound } from '../library/api-error';
 import { LibraryApi } from '../library/library-api';
 import { SignInPrompt } from '../library/sign-in-prompt';
-import { DegreeTable } from './degree-table';
+import { DegreeTable } from '../scale/degree-table';
 import { exportFormats } from '../output/export-formats';
 import { readPresetDocument } from '../scale/preset-reading';
 import { ShareApi, SharedPreset } from './share-api';
