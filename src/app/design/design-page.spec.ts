@@ -8,6 +8,7 @@ import { of } from 'rxjs';
 import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { Session } from '../auth/session';
 import { decodeDesign, encodeDesign } from './design-address';
+import { ShareDialog } from '../share/share-dialog';
 import { DesignPage } from './design-page';
 import { type DraftDocument, newDraft } from './draft-document';
 
@@ -109,7 +110,22 @@ describe('DesignPage', () => {
     const buttons = Array.from(element.querySelectorAll('button')).map((button) => button.textContent?.trim());
     expect(buttons.some((text) => text?.includes('Fork to my library'))).toBeTrue();
     expect(buttons.some((text) => text?.includes('Save'))).toBeFalse();
+    // A reader may not make share links, so the page offers none.
+    expect(element.querySelector('button.share')).toBeNull();
     expect(element.querySelector('fieldset')?.disabled).toBeTrue();
+  }, patientSpecMs);
+
+  it('offers Share on a saved preset its editor opens, with the share dialog for that revision', async () => {
+    const opening = open('/presets/p-8', member);
+    (await requestFor('/api/presets/p-8')).flush({
+      id: 'p-8', name: 'Band tuning', bandId: 'b-1', revision: 4, document: { ...newDraft(), name: 'Band tuning' }, access: 'edit',
+    });
+    const { harness, element } = await opening;
+    await harness.fixture.whenStable();
+    const opened = spyOn(TestBed.inject(MatDialog), 'open').and.callThrough();
+    const share = await waitFor('the Share button', () => element.querySelector<HTMLButtonElement>('button.share'));
+    share.click();
+    expect(opened).toHaveBeenCalledWith(ShareDialog, jasmine.objectContaining({ data: { presetId: 'p-8', revision: 4, name: 'Band tuning' } }));
   }, patientSpecMs);
 
   it('saves with Ctrl+S when signed in, asking first which library to save into', async () => {

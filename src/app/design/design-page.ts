@@ -29,6 +29,8 @@ import { DesignAddress } from './design-address';
 import { DesignField } from './design-field';
 import { DesignState } from './design-state';
 import { SavedPreset } from './saved-preset';
+import { MatDialog } from '@angular/material/dialog';
+import { ShareDialog, type ShareDialogData } from '../share/share-dialog';
 
 const tabCount = 3;
 
@@ -61,6 +63,7 @@ export class DesignPage {
   protected readonly saved = inject(SavedPreset);
   protected readonly session = inject(Session);
   protected readonly audition = inject(Audition);
+  private readonly dialog = inject(MatDialog);
   protected readonly tab = signal(0);
   protected readonly ringCents = computed(() => this.state.shown()?.table.degrees.map((degree) => degree.cents) ?? []);
   /** Why the design in the address could not be opened, if it could not. */
@@ -72,6 +75,15 @@ export class DesignPage {
     effect(() => {
       const id = this.id();
       untracked(() => void this.openDesign(id));
+    });
+  }
+
+  /** Share links to the saved preset, made and revoked in the same dialog as in the library. */
+  protected share(presetId: string, revision: number): void {
+    this.dialog.open<ShareDialog, ShareDialogData>(ShareDialog, {
+      data: { presetId, revision, name: this.state.draft().name },
+      width: '560px',
+      maxWidth: '95vw',
     });
   }
 
