@@ -16,7 +16,7 @@ function wait(ms: number): Promise<void> {
 
 /**
  * Sending the design to an instrument: the chosen output port, message form and target (device id,
- * program, bank, defaulting to the preset's output settings), the messages themselves, and a paced
+ * program, bank: the preset's output settings), the messages themselves, and a paced
  * send with progress that stops with a clear message when the port goes away.
  */
 @Injectable()
@@ -27,9 +27,11 @@ export class TuningSender {
 
   readonly outputId = signal<string | null>(null);
   readonly form = signal<MessageFormId>('mts-bulk');
-  readonly deviceId = linkedSignal(() => this.output()?.deviceId ?? 127);
-  readonly program = linkedSignal(() => this.output()?.program ?? 0);
-  readonly bank = linkedSignal(() => this.output()?.bank ?? 0);
+  // Device id, program and bank live in one place, the design's output settings: the warning, the hex preview and
+  // the bytes sent all read them from there.
+  readonly deviceId = computed(() => this.output()?.deviceId ?? 127);
+  readonly program = computed(() => this.output()?.program ?? 0);
+  readonly bank = computed(() => this.output()?.bank ?? 0);
   readonly target = computed<SendTarget>(() => ({ deviceId: this.deviceId(), program: this.program(), bank: this.bank() }));
   /** The messages for the current design, or why the form cannot carry it. */
   readonly messages = computed(() => {
