@@ -58,7 +58,13 @@ export function retuneRouter(db: Database): Router {
     }
     const preset = await presetFor(fields, req.user);
     const tuning = valueOrThrow(tuningOfPreset(preset));
-    const retuned = await retuneOffThread({ song: new Uint8Array(file.buffer), keys: tuning.keys, output: preset.output, mode: mode as RetuneMode });
+    const retuned = await retuneOffThread({
+      song: new Uint8Array(file.buffer),
+      keys: tuning.keys,
+      output: preset.output,
+      keysPerPeriod: preset.mapping.keysPerPeriod,
+      mode: mode as RetuneMode,
+    });
     if (!retuned.ok) throw new ValidationError(retuned.errors);
     const sha256 = await recordUpload(db, req.user?.id, 'retune', file);
     const { report } = retuned.value;

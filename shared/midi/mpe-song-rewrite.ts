@@ -272,6 +272,7 @@ export function rewriteAsMpe(song: Uint8Array, tuning: SongTuning): Result<Retun
     warnings.push(fieldError('output.memberChannels', fault));
   }
   const channelsUsed = rewrite.channelUsed.flatMap((used, index) => (used ? [index + 1] : []));
-  const report = { mode: 'mpe' as const, notesRetuned, channelsUsed, notesStolen, warnings };
+  // Unmapped notes are counted for both modes by retuneSong.
+  const report = { mode: 'mpe' as const, notesRetuned, channelsUsed, notesStolen, notesUnmappedCount: 0, notesUnmapped: [], warnings };
   return succeed({ bytes, report });
 }

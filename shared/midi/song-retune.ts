@@ -19,7 +19,20 @@ export type RetuneMode = 'mts' | 'mpe';
 export interface SongTuning {
   keys: readonly KeyPitch[];
   output: MtsOutput & { bendRange: number; memberChannels: readonly [number, number] };
+  /** How many keys the tuning's layout repeats every (12 for a keyboard in octaves); unknown when absent. */
+  keysPerPeriod?: number;
 }
+
+/** A note on a key the tuning leaves unmapped: it plays at whatever pitch the instrument had. */
+export interface UnmappedNote {
+  /** Track (1 first), the tick the note began, and its key. */
+  track: number;
+  tick: number;
+  key: number;
+}
+
+/** The unmapped notes a report names at most; the count is always whole. */
+const listedUnmappedNotes = 5;
 
 /** A note cut off because every member channel was sounding when another note began. */
 export interface StolenNote {
@@ -43,6 +56,9 @@ export interface RetuneReport {
    */
   channelsUsed: number[];
   notesStolen: StolenNote[];
+  /** Notes on keys the tuning leaves unmapped (outside channel 10): how many, and the first few. */
+  notesUnmappedCount: number;
+  notesUnmapped: UnmappedNote[];
   warnings: FieldError[];
 }
 
@@ -98,8 +114,48 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
   }
   return succeed({
     bytes: file.toBytes(),
-    report: { mode: 'mts', notesRetuned, channelsUsed, notesStolen: [], warnings },
+    report: { mode: 'mts', notesRetuned, channelsUsed, notesStolen: [], notesUnmappedCount: 0, notesUnmapped: [], warnings },
   });
+}
+
+/**
+ * Notes the tuning cannot retune, and whether the song fits the layout: a song written for 12 keys an octave on a
+ * layout of another size lands its notes on consecutive steps of the tuning, not on the notes it was written for.
+ */
+function fitOfSong(song: Uint8Array, tuning: SongTuning): { unmapped: UnmappedNote[]; count: number; warnings: FieldError[] } {
+  const mapped = mappedKeys(tuning.keys);
+  const unmapped: UnmappedNote[] = [];
+  let count = 0;
+  let lowest = 128;
+  let highest = -1;
+  readSong(song, (track, tick, status, key, velocity) => {
+    const isNoteOn = (status & 0xf0) === 0x90 && velocity > 0;
+    if (!isNoteOn || (status & 0x0f) === drumChannelIndex) return;
+    lowest = Math.min(lowest, key);
+    highest = Math.max(highest, key);
+    if (mapped[key]) return;
+    count++;
+    if (unmapped.length < listedUnmappedNotes) unmapped.push({ track: track + 1, tick, key });
+  });
+  const warnings: FieldError[] = [];
+  if (count > 0) {
+    const first = unmapped.map((note) => `key ${note.key} in track ${note.track} at tick ${note.tick}`).join(', ');
+    warnings.push(
+      fieldError('file', `${count} note${count === 1 ? ' falls' : 's fall'} on keys the tuning leaves unmapped and keep their old pitch (first: ${first})`),
+    );
+  }
+  const keys = tuning.keysPerPeriod;
+  if (keys !== undefined && keys !== 12 && highest >= lowest) {
+    warnings.push(
+      fieldError(
+        'mapping.keysPerPeriod',
+        `the tuning repeats every ${keys} keys, so a song written for 12 keys an octave (keys ${lowest}-${highest} here) ` +
+          'plays its notes on consecutive steps of the tuning; to hear it as written, lay the tuning on its nearest ' +
+          'keys (Keys tab, "Place degrees on nearest keys") and retune again',
+      ),
+    );
+  }
+  return { unmapped, count, warnings };
 }
 
 /** Retunes a song; faults in the file are answered with what is wrong and where, never thrown. */
@@ -108,5 +164,12 @@ export function retuneSong(
   tuning: SongTuning,
   mode: RetuneMode,
 ): Result<RetunedSong> {
-  return mode === 'mts' ? retuneWithMts(song, tuning) : rewriteAsMpe(song, tuning);
+  const retuned = mode === 'mts' ? retuneWithMts(song, tuning) : rewriteAsMpe(song, tuning);
+  if (!retuned.ok) return retuned;
+  const fit = fitOfSong(song, tuning);
+  const { report } = retuned.value;
+  return succeed({
+    ...retuned.value,
+    report: { ...report, notesUnmappedCount: fit.count, notesUnmapped: fit.unmapped, warnings: [...report.warnings, ...fit.warnings] },
+  });
 }

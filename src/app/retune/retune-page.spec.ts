@@ -40,6 +40,8 @@ const mpeReport: SongReportHeader = {
   channelsUsed: [2, 3, 4, 5],
   notesStolen: [{ track: 2, channel: 1, key: 61, startTick: 960, stolenAtTick: 1200, memberChannel: 3 }],
   notesStolenCount: 1,
+  notesUnmappedCount: 2,
+  notesUnmapped: [{ track: 2, tick: 96, key: 61 }, { track: 2, tick: 288, key: 63 }],
   warnings: [{ path: 'file.tracks[1]', message: 'file: track 2 bends its notes already; those bends were replaced.' }],
   uploadSha256: 'ab'.repeat(32),
 };
@@ -165,6 +167,7 @@ describe('RetunePage', () => {
     expect(text('.notes-retuned')).toBe('412');
     expect(text('.channels-used')).toBe('2–5');
     expect(text('.notes-stolen')).toBe('1');
+    expect(text('.notes-unmapped')).toBe('2');
     const stolen = Array.from(page().querySelectorAll('table.stolen tbody td')).map((cell) => cell.textContent!.trim());
     expect(stolen).toEqual(['2', '1', '61 (C#4)', '960', '1200', '3']);
     expect(text('.warnings')).toContain('track 2 bends its notes already');

@@ -31,6 +31,10 @@ function channelRuns(channels: readonly number[]): string {
         <dt>Notes cut short</dt>
         <dd class="notes-stolen">{{ summary.notesStolenCount }}</dd>
       </div>
+      <div>
+        <dt>Notes on unmapped keys</dt>
+        <dd class="notes-unmapped">{{ summary.notesUnmappedCount ?? 0 }}</dd>
+      </div>
     </dl>
 
     @if (summary.notesStolenCount > 0) {
