@@ -61,6 +61,32 @@ const retune = (file: Buffer, name: string, fields: Record<string, string>) => {
 const wordHz = (xx: number, yy: number, zz: number) => 440 * 2 ** ((xx + (128 * yy + zz) / 16384 - 69) / 12);
 
 describe('POST /api/retune', () => {
+  it('keeps the report header to counts, and gives the whole report in a JSON body to a client that asks for it', async () => {
+    // Many notes at once on one channel: every member channel is taken, and more notes are cut short than a header
+    // should list.
+    const notes: MidiEvent[] = [];
+    for (let i = 0; i < 600; i++) notes.push({ deltaTime: 1, type: 'noteOn', channel: 0, noteNumber: 36 + (i % 48), velocity: 90 });
+    const crowded = writeMidi({
+      header: { format: 0, numTracks: 1, ticksPerBeat: 480 },
+      tracks: [[...notes, { deltaTime: 480, type: 'endOfTrack' }]],
+    } as MidiData);
+    const asked = await request(server.app)
+      .post('/api/retune')
+      .set('Accept', 'application/json')
+      .field('preset', JSON.stringify(preset))
+      .field('mode', 'mpe')
+      .attach('file', Buffer.from(crowded), 'crowded.mid')
+      .expect(200);
+    expect(asked.headers['keyloom-report'].length).toBeLessThan(512);
+    const counts = JSON.parse(decodeURIComponent(asked.headers['keyloom-report']));
+    expect(counts.notesStolenCount).toBeGreaterThan(100);
+    expect(asked.body.report.notesStolen).toHaveLength(100);
+    expect(asked.body.report.notesStolenCount).toBe(counts.notesStolenCount);
+    expect(asked.body.fileName).toBe('crowded-fen-fifths-mpe.mid');
+    // The song in the body reads back with midi-file, an independent reader.
+    expect(parseMidi(Buffer.from(asked.body.song, 'base64')).header.format).toBe(0);
+  });
+
   it('mts: puts the tuning at tick 0, selects it on the channels in use, keeps every other event, and each note sounds in tune', async () => {
     const res = await retune(song(), 'my song.mid', { preset: JSON.stringify(preset), mode: 'mts' });
     expect(res.status).toBe(200);

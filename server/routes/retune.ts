@@ -67,14 +67,29 @@ export function retuneRouter(db: Database): Router {
     });
     if (!retuned.ok) throw new ValidationError(retuned.errors);
     const sha256 = await recordUpload(db, req.user?.id, 'retune', file);
-    const { report } = retuned.value;
-    const header = { ...report, uploadSha256: sha256 };
+    const report = { ...retuned.value.report, uploadSha256: sha256 };
     const song = file.originalname.replace(/\.midi?$/i, '');
-    res.type('audio/midi');
-    res.setHeader('Content-Disposition', `attachment; filename="${exportFileName(song, '')}-${exportFileName(preset.name, '')}-${mode}.mid"`);
-    res.setHeader('Keyloom-Report', encodeURIComponent(JSON.stringify(header)));
-    res.setHeader('Access-Control-Expose-Headers', 'Keyloom-Report, Keyloom-Warnings');
+    const fileName = `${exportFileName(song, '')}-${exportFileName(preset.name, '')}-${mode}.mid`;
     const { song: bytes } = retuned.value;
+    // The header carries counts only, a few hundred bytes whatever the song: proxies refuse long headers.
+    const counts = {
+      mode: report.mode,
+      notesRetuned: report.notesRetuned,
+      channelsUsed: report.channelsUsed,
+      notesStolenCount: report.notesStolenCount,
+      notesUnmappedCount: report.notesUnmappedCount,
+      warningsCount: report.warnings.length,
+      uploadSha256: sha256,
+    };
+    res.setHeader('Keyloom-Report', encodeURIComponent(JSON.stringify(counts)));
+    res.setHeader('Access-Control-Expose-Headers', 'Keyloom-Report, Keyloom-Warnings');
+    // The app asks for JSON: the whole report, and the song as base64 beside it.
+    if (req.accepts(['audio/midi', 'application/json']) === 'application/json') {
+      res.json({ fileName, report, song: Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('base64') });
+      return;
+    }
+    res.type('audio/midi');
+    res.setHeader('Content-Disposition', `attachment; filename="${fileName}"`);
     res.send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
   });
 

@@ -39,8 +39,10 @@ describe('journey 1: a composer designs signed out and downloads an MTS bulk dum
     await generator.fill('3/2');
     await page.getByLabel('Generators up').fill('5');
     await page.getByLabel('Generators down').fill('1');
-    const ratios = page.locator('table').first().locator('tbody tr td:nth-child(2)');
-    await expect.poll(() => ratios.allTextContents()).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
+    const column = (n: number) => page.locator('table').first().locator(`tbody tr td:nth-child(${n})`);
+    await expect.poll(() => column(3).allTextContents()).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
+    // Each degree named along the chain of fifths from C (common practice).
+    expect((await column(2).allTextContents()).map((name) => name.trim())).toEqual(['C', 'D', 'E', 'F', 'G', 'A', 'B']);
     await screenshot(page, 'journey-1-design');
 
     await expect.poll(() => new URL(page.url()).searchParams.get('d')).toBeTruthy();

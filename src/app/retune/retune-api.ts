@@ -1,10 +1,10 @@
-import { HttpClient, HttpErrorResponse, HttpEvent, HttpEventType, HttpResponse } from '@angular/common/http';
+import { HttpClient, HttpErrorResponse, HttpEvent, HttpEventType } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { RetuneMode, RetuneReport } from '@shared/midi/song-retune';
-import { Observable, catchError, filter, from, map } from 'rxjs';
+import { Observable, catchError, filter, map, of } from 'rxjs';
 import { apiErrorMessage } from '../library/api-error';
 
-/** The report the server sends beside the song: every stolen note counted, the first hundred listed. */
+/** The report the server sends with the song: every stolen note counted, the first hundred listed. */
 export interface SongReportHeader extends RetuneReport {
   notesStolenCount: number;
   uploadSha256: string;
@@ -26,26 +26,20 @@ export type RetuneStep =
   | { kind: 'done'; song: RetunedSong }
   | { kind: 'refused'; message: string };
 
-function reportOf(response: HttpResponse<Blob>): SongReportHeader | null {
-  const header = response.headers.get('Keyloom-Report');
-  if (!header) return null;
-  try {
-    return JSON.parse(decodeURIComponent(header)) as SongReportHeader;
-  } catch {
-    return null;
-  }
+/** The answer of the retune route to a client that asks for JSON: the song as base64 and the whole report. */
+interface RetuneAnswer {
+  fileName: string;
+  report: SongReportHeader;
+  song: string;
 }
 
-/** The name the server gave the file in Content-Disposition. */
-function fileNameOf(response: HttpResponse<Blob>, mode: RetuneMode): string {
-  const disposition = response.headers.get('Content-Disposition') ?? '';
-  const encoded = /filename\*\s*=\s*UTF-8''([^;]+)/i.exec(disposition);
-  if (encoded) return decodeURIComponent(encoded[1]);
-  const plain = /filename\s*=\s*"?([^";]+)"?/i.exec(disposition);
-  return plain ? plain[1] : `retuned-${mode}.mid`;
+function songOf(answer: RetuneAnswer): RetunedSong {
+  const binary = atob(answer.song);
+  const bytes = Uint8Array.from(binary, (character) => character.charCodeAt(0));
+  return { blob: new Blob([bytes], { type: 'audio/midi' }), fileName: answer.fileName, report: answer.report };
 }
 
-function stepOf(event: HttpEvent<Blob>, mode: RetuneMode): RetuneStep | null {
+function stepOf(event: HttpEvent<RetuneAnswer>): RetuneStep | null {
   switch (event.type) {
     case HttpEventType.Sent:
       return { kind: 'sending', fraction: 0 };
@@ -55,23 +49,14 @@ function stepOf(event: HttpEvent<Blob>, mode: RetuneMode): RetuneStep | null {
     case HttpEventType.ResponseHeader:
       return { kind: 'retuning' };
     case HttpEventType.Response:
-      return { kind: 'done', song: { blob: event.body ?? new Blob(), fileName: fileNameOf(event, mode), report: reportOf(event) } };
+      return event.body ? { kind: 'done', song: songOf(event.body) } : { kind: 'refused', message: 'The server sent no song back.' };
     default:
       return null;
   }
 }
 
-/** A refusal in the server's words; its JSON body arrives as a Blob because the answer was asked for as one. */
-async function refusalOf(error: unknown): Promise<RetuneStep> {
-  let message: unknown = null;
-  if (error instanceof HttpErrorResponse && error.error instanceof Blob) {
-    try {
-      message = (JSON.parse(await error.error.text()) as { error?: { message?: unknown } }).error?.message;
-    } catch {
-      message = null;
-    }
-  }
-  if (typeof message === 'string' && message) return { kind: 'refused', message };
+/** A refusal in the server's words. */
+function refusalOf(error: unknown): RetuneStep {
   const status = error instanceof HttpErrorResponse ? error.status : null;
   const fallback = status === 413 ? 'file: larger than the limit of 5 MB.' : `The server did not retune the song (${status ?? 'no answer'}).`;
   return { kind: 'refused', message: apiErrorMessage(error, fallback) };
@@ -92,11 +77,11 @@ export class RetuneApi {
     else form.append('preset', JSON.stringify(tuning.document));
     form.append('file', song, song.name);
     return this.http
-      .post('/api/retune', form, { reportProgress: true, observe: 'events', responseType: 'blob' })
+      .post<RetuneAnswer>('/api/retune', form, { reportProgress: true, observe: 'events', responseType: 'json' })
       .pipe(
-        map((event) => stepOf(event, mode)),
+        map((event) => stepOf(event)),
         filter((step): step is RetuneStep => step !== null),
-        catchError((error: unknown) => from(refusalOf(error))),
+        catchError((error: unknown) => of(refusalOf(error))),
       );
   }
 }

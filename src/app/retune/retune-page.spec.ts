@@ -33,7 +33,7 @@ const fenFifthsDocument = {
   scale: { kind: 'generated' as const, generator: '3/2', period: '2/1', up: 5, down: 1 },
   mapping: { rootKey: 60 },
 };
-/** A report in the shape server/routes/retune.ts puts in the Keyloom-Report header. */
+/** A report in the shape server/routes/retune.ts answers in its JSON body. */
 const mpeReport: SongReportHeader = {
   mode: 'mpe',
   notesRetuned: 412,
@@ -119,12 +119,8 @@ describe('RetunePage', () => {
   }
 
   async function answerWithSong(request: TestRequest, fileName: string, report: SongReportHeader) {
-    request.flush(new Blob([midiBytes], { type: 'audio/midi' }), {
-      headers: {
-        'Content-Disposition': `attachment; filename="${fileName}"`,
-        'Keyloom-Report': encodeURIComponent(JSON.stringify(report)),
-      },
-    });
+    // The JSON answer server/routes/retune.ts gives a client that asks for it: the song as base64 and the report.
+    request.flush({ fileName, report, song: btoa(String.fromCharCode(...midiBytes)) });
     await settle();
   }
 
@@ -246,7 +242,7 @@ describe('RetunePage', () => {
     const request = await retuneRequest();
     // The refusal of server/routes/retune.ts for a file that starts with "PK".
     const refusal = { error: { code: 'not_midi', message: 'file: is not a Standard MIDI File; it looks like a zip archive.', field: 'file' } };
-    request.flush(new Blob([JSON.stringify(refusal)], { type: 'application/json' }), { status: 400, statusText: 'Bad Request' });
+    request.flush(refusal, { status: 400, statusText: 'Bad Request' });
     await until('the refusal\'s message', () => page().querySelector('.refusal-message'));
     expect(text('.refusal h2')).toBe('The song was not retuned');
     expect(text('.refusal-message')).toBe('file: is not a Standard MIDI File; it looks like a zip archive.');
@@ -274,8 +270,8 @@ describe('RetunePage', () => {
     );
     const request = await retuneRequest();
     expect(JSON.parse((request.request.body as FormData).get('preset') as string)).toEqual(fenFifthsDocument);
-    request.flush(new Blob([midiBytes]));
+    request.flush({ fileName: 'fen-song-fen-fifths-mts.mid', report: { ...mpeReport, mode: 'mts' }, song: btoa(String.fromCharCode(...midiBytes)) });
     await settle();
-    expect(page().querySelector('a.download')!.getAttribute('download')).toBe('retuned-mts.mid');
+    expect(page().querySelector('a.download')!.getAttribute('download')).toBe('fen-song-fen-fifths-mts.mid');
   }, patientSpecMs);
 });
