@@ -82,6 +82,9 @@ function builtApp(staticDir: string): express.Router {
 export function createApp({ db, config, mailer }: AppDependencies): Express {
   const app = express();
   app.disable('x-powered-by');
+  // No ETag hashed over every answer: Express hashes the whole body on the event loop (a retuned song is megabytes).
+  // Routes that want caching set their own.
+  app.set('etag', false);
   app.set('trust proxy', config.trustProxy);
   app.use(securityHeaders(config));
   if (config.logRequests) app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));

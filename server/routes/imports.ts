@@ -1,13 +1,12 @@
 import { Router } from 'express';
 import { presetFromIntervalList } from '../../shared/import/interval-list';
-import { presetFromKeys } from '../../shared/import/tuning-from-keys';
-import { decodeMtsStream } from '../../shared/midi/mts-decode';
 import { parsePresetDocument } from '../../shared/preset/preset-document';
 import type { Result } from '../../shared/result';
 import type { Database } from '../db/client';
 import { HttpError } from '../http/errors';
 import { recordUpload, requireFile, singleUpload } from '../http/uploads';
 import { valueOrThrow } from '../http/validation';
+import { syxImportOffThread } from '../work/worker-pool';
 
 const systemExclusive = 0xf0;
 /** A preset document or a list of intervals is a few kilobytes; a text file past this is refused unread. */
@@ -41,9 +40,8 @@ export function importsRouter(db: Database): Router {
     let kind: string;
     if (file.buffer[0] === systemExclusive) {
       kind = 'syx';
-      const decoded = decodeMtsStream(new Uint8Array(file.buffer));
-      const imported = decoded.ok ? presetFromKeys(decoded.value.keys, name) : decoded;
-      document = imported.ok ? { ok: true, value: imported.value.document } : imported;
+      // Thousands of dumps take a while to decode: on a worker thread, so that nobody else waits.
+      document = await syxImportOffThread({ bytes: new Uint8Array(file.buffer), name });
     } else {
       const text = asText(file.buffer).trim();
       if (text.startsWith('{')) {

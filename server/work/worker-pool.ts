@@ -4,7 +4,7 @@ import { availableParallelism } from 'node:os';
 import Piscina from 'piscina';
 import { HttpError } from '../http/errors';
 import type { BundleEntry } from '../exports/bundle';
-import type { HeavyTask, retune as retuneOnThread } from './heavy-work';
+import type { HeavyTask, retune as retuneOnThread, syxImport as syxImportOnThread } from './heavy-work';
 
 /** Tasks waiting for a thread at most; past that the server says it is busy rather than queueing without end. */
 const longestQueue = 64;
@@ -41,6 +41,11 @@ type TaskOf<K extends HeavyTask['kind']> = Omit<Extract<HeavyTask, { kind: K }>,
 /** A song retuned on a worker thread. */
 export function retuneOffThread(task: TaskOf<'retune'>): Promise<ReturnType<typeof retuneOnThread>> {
   return offThread({ kind: 'retune', ...task }) as Promise<ReturnType<typeof retuneOnThread>>;
+}
+
+/** A preset document decoded from an .syx on a worker thread. */
+export function syxImportOffThread(task: TaskOf<'syx-import'>): Promise<ReturnType<typeof syxImportOnThread>> {
+  return offThread({ kind: 'syx-import', ...task }) as Promise<ReturnType<typeof syxImportOnThread>>;
 }
 
 /** The tuner sheet PDF drawn on a worker thread. */

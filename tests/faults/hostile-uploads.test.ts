@@ -108,26 +108,32 @@ describe('hostile uploads of 5 MB', () => {
     };
     for (const bytes of Object.values(uploads)) expect(bytes.length).toBeGreaterThan(4.5 * 1024 * 1024);
 
-    // How slow a health check already is now and then on this machine as it is right now (it may be busy).
-    const usual = await probeWhile(new Promise((resolve) => setTimeout(resolve, 3000)));
-    const all = Promise.all([
-      upload('/api/import', uploads.list, 'fifths.txt'),
-      upload('/api/import', uploads.dumps, 'dumps.syx'),
-      upload('/api/import', uploads.endless, 'endless.syx'),
-      upload('/api/retune', uploads.song, 'huge.mid', { preset: JSON.stringify(document), mode: 'mpe' }),
-    ]);
-    const during = await probeWhile(all);
-    const [list, dumps, endless, song] = await all;
+    // A server that stalls on an upload delays every health check asked meanwhile, every time. A busy machine
+    // delays one now and then by chance. So the uploads go three times at most, and the claim holds when one round
+    // shows no check delayed by 100 ms past the usual (median) time measured just before it.
+    const delays: number[] = [];
+    for (let round = 1; round <= 3 && !delays.some((delay) => delay < 100); round++) {
+      const usual = await probeWhile(new Promise((resolve) => setTimeout(resolve, 2000)));
+      const all = Promise.all([
+        upload('/api/import', uploads.list, 'fifths.txt'),
+        upload('/api/import', uploads.dumps, 'dumps.syx'),
+        upload('/api/import', uploads.endless, 'endless.syx'),
+        upload('/api/retune', uploads.song, 'huge.mid', { preset: JSON.stringify(document), mode: 'mpe' }),
+      ]);
+      const during = await probeWhile(all);
+      const [list, dumps, endless, song] = await all;
 
-    expect(list.status).toBe(413);
-    expect(dumps.status).toBe(400);
-    expect((dumps.body as { error: { message: string } }).error.message).toMatch(/more than 2048 messages/);
-    expect(endless.status).toBe(400);
-    expect(song.status).toBe(200);
+      expect(list.status).toBe(413);
+      expect(dumps.status).toBe(400);
+      expect((dumps.body as { error: { message: string } }).error.message).toMatch(/more than 2048 messages/);
+      expect(endless.status).toBe(400);
+      expect(song.status).toBe(200);
 
-    const slowestUsual = Math.max(...usual);
-    const worst = Math.max(...during);
-    console.log(`health check: slowest before ${slowestUsual.toFixed(1)} ms, slowest during the uploads ${worst.toFixed(1)} ms`);
-    expect(worst - slowestUsual).toBeLessThan(100);
-  }, 120_000);
+      const median = [...usual].sort((x, y) => x - y)[Math.floor(usual.length / 2)];
+      const worst = Math.max(...during);
+      delays.push(worst - median);
+      console.log(`round ${round}: health check usually ${median.toFixed(1)} ms, at worst ${worst.toFixed(1)} ms during the uploads`);
+    }
+    expect(Math.min(...delays)).toBeLessThan(100);
+  }, 240_000);
 });
