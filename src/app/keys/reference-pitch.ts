@@ -5,6 +5,7 @@ import { noteName } from '@shared/tuning/twelve-edo';
 import { DesignField } from '../design/design-field';
 import { type PitchSource, DesignState } from '../design/design-state';
 import { typedFrom, typedText } from '../design/draft-document';
+import { pitchWords } from './pitch-words';
 
 /** Pitches A is tuned to in practice; each offered by its pitch alone. */
 const commonAs = [415, 430, 432, 440, 442];
@@ -81,10 +82,7 @@ export class ReferencePitch {
   /** What the built design sounds: the root's pitch, and the anchor key's when there is one. */
   protected readonly summary = computed(() => {
     const preset = this.state.shown()?.preset;
-    if (!preset) return '';
-    const { rootKey, rootHz, anchor } = preset.mapping;
-    const root = `Root key ${rootKey} (${noteName(rootKey)}) sounds ${rootHz.toFixed(4)} Hz`;
-    return anchor ? `Key ${anchor.key} (${noteName(anchor.key)}) sounds ${anchor.hz} Hz; ${root.charAt(0).toLowerCase()}${root.slice(1)}.` : `${root}.`;
+    return preset ? pitchWords(preset.mapping) : '';
   });
 
   protected keyHint(key: unknown, what: string): string {

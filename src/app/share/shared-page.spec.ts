@@ -61,7 +61,7 @@ describe('SharedPage', () => {
     expect(page().querySelector('.summary')!.textContent).toContain('7 degrees in a period of 2/1');
     expect(page().querySelector('.summary')!.textContent).toContain('LLsLLLs');
     // Middle C at A4 = 440 Hz is 261.6256 Hz (REFERENCE.md: MIDI convention).
-    expect(page().querySelector('.summary .pitch')!.textContent).toBe('The root key 60 (C4) sounds 261.6256 Hz.');
+    expect(page().querySelector('.summary .pitch')!.textContent).toBe('Root key 60 (C4) sounds 261.6256 Hz.');
     const rows = Array.from(page().querySelectorAll('app-degree-table tbody tr')).map((tr) =>
       Array.from(tr.children).map((cell) => cell.textContent!.trim()),
     );

@@ -15,7 +15,7 @@ import { DegreeTable } from '../scale/degree-table';
 import { exportFormats } from '../output/export-formats';
 import { readPresetDocument } from '../scale/preset-reading';
 import { ShareApi, SharedPreset } from './share-api';
-import { noteName } from '@shared/tuning/twelve-edo';
+import { pitchWords } from '../keys/pitch-words';
 import { exportRefusals } from '../output/export-refusals';
 
 /** What a share link opens, for anyone: the preset read-only, its degrees, downloads, and a fork. */
@@ -50,11 +50,7 @@ export class SharedPage {
   /** Where the tuning's pitch sits: the key tuned to a pitch when there is one, and the root key's pitch. */
   protected readonly pitch = computed(() => {
     const mapping = this.preset()?.mapping;
-    if (!mapping) return null;
-    const root = `root key ${mapping.rootKey} (${noteName(mapping.rootKey)}) sounds ${mapping.rootHz.toFixed(4)} Hz`;
-    return mapping.anchor
-      ? `Key ${mapping.anchor.key} (${noteName(mapping.anchor.key)}) sounds ${mapping.anchor.hz} Hz; ${root}.`
-      : `The ${root}.`;
+    return mapping ? pitchWords(mapping) : null;
   });
   /** Every file of the preset; those it cannot be written in are named with the reason instead of a link. */
   protected readonly downloads = computed(() => {
