@@ -180,7 +180,7 @@ function render(
     case 'key-csv':
       return succeed(text(keyTableCsv(keys)));
     case 'sfz': {
-      const map = sfzMap(keys, { name: preset.name });
+      const map = sfzMap(keys, { name: preset.name, samples: preset.output.samples });
       return succeed(text(map.text, map.warnings));
     }
     case 'preset':

@@ -45,7 +45,7 @@ function settingChanges(before: ResolvedPreset, after: ResolvedPreset): SettingC
     ...(['rootKey', 'rootHz', 'anchor', 'concertA', 'keysPerPeriod', 'layout'] as const).map(
       (f): [string, unknown, unknown] => [`mapping.${f}`, before.mapping[f], after.mapping[f]],
     ),
-    ...(['deviceId', 'program', 'bank', 'tuningName', 'bendRange', 'memberChannels'] as const).map(
+    ...(['deviceId', 'program', 'bank', 'tuningName', 'bendRange', 'memberChannels', 'samples'] as const).map(
       (f): [string, unknown, unknown] => [`output.${f}`, before.output[f], after.output[f]],
     ),
   ];

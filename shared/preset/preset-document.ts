@@ -88,6 +88,14 @@ const mappingSchema = z
     }
   });
 
+/** A sample's file name as a sampler map names it: a plain name, no folders, an audio extension. */
+const sampleFile = z
+  .string()
+  .max(120)
+  .regex(/^[\w][\w .()+-]*\.(wav|flac|ogg|aif|aiff)$/i, {
+    error: 'must be a plain file name ending in .wav, .flac, .ogg, .aif or .aiff, such as piano-c4.wav',
+  });
+
 const outputSchema = z
   .strictObject({
     deviceId: sevenBit.default(127),
@@ -102,6 +110,7 @@ const outputSchema = z
       .optional(),
     bendRange: z.int().min(1).max(96).default(2),
     memberChannels: z.tuple([channel, channel]).default([2, 16]),
+    samples: z.array(z.strictObject({ file: sampleFile, key: midiKey })).min(1).max(128).optional(),
   })
   .superRefine(({ memberChannels: [first, last] }, context) => {
     if (first > last) {
@@ -155,6 +164,8 @@ export interface ResolvedPreset {
     tuningName: string;
     bendRange: number;
     memberChannels: [number, number];
+    /** The samples an SFZ map draws from, each recorded at its key's equal-tempered pitch; absent: one of middle C. */
+    samples?: { file: string; key: number }[];
   };
 }
 

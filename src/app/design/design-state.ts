@@ -44,7 +44,7 @@ const fieldPaths = [
   'scale.temper.fraction', 'scale.temper', 'scale.divisions', 'scale.degrees', 'scale.from', 'scale.to', 'scale.sub',
   'mapping.rootKey', 'mapping.rootHz', 'mapping.concertA', 'mapping.keysPerPeriod', 'mapping.layout', 'mapping.anchor',
   'output.deviceId', 'output.program', 'output.bank', 'output.tuningName', 'output.bendRange',
-  'output.memberChannels',
+  'output.memberChannels', 'output.samples',
 ];
 
 /** Whether a fault at `path` belongs to the field at `field` (`scale.degrees[3]` belongs to `scale.degrees`). */
@@ -239,6 +239,19 @@ export class DesignState {
 
   setOutputField(field: OutputField, value: Typed | undefined): void {
     this.change((draft) => ({ ...draft, output: withField<DraftOutput>(draft.output, field, value) }));
+  }
+
+  /** The samples of the SFZ map, as typed: `36 piano-c2.wav, 60 piano-c4.wav` (none: one sample of middle C). */
+  setSamples(text: string): void {
+    const samples = text
+      .split(/[,\n]/)
+      .map((entry) => entry.trim())
+      .filter((entry) => entry !== '')
+      .map((entry) => {
+        const [key, ...file] = entry.split(/\s+/);
+        return { key: typedFrom(key) ?? key, file: file.join(' ') };
+      });
+    this.change((draft) => ({ ...draft, output: withField<DraftOutput>(draft.output, 'samples', samples.length ? samples : undefined) }));
   }
 
   setMemberChannel(end: 0 | 1, value: Typed | undefined): void {

@@ -50,6 +50,8 @@ export interface DraftOutput {
   tuningName?: string;
   bendRange?: Typed;
   memberChannels?: [Typed | undefined, Typed | undefined];
+  /** The samples an SFZ map draws from, each at the key whose pitch it was recorded at. */
+  samples?: { key: Typed; file: string }[];
 }
 
 /**

@@ -25,7 +25,20 @@ describe('OutputSettings', () => {
     const { element } = await render();
     expect(Array.from(element.querySelectorAll('mat-label')).map((label) => label.textContent?.trim())).toEqual([
       'Device id', 'Tuning program', 'Tuning bank', 'Tuning name', 'Bend range', 'First member channel', 'Last member channel',
+      'Samples',
     ]);
+  });
+
+  it('takes the samples of the SFZ map as typed, and names a bad file name', async () => {
+    const { field, type, state } = await render();
+    await type('Samples', '36 piano-c2.wav, 60 piano-c4.wav, ');
+    expect(state.draft().output.samples).toEqual([{ key: 36, file: 'piano-c2.wav' }, { key: 60, file: 'piano-c4.wav' }]);
+    expect(field('Samples').querySelector('input')!.value).toBe('36 piano-c2.wav, 60 piano-c4.wav, ');
+    expect(state.shown()!.preset.output.samples).toEqual([{ key: 36, file: 'piano-c2.wav' }, { key: 60, file: 'piano-c4.wav' }]);
+    await type('Samples', '36 ../secret');
+    expect(field('Samples').querySelector('mat-error')?.textContent).toContain('must be a plain file name');
+    await type('Samples', '');
+    expect(state.draft().output.samples).toBeUndefined();
   });
 
   it('shows the schema\'s limits under the field as they are typed', async () => {
