@@ -17,13 +17,24 @@ import { readPresetDocument } from '../scale/preset-reading';
 import { ShareApi, SharedPreset } from './share-api';
 import { pitchWords } from '../keys/pitch-words';
 import { exportRefusals } from '../output/export-refusals';
+import type { PresetDocument } from '@shared/preset/preset-document';
+import { Audition } from '../audition/audition';
+import { ControllerInput } from '../audition/controller-input';
+import { PlayPanel } from '../audition/play-panel';
+import { StripPlaying } from '../audition/strip-playing';
+import { DesignState } from '../design/design-state';
+import { draftFrom } from '../design/draft-document';
+import { MidiAccess } from '../hardware/midi-access';
+import { KeyboardStrip } from '../keys/keyboard-strip';
 
 /** What a share link opens, for anyone: the preset read-only, its degrees, downloads, and a fork. */
 @Component({
   selector: 'app-shared-page',
   imports: [
     DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, DegreeTable,
+    PlayPanel, KeyboardStrip, StripPlaying,
   ],
+  providers: [DesignState, Audition, MidiAccess, ControllerInput],
   templateUrl: './shared-page.html',
   styleUrl: './shared-page.scss',
 })
@@ -32,6 +43,7 @@ export class SharedPage {
   private readonly libraryApi = inject(LibraryApi);
   private readonly router = inject(Router);
   private readonly snackBar = inject(MatSnackBar);
+  private readonly design = inject(DesignState);
   protected readonly session = inject(Session);
 
   /** The link's token, from the address. */
@@ -80,7 +92,11 @@ export class SharedPage {
         ),
         takeUntilDestroyed(),
       )
-      .subscribe((shared) => this.shared.set(shared));
+      .subscribe((shared) => {
+        this.shared.set(shared);
+        // The tuning is heard through the designer's audition engine, read-only: nothing here can change it.
+        this.design.open(draftFrom(shared.document as PresetDocument), { id: 'shared', revision: shared.revision, bandId: null, access: 'read' });
+      });
   }
 
   /**
