@@ -6,6 +6,9 @@ const xsrfCookie = 'XSRF-TOKEN';
 const xsrfHeader = 'X-XSRF-TOKEN';
 const safeMethods = new Set(['GET', 'HEAD', 'OPTIONS']);
 
+/** A token for a visitor without a session: random, bound to nothing. */
+const freshToken = () => randomBytes(24).toString('base64url');
+
 function same(a: string, b: string): boolean {
   const x = Buffer.from(a);
   const y = Buffer.from(b);
@@ -34,7 +37,7 @@ export function xsrfTokens(options: { sessionCookie: string; secure: boolean; se
   const protection: RequestHandler = (req, res, next) => {
     const bound = expected(req);
     const held: string | undefined = req.cookies?.[xsrfCookie];
-    if (bound ? held !== bound : !held) give(res, bound ?? randomBytes(24).toString('base64url'));
+    if (bound ? held !== bound : !held) give(res, bound ?? freshToken());
     if (safeMethods.has(req.method) || !req.cookies?.[options.sessionCookie]) return next();
     const wanted = bound ?? held;
     const sent = req.get(xsrfHeader);
@@ -47,7 +50,7 @@ export function xsrfTokens(options: { sessionCookie: string; secure: boolean; se
   return {
     protection,
     renew(req, res) {
-      give(res, expected(req) ?? randomBytes(24).toString('base64url'));
+      give(res, expected(req) ?? freshToken());
     },
   };
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fifthChainName, isChainOfFifths } from './chain-names';
+import { fifthChainName, fifthsPerStep } from './chain-names';
 
 describe('fifthChainName', () => {
   it('names the chain from E-flat to G-sharp around C with flats below and sharps above', () => {
@@ -20,12 +20,12 @@ describe('fifthChainName', () => {
   });
 });
 
-describe('isChainOfFifths', () => {
+describe('fifthsPerStep', () => {
   it('holds for fifths and fourths in an octave, tempered or not', () => {
-    expect(isChainOfFifths(701.955, 1200)).toBe(true);
-    expect(isChainOfFifths(696.578, 1200)).toBe(true);
-    expect(isChainOfFifths(498.045, 1200)).toBe(true);
-    expect(isChainOfFifths(386.3, 1200)).toBe(false);
-    expect(isChainOfFifths(701.955, 1901.955)).toBe(false);
+    expect(fifthsPerStep(701.955, 1200)).toBe(1);
+    expect(fifthsPerStep(696.578, 1200)).toBe(1);
+    expect(fifthsPerStep(498.045, 1200)).toBe(-1);
+    expect(fifthsPerStep(386.3, 1200)).toBeNull();
+    expect(fifthsPerStep(701.955, 1901.955)).toBeNull();
   });
 });

@@ -18,9 +18,14 @@ export function fifthChainName(position: number, tonic: number): string {
   return letter + '♭'.repeat(-accidentals);
 }
 
-/** Whether a generator in a period is a fifth in an octave (within 30 cents of 3/2), so that fifth names apply. */
-export function isChainOfFifths(reducedGeneratorCents: number, periodCents: number): boolean {
+/**
+ * How many fifths one generator step is, when a generator in a period is a fifth or a fourth in an octave (within 30
+ * cents): 1 for a fifth, -1 for a fourth (a fifth downwards), null for anything else, which fifth names do not fit.
+ */
+export function fifthsPerStep(reducedGeneratorCents: number, periodCents: number): 1 | -1 | null {
   const fifth = 701.955;
-  const octave = Math.abs(periodCents - 1200) < 1e-6;
-  return octave && (Math.abs(reducedGeneratorCents - fifth) < 30 || Math.abs(reducedGeneratorCents - (1200 - fifth)) < 30);
+  if (Math.abs(periodCents - 1200) >= 1e-6) return null;
+  if (Math.abs(reducedGeneratorCents - fifth) < 30) return 1;
+  if (Math.abs(reducedGeneratorCents - (1200 - fifth)) < 30) return -1;
+  return null;
 }

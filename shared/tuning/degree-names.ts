@@ -3,7 +3,7 @@
 // Giedraitis; from memory): the division's own chain of fifths, with ^ and v for one step up or down; or by step
 // number where that notation has no names; anything else by its nearest twelve-tone note, told apart when two
 // share one.
-import { fifthChainName, isChainOfFifths } from './chain-names';
+import { fifthChainName, fifthsPerStep } from './chain-names';
 import { reduceIntoPeriod } from './interval-size';
 import type { Scale } from './scale';
 
@@ -14,12 +14,9 @@ export function degreeNames(scale: Scale, tonic: number): string[] {
   const { degrees, period, generator } = scale;
   const octave = Math.abs(period.cents - 1200) < 1e-6;
   if (generator && degrees.every((degree) => degree.stackPosition !== null)) {
-    const reduced = reduceIntoPeriod(generator, period).reduced.cents;
-    if (isChainOfFifths(reduced, period.cents)) {
-      // A chain of fourths is a chain of fifths downwards.
-      const direction = reduced < 600 ? -1 : 1;
-      return unique(degrees.map((degree) => fifthChainName(direction * degree.stackPosition!, tonic)));
-    }
+    // A chain of fourths is a chain of fifths downwards.
+    const step = fifthsPerStep(reduceIntoPeriod(generator, period).reduced.cents, period.cents);
+    if (step) return unique(degrees.map((degree) => fifthChainName(step * degree.stackPosition!, tonic)));
   }
   if (scale.kind === 'equal' && octave && degrees.length === 12) {
     return degrees.map((_, step) => twelveNames[(tonic + step) % 12]);

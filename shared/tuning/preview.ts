@@ -7,7 +7,7 @@ import type { IntervalSize } from './interval-size';
 import { type KeyTable, mapKeys } from './key-table';
 import { buildScale, type Scale } from './scale';
 import { ratioSearch } from './ratio-approximation';
-import { isChainOfFifths } from './chain-names';
+import { fifthsPerStep } from './chain-names';
 import { chainIntervalName, degreeNames } from './degree-names';
 import { reduceIntoPeriod } from './interval-size';
 
@@ -100,10 +100,9 @@ function mtsRangeWarning(keys: KeyTable): FieldError[] {
 function wolfName(scale: Scale, names: string[], from: number, to: number): string | null {
   const { generator, period, degrees } = scale;
   if (!generator) return null;
-  const reduced = reduceIntoPeriod(generator, period).reduced.cents;
-  if (!isChainOfFifths(reduced, period.cents)) return null;
-  const direction = reduced < 600 ? -1 : 1;
-  const fifths = direction * ((degrees[to].stackPosition ?? 0) - (degrees[from].stackPosition ?? 0));
+  const step = fifthsPerStep(reduceIntoPeriod(generator, period).reduced.cents, period.cents);
+  if (!step) return null;
+  const fifths = step * ((degrees[to].stackPosition ?? 0) - (degrees[from].stackPosition ?? 0));
   return `${chainIntervalName(fifths)} ${names[from]}–${names[to]}`;
 }
 

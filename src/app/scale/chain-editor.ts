@@ -1,6 +1,6 @@
 import { Component, computed, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { fifthChainName, isChainOfFifths } from '@shared/tuning/chain-names';
+import { fifthsPerStep } from '@shared/tuning/chain-names';
 import { DesignField } from '../design/design-field';
 import { DesignState } from '../design/design-state';
 import type { DraftScale, DraftTemper } from '../design/draft-document';
@@ -124,13 +124,16 @@ export class ChainEditor {
   /** The comma the tempered links share (the first one's; new links take it too). */
   protected readonly comma = computed(() => this.links().find((link) => link !== null)?.comma ?? pythagoreanComma);
   private readonly stack = computed(() => (this.state.stale() ? null : (this.state.shown()?.table.analysis.stack ?? null)));
-  /** The names of the chain's notes by stack position: fifth names for a chain of fifths, else the position. */
+  /**
+   * The names of the chain's notes by stack position: for a chain of fifths the degrees' own names (as the degree
+   * table gives them), else the position.
+   */
   private readonly nameOf = computed(() => {
-    const shown = this.state.shown();
+    const table = this.state.shown()?.table;
     const stack = this.stack();
-    const fifths = stack && shown && isChainOfFifths(stack.reducedGenerator.cents, shown.table.analysis.period.cents);
-    const tonic = (shown?.preset.mapping.rootKey ?? 60) % 12;
-    return (position: number) => (fifths ? fifthChainName(position, tonic) : position === 0 ? 'tonic' : `${position > 0 ? '+' : ''}${position}`);
+    const fifths = stack && table && fifthsPerStep(stack.reducedGenerator.cents, table.analysis.period.cents);
+    const byPosition = new Map(fifths ? table.degrees.map((degree) => [degree.stackPosition, degree.name]) : []);
+    return (position: number) => byPosition.get(position) ?? (position === 0 ? 'tonic' : `${position > 0 ? '+' : ''}${position}`);
   });
   protected readonly rows = computed<LinkRow[]>(() => {
     const down = Number(this.scale()?.down ?? 0);
