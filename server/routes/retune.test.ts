@@ -155,12 +155,27 @@ describe('POST /api/retune', () => {
       [song(), { preset: '{"format":' }, 400, /^preset: is not valid JSON/],
       [song(), { preset: JSON.stringify({ ...preset, mapping: { rootKey: 300 } }) }, 400, /^preset\.mapping\.rootKey: /],
       [song(), { preset: JSON.stringify(preset), mode: 'loud' }, 400, /^mode: must be mts or mpe/],
+      [song(), { preset: JSON.stringify(preset), leadInMs: 'soon' }, 400, /^leadInMs: must be a number of milliseconds/],
+      [song(), { preset: JSON.stringify(preset), leadInMs: '9000' }, 400, /^leadInMs: must be from 0 to 5000 ms/],
       [Buffer.alloc(6 * 1024 * 1024, 1), { preset: JSON.stringify(preset) }, 413, /limit of 5 MB/],
     ];
     for (const [file, fields, status, message] of cases) {
       const res = await retune(file, 'x.mid', fields);
       const error = JSON.parse(res.body.toString()).error;
       expect([res.status, error.message]).toEqual([status, expect.stringMatching(message)]);
+    }
+  });
+
+  it('starts the first note after the lead-in: 100 ms unless set, as set, or none at 0', async () => {
+    // The song's tempo is 500,000 microseconds a quarter at 480 ticks a quarter (SMF 1.0): 960 ticks a second.
+    for (const [fields, ms, ticks] of [[{}, 100, 96], [{ leadInMs: '250' }, 250, 240], [{ leadInMs: '0' }, 0, 0]] as const) {
+      const res = await retune(song(), 'lead.mid', { preset: JSON.stringify(preset), ...fields });
+      expect(res.status).toBe(200);
+      expect(JSON.parse(decodeURIComponent(res.headers['keyloom-report'])).leadIn).toEqual({ ms, ticks });
+      // Read back with midi-file: the first note of the melody track begins `ticks` after tick 0.
+      let tick = 0;
+      const melody = parseMidi(res.body).tracks[1].map((event) => ({ tick: (tick += event.deltaTime), event }));
+      expect(melody.find(({ event }) => event.type === 'noteOn')?.tick).toBe(ticks);
     }
   });
 

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { tuningOfPreset } from '../../shared/export/preset-tuning';
+import { defaultLeadInMs, leadInFault } from '../../shared/midi/lead-in';
 import type { RetuneMode } from '../../shared/midi/song-retune';
 import { parsePresetDocument, type ResolvedPreset } from '../../shared/preset/preset-document';
 import type { Database } from '../db/client';
@@ -53,6 +54,12 @@ export function retuneRouter(db: Database): Router {
     if (mode !== 'mts' && mode !== 'mpe') {
       throw new HttpError(400, 'invalid', `mode: must be mts or mpe (got ${JSON.stringify(mode)}).`, 'mode');
     }
+    const leadInText = fields['leadInMs'];
+    const leadInMs = leadInText === undefined || leadInText === '' ? defaultLeadInMs : Number(leadInText);
+    const leadInFaultText = typeof leadInText === 'object' ? 'must be one number of milliseconds' : leadInFault(leadInMs);
+    if (leadInFaultText) {
+      throw new HttpError(400, 'invalid', `leadInMs: ${leadInFaultText}.`, 'leadInMs');
+    }
     if (file.buffer.subarray(0, 4).toString('latin1') !== 'MThd') {
       throw new HttpError(400, 'not_midi', `file: is not a Standard MIDI File; it looks like ${whatItIs(file.buffer)}.`, 'file');
     }
@@ -64,6 +71,7 @@ export function retuneRouter(db: Database): Router {
       output: preset.output,
       keysPerPeriod: preset.mapping.keysPerPeriod,
       mode: mode as RetuneMode,
+      leadInMs,
     });
     if (!retuned.ok) throw new ValidationError(retuned.errors);
     const sha256 = await recordUpload(db, req.user?.id, 'retune', file);
@@ -79,6 +87,7 @@ export function retuneRouter(db: Database): Router {
       notesStolenCount: report.notesStolenCount,
       notesUnmappedCount: report.notesUnmappedCount,
       warningsCount: report.warnings.length,
+      leadIn: report.leadIn,
       uploadSha256: sha256,
     };
     res.setHeader('Keyloom-Report', encodeURIComponent(JSON.stringify(counts)));

@@ -10,7 +10,7 @@ import { bundleEntries } from '../exports/bundle';
 import { type SheetRevision, renderTunerSheet } from '../exports/tuner-sheet';
 
 export type HeavyTask =
-  | { kind: 'retune'; song: Uint8Array; keys: KeyTable; output: ResolvedPreset['output']; keysPerPeriod: number; mode: RetuneMode }
+  | { kind: 'retune'; song: Uint8Array; keys: KeyTable; output: ResolvedPreset['output']; keysPerPeriod: number; mode: RetuneMode; leadInMs: number }
   | { kind: 'tuner-sheet'; preset: ResolvedPreset; at: SheetRevision }
   | { kind: 'bundle-entries'; preset: ResolvedPreset; at: SheetRevision }
   | { kind: 'syx-import'; bytes: Uint8Array; name: string };
@@ -20,7 +20,7 @@ export const listedStolenNotes = 100;
 
 /** A retuned song as the route sends it: the bytes moved back without a copy, the report's lists cut short. */
 export function retune(task: Extract<HeavyTask, { kind: 'retune' }>) {
-  const retuned = retuneSong(task.song, { keys: task.keys, output: task.output, keysPerPeriod: task.keysPerPeriod }, task.mode);
+  const retuned = retuneSong(task.song, { keys: task.keys, output: task.output, keysPerPeriod: task.keysPerPeriod }, task.mode, task.leadInMs);
   if (!retuned.ok) return retuned;
   const { bytes, report } = retuned.value;
   const listed = { ...report, notesStolen: report.notesStolen.slice(0, listedStolenNotes), notesStolenCount: report.notesStolen.length };

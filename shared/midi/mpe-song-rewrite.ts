@@ -273,6 +273,6 @@ export function rewriteAsMpe(song: Uint8Array, tuning: SongTuning): Result<Retun
   }
   const channelsUsed = rewrite.channelUsed.flatMap((used, index) => (used ? [index + 1] : []));
   // Unmapped notes are counted for both modes by retuneSong.
-  const report = { mode: 'mpe' as const, notesRetuned, channelsUsed, notesStolen, notesUnmappedCount: 0, notesUnmapped: [], warnings };
+  const report = { mode: 'mpe' as const, notesRetuned, channelsUsed, notesStolen, notesUnmappedCount: 0, notesUnmapped: [], warnings, leadIn: { ms: 0, ticks: 0 } };
   return succeed({ bytes, report });
 }

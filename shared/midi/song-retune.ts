@@ -1,5 +1,6 @@
 import { type FieldError, fail, fieldError, type Result, succeed } from '../result';
 import type { KeyPitch } from './frequency-word';
+import { defaultLeadInMs, type LeadIn, withLeadIn } from './lead-in';
 import { drumChannelIndex, rewriteAsMpe } from './mpe-song-rewrite';
 import { tuningSelectionMessages } from './registered-parameters';
 import { readSong } from './smf-reader';
@@ -60,6 +61,8 @@ export interface RetuneReport {
   notesUnmappedCount: number;
   notesUnmapped: UnmappedNote[];
   warnings: FieldError[];
+  /** How much later than written the song starts, so that the instrument applies the tuning first. */
+  leadIn: LeadIn;
 }
 
 export interface RetunedSong {
@@ -114,7 +117,10 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
   }
   return succeed({
     bytes: file.toBytes(),
-    report: { mode: 'mts', notesRetuned, channelsUsed, notesStolen: [], notesUnmappedCount: 0, notesUnmapped: [], warnings },
+    report: {
+      mode: 'mts', notesRetuned, channelsUsed, notesStolen: [], notesUnmappedCount: 0, notesUnmapped: [], warnings,
+      leadIn: { ms: 0, ticks: 0 },
+    },
   });
 }
 
@@ -158,18 +164,31 @@ function fitOfSong(song: Uint8Array, tuning: SongTuning): { unmapped: UnmappedNo
   return { unmapped, count, warnings };
 }
 
-/** Retunes a song; faults in the file are answered with what is wrong and where, never thrown. */
+/**
+ * Retunes a song; faults in the file are answered with what is wrong and where, never thrown. The song first
+ * moves `leadInMs` later (see lead-in.ts); the ticks a report names are those of the retuned file.
+ */
 export function retuneSong(
-  song: Uint8Array,
+  original: Uint8Array,
   tuning: SongTuning,
   mode: RetuneMode,
+  leadInMs = defaultLeadInMs,
 ): Result<RetunedSong> {
+  const shifted = withLeadIn(original, leadInMs);
+  if (!shifted.ok) return shifted;
+  const song = shifted.value.bytes;
   const retuned = mode === 'mts' ? retuneWithMts(song, tuning) : rewriteAsMpe(song, tuning);
   if (!retuned.ok) return retuned;
   const fit = fitOfSong(song, tuning);
   const { report } = retuned.value;
   return succeed({
     ...retuned.value,
-    report: { ...report, notesUnmappedCount: fit.count, notesUnmapped: fit.unmapped, warnings: [...report.warnings, ...fit.warnings] },
+    report: {
+      ...report,
+      notesUnmappedCount: fit.count,
+      notesUnmapped: fit.unmapped,
+      warnings: [...report.warnings, ...fit.warnings],
+      leadIn: shifted.value.leadIn,
+    },
   });
 }
