@@ -70,9 +70,10 @@ function refusalOf(error: unknown): RetuneStep {
 export class RetuneApi {
   private readonly http = inject(HttpClient);
 
-  retune(song: File, tuning: RetuneTuning, mode: RetuneMode): Observable<RetuneStep> {
+  retune(song: File, tuning: RetuneTuning, mode: RetuneMode, leadInMs: number): Observable<RetuneStep> {
     const form = new FormData();
     form.append('mode', mode);
+    form.append('leadInMs', String(leadInMs));
     if ('presetId' in tuning) form.append('presetId', tuning.presetId);
     else form.append('preset', JSON.stringify(tuning.document));
     form.append('file', song, song.name);

@@ -44,6 +44,7 @@ const mpeReport: SongReportHeader = {
   notesUnmapped: [{ track: 2, tick: 96, key: 61 }, { track: 2, tick: 288, key: 63 }],
   warnings: [{ path: 'file.tracks[1]', message: 'file: track 2 bends its notes already; those bends were replaced.' }],
   uploadSha256: 'ab'.repeat(32),
+  leadIn: { ms: 100, ticks: 96 },
 };
 /** The first bytes of a Standard MIDI File: the MThd header chunk. */
 const midiBytes = new Uint8Array([0x4d, 0x54, 0x68, 0x64, 0, 0, 0, 6, 0, 1, 0, 2, 0x01, 0xe0]);
@@ -143,6 +144,7 @@ describe('RetunePage', () => {
     expect(form.get('mode')).toBe('mpe');
     expect(form.get('presetId')).toBe('p-fen');
     expect(form.get('preset')).toBeNull();
+    expect(form.get('leadInMs')).toBe('100');
     expect((form.get('file') as File).name).toBe('fen-song.mid');
 
     request.event({ type: HttpEventType.UploadProgress, loaded: 30, total: 100 });
@@ -167,6 +169,9 @@ describe('RetunePage', () => {
     const stolen = Array.from(page().querySelectorAll('table.stolen tbody td')).map((cell) => cell.textContent!.trim());
     expect(stolen).toEqual(['2', '1', '61 (C#4)', '960', '1200', '3']);
     expect(text('.warnings')).toContain('track 2 bends its notes already');
+    expect(text('.lead-in-ms')).toBe('100 ms');
+    expect(text('.lead-in-note')).toContain('The song starts 100 ms (96 ticks) later than written');
+    expect(page().querySelector('app-song-preview button.play')?.textContent).toContain('Hear it first');
 
     const download = page().querySelector<HTMLAnchorElement>('a.download')!;
     expect(download.getAttribute('download')).toBe('fen-song-fen-fifths-mpe.mid');
@@ -200,6 +205,32 @@ describe('RetunePage', () => {
     expect((form.get('file') as File).name).toBe('fen-song.mid');
     await answerWithSong(second, 'fen-song-reed-organ-meantone-mpe.mid', mpeReport);
     expect(page().querySelector('a.download')!.getAttribute('download')).toBe('fen-song-reed-organ-meantone-mpe.mid');
+  });
+
+  it('sends the lead-in as typed, refuses one out of range before sending, and says when there is none', async () => {
+    await openSignedIn();
+    await choose(song());
+    const select = await loader.getHarness(MatSelectHarness);
+    await select.open();
+    await select.clickOptions({ text: /Fen Fifths/ });
+    const leadIn = page().querySelector<HTMLInputElement>('.lead-in input')!;
+    leadIn.value = '9000';
+    leadIn.dispatchEvent(new Event('input'));
+    await settle();
+    expect(text('.lead-in-fault')).toBe('Lead-in must be from 0 to 5000 ms (got 9000).');
+    pressRetune();
+    await settle();
+    http.expectNone('/api/retune');
+    expect(text('.missing')).toBe('Lead-in must be from 0 to 5000 ms (got 9000).');
+
+    leadIn.value = '0';
+    leadIn.dispatchEvent(new Event('input'));
+    await settle();
+    expect(page().querySelector('.lead-in-fault')).toBeNull();
+    const request = await retuneRequest();
+    expect((request.request.body as FormData).get('leadInMs')).toBe('0');
+    await answerWithSong(request, 'fen-song-fen-fifths-mts.mid', { ...mpeReport, mode: 'mts', leadIn: { ms: 0, ticks: 0 } });
+    expect(text('.lead-in-note')).toContain('No lead-in: the first note starts with the tuning');
   });
 
   it('refuses a 6 MB song without sending it', async () => {

@@ -3,10 +3,12 @@ import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
+import { defaultLeadInMs, leadInFault } from '@shared/midi/lead-in';
 import type { RetuneMode } from '@shared/midi/song-retune';
 import { parsePresetDocument } from '@shared/preset/preset-document';
 import { Subscription, catchError, map, of, switchMap } from 'rxjs';
@@ -18,6 +20,7 @@ import { SignInPrompt } from '../library/sign-in-prompt';
 import { FileDrop } from './file-drop';
 import { PresetFile, readPresetFile } from './preset-file';
 import { RetuneApi, RetuneStep, RetuneTuning } from './retune-api';
+import { SongPreview } from './song-preview';
 import { SongReport } from './song-report';
 import { fileSize, uploadFault } from './upload-limit';
 
@@ -29,8 +32,8 @@ const modeNames: Record<RetuneMode, string> = { mts: 'tuning messages (MTS)', mp
 @Component({
   selector: 'app-retune-page',
   imports: [
-    RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatProgressBarModule, MatRadioModule,
-    MatSelectModule, FileDrop, SignInPrompt, SongReport,
+    RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule,
+    MatRadioModule, MatSelectModule, FileDrop, SignInPrompt, SongPreview, SongReport,
   ],
   providers: [RetuneApi],
   templateUrl: './retune-page.html',
@@ -72,6 +75,13 @@ export class RetunePage {
     this.d() ? 'design' : this.signedIn() ? 'saved' : 'file',
   );
   protected readonly mode = signal<RetuneMode>('mts');
+  /** The time the instrument gets to apply the tuning before the first note, as typed. */
+  protected readonly leadInText = signal(String(defaultLeadInMs));
+  protected readonly leadInFault = computed(() => {
+    const text = this.leadInText().trim();
+    const fault = leadInFault(text === '' ? Number.NaN : Number(text));
+    return fault ? `Lead-in ${fault}.` : null;
+  });
 
   protected readonly step = signal<RetuneStep | null>(null);
   protected readonly missing = signal<string | null>(null);
@@ -156,13 +166,14 @@ export class RetunePage {
     if (this.busy()) return;
     const song = this.song();
     const tuning = this.chosenTuning();
-    const missing = !song ? 'Choose a song first.' : typeof tuning === 'string' ? tuning : null;
+    const leadInFault = this.leadInFault();
+    const missing = !song ? 'Choose a song first.' : typeof tuning === 'string' ? tuning : leadInFault;
     this.missing.set(missing);
-    if (!song || typeof tuning === 'string') return;
+    if (!song || typeof tuning === 'string' || leadInFault) return;
     this.running?.unsubscribe();
     this.replaceDownload(null);
     this.running = this.api
-      .retune(song, tuning, this.mode())
+      .retune(song, tuning, this.mode(), Number(this.leadInText()))
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe((step) => {
         if (step.kind === 'done') this.replaceDownload(URL.createObjectURL(step.song.blob));

@@ -35,7 +35,23 @@ function channelRuns(channels: readonly number[]): string {
         <dt>Notes on unmapped keys</dt>
         <dd class="notes-unmapped">{{ summary.notesUnmappedCount ?? 0 }}</dd>
       </div>
+      @if (summary.leadIn; as leadIn) {
+        <div>
+          <dt>Lead-in</dt>
+          <dd class="lead-in-ms">{{ leadIn.ms }} ms</dd>
+        </div>
+      }
     </dl>
+    @if (summary.leadIn; as leadIn) {
+      <p class="lead-in-note">
+        @if (leadIn.ticks > 0) {
+          The song starts {{ leadIn.ms }} ms ({{ leadIn.ticks }} ticks) later than written, so the instrument takes the
+          tuning before the first note; every note keeps its place against the others.
+        } @else {
+          No lead-in: the first note starts with the tuning, and some instruments need a moment to take it.
+        }
+      </p>
+    }
 
     @if (summary.notesStolenCount > 0) {
       <p>
