@@ -5,7 +5,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { launchChromium, newContext, screenshot } from './browser';
 
-type MidiMode = 'grant' | 'refuse' | 'missing' | 'drop after one';
+type MidiMode = 'grant' | 'refuse' | 'missing' | 'drop after one' | 'answers dump requests' | 'never answers';
 
 interface Recorded {
   sent: number[][];
@@ -20,6 +20,14 @@ function standInMidi(mode: MidiMode): void {
     return;
   }
   const listeners: ((event: Event) => void)[] = [];
+  // The instrument's own MIDI output, seen by the computer as an input of the same name.
+  const input = Object.assign(new EventTarget(), { id: 'stand-in-in', name: 'Stand-in synth', type: 'input', state: 'connected', open: async () => input });
+  /** A 12-tone equal dump of `program` by REFERENCE.md's layout and checksum rule, named "STAND-IN". */
+  const dumpOf = (program: number) => {
+    const name = Array.from('STAND-IN'.padEnd(16, ' '), (character) => character.charCodeAt(0));
+    const body = [0x7e, 0x7f, 0x08, 0x01, program, ...name, ...Array.from({ length: 128 }, (_, key) => [key, 0, 0]).flat()];
+    return Uint8Array.from([0xf0, ...body, body.reduce((sum, byte) => sum ^ byte, 0) & 0x7f, 0xf7]);
+  };
   const output = {
     id: 'stand-in-out',
     name: 'Stand-in synth',
@@ -28,6 +36,11 @@ function standInMidi(mode: MidiMode): void {
     send(bytes: Uint8Array | number[]) {
       if (output.state === 'disconnected') throw new DOMException('The port is closed', 'InvalidStateError');
       page.sent.push(Array.from(bytes));
+      const isDumpRequest = bytes[0] === 0xf0 && bytes[3] === 0x08 && bytes[4] === 0x00;
+      if (mode === 'answers dump requests' && isDumpRequest) {
+        const dump = dumpOf(bytes[5]);
+        setTimeout(() => input.dispatchEvent(Object.assign(new Event('midimessage'), { data: dump })), 20);
+      }
       if (mode === 'drop after one') {
         output.state = 'disconnected';
         for (const listener of listeners) listener(new Event('statechange'));
@@ -36,7 +49,7 @@ function standInMidi(mode: MidiMode): void {
   };
   const access = {
     sysexEnabled: true,
-    inputs: new Map(),
+    inputs: new Map(mode === 'answers dump requests' || mode === 'never answers' ? [[input.id, input]] : []),
     outputs: new Map([[output.id, output]]),
     addEventListener: (_type: string, listener: (event: Event) => void) => listeners.push(listener),
   };
@@ -55,8 +68,8 @@ beforeAll(async () => {
 });
 afterAll(() => browser.close());
 
-async function designer(mode: MidiMode): Promise<Page> {
-  const context = await newContext(browser, { acceptDownloads: true, viewport: { width: 1280, height: 1000 } });
+async function designer(mode: MidiMode, width = 1280): Promise<Page> {
+  const context = await newContext(browser, { acceptDownloads: true, viewport: { width, height: width > 600 ? 1000 : 844 } });
   const page = await context.newPage();
   await page.addInitScript(standInMidi, mode);
   await page.goto(`${inject('appUrl')}/design`);
@@ -178,6 +191,67 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     await screenshot(page, 'hardware-live-follow');
     // Nothing else went out after the edit settled.
     expect(await sentBytes(page)).toEqual(sent);
+    await page.context().close();
+  });
+
+  it('backs up the program it is about to overwrite with a dump request, then sends on the player\'s word', async () => {
+    const page = await designer('answers dump requests');
+    await openSendPanel(page);
+    await expect.poll(() => page.getByLabel('Answers from (MIDI input)').textContent()).toContain('Stand-in synth');
+    await page.getByRole('button', { name: 'Send tuning' }).click();
+    const dialog = page.getByRole('dialog');
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      dialog.getByRole('button', { name: "Back up the instrument's tuning first" }).click(),
+    ]);
+    expect(download.suggestedFilename()).toBe('backup-stand-in-synth-program-0.syx');
+    const kept = readFileSync((await download.path())!);
+    // REFERENCE.md: a bulk dump is 408 bytes, F0 7E dev 08 01 tt ...; its checksum is the XOR of the bytes from 7E up
+    // to the last data byte, AND 7F.
+    expect(kept.length).toBe(408);
+    expect([...kept.subarray(0, 6)]).toEqual([0xf0, 0x7e, 0x7f, 0x08, 0x01, 0x00]);
+    expect(kept[406]).toBe(kept.subarray(1, 406).reduce((sum, byte) => sum ^ byte, 0) & 0x7f);
+    await expect.poll(() => dialog.textContent()).toContain('Backed up as backup-stand-in-synth-program-0.syx');
+    await screenshot(page, 'hardware-backup-done');
+    // Nothing is sent but the request until the player says so.
+    expect(await sentBytes(page)).toEqual([[0xf0, 0x7e, 0x7f, 0x08, 0x00, 0x00, 0xf7]]);
+    await dialog.getByRole('button', { name: 'Send and replace' }).click();
+    await expect.poll(() => page.getByText('Sent 1 message (408 bytes).').count()).toBe(1);
+    expect((await sentBytes(page)).length).toBe(2);
+    await page.context().close();
+  });
+
+  it('says plainly when the instrument does not answer, and sends only on the player\'s word (phone width)', async () => {
+    const page = await designer('never answers', 390);
+    await openSendPanel(page);
+    await page.locator('mat-label', { hasText: 'Answers from (MIDI input)' }).waitFor();
+    // No hint under a field (Device id, Answers from, ...) runs into the field below or beside it.
+    const collisions = await page.evaluate(() => {
+      const fields = [...document.querySelectorAll('mat-form-field')];
+      const hits: string[] = [];
+      for (const hint of document.querySelectorAll('mat-hint')) {
+        const own = hint.closest('mat-form-field');
+        const box = hint.getBoundingClientRect();
+        for (const field of fields) {
+          if (field === own) continue;
+          const other = field.querySelector('.mat-mdc-text-field-wrapper')!.getBoundingClientRect();
+          const overlaps = box.left < other.right && other.left < box.right && box.top < other.bottom && other.top < box.bottom;
+          if (overlaps) hits.push(`${hint.textContent} / ${field.querySelector('mat-label')?.textContent}`);
+        }
+      }
+      return hits;
+    });
+    expect(collisions).toEqual([]);
+    await screenshot(page, 'hardware-send-panel-phone');
+    await page.getByRole('button', { name: 'Send tuning' }).click();
+    const dialog = page.getByRole('dialog');
+    await dialog.getByRole('button', { name: "Back up the instrument's tuning first" }).click();
+    await expect.poll(() => dialog.getByRole('alert').textContent()).toContain('Stand-in synth did not answer the dump request');
+    expect(await dialog.getByRole('alert').textContent()).toContain('Nothing was backed up.');
+    await screenshot(page, 'hardware-backup-no-answer-phone');
+    expect((await sentBytes(page)).length).toBe(1);
+    await dialog.getByRole('button', { name: 'Send without a backup' }).click();
+    await expect.poll(() => page.getByText('Sent 1 message (408 bytes).').count()).toBe(1);
     await page.context().close();
   });
 

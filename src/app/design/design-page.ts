@@ -14,6 +14,7 @@ import { LiveFollow } from '../hardware/live-follow';
 import { MidiAccess } from '../hardware/midi-access';
 import { SendPanel } from '../hardware/send-panel';
 import { TuningSender } from '../hardware/tuning-sender';
+import { TuningBackup } from '../hardware/tuning-backup';
 import { KeyboardStrip } from '../keys/keyboard-strip';
 import { LayoutEditor } from '../keys/layout-editor';
 import { ReferencePitch } from '../keys/reference-pitch';
@@ -50,7 +51,7 @@ function isTyping(target: EventTarget | null): boolean {
     ScaleSummary, PeriodRing, DegreeTable, OffsetChart, IntervalMatrix, ReferencePitch, KeyboardStrip, LayoutEditor,
     OutputSettings, PlayPanel, StripPlaying, AnchorPicking, KeyTable, SendPanel,
   ],
-  providers: [DesignState, DesignAddress, SavedPreset, Audition, MidiAccess, ControllerInput, TuningSender, LiveFollow],
+  providers: [DesignState, DesignAddress, SavedPreset, Audition, MidiAccess, ControllerInput, TuningSender, TuningBackup, LiveFollow],
   templateUrl: './design-page.html',
   styleUrl: './design-page.scss',
   host: { '(document:keydown)': 'followShortcut($event)' },

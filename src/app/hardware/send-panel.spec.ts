@@ -1,3 +1,4 @@
+import { provideHttpClient } from '@angular/common/http';
 import { TestBed } from '@angular/core/testing';
 import { MatDialog } from '@angular/material/dialog';
 import { of } from 'rxjs';
@@ -7,6 +8,7 @@ import { LiveFollow } from './live-follow';
 import { MidiAccess } from './midi-access';
 import type { OverwriteQuestion } from './overwrite-dialog';
 import { SendPanel } from './send-panel';
+import { TuningBackup } from './tuning-backup';
 import { TuningSender } from './tuning-sender';
 
 describe('SendPanel', () => {
@@ -20,7 +22,7 @@ describe('SendPanel', () => {
     TestBed.configureTestingModule({
       imports: [SendPanel],
       providers: [
-        DesignState, MidiAccess, TuningSender, LiveFollow,
+        DesignState, MidiAccess, TuningSender, TuningBackup, LiveFollow, provideHttpClient(),
         { provide: MatDialog, useValue: { open: (_: unknown, config: { data: OverwriteQuestion }) => (questions.push(config.data), { afterClosed: () => of(true) }) } },
       ],
     });

@@ -12,6 +12,7 @@ import { LiveFollow } from './live-follow';
 import { MidiAccess, midiAccessFaults } from './midi-access';
 import { OverwriteDialog, type OverwriteQuestion } from './overwrite-dialog';
 import { type MessageFormId, messageForms } from './tuning-messages';
+import { TuningBackup } from './tuning-backup';
 import { TuningSender } from './tuning-sender';
 
 /** Every byte as two hex digits, a message a line. */
@@ -33,6 +34,7 @@ export class SendPanel {
   protected readonly midi = inject(MidiAccess);
   protected readonly sender = inject(TuningSender);
   protected readonly follow = inject(LiveFollow);
+  protected readonly backup = inject(TuningBackup);
   private readonly dialog = inject(MatDialog);
   protected readonly forms = messageForms;
   protected readonly accessFault = computed(() => midiAccessFaults[this.midi.state()] ?? null);
@@ -64,10 +66,15 @@ export class SendPanel {
 
   protected async confirmAndSend(): Promise<void> {
     const port = this.midi.outputs().find((candidate) => candidate.id === this.sender.outputId());
+    const canBackUp = this.usesProgram() && this.backup.inputId() !== null;
     const question: OverwriteQuestion = {
       portName: port?.name ?? 'the instrument',
       program: this.usesProgram() ? this.sender.program() : null,
       bank: this.usesBank() ? this.sender.bank() : null,
+      backUp: canBackUp ? () => this.backup.backUp() : null,
+      noBackup: this.midi.inputs().length
+        ? 'To back it up from here, choose the instrument under "Answers from (MIDI input)".'
+        : 'To back it up from here, connect the instrument\'s MIDI output to this computer too.',
     };
     const answer = await firstValueFrom(this.dialog.open(OverwriteDialog, { data: question }).afterClosed());
     if (answer === true) await this.sender.send();
