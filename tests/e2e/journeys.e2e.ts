@@ -163,14 +163,34 @@ describe('journey 5: a producer retunes a song', () => {
     await page.getByRole('combobox', { name: 'Saved preset' }).click();
     await page.getByRole('option', { name: /Fen Fifths/ }).first().click();
     await page.getByRole('radio', { name: /One note per channel/ }).check();
+    await page.getByLabel('Lead-in before the first note').fill('250');
     await page.getByRole('button', { name: /^Retune/ }).click();
     await expect.poll(() => page.getByText(/5 notes? retuned|retuned 5|Notes retuned/i).count()).toBeGreaterThan(0);
+    await expect.poll(() => page.locator('.lead-in-note').textContent()).toContain('The song starts 250 ms (240 ticks) later');
     await screenshot(page, 'journey-5-report');
+    // Hear it first: the page's own signal that sound began is the hearing caution and a moving clock.
+    await page.getByRole('button', { name: 'Hear it first' }).click();
+    await page.getByText('Keep the volume low').waitFor();
+    await page.getByRole('button', { name: 'Stop' }).waitFor();
+    await screenshot(page, 'journey-5-hearing');
+    await page.getByRole('button', { name: 'Stop' }).click();
     const file = await downloaded(page, () => page.getByRole('link', { name: /Download/ }).first().click());
     const tuned = parseMidi(file.bytes);
     const notes = tuned.tracks.flat().filter((e) => e.type === 'noteOn' && e.velocity > 0);
     expect(notes).toHaveLength(5);
     expect(new Set(notes.map((n) => (n as { channel: number }).channel)).size).toBeGreaterThan(1);
+    // SMF 1.0 at the default 120 a minute and 480 ticks a quarter: 960 ticks a second, so 250 ms is 240 ticks.
+    const firstNoteTick = Math.min(
+      ...tuned.tracks.map((track) => {
+        let tick = 0;
+        for (const event of track) {
+          tick += event.deltaTime;
+          if (event.type === 'noteOn' && event.velocity > 0) return tick;
+        }
+        return Infinity;
+      }),
+    );
+    expect(firstNoteTick).toBe(240);
     await context.close();
   });
 });
