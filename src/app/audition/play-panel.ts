@@ -1,4 +1,4 @@
-import { Component, computed, inject, linkedSignal } from '@angular/core';
+import { Component, computed, inject, input, linkedSignal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -26,6 +26,8 @@ function isTyping(target: EventTarget | null): boolean {
   host: { '(document:keydown)': 'playComputerKey($event, true)', '(document:keyup)': 'playComputerKey($event, false)' },
 })
 export class PlayPanel {
+  /** Whether the 128 keys are shown right under the panel (the shared page) rather than on the Keys tab. */
+  readonly keysBelow = input(false);
   protected readonly audition = inject(Audition);
   protected readonly midi = inject(MidiAccess);
   protected readonly controller = inject(ControllerInput);

@@ -64,6 +64,9 @@ describe('SharedPage', () => {
     expect(page().querySelector('.summary .pitch')!.textContent).toBe('Root key 60 (C4) sounds 261.6256 Hz.');
     // The tuning can be heard here: the play panel (with its volume caution) and the keys to play.
     expect(page().querySelector('.listen app-play-panel')).not.toBeNull();
+    const hint = page().querySelector('.listen app-play-panel .hint')?.textContent?.replace(/\s+/g, ' ');
+    expect(hint).toContain('Click or touch the keys below.');
+    expect(hint).not.toContain('Keys tab');
     expect(page().querySelectorAll('.listen app-keyboard-strip g.key').length).toBe(128);
     const rows = Array.from(page().querySelectorAll('app-degree-table tbody tr')).map((tr) =>
       Array.from(tr.children).map((cell) => cell.textContent!.trim()),
