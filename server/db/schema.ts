@@ -15,12 +15,14 @@ import {
   uuid,
   varchar,
 } from 'drizzle-orm/pg-core';
+import type { AuditAction } from '../../shared/api/audit';
+import { bandRoles } from '../../shared/api/roles';
 
 /** Site-wide role of a user: admins can see and repair everything. */
 export const siteRole = pgEnum('site_role', ['member', 'admin']);
 
 /** Role of a user inside one band. */
-export const bandRole = pgEnum('band_role', ['owner', 'editor', 'viewer']);
+export const bandRole = pgEnum('band_role', bandRoles);
 
 const createdAt = () => timestamp('created_at', { withTimezone: true }).notNull().defaultNow();
 
@@ -165,8 +167,8 @@ export const auditLog = pgTable(
     actorId: uuid('actor_id').references(() => users.id, { onDelete: 'set null' }),
     bandId: uuid('band_id').references(() => bands.id, { onDelete: 'cascade' }),
     presetId: uuid('preset_id').references(() => presets.id, { onDelete: 'set null' }),
-    action: text('action').notNull(),
-    detail: jsonb('detail'),
+    action: text('action').$type<AuditAction>().notNull(),
+    detail: jsonb('detail').$type<Record<string, unknown>>(),
     createdAt: createdAt(),
   },
   (t) => [index('audit_log_band_idx').on(t.bandId, t.createdAt), index('audit_log_preset_idx').on(t.presetId)],

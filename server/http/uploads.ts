@@ -3,12 +3,10 @@ import type { ErrorRequestHandler, RequestHandler } from 'express';
 import multer from 'multer';
 import type { Database } from '../db/client';
 import { uploads } from '../db/schema';
+import { uploadLimitBytes, uploadTooLarge } from '../../shared/api/uploads';
 import { withoutControlCharacters } from '../../shared/text/plain-text';
 import { onlyBodiesOf } from './bodies';
 import { HttpError } from './errors';
-
-/** The largest file Keyloom takes: a long song is a few hundred kilobytes. */
-export const uploadLimitBytes = 5 * 1024 * 1024;
 
 /**
  * One multipart file field (plus text fields), kept in memory up to the limit. A body of another type answers 415;
@@ -36,7 +34,7 @@ export function singleUpload(field: string): RequestHandler[] {
 export const uploadErrors: ErrorRequestHandler = (error, _req, _res, next) => {
   if (!(error instanceof multer.MulterError)) return next(error);
   if (error.code === 'LIMIT_FILE_SIZE') {
-    return next(new HttpError(413, 'too_large', `file: larger than the limit of ${uploadLimitBytes / 1024 / 1024} MB.`, 'file'));
+    return next(new HttpError(413, 'too_large', uploadTooLarge, 'file'));
   }
   next(new HttpError(400, 'bad_upload', `${error.field ?? 'upload'}: ${error.message}.`, error.field ?? 'file'));
 };

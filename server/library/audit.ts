@@ -1,3 +1,4 @@
+import type { AuditAction } from '../../shared/api/audit';
 import type { Database } from '../db/client';
 import { auditLog } from '../db/schema';
 
@@ -6,7 +7,7 @@ export type Writer = Database | Transaction;
 
 export interface AuditEntry {
   actorId: string;
-  action: string;
+  action: AuditAction;
   bandId?: string | null;
   presetId?: string | null;
   detail?: Record<string, unknown>;

@@ -1,8 +1,9 @@
+import type { AuditAction } from '../../shared/api/audit';
 // Presets and their revisions: every save is a new row, numbered in the order saves land.
 import { and, eq, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { presetRevisions, presets } from '../db/schema';
-import { largestRevision } from '../../shared/library/requests';
+import { largestRevision } from '../../shared/api/requests';
 import { notFound } from '../http/errors';
 import { recordAudit, type Writer } from './audit';
 
@@ -15,7 +16,7 @@ export interface NewPreset {
   forkedFrom?: { id: string; revision: number };
 }
 
-export async function createPreset(db: Database, input: NewPreset, action = 'preset.create'): Promise<string> {
+export async function createPreset(db: Database, input: NewPreset, action: AuditAction = 'preset.create'): Promise<string> {
   return db.transaction(async (tx) => {
     const [preset] = await tx
       .insert(presets)
@@ -52,7 +53,7 @@ export async function createPreset(db: Database, input: NewPreset, action = 'pre
  */
 export async function appendRevision(
   db: Database,
-  input: { presetId: string; authorId: string; name: string; document: unknown; note: string | null; action: string; bandId: string | null },
+  input: { presetId: string; authorId: string; name: string; document: unknown; note: string | null; action: AuditAction; bandId: string | null },
 ): Promise<number> {
   return db.transaction(async (tx) => {
     const [row] = await tx

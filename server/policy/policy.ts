@@ -5,12 +5,13 @@ import type { SignedInUser } from '../auth/github';
 import type { Database } from '../db/client';
 import { bands, memberships, presets } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
+import { type BandRole, type PresetAccess, presetAccessLevels } from '../../shared/api/roles';
 
-export type BandRole = 'owner' | 'editor' | 'viewer';
+export type { BandRole, PresetAccess };
 
-/** What a user may do with a preset, in rising order. */
-export type PresetAccess = 'none' | 'read' | 'edit' | 'own';
-const presetOrder: PresetAccess[] = ['none', 'read', 'edit', 'own'];
+/** What a user may do with a preset, in rising order: none, then the levels the API names. */
+export type PresetAccessOrNone = 'none' | PresetAccess;
+const presetOrder: PresetAccessOrNone[] = ['none', ...presetAccessLevels];
 
 /** What a user may do with a band, in rising order. */
 export type BandAccess = 'none' | 'member' | 'owner';
@@ -36,11 +37,25 @@ export async function bandRole(db: Database, userId: string, bandId: string): Pr
 }
 
 /** Personal presets belong to their owner alone; band presets follow the member's role; admins may do anything. */
-function presetAccess(user: SignedInUser | undefined, preset: PresetRow, role: BandRole | null): PresetAccess {
+export function presetAccess(
+  user: SignedInUser | undefined,
+  preset: Pick<PresetRow, 'bandId' | 'ownerId'>,
+  role: BandRole | null,
+): PresetAccessOrNone {
   if (!user) return 'none';
   if (user.siteRole === 'admin') return 'own';
   if (preset.bandId === null) return preset.ownerId === user.id ? 'own' : 'none';
   return role === 'owner' ? 'own' : role === 'editor' ? 'edit' : role === 'viewer' ? 'read' : 'none';
+}
+
+/** The access shown on a row of the caller's own list (their presets and their bands'), where it is never none. */
+export function listedPresetAccess(
+  user: SignedInUser,
+  preset: Pick<PresetRow, 'bandId' | 'ownerId'>,
+  role: BandRole | null,
+): PresetAccess {
+  const access = presetAccess(user, preset, role);
+  return access === 'none' ? 'read' : access;
 }
 
 function bandAccess(user: SignedInUser | undefined, role: BandRole | null): BandAccess {
@@ -56,7 +71,7 @@ export async function authorizePreset(
   db: Database,
   user: SignedInUser | undefined,
   presetId: string,
-  need: Exclude<PresetAccess, 'none'>,
+  need: PresetAccess,
 ): Promise<{ preset: PresetRow; access: PresetAccess }> {
   const preset = isId(presetId) ? await db.query.presets.findFirst({ where: eq(presets.id, presetId) }) : undefined;
   if (!preset) throw notFound('preset');

@@ -1,9 +1,13 @@
 import { and, asc, count, desc, eq, gt, isNull } from 'drizzle-orm';
 import { Router } from 'express';
-import { bandNameRequest, memberRoleRequest, parseRequest } from '../../shared/library/requests';
+import type { AuditEntry } from '../../shared/api/audit';
+import type { BandDetail, BandSummary, ChangedRole, CreatedBand, PendingInvite, RenamedBand } from '../../shared/api/bands';
+import { bandNameRequest, memberRoleRequest, parseRequest } from '../../shared/api/requests';
+import type { ItemList } from '../../shared/api/wire';
 import type { Database } from '../db/client';
 import { auditLog, bands, invites, memberships, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
+import { iso } from '../http/wire';
 import { valueOrThrow } from '../http/validation';
 import { recordAudit, type Writer } from '../library/audit';
 import { authorizeBand, isId, requireUser } from '../policy/policy';
@@ -31,7 +35,7 @@ export function bandsRouter(db: Database): Router {
       await recordAudit(tx, { actorId: user.id, action: 'band.create', bandId: band.id, detail: { name } });
       return band.id;
     });
-    res.status(201).json({ id, name, role: 'owner' });
+    res.status(201).json({ id, name, role: 'owner' } satisfies CreatedBand);
   });
 
   router.get('/api/bands', async (req, res) => {
@@ -42,7 +46,7 @@ export function bandsRouter(db: Database): Router {
       .innerJoin(bands, eq(bands.id, memberships.bandId))
       .where(eq(memberships.userId, user.id))
       .orderBy(asc(bands.name));
-    res.json({ items: rows });
+    res.json({ items: rows.map((row) => ({ ...row, createdAt: iso(row.createdAt) })) } satisfies ItemList<BandSummary>);
   });
 
   router.get('/api/bands/:id', async (req, res) => {
@@ -56,7 +60,14 @@ export function bandsRouter(db: Database): Router {
       .innerJoin(users, eq(users.id, memberships.userId))
       .where(eq(memberships.bandId, band.id))
       .orderBy(asc(users.login));
-    res.json({ id: band.id, name: band.name, createdAt: band.createdAt, role, canManage: access === 'owner', members });
+    res.json({
+      id: band.id,
+      name: band.name,
+      createdAt: iso(band.createdAt),
+      role,
+      canManage: access === 'owner',
+      members: members.map((member) => ({ ...member, joinedAt: iso(member.joinedAt) })),
+    } satisfies BandDetail);
   });
 
   router.patch('/api/bands/:id', async (req, res) => {
@@ -67,7 +78,7 @@ export function bandsRouter(db: Database): Router {
       await tx.update(bands).set({ name }).where(eq(bands.id, band.id));
       await recordAudit(tx, { actorId: user.id, action: 'band.rename', bandId: band.id, detail: { from: band.name, to: name } });
     });
-    res.json({ id: band.id, name });
+    res.json({ id: band.id, name } satisfies RenamedBand);
   });
 
   router.patch('/api/bands/:id/members/:userId', async (req, res) => {
@@ -84,7 +95,7 @@ export function bandsRouter(db: Database): Router {
       await tx.update(memberships).set({ role }).where(and(eq(memberships.bandId, band.id), eq(memberships.userId, memberId)));
       await recordAudit(tx, { actorId: user.id, action: 'member.role', bandId: band.id, detail: { userId: memberId, from: member.role, to: role } });
     });
-    res.json({ userId: memberId, role });
+    res.json({ userId: memberId, role } satisfies ChangedRole);
   });
 
   /** Owners remove members; any member removes themself (leaves). */
@@ -121,7 +132,7 @@ export function bandsRouter(db: Database): Router {
       .where(eq(auditLog.bandId, band.id))
       .orderBy(desc(auditLog.id))
       .limit(200);
-    res.json({ items: rows });
+    res.json({ items: rows.map((row) => ({ ...row, createdAt: iso(row.createdAt) })) } satisfies ItemList<AuditEntry>);
   });
 
   router.get('/api/bands/:id/invites', async (req, res) => {
@@ -131,7 +142,8 @@ export function bandsRouter(db: Database): Router {
       .from(invites)
       .where(and(eq(invites.bandId, band.id), isNull(invites.acceptedAt), isNull(invites.revokedAt), gt(invites.expiresAt, new Date())))
       .orderBy(desc(invites.createdAt));
-    res.json({ items: rows });
+    const items = rows.map((row) => ({ ...row, createdAt: iso(row.createdAt), expiresAt: iso(row.expiresAt) }));
+    res.json({ items } satisfies ItemList<PendingInvite>);
   });
 
   return router;

@@ -1,6 +1,7 @@
 import { Router } from 'express';
+import type { ImportedTuning, ImportKind } from '../../shared/api/songs';
 import { presetFromIntervalList } from '../../shared/import/interval-list';
-import { parsePresetDocument } from '../../shared/preset/preset-document';
+import { parsePresetDocument, type PresetDocument } from '../../shared/preset/preset-document';
 import type { Result } from '../../shared/result';
 import type { Database } from '../db/client';
 import { HttpError } from '../http/errors';
@@ -37,7 +38,7 @@ export function importsRouter(db: Database): Router {
     await recordUpload(db, req.user?.id, 'import', file);
     const name = nameFrom(file.originalname);
     let document: Result<unknown>;
-    let kind: string;
+    let kind: ImportKind;
     if (file.buffer[0] === systemExclusive) {
       kind = 'syx';
       // Thousands of dumps take a while to decode: on a worker thread, so that nobody else waits.
@@ -61,7 +62,7 @@ export function importsRouter(db: Database): Router {
     const value = valueOrThrow(document);
     // Whatever came in must stand as a preset of its own before it is handed back.
     const checked = valueOrThrow(parsePresetDocument(value));
-    res.json({ kind, document: kind === 'preset' ? checked : value });
+    res.json({ kind, document: (kind === 'preset' ? checked : value) as PresetDocument } satisfies ImportedTuning);
   });
   return router;
 }

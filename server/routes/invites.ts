@@ -1,12 +1,14 @@
 import { and, eq } from 'drizzle-orm';
 import { type RequestHandler, Router } from 'express';
-import { inviteRequest, parseRequest } from '../../shared/library/requests';
+import type { AcceptedInvite, CreatedInvite, InviteSummary, ResentInvite } from '../../shared/api/bands';
+import { inviteRequest, parseRequest } from '../../shared/api/requests';
 import { singleLine } from '../../shared/text/plain-text';
 import type { Config } from '../config';
 import type { Database } from '../db/client';
 import { bands, invites, memberships, users } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import { valueOrThrow } from '../http/validation';
+import { iso } from '../http/wire';
 import type { Mailer } from '../mail/mailer';
 import { recordAudit } from '../library/audit';
 import { hashToken, newToken } from '../library/tokens';
@@ -69,7 +71,7 @@ export function invitesRouter(db: Database, config: Config, mailer: Mailer, limi
       await mailer.send(inviteMail({ to: email, bandName: band.name, inviter: user.name ?? user.login, role, link: link(token), expiresAt }));
       return row;
     });
-    res.status(201).json({ id: invite.id, email, role, expiresAt });
+    res.status(201).json({ id: invite.id, email, role, expiresAt: iso(expiresAt) } satisfies CreatedInvite);
   });
 
   router.post('/api/bands/:id/invites/:inviteId/resend', limit, async (req, res) => {
@@ -89,7 +91,7 @@ export function invitesRouter(db: Database, config: Config, mailer: Mailer, limi
         inviteMail({ to: invite.email, bandName: band.name, inviter: user.name ?? user.login, role: invite.role, link: link(token), expiresAt }),
       );
     });
-    res.json({ id: invite.id, expiresAt });
+    res.json({ id: invite.id, expiresAt: iso(expiresAt) } satisfies ResentInvite);
   });
 
   router.delete('/api/bands/:id/invites/:inviteId', async (req, res) => {
@@ -119,9 +121,9 @@ export function invitesRouter(db: Database, config: Config, mailer: Mailer, limi
       inviter: row.inviterName ?? row.inviterLogin,
       role: row.invite.role,
       email: row.invite.email,
-      expiresAt: row.invite.expiresAt,
+      expiresAt: iso(row.invite.expiresAt),
       status: inviteStatus(row.invite),
-    });
+    } satisfies InviteSummary);
   });
 
   router.post('/api/invites/:token/accept', limit, async (req, res) => {
@@ -142,7 +144,7 @@ export function invitesRouter(db: Database, config: Config, mailer: Mailer, limi
       });
       return { bandId: invite.bandId, role: existing?.role ?? invite.role, alreadyMember: Boolean(existing) };
     });
-    res.json(result);
+    res.json(result satisfies AcceptedInvite);
   });
 
   return router;

@@ -1,4 +1,5 @@
 import { Router } from 'express';
+import type { MeAnswer } from '../../shared/api/me';
 
 /** Who is signed in: `{ user: null }` for a visitor. */
 export function meRouter(): Router {
@@ -8,6 +9,6 @@ export function meRouter(): Router {
       user: user
         ? { id: user.id, login: user.login, name: user.name, email: user.email, avatarUrl: user.avatarUrl, siteRole: user.siteRole }
         : null,
-    });
+    } satisfies MeAnswer);
   });
 }

@@ -97,6 +97,26 @@ describe('presets', () => {
     expect(bad.body.error.field).toBe('sort');
   });
 
+  it('tells on each listed row what the caller may do with it, as the policy decides for the preset itself', async () => {
+    const viewer = await server.signIn('presets-viewer');
+    await server.db.insert(memberships).values({ bandId, userId: viewer.user.id, role: 'viewer' });
+    await post(viewer, '/api/presets', { document: fifths('Viewer Own Lute') }).expect(201);
+    await post(mira, '/api/presets', { document: fifths('Band Lute'), bandId }).expect(201);
+    const rows = (await viewer.agent.get('/api/presets?q=lute&sort=name').expect(200)).body.items;
+    expect(rows.map((row: { name: string; access: string }) => [row.name, row.access])).toEqual([
+      ['Band Lute', 'read'],
+      ['Viewer Own Lute', 'own'],
+    ]);
+    // Each row's access is what GET /api/presets/:id says for that preset.
+    for (const row of rows) {
+      expect((await viewer.agent.get(`/api/presets/${row.id}`).expect(200)).body.access).toBe(row.access);
+    }
+    const miraRows = (await mira.agent.get('/api/presets?q=band%20lute').expect(200)).body.items;
+    expect(miraRows[0].access).toBe('own');
+    const tobiasRows = (await tobias.agent.get('/api/presets?q=band%20lute').expect(200)).body.items;
+    expect(tobiasRows[0].access).toBe('edit');
+  });
+
   it('forks into my own library or a band\'s, remembering where it came from', async () => {
     const { id } = (await post(mira, '/api/presets', { document: fifths('Forkable'), bandId }).expect(201)).body;
     const outsider = await server.signIn('presets-outsider');

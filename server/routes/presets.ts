@@ -7,16 +7,29 @@ import {
   presetListQuery,
   restoreRevisionRequest,
   saveRevisionRequest,
-} from '../../shared/library/requests';
+} from '../../shared/api/requests';
+import type {
+  CreatedPreset,
+  ForkedPreset,
+  PresetPage,
+  RevisionChanges,
+  RevisionDocument,
+  RevisionEntry,
+  SavedPreset,
+  SavedRevision,
+  UntrashedPreset,
+} from '../../shared/api/presets';
+import type { ItemList } from '../../shared/api/wire';
 import { summarizeChanges } from '../../shared/library/revision-changes';
 import type { Database } from '../db/client';
 import { bands, memberships, presetRevisions, presets, users } from '../db/schema';
 import { documentOrThrow } from '../http/documents';
 import { HttpError } from '../http/errors';
 import { valueOrThrow } from '../http/validation';
+import { iso } from '../http/wire';
 import { recordAudit } from '../library/audit';
 import { appendRevision, createPreset, readRevision } from '../library/revisions';
-import { authorizeBandLibrary, authorizePreset, requireUser } from '../policy/policy';
+import { authorizeBandLibrary, authorizePreset, listedPresetAccess, requireUser } from '../policy/policy';
 
 /** How long a deleted preset waits in the trash before it is gone for good. */
 const trashDays = 30;
@@ -51,7 +64,7 @@ export function presetsRouter(db: Database): Router {
       document: body.document,
       note: body.note ?? null,
     });
-    res.status(201).json({ id, revision: 1 });
+    res.status(201).json({ id, revision: 1 } satisfies CreatedPreset);
   });
 
   router.get('/api/presets', async (req, res) => {
@@ -81,17 +94,25 @@ export function presetsRouter(db: Database): Router {
         revision: presets.latestRevision,
         updatedAt: presets.updatedAt,
         deletedAt: presets.deletedAt,
+        role: memberships.role,
         total: sql<number>`count(*) over ()`.mapWith(Number),
       })
       .from(presets)
       .leftJoin(bands, eq(bands.id, presets.bandId))
+      .leftJoin(memberships, and(eq(memberships.bandId, presets.bandId), eq(memberships.userId, user.id)))
       .innerJoin(users, eq(users.id, presets.ownerId))
       .where(where)
       .orderBy(...order)
       .limit(query.pageSize)
       .offset((query.page - 1) * query.pageSize);
     const total = rows[0]?.total ?? (query.page === 1 ? 0 : await countVisible());
-    res.json({ items: rows.map(({ total: _, ...item }) => item), total, page: query.page, pageSize: query.pageSize });
+    const items = rows.map(({ total: _, role, ...row }) => ({
+      ...row,
+      updatedAt: iso(row.updatedAt),
+      deletedAt: iso(row.deletedAt),
+      access: listedPresetAccess(user, row, role),
+    }));
+    res.json({ items, total, page: query.page, pageSize: query.pageSize } satisfies PresetPage);
 
     async function countVisible(): Promise<number> {
       const [row] = await db.select({ n: sql<number>`count(*)`.mapWith(Number) }).from(presets).where(where);
@@ -110,12 +131,12 @@ export function presetsRouter(db: Database): Router {
       revision: preset.latestRevision,
       note: latest.note,
       document: latest.document,
-      createdAt: preset.createdAt,
-      updatedAt: preset.updatedAt,
-      deletedAt: preset.deletedAt,
+      createdAt: iso(preset.createdAt),
+      updatedAt: iso(preset.updatedAt),
+      deletedAt: iso(preset.deletedAt),
       forkedFrom: preset.forkedFromId ? { id: preset.forkedFromId, revision: preset.forkedFromRevision } : null,
       access,
-    });
+    } satisfies SavedPreset);
   });
 
   router.post('/api/presets/:id/revisions', async (req, res) => {
@@ -132,7 +153,7 @@ export function presetsRouter(db: Database): Router {
       action: 'preset.save',
       bandId: preset.bandId,
     });
-    res.status(201).json({ revision });
+    res.status(201).json({ revision } satisfies SavedRevision);
   });
 
   router.get('/api/presets/:id/revisions', async (req, res) => {
@@ -151,13 +172,20 @@ export function presetsRouter(db: Database): Router {
       .leftJoin(users, eq(users.id, presetRevisions.authorId))
       .where(eq(presetRevisions.presetId, preset.id))
       .orderBy(desc(presetRevisions.revision));
-    res.json({ items: rows });
+    res.json({ items: rows.map((row) => ({ ...row, createdAt: iso(row.createdAt) })) } satisfies ItemList<RevisionEntry>);
   });
 
   router.get('/api/presets/:id/revisions/:n', async (req, res) => {
     const { preset } = await authorizePreset(db, req.user, req.params['id'], 'read');
     const row = await readRevision(db, preset.id, revisionNumber(req.params['n']));
-    res.json({ presetId: preset.id, revision: row.revision, note: row.note, authorId: row.authorId, createdAt: row.createdAt, document: row.document });
+    res.json({
+      presetId: preset.id,
+      revision: row.revision,
+      note: row.note,
+      authorId: row.authorId,
+      createdAt: iso(row.createdAt),
+      document: row.document,
+    } satisfies RevisionDocument);
   });
 
   router.get('/api/presets/:id/revisions/:n/changes', async (req, res) => {
@@ -169,7 +197,8 @@ export function presetsRouter(db: Database): Router {
     }
     const from = req.query['from'] === undefined ? to - 1 : revisionNumber(String(req.query['from']));
     const before = await readRevision(db, preset.id, from);
-    res.json({ from, to, ...summarizeChanges(documentOrThrow(before.document), documentOrThrow(after.document)) });
+    const changes = summarizeChanges(documentOrThrow(before.document), documentOrThrow(after.document));
+    res.json({ from, to, ...changes } satisfies RevisionChanges);
   });
 
   router.post('/api/presets/:id/restore', async (req, res) => {
@@ -186,7 +215,7 @@ export function presetsRouter(db: Database): Router {
       action: 'preset.restore',
       bandId: preset.bandId,
     });
-    res.status(201).json({ revision });
+    res.status(201).json({ revision } satisfies SavedRevision);
   });
 
   router.post('/api/presets/:id/fork', async (req, res) => {
@@ -207,7 +236,7 @@ export function presetsRouter(db: Database): Router {
       },
       'preset.fork',
     );
-    res.status(201).json({ id });
+    res.status(201).json({ id } satisfies ForkedPreset);
   });
 
   router.delete('/api/presets/:id', async (req, res) => {
@@ -234,7 +263,7 @@ export function presetsRouter(db: Database): Router {
         await recordAudit(tx, { actorId: user.id, action: 'preset.untrash', bandId: preset.bandId, presetId: preset.id });
       });
     }
-    res.json({ id: preset.id, deletedAt: null });
+    res.json({ id: preset.id, deletedAt: null } satisfies UntrashedPreset);
   });
 
   return router;

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { tuningOfPreset } from '../../shared/export/preset-tuning';
+import type { RetuneAnswer, SongReport, SongReportCounts } from '../../shared/api/songs';
 import { defaultLeadInMs, leadInFault } from '../../shared/midi/lead-in';
 import type { RetuneMode } from '../../shared/midi/song-retune';
 import { parsePresetDocument, type ResolvedPreset } from '../../shared/preset/preset-document';
@@ -75,12 +76,12 @@ export function retuneRouter(db: Database): Router {
     });
     if (!retuned.ok) throw new ValidationError(retuned.errors);
     const sha256 = await recordUpload(db, req.user?.id, 'retune', file);
-    const report = { ...retuned.value.report, uploadSha256: sha256 };
+    const report: SongReport = { ...retuned.value.report, uploadSha256: sha256 };
     const song = file.originalname.replace(/\.midi?$/i, '');
     const fileName = `${exportFileName(song, '')}-${exportFileName(preset.name, '')}-${mode}.mid`;
     const { song: bytes } = retuned.value;
     // The header carries counts only, a few hundred bytes whatever the song: proxies refuse long headers.
-    const counts = {
+    const counts: SongReportCounts = {
       mode: report.mode,
       notesRetuned: report.notesRetuned,
       channelsUsed: report.channelsUsed,
@@ -94,7 +95,8 @@ export function retuneRouter(db: Database): Router {
     res.setHeader('Access-Control-Expose-Headers', 'Keyloom-Report, Keyloom-Warnings');
     // The app asks for JSON: the whole report, and the song as base64 beside it.
     if (req.accepts(['audio/midi', 'application/json']) === 'application/json') {
-      res.json({ fileName, report, song: Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('base64') });
+      const song = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('base64');
+      res.json({ fileName, report, song } satisfies RetuneAnswer);
       return;
     }
     res.type('audio/midi');

@@ -1,11 +1,14 @@
 import { and, desc, eq, isNull } from 'drizzle-orm';
 import { Router } from 'express';
-import { createShareRequest, parseRequest } from '../../shared/library/requests';
+import { createShareRequest, parseRequest } from '../../shared/api/requests';
+import type { NewShareLink, ShareLink, SharedPreset } from '../../shared/api/shares';
+import type { ItemList } from '../../shared/api/wire';
 import type { Config } from '../config';
 import type { Database } from '../db/client';
 import { presets, shareLinks } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import { valueOrThrow } from '../http/validation';
+import { iso } from '../http/wire';
 import { recordAudit } from '../library/audit';
 import { readRevision } from '../library/revisions';
 import { hashToken, newToken } from '../library/tokens';
@@ -45,7 +48,8 @@ export function sharesRouter(db: Database, config: Config): Router {
       });
       return row;
     });
-    res.status(201).json({ id: share.id, token, url: `${config.publicUrl}/s/${token}`, revision: body.revision ?? null });
+    const url = `${config.publicUrl}/s/${token}`;
+    res.status(201).json({ id: share.id, token, url, revision: body.revision ?? null } satisfies NewShareLink);
   });
 
   router.get('/api/presets/:id/shares', async (req, res) => {
@@ -61,7 +65,8 @@ export function sharesRouter(db: Database, config: Config): Router {
       .from(shareLinks)
       .where(eq(shareLinks.presetId, preset.id))
       .orderBy(desc(shareLinks.createdAt));
-    res.json({ items: rows });
+    const items = rows.map((row) => ({ ...row, createdAt: iso(row.createdAt), revokedAt: iso(row.revokedAt) }));
+    res.json({ items } satisfies ItemList<ShareLink>);
   });
 
   router.delete('/api/shares/:id', async (req, res) => {
@@ -91,9 +96,9 @@ export function sharesRouter(db: Database, config: Config): Router {
       name: (revision.document as { name: string }).name,
       revision: revision.revision,
       pinned: share.revision !== null,
-      savedAt: revision.createdAt,
+      savedAt: iso(revision.createdAt),
       document: revision.document,
-    });
+    } satisfies SharedPreset);
   });
 
   return router;

@@ -1,15 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject, signal } from '@angular/core';
+import type { MeAnswer, Member } from '@shared/api/me';
 import { firstValueFrom } from 'rxjs';
 
-export interface Member {
-  id: string;
-  login: string;
-  name: string | null;
-  email: string | null;
-  avatarUrl: string | null;
-  siteRole: 'member' | 'admin';
-}
+export type { Member } from '@shared/api/me';
 
 /** Who is signed in, as the server says; `undefined` until the server has answered. */
 @Injectable({ providedIn: 'root' })
@@ -19,7 +13,7 @@ export class Session {
 
   async refresh(): Promise<void> {
     try {
-      const answer = await firstValueFrom(this.http.get<{ user: Member | null }>('/api/me'));
+      const answer = await firstValueFrom(this.http.get<MeAnswer>('/api/me'));
       this.member.set(answer.user);
     } catch {
       this.member.set(null);

@@ -8,7 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { inviteRequest } from '@shared/library/requests';
+import { inviteRequest } from '@shared/api/requests';
 import { EMPTY, catchError, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../library/api-error';
 import { BandRole, BandsApi, PendingInvite, bandRoles, roleWithArticle } from './bands-api';

@@ -22,14 +22,14 @@ const copperFen: BandDetail = {
 const asEditor: BandDetail = { ...copperFen, role: 'editor', canManage: false };
 const fenFifths: PresetRow = {
   id: 'p1', name: 'Fen Fifths', bandId: 'b-fen', bandName: 'Copper Fen', ownerId: 'u-mira', ownerLogin: 'mira-vale',
-  revision: 3, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null,
+  revision: 3, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null, access: 'own',
 };
 const pending: PendingInvite[] = [
   { id: 'i1', email: 'ada.quill@example.org', role: 'viewer', createdAt: '2026-11-20T10:00:00Z', expiresAt: '2026-11-27T10:00:00Z' },
 ];
 const audit: AuditEntry[] = [
-  { id: 2, action: 'preset.save', presetId: 'p1', detail: { revision: 3 }, createdAt: '2026-11-20T09:30:00Z', actorLogin: 'mira-vale', actorName: 'Mira Vale' },
-  { id: 1, action: 'member.role', presetId: null, detail: { userId: 'u-tobias', from: 'viewer', to: 'editor' }, createdAt: '2026-11-04T09:30:00Z', actorLogin: 'mira-vale', actorName: 'Mira Vale' },
+  { id: 2, action: 'preset.save', presetId: 'p1', detail: { revision: 3 }, createdAt: '2026-11-20T09:30:00Z', actorId: 'u-mira', actorLogin: 'mira-vale', actorName: 'Mira Vale' },
+  { id: 1, action: 'member.role', presetId: null, detail: { userId: 'u-tobias', from: 'viewer', to: 'editor' }, createdAt: '2026-11-04T09:30:00Z', actorId: 'u-mira', actorLogin: 'mira-vale', actorName: 'Mira Vale' },
 ];
 
 @Component({ selector: 'app-bands-stub', template: 'bands' })

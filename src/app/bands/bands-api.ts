@@ -1,56 +1,17 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import type { AuditEntry } from '@shared/api/audit';
+import type { BandDetail, BandSummary, CreatedBand, PendingInvite } from '@shared/api/bands';
+import type { BandRole } from '@shared/api/roles';
+import type { ItemList } from '@shared/api/wire';
 import { Observable, map } from 'rxjs';
 
-export type BandRole = 'owner' | 'editor' | 'viewer';
-
-export const bandRoles: readonly BandRole[] = ['owner', 'editor', 'viewer'];
+export type { AuditEntry } from '@shared/api/audit';
+export type { BandDetail, BandMember, BandSummary, PendingInvite } from '@shared/api/bands';
+export { type BandRole, bandRoles } from '@shared/api/roles';
 
 /** How a role reads in a sentence: "as an editor". */
 export const roleWithArticle: Record<BandRole, string> = { owner: 'an owner', editor: 'an editor', viewer: 'a viewer' };
-
-export interface BandSummary {
-  id: string;
-  name: string;
-  role: BandRole;
-  createdAt: string;
-}
-
-export interface BandMember {
-  userId: string;
-  login: string;
-  name: string | null;
-  avatarUrl: string | null;
-  role: BandRole;
-  joinedAt: string;
-}
-
-export interface BandDetail {
-  id: string;
-  name: string;
-  createdAt: string;
-  role: BandRole;
-  canManage: boolean;
-  members: BandMember[];
-}
-
-export interface PendingInvite {
-  id: string;
-  email: string;
-  role: BandRole;
-  createdAt: string;
-  expiresAt: string;
-}
-
-export interface AuditEntry {
-  id: number | string;
-  action: string;
-  presetId: string | null;
-  detail: Record<string, unknown> | null;
-  createdAt: string;
-  actorLogin: string | null;
-  actorName: string | null;
-}
 
 /** Bands, their members and roles, invitations and the audit log. */
 @Injectable({ providedIn: 'root' })
@@ -58,11 +19,11 @@ export class BandsApi {
   private readonly http = inject(HttpClient);
 
   bands(): Observable<BandSummary[]> {
-    return this.http.get<{ items: BandSummary[] }>('/api/bands').pipe(map((answer) => answer.items));
+    return this.http.get<ItemList<BandSummary>>('/api/bands').pipe(map((answer) => answer.items));
   }
 
-  createBand(name: string): Observable<BandSummary> {
-    return this.http.post<BandSummary>('/api/bands', { name });
+  createBand(name: string): Observable<CreatedBand> {
+    return this.http.post<CreatedBand>('/api/bands', { name });
   }
 
   band(id: string): Observable<BandDetail> {
@@ -82,7 +43,7 @@ export class BandsApi {
 
   invites(bandId: string): Observable<PendingInvite[]> {
     return this.http
-      .get<{ items: PendingInvite[] }>(`${this.bandPath(bandId)}/invites`)
+      .get<ItemList<PendingInvite>>(`${this.bandPath(bandId)}/invites`)
       .pipe(map((answer) => answer.items));
   }
 
@@ -101,7 +62,7 @@ export class BandsApi {
   }
 
   audit(bandId: string): Observable<AuditEntry[]> {
-    return this.http.get<{ items: AuditEntry[] }>(`${this.bandPath(bandId)}/audit`).pipe(map((answer) => answer.items));
+    return this.http.get<ItemList<AuditEntry>>(`${this.bandPath(bandId)}/audit`).pipe(map((answer) => answer.items));
   }
 
   private bandPath(id: string): string {

@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
-import { bandNameRequest } from '@shared/library/requests';
+import { bandNameRequest } from '@shared/api/requests';
 import { EMPTY, catchError, filter, switchMap } from 'rxjs';
 import { Session } from '../auth/session';
 import { apiErrorMessage } from '../library/api-error';

@@ -1,9 +1,9 @@
 import type { ValidatorFn } from '@angular/forms';
-import { parseRequest } from '@shared/library/requests';
+import { parseRequest } from '@shared/api/requests';
 import * as z from 'zod';
 
 /**
- * A form control validator from one field of a request schema (`@shared/library/requests`), so that the form
+ * A form control validator from one field of a request schema (`@shared/api/requests`), so that the form
  * refuses what the server would. The fault reads as a sentence about `subject` ("The band name must not be
  * empty.") and sits at `errors.request`.
  */

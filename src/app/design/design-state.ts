@@ -1,3 +1,4 @@
+import type { PresetAccess } from '@shared/api/roles';
 import { Injectable, computed, linkedSignal, signal } from '@angular/core';
 import { type ResolvedPreset, parsePresetDocument } from '@shared/preset/preset-document';
 import type { FieldError } from '@shared/result';
@@ -22,7 +23,7 @@ interface SavedOrigin {
   id: string;
   revision: number;
   bandId: string | null;
-  access: 'read' | 'edit' | 'own';
+  access: PresetAccess;
 }
 
 /** A design that built: the checked document and everything the designer shows about it. */

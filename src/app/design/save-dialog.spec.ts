@@ -16,7 +16,7 @@ describe('SaveDialog', () => {
     return { fixture, element, close, saveButton };
   }
 
-  const bands = [{ id: 'b-2', name: 'Copper Fen', role: 'editor' as const }];
+  const bands = [{ id: 'b-2', name: 'Copper Fen', role: 'editor' as const, createdAt: '2026-11-01T10:00:00Z' }];
 
   it('saves into my library unless a band is chosen', async () => {
     const { element, fixture, close, saveButton } = await render({ name: 'Fifths', bands, nextRevision: null });

@@ -6,7 +6,7 @@ import { firstValueFrom } from 'rxjs';
 import { Session } from '../auth/session';
 import { apiFaultMessage } from './api-fault';
 import { DesignState } from './design-state';
-import { draftFrom } from './draft-document';
+import { type DraftDocument, draftFrom } from './draft-document';
 import { PresetApi } from './preset-api';
 import { type SaveChoice, SaveDialog, type SaveDialogData } from './save-dialog';
 
@@ -39,7 +39,8 @@ export class SavedPreset {
     try {
       const answer = await this.api.load(id);
       const origin = { id: answer.id, revision: answer.revision, bandId: answer.bandId, access: answer.access };
-      this.state.open(draftFrom(answer.document), origin);
+      // Opened as a draft: the designer names whatever in a stored document it cannot read, as it does for typing.
+      this.state.open(draftFrom(answer.document as DraftDocument), origin);
       return true;
     } catch (error) {
       this.loadFault.set(await apiFaultMessage(error));

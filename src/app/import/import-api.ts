@@ -1,15 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { PresetDocument } from '@shared/preset/preset-document';
+import type { ImportedTuning } from '@shared/api/songs';
 import { Observable } from 'rxjs';
 
-/** What the server found in a file: MTS messages, a preset document, or a list of intervals. */
-export type ImportKind = 'syx' | 'preset' | 'intervals';
-
-export interface ImportedTuning {
-  kind: ImportKind;
-  document: PresetDocument;
-}
+export type { ImportedTuning, ImportKind } from '@shared/api/songs';
 
 /** Turns a file into a preset document on the server, which reads .syx, preset .json and interval lists alike. */
 @Injectable({ providedIn: 'root' })

@@ -1,22 +1,9 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable } from 'rxjs';
-import type { BandRole } from '../bands/bands-api';
+import type { AcceptedInvite, InviteSummary } from '@shared/api/bands';
 
-export interface InviteSummary {
-  bandName: string;
-  inviter: string;
-  role: BandRole;
-  email: string;
-  expiresAt: string;
-  status: 'pending' | 'accepted' | 'revoked' | 'expired';
-}
-
-interface AcceptedInvite {
-  bandId: string;
-  role: BandRole;
-  alreadyMember: boolean;
-}
+export type { InviteSummary } from '@shared/api/bands';
 
 /** What an invite link is for, and accepting it. */
 @Injectable({ providedIn: 'root' })

@@ -6,12 +6,13 @@ import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import { Member, Session } from '../auth/session';
 import { HistoryPage } from './history-page';
-import { PresetDetail, RevisionEntry } from './library-api';
+import { SavedPreset, RevisionEntry } from './library-api';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
-const preset: PresetDetail = {
+const preset: SavedPreset = {
   id: 'p1', name: 'Fen Fifths', bandId: 'b-fen', ownerId: 'u-mira', revision: 3, note: 'Wolf moved to G sharp',
-  document: {}, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null, access: 'edit',
+  document: {}, createdAt: '2026-11-01T10:00:00Z', updatedAt: '2026-11-20T09:30:00Z', deletedAt: null, forkedFrom: null,
+  access: 'edit',
 };
 const revisions: RevisionEntry[] = [
   { revision: 3, note: 'Wolf moved to G sharp', authorId: 'u-tobias', authorLogin: 'tobias-reed', authorName: 'Tobias Reed', createdAt: '2026-11-20T09:30:00Z', name: 'Fen Fifths' },

@@ -12,7 +12,7 @@ import { EMPTY, catchError, filter, forkJoin, map, of, switchMap } from 'rxjs';
 import { Session } from '../auth/session';
 import { apiErrorMessage, isNotFound } from './api-error';
 import { ConfirmDialog, ConfirmDialogData } from './confirm-dialog';
-import { LibraryApi, PresetDetail, RevisionChanges, RevisionEntry } from './library-api';
+import { LibraryApi, SavedPreset, RevisionChanges, RevisionEntry } from './library-api';
 import { SignInPrompt } from './sign-in-prompt';
 
 /** Every revision of one preset, what each changed, and a restore that saves an old one again as the newest. */
@@ -32,7 +32,7 @@ export class HistoryPage {
   readonly id = input.required<string>();
 
   private readonly reloads = signal(0);
-  protected readonly preset = signal<PresetDetail | null>(null);
+  protected readonly preset = signal<SavedPreset | null>(null);
   protected readonly revisions = signal<RevisionEntry[]>([]);
   protected readonly failure = signal<string | null>(null);
   protected readonly selected = signal<number | null>(null);

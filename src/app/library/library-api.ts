@@ -1,5 +1,15 @@
 import { HttpClient, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import type {
+  CreatedPreset,
+  ForkedPreset,
+  PresetPage,
+  RevisionChanges,
+  RevisionEntry,
+  SavedPreset,
+  SavedRevision,
+} from '@shared/api/presets';
+import type { ItemList } from '@shared/api/wire';
 import { Observable, map } from 'rxjs';
 
 export type PresetSort = 'name' | '-name' | 'updated' | '-updated';
@@ -13,55 +23,7 @@ export interface PresetQuery {
   trash: boolean;
 }
 
-export interface PresetRow {
-  id: string;
-  name: string;
-  bandId: string | null;
-  bandName: string | null;
-  ownerId: string;
-  ownerLogin: string;
-  revision: number;
-  updatedAt: string;
-  deletedAt: string | null;
-}
-
-export interface PresetPage {
-  items: PresetRow[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
-
-type PresetAccess = 'read' | 'edit' | 'own';
-
-export interface PresetDetail {
-  id: string;
-  name: string;
-  bandId: string | null;
-  ownerId: string;
-  revision: number;
-  note: string | null;
-  document: unknown;
-  updatedAt: string;
-  deletedAt: string | null;
-  access: PresetAccess;
-}
-
-export interface RevisionEntry {
-  revision: number;
-  note: string | null;
-  authorId: string | null;
-  authorLogin: string | null;
-  authorName: string | null;
-  createdAt: string;
-  name: string;
-}
-
-export interface RevisionChanges {
-  from: number;
-  to: number;
-  lines: string[];
-}
+export type { PresetPage, PresetRow, RevisionChanges, RevisionEntry, SavedPreset } from '@shared/api/presets';
 
 /** The library of saved presets: mine and my bands', their revisions, forks and the trash. */
 @Injectable({ providedIn: 'root' })
@@ -79,13 +41,13 @@ export class LibraryApi {
     return this.http.get<PresetPage>('/api/presets', { params });
   }
 
-  preset(id: string): Observable<PresetDetail> {
-    return this.http.get<PresetDetail>(`/api/presets/${encodeURIComponent(id)}`);
+  preset(id: string): Observable<SavedPreset> {
+    return this.http.get<SavedPreset>(`/api/presets/${encodeURIComponent(id)}`);
   }
 
   revisions(id: string): Observable<RevisionEntry[]> {
     return this.http
-      .get<{ items: RevisionEntry[] }>(`/api/presets/${encodeURIComponent(id)}/revisions`)
+      .get<ItemList<RevisionEntry>>(`/api/presets/${encodeURIComponent(id)}/revisions`)
       .pipe(map((answer) => answer.items));
   }
 
@@ -97,20 +59,20 @@ export class LibraryApi {
   /** Saves an old revision again as the newest one; answers the new revision's number. */
   restore(id: string, revision: number): Observable<number> {
     return this.http
-      .post<{ revision: number }>(`/api/presets/${encodeURIComponent(id)}/restore`, { revision })
+      .post<SavedRevision>(`/api/presets/${encodeURIComponent(id)}/restore`, { revision })
       .pipe(map((answer) => answer.revision));
   }
 
   /** Copies the latest revision into my library (no band) or a band's; answers the new preset's id. */
   fork(id: string, bandId: string | null): Observable<string> {
     return this.http
-      .post<{ id: string }>(`/api/presets/${encodeURIComponent(id)}/fork`, bandId ? { bandId } : {})
+      .post<ForkedPreset>(`/api/presets/${encodeURIComponent(id)}/fork`, bandId ? { bandId } : {})
       .pipe(map((answer) => answer.id));
   }
 
   /** Saves a preset document as a new preset in my library; answers its id. */
   saveCopy(document: unknown, note: string): Observable<string> {
-    return this.http.post<{ id: string }>('/api/presets', { document, note }).pipe(map((answer) => answer.id));
+    return this.http.post<CreatedPreset>('/api/presets', { document, note }).pipe(map((answer) => answer.id));
   }
 
   moveToTrash(id: string): Observable<void> {

@@ -16,15 +16,15 @@ const bands: BandSummary[] = [
 ];
 const fenFifths: PresetRow = {
   id: 'p1', name: 'Fen Fifths', bandId: 'b-fen', bandName: 'Copper Fen', ownerId: 'u-mira', ownerLogin: 'mira-vale',
-  revision: 3, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null,
+  revision: 3, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null, access: 'edit',
 };
 const reedOrgan: PresetRow = {
   id: 'p2', name: 'Reed Organ Meantone', bandId: null, bandName: null, ownerId: 'u-mira', ownerLogin: 'mira-vale',
-  revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null,
+  revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null, access: 'own',
 };
 const hollowDrone: PresetRow = {
   id: 'p3', name: 'Hollow Drone', bandId: 'b-reed', bandName: 'Reed Hollow', ownerId: 'u-tobias', ownerLogin: 'tobias-reed',
-  revision: 2, updatedAt: '2026-11-10T15:00:00Z', deletedAt: null,
+  revision: 2, updatedAt: '2026-11-10T15:00:00Z', deletedAt: null, access: 'read',
 };
 
 describe('LibraryPage', () => {

@@ -152,11 +152,9 @@ export class LibraryPage {
     return row.ownerId === this.session.member()?.id ? 'you' : row.ownerLogin;
   }
 
-  /** Whether my role lets me change this preset: my own, or a band's where I am an editor or owner. */
+  /** Whether I may change this preset, as the server says on its row. */
   protected canChange(row: PresetRow): boolean {
-    if (!row.bandId) return row.ownerId === this.session.member()?.id;
-    const role = this.bands().find((band) => band.id === row.bandId)?.role;
-    return role === 'owner' || role === 'editor';
+    return row.access !== 'read';
   }
 
   protected openPreset(row: PresetRow): void {

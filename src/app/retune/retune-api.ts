@@ -1,14 +1,13 @@
 import { HttpClient, HttpErrorResponse, HttpEvent, HttpEventType } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { RetuneMode, RetuneReport } from '@shared/midi/song-retune';
+import type { RetuneAnswer, SongReport } from '@shared/api/songs';
+import { uploadTooLarge } from '@shared/api/uploads';
+import type { RetuneMode } from '@shared/midi/song-retune';
 import { Observable, catchError, filter, map, of } from 'rxjs';
 import { apiErrorMessage } from '../library/api-error';
 
 /** The report the server sends with the song: every stolen note counted, the first hundred listed. */
-export interface SongReportHeader extends RetuneReport {
-  notesStolenCount: number;
-  uploadSha256: string;
-}
+export type SongReportHeader = SongReport;
 
 /** The tuning to retune with: a preset saved in the library, or a preset document sent along. */
 export type RetuneTuning = { presetId: string } | { document: unknown };
@@ -25,13 +24,6 @@ export type RetuneStep =
   | { kind: 'retuning' }
   | { kind: 'done'; song: RetunedSong }
   | { kind: 'refused'; message: string };
-
-/** The answer of the retune route to a client that asks for JSON: the song as base64 and the whole report. */
-interface RetuneAnswer {
-  fileName: string;
-  report: SongReportHeader;
-  song: string;
-}
 
 function songOf(answer: RetuneAnswer): RetunedSong {
   const binary = atob(answer.song);
@@ -58,7 +50,7 @@ function stepOf(event: HttpEvent<RetuneAnswer>): RetuneStep | null {
 /** A refusal in the server's words. */
 function refusalOf(error: unknown): RetuneStep {
   const status = error instanceof HttpErrorResponse ? error.status : null;
-  const fallback = status === 413 ? 'file: larger than the limit of 5 MB.' : `The server did not retune the song (${status ?? 'no answer'}).`;
+  const fallback = status === 413 ? uploadTooLarge : `The server did not retune the song (${status ?? 'no answer'}).`;
   return { kind: 'refused', message: apiErrorMessage(error, fallback) };
 }
 

@@ -20,11 +20,11 @@ import { RetunePage } from './retune-page';
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 const fenFifths: PresetRow = {
   id: 'p-fen', name: 'Fen Fifths', bandId: 'b-fen', bandName: 'Copper Fen', ownerId: 'u-mira', ownerLogin: 'mira-vale',
-  revision: 3, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null,
+  revision: 3, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null, access: 'own',
 };
 const reedOrgan: PresetRow = {
   id: 'p-reed', name: 'Reed Organ Meantone', bandId: null, bandName: null, ownerId: 'u-mira', ownerLogin: 'mira-vale',
-  revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null,
+  revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null, access: 'own',
 };
 const fenFifthsDocument = {
   format: 'keyloom.preset' as const,

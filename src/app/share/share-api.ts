@@ -1,30 +1,10 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
+import type { NewShareLink, ShareLink, SharedPreset } from '@shared/api/shares';
+import type { ItemList } from '@shared/api/wire';
 import { Observable, map } from 'rxjs';
 
-export interface ShareLink {
-  id: string;
-  /** null: the link follows the latest revision. */
-  revision: number | null;
-  createdAt: string;
-  revokedAt: string | null;
-  createdBy: string;
-}
-
-export interface NewShareLink {
-  id: string;
-  token: string;
-  url: string;
-  revision: number | null;
-}
-
-export interface SharedPreset {
-  name: string;
-  revision: number;
-  pinned: boolean;
-  savedAt: string;
-  document: unknown;
-}
+export type { NewShareLink, ShareLink, SharedPreset } from '@shared/api/shares';
 
 /** Read-only links to a preset that open without an account, and what such a link opens. */
 @Injectable({ providedIn: 'root' })
@@ -33,7 +13,7 @@ export class ShareApi {
 
   links(presetId: string): Observable<ShareLink[]> {
     return this.http
-      .get<{ items: ShareLink[] }>(`/api/presets/${encodeURIComponent(presetId)}/shares`)
+      .get<ItemList<ShareLink>>(`/api/presets/${encodeURIComponent(presetId)}/shares`)
       .pipe(map((answer) => answer.items));
   }
 

@@ -1,14 +1,15 @@
-// The bodies the library API accepts, shared by the server (which validates) and the app (which sends them).
+// The bodies and queries the API accepts, one schema per route, shared by the server (which validates) and the app (which sends them).
 // A preset document inside a body is checked separately, by parsePresetDocument, so that its faults carry the
 // document's own field paths.
 import * as z from 'zod';
 import { schemaFaults } from '../preset/schema-faults';
 import { storableString } from '../text/plain-text';
 import { type Result, fail, succeed } from '../result';
+import { bandRoles } from './roles';
 
 const id = z.uuid({ error: 'must be an id as the API gives them' });
 const note = storableString().trim().max(500, { error: 'must be at most 500 characters' });
-const bandRole = z.enum(['owner', 'editor', 'viewer']);
+const bandRole = z.enum(bandRoles);
 /** Revisions are numbered from 1; PostgreSQL's integer holds up to 2^31 - 1. */
 export const largestRevision = 2_147_483_647;
 const revision = z.int().min(1).max(largestRevision);
