@@ -12,10 +12,12 @@ import {
   primaryKey,
   text,
   timestamp,
+  unique,
   uuid,
   varchar,
 } from 'drizzle-orm/pg-core';
 import type { AuditAction } from '../../shared/api/audit';
+import type { ReceiveForm } from '../../shared/api/instruments';
 import { bandRoles } from '../../shared/api/roles';
 
 /** Site-wide role of a user: admins can see and repair everything. */
@@ -174,3 +176,71 @@ export const auditLog = pgTable(
   (t) => [index('audit_log_band_idx').on(t.bandId, t.createdAt), index('audit_log_preset_idx').on(t.presetId)],
 );
 
+
+/** A member's instrument: how their gear takes a tuning. Private to its owner. */
+export const instruments = pgTable(
+  'instruments',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    ownerId: uuid('owner_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    receives: text('receives').$type<ReceiveForm>().notNull(),
+    deviceId: integer('device_id').notNull(),
+    program: integer('program').notNull(),
+    bank: integer('bank').notNull(),
+    bendRange: integer('bend_range').notNull(),
+    firstMemberChannel: integer('first_member_channel').notNull(),
+    lastMemberChannel: integer('last_member_channel').notNull(),
+    port: text('port'),
+    createdAt: createdAt(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('instruments_owner_idx').on(t.ownerId)],
+);
+
+/** A band's setlist, with the stage's live position in it. */
+export const setlists = pgTable(
+  'setlists',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    bandId: uuid('band_id').notNull().references(() => bands.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    position: integer('position').notNull().default(0),
+    createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: createdAt(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('setlists_band_idx').on(t.bandId), check('setlists_position_not_negative', sql`${t.position} >= 0`)],
+);
+
+/** The entries of a setlist in order; a null revision follows the preset's latest. */
+export const setlistEntries = pgTable(
+  'setlist_entries',
+  {
+    setlistId: uuid('setlist_id').notNull().references(() => setlists.id, { onDelete: 'cascade' }),
+    place: integer('place').notNull(),
+    presetId: uuid('preset_id').notNull().references(() => presets.id, { onDelete: 'cascade' }),
+    revision: integer('revision'),
+    trigger: integer('trigger'),
+  },
+  (t) => [
+    primaryKey({ columns: [t.setlistId, t.place] }),
+    unique('setlist_entries_trigger_unique').on(t.setlistId, t.trigger),
+    index('setlist_entries_preset_idx').on(t.presetId),
+  ],
+);
+
+/**
+ * Every change the stage's followers must hear, numbered: a move of the position, or a new revision of the entry
+ * the position is on. The id is the Server-Sent Events id a reconnecting follower resumes from.
+ */
+export const stageEvents = pgTable(
+  'stage_events',
+  {
+    id: bigserial('id', { mode: 'number' }).primaryKey(),
+    setlistId: uuid('setlist_id').notNull().references(() => setlists.id, { onDelete: 'cascade' }),
+    position: integer('position').notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index('stage_events_setlist_idx').on(t.setlistId, t.id)],
+);

@@ -19,6 +19,9 @@ export const auditActions = [
   'preset.untrash',
   'share.create',
   'share.revoke',
+  'setlist.create',
+  'setlist.change',
+  'setlist.delete',
 ] as const;
 export type AuditAction = (typeof auditActions)[number];
 
