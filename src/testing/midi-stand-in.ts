@@ -1,7 +1,8 @@
 /**
- * Stand-ins for the browser's Web MIDI, for specs: the access object `navigator.requestMIDIAccess` resolves to and
- * its ports, with what webmidi reads and sets on them (id, name, type, state, connection, manufacturer, version,
- * open, close, and the `onstatechange` and `onmidimessage` handlers it assigns).
+ * Stand-ins for the browser's Web MIDI, for specs: the access object `navigator.requestMIDIAccess`
+ * resolves to and its ports, with what webmidi reads and sets on them (id, name, type, state,
+ * connection, manufacturer, version, open, close, and the `onstatechange` and `onmidimessage`
+ * handlers it assigns).
  */
 interface StandInPort {
   id: string;
@@ -44,12 +45,14 @@ function port(id: string, name: string, type: 'input' | 'output'): StandInPort {
   return self;
 }
 
-/** An output port that records what it is sent and refuses to send once disconnected, as the browser's does. */
+/** An output port that records what it is sent, and refuses to send once disconnected. */
 export function standInOutput(id = 'out-1', name = 'Test synth'): StandInOutput {
   const self: StandInOutput = Object.assign(port(id, name, 'output'), {
     sent: [] as number[][],
     send(bytes: Uint8Array | number[]) {
-      if (self.state === 'disconnected') throw new DOMException('The port is closed', 'InvalidStateError');
+      if (self.state === 'disconnected') {
+        throw new DOMException('The port is closed', 'InvalidStateError');
+      }
       self.sent.push(Array.from(bytes));
     },
   });
@@ -67,7 +70,10 @@ export function standInInput(id = 'in-1', name = 'Test synth'): StandInInput {
 }
 
 /** The access object for these ports; pass it to a spy on `navigator.requestMIDIAccess`. */
-export function standInAccess(ports: { inputs?: StandInInput[]; outputs?: StandInOutput[] }): MIDIAccess {
+export function standInAccess(ports: {
+  inputs?: StandInInput[];
+  outputs?: StandInOutput[];
+}): MIDIAccess {
   return {
     sysexEnabled: true,
     inputs: new Map((ports.inputs ?? []).map((input) => [input.id, input])),
@@ -76,9 +82,14 @@ export function standInAccess(ports: { inputs?: StandInInput[]; outputs?: StandI
   } as unknown as MIDIAccess;
 }
 
-/** Plugs `port` in or pulls it out, as a device does: the browser's statechange on the access and on the port. */
-export function plug(access: MIDIAccess, port: StandInInput | StandInOutput, state: StandInPort['state']): void {
-  const ports = (port.type === 'input' ? access.inputs : access.outputs) as unknown as Map<string, StandInPort>;
+/** Plugs `port` in or pulls it out: the browser's statechange on the access and on the port. */
+export function plug(
+  access: MIDIAccess,
+  port: StandInInput | StandInOutput,
+  state: StandInPort['state'],
+): void {
+  const map = port.type === 'input' ? access.inputs : access.outputs;
+  const ports = map as unknown as Map<string, StandInPort>;
   ports.set(port.id, port);
   port.state = state;
   // A port that comes back is opened again at once, as webmidi asks; one pulled out waits, pending.

@@ -19,8 +19,9 @@ function standInMidi(mode: MidiMode): void {
     delete (Navigator.prototype as Partial<Navigator>).requestMIDIAccess;
     return;
   }
-  // The ports carry what the app's webmidi reads and sets on a browser's: id, name, type, state, connection,
-  // manufacturer, version, open and close, and the onstatechange and onmidimessage handlers it assigns.
+  // The ports carry what the app's webmidi reads and sets on a browser's: id, name, type, state,
+  // connection, manufacturer, version, open and close, and the onstatechange and onmidimessage
+  // handlers it assigns.
   type Handler = ((event: { port?: unknown; data?: Uint8Array; timeStamp: number }) => void) | null;
   const portOf = (id: string, type: 'input' | 'output') => {
     const port = {
@@ -55,7 +56,8 @@ function standInMidi(mode: MidiMode): void {
         setTimeout(() => input.onmidimessage?.({ data: dump, timeStamp: performance.now() }), 20);
       }
       if (mode === 'drop after one') {
-        // Pulled out: the browser marks the open port disconnected and pending, and says so on the access and port.
+        // Pulled out: the browser marks the open port disconnected and pending, and tells the
+        // access and the port.
         output.state = 'disconnected';
         output.connection = 'pending';
         const event = { port: output, timeStamp: performance.now() };

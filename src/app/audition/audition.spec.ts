@@ -34,14 +34,16 @@ describe('Audition', () => {
     expect(audition.playing()).toEqual([]);
   });
 
-  it('plays a controller note-on and note-off by key number, and holds notes with its sustain pedal', async () => {
+  it('plays a controller note-on and note-off by key number, and its sustain pedal', async () => {
     const keyboard = standInInput('in-1', 'Keyboard');
-    spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(standInAccess({ inputs: [keyboard] })));
+    const access = standInAccess({ inputs: [keyboard] });
+    spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(access));
     expect(await TestBed.inject(MidiAccess).open()).toBeTrue();
     const controller = TestBed.inject(ControllerInput);
     controller.choose('in-1');
-    // MIDI 1.0 Detailed Specification: 9n kk vv is a note-on, and a note-on at velocity 0 is a note-off; 8n kk vv is
-    // a note-off; Bn 40 vv is the damper pedal (controller 64), on from 64 up.
+    // MIDI 1.0 Detailed Specification: 9n kk vv is a note-on, and a note-on at velocity 0 is a
+    // note-off; 8n kk vv is a note-off; Bn 40 vv is the damper pedal (controller 64), on from
+    // 64 up.
     keyboard.receive([0x90, 64, 100]);
     expect(audition.playing()).toEqual([64]);
     keyboard.receive([0x90, 64, 0]);

@@ -12,8 +12,8 @@ export class ControllerInput {
   readonly inputId = signal<string | null>(null);
 
   /**
-   * Listens to input port `id` (null: to none): note-on and note-off by key number, and the sustain pedal.
-   * webmidi reads the bytes; a note-on at velocity 0 reaches us as the note-off it means.
+   * Listens to input port `id` (null: to none): note-on and note-off by key number, and the
+   * sustain pedal. webmidi reads the bytes; a note-on at velocity 0 comes as the note-off it means.
    */
   choose(id: string | null): void {
     for (const listener of this.listeners) listener.remove();
@@ -24,8 +24,9 @@ export class ControllerInput {
     this.listeners = [
       input.addListener('noteon', (event) => this.audition.pressKey(event.note.number)),
       input.addListener('noteoff', (event) => this.audition.releaseKey(event.note.number)),
-      // MIDI 1.0 Detailed Specification: control change 64 is the damper (sustain) pedal, on from 64 up. (Input
-      // takes 'controlchange' for all channels, but its numbered 'controlchange-controller64' only per channel.)
+      // MIDI 1.0 Detailed Specification: control change 64 is the damper (sustain) pedal, on from
+      // 64 up. (An Input takes 'controlchange' for all channels, but 'controlchange-controller64'
+      // only on each InputChannel.)
       input.addListener('controlchange', (event) => {
         if (event.controller.number === 64) this.audition.setSustain((event.rawValue ?? 0) >= 64);
       }),

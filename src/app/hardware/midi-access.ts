@@ -18,9 +18,10 @@ export const midiAccessFaults: Partial<Record<MidiAccessState, string>> = {
 };
 
 /**
- * webmidi's `WebMidi` is one object for the whole page, while each page of the app provides its own MidiAccess.
- * They share one enabling of it; when the last one that opened it goes away, WebMidi is disabled, so that the next
- * open asks the browser afresh (another page later, or the next spec with its own stand-in for Web MIDI).
+ * webmidi's `WebMidi` is one object for the whole page, while each page of the app provides its own
+ * MidiAccess. They share one enabling of it; when the last one that opened it goes away, WebMidi is
+ * disabled, so that the next open asks the browser afresh (another page later, or the next spec
+ * with its own stand-in for Web MIDI).
  */
 const shared = {
   users: 0,
@@ -28,7 +29,7 @@ const shared = {
   disabling: Promise.resolve() as Promise<unknown>,
 };
 
-/** Enables WebMidi with system exclusive once for every MidiAccess; a refusal lets the next open ask again. */
+/** Enables WebMidi with system exclusive once for all MidiAccess; after a refusal, asks again. */
 function enableWebMidi(): Promise<unknown> {
   if (!shared.enabling) {
     const attempt = shared.disabling.then(() => WebMidi.enable({ sysex: true }));
@@ -57,8 +58,9 @@ function portsOf(ports: (Input | Output)[]): MidiPort[] {
 }
 
 /**
- * The browser's Web MIDI access with system exclusive through webmidi, asked for on request, and the input and
- * output ports it offers, kept up to date as devices come and go (WebMidi's `connected` and `disconnected`).
+ * The browser's Web MIDI access with system exclusive through webmidi, asked for on request, and
+ * the input and output ports it offers, kept up to date as devices come and go (WebMidi's
+ * `connected` and `disconnected` events).
  */
 @Injectable()
 export class MidiAccess implements OnDestroy {
@@ -71,14 +73,14 @@ export class MidiAccess implements OnDestroy {
   /** Asks the browser for MIDI with system exclusive; true once granted. */
   async open(): Promise<boolean> {
     if (this.opened) return true;
-    // WebMidi.enable rejects alike whether Web MIDI is missing or refused; `supported` tells the two apart.
+    // WebMidi.enable rejects alike whether Web MIDI is missing or refused: `supported` tells which.
     if (!WebMidi.supported) {
       this.state.set('unsupported');
       return false;
     }
     this.state.set('asking');
     try {
-      // An enabling that the last other user's departure cancelled meanwhile does not count: enable again.
+      // An enabling that the last other user's departure cancelled meanwhile does not count.
       for (let enabling = enableWebMidi(); ; enabling = enableWebMidi()) {
         await enabling;
         if (shared.enabling === enabling) break;

@@ -16,7 +16,8 @@ describe('SendPanel', () => {
   it('warns about, previews and sends to the same device, program and bank, whichever output setting changes', async () => {
     const port = standInOutput();
     const sent = port.sent;
-    spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(standInAccess({ outputs: [port] })));
+    const access = standInAccess({ outputs: [port] });
+    spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(access));
     const questions: OverwriteQuestion[] = [];
     TestBed.configureTestingModule({
       imports: [SendPanel],

@@ -35,9 +35,12 @@ function connect(instrument: FakeInstrument): void {
   const output = standInOutput();
   spyOn(output, 'send').and.callFake((bytes: Uint8Array | number[]) => {
     instrument.requests.push([...bytes]);
-    if (instrument.answer === 'dump' && bytes[4] === 0x00) setTimeout(() => input.receive(twelveToneDump(bytes[5])), 5);
+    if (instrument.answer === 'dump' && bytes[4] === 0x00) {
+      setTimeout(() => input.receive(twelveToneDump(bytes[5])), 5);
+    }
   });
-  spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(standInAccess({ inputs: [input], outputs: [output] })));
+  const access = standInAccess({ inputs: [input], outputs: [output] });
+  spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(access));
 }
 
 async function setUp(instrument: FakeInstrument, member: boolean) {

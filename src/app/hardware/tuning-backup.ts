@@ -76,7 +76,7 @@ export class TuningBackup {
     return this.keep(dump.bytes, dump.tuning, output.name ?? 'instrument', program);
   }
 
-  /** Sends the request and waits for the matching dump on the input's system exclusive events; null when none came in time. */
+  /** Sends the request and waits for the matching dump (an input 'sysex' event); null if late. */
   private ask(
     output: Output,
     input: Input,

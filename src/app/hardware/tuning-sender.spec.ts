@@ -5,7 +5,13 @@ import { DesignState } from '../design/design-state';
 import { LiveFollow, followDebounceMs } from './live-follow';
 import { MidiAccess, midiAccessFaults } from './midi-access';
 import { TuningSender } from './tuning-sender';
-import { type StandInOutput, plug, standInAccess, standInInput, standInOutput } from '../../testing/midi-stand-in';
+import {
+  type StandInOutput,
+  plug,
+  standInAccess,
+  standInInput,
+  standInOutput,
+} from '../../testing/midi-stand-in';
 
 describe('TuningSender and LiveFollow', () => {
   let port: StandInOutput;
@@ -30,7 +36,7 @@ describe('TuningSender and LiveFollow', () => {
     expect(TestBed.inject(MidiAccess).outputs()).toEqual([{ id: 'out-1', name: 'Test synth' }]);
   });
 
-  it('asks the browser once however often it is opened, and keeps the port lists as devices come and go', async () => {
+  it('asks the browser once, and keeps the port lists as devices come and go', async () => {
     const midi = TestBed.inject(MidiAccess);
     expect(await midi.open()).toBeTrue();
     expect(request).toHaveBeenCalledTimes(1);
@@ -93,7 +99,8 @@ describe('TuningSender and LiveFollow', () => {
 
 describe('MidiAccess', () => {
   it('explains a refusal', async () => {
-    spyOn(navigator, 'requestMIDIAccess').and.callFake(() => Promise.reject(new DOMException('denied', 'SecurityError')));
+    const denied = new DOMException('denied', 'SecurityError');
+    spyOn(navigator, 'requestMIDIAccess').and.callFake(() => Promise.reject(denied));
     const refused = new MidiAccess();
     expect(await refused.open()).toBeFalse();
     expect(refused.state()).toBe('refused');
@@ -101,7 +108,7 @@ describe('MidiAccess', () => {
   });
 
   it('explains a browser without Web MIDI', async () => {
-    // Hides the browser's own requestMIDIAccess (on Navigator.prototype) behind an own property for this spec.
+    // Hides the browser's own requestMIDIAccess (on Navigator.prototype) behind an own property.
     Object.defineProperty(navigator, 'requestMIDIAccess', { configurable: true, value: undefined });
     try {
       const missing = new MidiAccess();
