@@ -19,39 +19,58 @@ function standInMidi(mode: MidiMode): void {
     delete (Navigator.prototype as Partial<Navigator>).requestMIDIAccess;
     return;
   }
-  const listeners: ((event: Event) => void)[] = [];
+  // The ports carry what the app's webmidi reads and sets on a browser's: id, name, type, state,
+  // connection, manufacturer, version, open and close, and the onstatechange and onmidimessage
+  // handlers it assigns.
+  type Handler = ((event: { port?: unknown; data?: Uint8Array; timeStamp: number }) => void) | null;
+  const portOf = (id: string, type: 'input' | 'output') => {
+    const port = {
+      id,
+      name: 'Stand-in synth',
+      type,
+      manufacturer: 'Stand-in',
+      version: '1',
+      state: 'connected',
+      connection: 'closed',
+      onstatechange: null as Handler,
+      open: async () => ((port.connection = 'open'), port),
+      close: async () => ((port.connection = 'closed'), port),
+    };
+    return port;
+  };
   // The instrument's own MIDI output, seen by the computer as an input of the same name.
-  const input = Object.assign(new EventTarget(), { id: 'stand-in-in', name: 'Stand-in synth', type: 'input', state: 'connected', open: async () => input });
+  const input = Object.assign(portOf('stand-in-in', 'input'), { onmidimessage: null as Handler });
   /** A 12-tone equal dump of `program` by REFERENCE.md's layout and checksum rule, named "STAND-IN". */
   const dumpOf = (program: number) => {
     const name = Array.from('STAND-IN'.padEnd(16, ' '), (character) => character.charCodeAt(0));
     const body = [0x7e, 0x7f, 0x08, 0x01, program, ...name, ...Array.from({ length: 128 }, (_, key) => [key, 0, 0]).flat()];
     return Uint8Array.from([0xf0, ...body, body.reduce((sum, byte) => sum ^ byte, 0) & 0x7f, 0xf7]);
   };
-  const output = {
-    id: 'stand-in-out',
-    name: 'Stand-in synth',
-    type: 'output',
-    state: 'connected',
+  const output = Object.assign(portOf('stand-in-out', 'output'), {
     send(bytes: Uint8Array | number[]) {
       if (output.state === 'disconnected') throw new DOMException('The port is closed', 'InvalidStateError');
       page.sent.push(Array.from(bytes));
       const isDumpRequest = bytes[0] === 0xf0 && bytes[3] === 0x08 && bytes[4] === 0x00;
       if (mode === 'answers dump requests' && isDumpRequest) {
         const dump = dumpOf(bytes[5]);
-        setTimeout(() => input.dispatchEvent(Object.assign(new Event('midimessage'), { data: dump })), 20);
+        setTimeout(() => input.onmidimessage?.({ data: dump, timeStamp: performance.now() }), 20);
       }
       if (mode === 'drop after one') {
+        // Pulled out: the browser marks the open port disconnected and pending, and tells the
+        // access and the port.
         output.state = 'disconnected';
-        for (const listener of listeners) listener(new Event('statechange'));
+        output.connection = 'pending';
+        const event = { port: output, timeStamp: performance.now() };
+        access.onstatechange?.(event);
+        output.onstatechange?.(event);
       }
     },
-  };
+  });
   const access = {
     sysexEnabled: true,
     inputs: new Map(mode === 'answers dump requests' || mode === 'never answers' ? [[input.id, input]] : []),
     outputs: new Map([[output.id, output]]),
-    addEventListener: (_type: string, listener: (event: Event) => void) => listeners.push(listener),
+    onstatechange: null as Handler,
   };
   Object.defineProperty(Navigator.prototype, 'requestMIDIAccess', {
     configurable: true,

@@ -1,4 +1,5 @@
 import { TestBed } from '@angular/core/testing';
+import { standInAccess, standInInput } from '../../testing/midi-stand-in';
 import { DesignState } from '../design/design-state';
 import { MidiAccess } from '../hardware/midi-access';
 import { Audition } from './audition';
@@ -33,11 +34,28 @@ describe('Audition', () => {
     expect(audition.playing()).toEqual([]);
   });
 
-  it('plays a controller note-on and note-off by key number', () => {
+  it('plays a controller note-on and note-off by key number, and its sustain pedal', async () => {
+    const keyboard = standInInput('in-1', 'Keyboard');
+    const access = standInAccess({ inputs: [keyboard] });
+    spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(access));
+    expect(await TestBed.inject(MidiAccess).open()).toBeTrue();
     const controller = TestBed.inject(ControllerInput);
-    controller.play(new Uint8Array([0x90, 64, 100]));
+    controller.choose('in-1');
+    // MIDI 1.0 Detailed Specification: 9n kk vv is a note-on, and a note-on at velocity 0 is a
+    // note-off; 8n kk vv is a note-off; Bn 40 vv is the damper pedal (controller 64), on from
+    // 64 up.
+    keyboard.receive([0x90, 64, 100]);
     expect(audition.playing()).toEqual([64]);
-    controller.play(new Uint8Array([0x90, 64, 0]));
+    keyboard.receive([0x90, 64, 0]);
+    expect(audition.playing()).toEqual([]);
+    keyboard.receive([0x93, 60, 90]);
+    keyboard.receive([0xb3, 64, 127]);
+    keyboard.receive([0x83, 60, 40]);
+    expect(audition.playing()).toEqual([60]);
+    keyboard.receive([0xb3, 64, 0]);
+    expect(audition.playing()).toEqual([]);
+    controller.choose(null);
+    keyboard.receive([0x90, 62, 100]);
     expect(audition.playing()).toEqual([]);
   });
 });

@@ -2,6 +2,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { TestBed } from '@angular/core/testing';
 import { MatDialog } from '@angular/material/dialog';
 import { of } from 'rxjs';
+import { standInAccess, standInOutput } from '../../testing/midi-stand-in';
 import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { DesignState } from '../design/design-state';
 import { LiveFollow } from './live-follow';
@@ -13,11 +14,10 @@ import { TuningSender } from './tuning-sender';
 
 describe('SendPanel', () => {
   it('warns about, previews and sends to the same device, program and bank, whichever output setting changes', async () => {
-    const sent: number[][] = [];
-    const port = { id: 'out-1', name: 'Test synth', state: 'connected', send: (bytes: Uint8Array) => sent.push([...bytes]) };
-    spyOn(navigator, 'requestMIDIAccess').and.returnValue(
-      Promise.resolve({ inputs: new Map(), outputs: new Map([[port.id, port]]), addEventListener: () => undefined } as unknown as MIDIAccess),
-    );
+    const port = standInOutput();
+    const sent = port.sent;
+    const access = standInAccess({ outputs: [port] });
+    spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(access));
     const questions: OverwriteQuestion[] = [];
     TestBed.configureTestingModule({
       imports: [SendPanel],

@@ -3,6 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { provideRouter } from '@angular/router';
+import { standInAccess, standInInput, standInOutput } from '../../testing/midi-stand-in';
 import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { Session } from '../auth/session';
 import { DesignState } from '../design/design-state';
@@ -30,21 +31,16 @@ interface FakeInstrument {
 
 /** A Web MIDI stand-in: one instrument with an output and an input of the same name, answering dump requests. */
 function connect(instrument: FakeInstrument): void {
-  const input = Object.assign(new EventTarget(), { id: 'in-1', name: 'Test synth', state: 'connected', open: async () => input });
-  const output = {
-    id: 'out-1',
-    name: 'Test synth',
-    state: 'connected',
-    send(bytes: Uint8Array) {
-      instrument.requests.push([...bytes]);
-      if (instrument.answer === 'dump' && bytes[4] === 0x00) {
-        setTimeout(() => input.dispatchEvent(Object.assign(new Event('midimessage'), { data: twelveToneDump(bytes[5]) })), 5);
-      }
-    },
-  };
-  spyOn(navigator, 'requestMIDIAccess').and.returnValue(
-    Promise.resolve({ inputs: new Map([[input.id, input]]), outputs: new Map([[output.id, output]]), addEventListener: () => undefined } as unknown as MIDIAccess),
-  );
+  const input = standInInput();
+  const output = standInOutput();
+  spyOn(output, 'send').and.callFake((bytes: Uint8Array | number[]) => {
+    instrument.requests.push([...bytes]);
+    if (instrument.answer === 'dump' && bytes[4] === 0x00) {
+      setTimeout(() => input.receive(twelveToneDump(bytes[5])), 5);
+    }
+  });
+  const access = standInAccess({ inputs: [input], outputs: [output] });
+  spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(access));
 }
 
 async function setUp(instrument: FakeInstrument, member: boolean) {

@@ -1,4 +1,5 @@
 import { Injectable, computed, inject, linkedSignal } from '@angular/core';
+import type { Input, Listener, MessageEvent, Output } from 'webmidi';
 import { presetFromKeys } from '@shared/import/tuning-from-keys';
 import { decodeMtsMessage } from '@shared/midi/mts-decode';
 import { encodeDumpRequest } from '@shared/midi/mts-dump-request';
@@ -75,18 +76,17 @@ export class TuningBackup {
     return this.keep(dump.bytes, dump.tuning, output.name ?? 'instrument', program);
   }
 
-  /** Sends the request and waits for the matching dump; null when none came in time. */
-  private async ask(
-    output: MIDIOutput,
-    input: MIDIInput,
+  /** Sends the request and waits for the matching dump (an input 'sysex' event); null if late. */
+  private ask(
+    output: Output,
+    input: Input,
     deviceId: number,
     program: number,
     answerMs: number,
   ): Promise<{ bytes: Uint8Array; tuning: DecodedTuning } | null | 'refused'> {
-    await input.open?.();
     return new Promise((resolve) => {
-      const listen = (event: Event) => {
-        const data = (event as MIDIMessageEvent).data;
+      const listen = (event: MessageEvent) => {
+        const data = event.message.rawData;
         if (!data || !isBulkDump(data)) return;
         const decoded = decodeMtsMessage(data);
         if (!decoded.ok || decoded.value.kind === 'dump-request' || decoded.value.program !== program) return;
@@ -95,10 +95,11 @@ export class TuningBackup {
       const timer = setTimeout(() => finish(null), answerMs);
       const finish = (answer: { bytes: Uint8Array; tuning: DecodedTuning } | null | 'refused') => {
         clearTimeout(timer);
-        input.removeEventListener('midimessage', listen);
+        listener.remove();
         resolve(answer);
       };
-      input.addEventListener('midimessage', listen);
+      // WebMidi.enable opened every input, so the dump needs no open() here.
+      const listener = input.addListener('sysex', listen) as Listener;
       try {
         output.send(encodeDumpRequest({ deviceId, program }));
       } catch {

@@ -5,43 +5,25 @@ import { DesignState } from '../design/design-state';
 import { LiveFollow, followDebounceMs } from './live-follow';
 import { MidiAccess, midiAccessFaults } from './midi-access';
 import { TuningSender } from './tuning-sender';
-
-interface FakeOutput {
-  id: string;
-  name: string;
-  state: 'connected' | 'disconnected';
-  sent: number[][];
-  send(bytes: Uint8Array): void;
-}
-
-/** Stands in for the browser's Web MIDI with one output port that records what it is sent. */
-function fakeMidi(port: FakeOutput): MIDIAccess {
-  const outputs = new Map([[port.id, port]]);
-  return { inputs: new Map(), outputs, addEventListener: () => undefined } as unknown as MIDIAccess;
-}
-
-function outputPort(): FakeOutput {
-  return {
-    id: 'out-1',
-    name: 'Test synth',
-    state: 'connected',
-    sent: [],
-    send(bytes) {
-      if (this.state === 'disconnected') throw new DOMException('closed', 'InvalidStateError');
-      this.sent.push([...bytes]);
-    },
-  };
-}
+import {
+  type StandInOutput,
+  plug,
+  standInAccess,
+  standInInput,
+  standInOutput,
+} from '../../testing/midi-stand-in';
 
 describe('TuningSender and LiveFollow', () => {
-  let port: FakeOutput;
+  let port: StandInOutput;
+  let access: MIDIAccess;
   let sender: TuningSender;
   let state: DesignState;
   let request: jasmine.Spy;
 
   beforeEach(async () => {
-    port = outputPort();
-    request = spyOn(navigator, 'requestMIDIAccess').and.callFake(() => Promise.resolve(fakeMidi(port)));
+    port = standInOutput();
+    access = standInAccess({ outputs: [port] });
+    request = spyOn(navigator, 'requestMIDIAccess').and.callFake(() => Promise.resolve(access));
     TestBed.configureTestingModule({ providers: [DesignState, MidiAccess, TuningSender, LiveFollow] });
     state = TestBed.inject(DesignState);
     sender = TestBed.inject(TuningSender);
@@ -50,8 +32,23 @@ describe('TuningSender and LiveFollow', () => {
   });
 
   it('asks for MIDI with system exclusive and lists the output', () => {
-    expect(request).toHaveBeenCalledWith({ sysex: true });
+    expect(request).toHaveBeenCalledWith(jasmine.objectContaining({ sysex: true }));
     expect(TestBed.inject(MidiAccess).outputs()).toEqual([{ id: 'out-1', name: 'Test synth' }]);
+  });
+
+  it('asks the browser once, and keeps the port lists as devices come and go', async () => {
+    const midi = TestBed.inject(MidiAccess);
+    expect(await midi.open()).toBeTrue();
+    expect(request).toHaveBeenCalledTimes(1);
+    const keyboard = standInInput('in-2', 'Keyboard');
+    plug(access, keyboard, 'connected');
+    expect(midi.inputs()).toEqual([{ id: 'in-2', name: 'Keyboard' }]);
+    plug(access, port, 'disconnected');
+    expect(midi.outputs()).toEqual([]);
+    expect(midi.output('out-1')).toBeNull();
+    plug(access, port, 'connected');
+    expect(midi.outputs()).toEqual([{ id: 'out-1', name: 'Test synth' }]);
+    expect(sender.sendNow(Uint8Array.of(0xf0, 0x7e, 0x7f, 0x08, 0x00, 0x00, 0xf7))).toBeTrue();
   });
 
   it('sends the bytes of the bulk dump export, with the cable pause by default', async () => {
@@ -68,7 +65,7 @@ describe('TuningSender and LiveFollow', () => {
   it('says so when the port disappears in the middle of a send', async () => {
     sender.form.set('mts-notes');
     sender.pauseMs.set(0);
-    spyOn(port, 'send').and.callFake(function (this: FakeOutput, bytes: Uint8Array) {
+    spyOn(port, 'send').and.callFake((bytes: Uint8Array | number[]) => {
       port.sent.push([...bytes]);
       port.state = 'disconnected';
     });
@@ -98,11 +95,28 @@ describe('TuningSender and LiveFollow', () => {
     expect(follow.bytesSent()).toBeGreaterThan(0);
   }, patientSpecMs);
 
-  it('explains a browser without Web MIDI and a refusal', async () => {
-    request.and.callFake(() => Promise.reject(new DOMException('denied', 'SecurityError')));
+});
+
+describe('MidiAccess', () => {
+  it('explains a refusal', async () => {
+    const denied = new DOMException('denied', 'SecurityError');
+    spyOn(navigator, 'requestMIDIAccess').and.callFake(() => Promise.reject(denied));
     const refused = new MidiAccess();
     expect(await refused.open()).toBeFalse();
     expect(refused.state()).toBe('refused');
     expect(midiAccessFaults.refused).toContain('refused access to MIDI');
+  });
+
+  it('explains a browser without Web MIDI', async () => {
+    // Hides the browser's own requestMIDIAccess (on Navigator.prototype) behind an own property.
+    Object.defineProperty(navigator, 'requestMIDIAccess', { configurable: true, value: undefined });
+    try {
+      const missing = new MidiAccess();
+      expect(await missing.open()).toBeFalse();
+      expect(missing.state()).toBe('unsupported');
+      expect(midiAccessFaults.unsupported).toContain('no Web MIDI');
+    } finally {
+      delete (navigator as Partial<Navigator>).requestMIDIAccess;
+    }
   });
 });
