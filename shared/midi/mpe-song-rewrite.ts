@@ -12,7 +12,7 @@ import { readSong } from './smf-reader';
 import { standardMidiFile, TrackWriter } from './smf-writer';
 import { ChannelState, MemberChannel, type MessageSink } from './channel-state';
 import { mergedOrder, SongTrackEvents } from './song-events';
-import type { RetunedSong, SongTuning, StolenNote } from './song-retune';
+import { drumChannelIndex, type RetunedSong, type SongTuning, type StolenNote } from './retune-report';
 import { unreachableKeysWarning } from './unreachable-keys';
 
 /**
@@ -23,9 +23,6 @@ import { unreachableKeysWarning } from './unreachable-keys';
  * non-registered parameters of the song are read (the song's own bend range is honoured) but not
  * passed on: the member channels' bend range is the preset's.
  */
-
-/** General MIDI's drum kit, left as it is. */
-export const drumChannelIndex = 9;
 
 const noteOff = 0x80;
 const noteOn = 0x90;

@@ -1,4 +1,4 @@
-import { longestTuningName, tuningNameFrom } from '../preset/tuning-name';
+import { longestTuningName, tuningNameFrom } from './tuning-name';
 import { fail, type Result, succeed } from '../result';
 import {
   hzOfFrequencyWord,

@@ -1,6 +1,6 @@
 import { type Result, succeed } from '../result';
 import { decodeMtsMessage } from './mts-decode';
-import { drumChannelIndex } from './mpe-song-rewrite';
+import { drumChannelIndex } from './retune-report';
 import { readSong } from './smf-reader';
 
 /**

@@ -1,11 +1,11 @@
-import type { ResolvedPreset } from '../preset/preset-document';
 import { type FieldError, fieldError } from '../result';
 import { analyzeScale } from './analysis';
 import type { Beat } from './beats';
 import { ratioToString } from './interval';
 import type { IntervalSize } from './interval-size';
-import { type KeyTable, mapKeys } from './key-table';
-import { buildScale, type Scale } from './scale';
+import { type KeyMapping, type KeyTable, mapKeys } from './key-table';
+import { buildScale } from './scale';
+import type { Scale, ScaleSpec } from './scale-spec';
 import { ratioSearch } from './ratio-approximation';
 import { fifthsPerStep } from './chain-names';
 import { chainIntervalName, degreeNames } from './degree-names';
@@ -121,10 +121,10 @@ function chainJson(scale: Scale): NonNullable<PreviewTable['analysis']['stack']>
 /**
  * The body of `POST /api/preview/table`: the scale's degrees with their analysis, the scale-wide
  * analysis and the 128-key table, all JSON-safe (ratios as text, cents and Hz as numbers). Takes
- * what `parsePresetDocument` returned; a preset that did not come through it may not build, and
- * then this throws.
+ * the scale and mapping of what `parsePresetDocument` returned; a preset that did not come through
+ * it may not build, and then this throws.
  */
-export function previewTable(preset: ResolvedPreset): PreviewTable {
+export function previewTable(preset: { scale: ScaleSpec; mapping: KeyMapping }): PreviewTable {
   const built = buildScale(preset.scale);
   if (!built.ok) throw new Error(built.errors.map((error) => error.message).join('; '));
   const scale = built.value;

@@ -1,6 +1,6 @@
 import { HttpClient, HttpErrorResponse, HttpEvent, HttpEventType } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { RetuneMode, RetuneReport } from '@shared/midi/song-retune';
+import type { RetuneMode, RetuneReport } from '@shared/midi/retune-report';
 import { Observable, catchError, filter, map, of } from 'rxjs';
 import { apiErrorMessage } from '../library/api-error';
 
