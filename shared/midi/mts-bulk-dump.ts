@@ -6,10 +6,10 @@ import {
   mtsClampWarning,
   writeFrequencyWord,
 } from './frequency-word';
+import { endOfExclusive, systemExclusive } from './midi-bytes';
 import {
   type DecodedTuning,
   type EncodedMessages,
-  endOfExclusive,
   framingFault,
   hex,
   keyCount,
@@ -17,7 +17,6 @@ import {
   mtsChecksum,
   mtsForm,
   pitchesByKey,
-  systemExclusive,
   type TuningTarget,
   tuningSubId,
   universalNonRealTime,

@@ -1,6 +1,7 @@
 import { type FieldError, fail, fieldError, type Result, succeed } from '../result';
 import type { KeyPitch } from './frequency-word';
 import { defaultLeadInMs, withLeadIn } from './lead-in';
+import { messageKind, noteOn, textMeta } from './midi-bytes';
 import { rewriteAsMpe } from './mpe-song-rewrite';
 import { tuningSelectionMessages } from './registered-parameters';
 import { readSong } from './smf-reader';
@@ -37,7 +38,7 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
   let notesRetuned = 0;
   const layout = readSong(song, (_track, _tick, status, key, velocity) => {
     const channelIndex = status & 0x0f;
-    const isNoteOn = (status & 0xf0) === 0x90 && velocity > 0;
+    const isNoteOn = messageKind(status) === noteOn && velocity > 0;
     if (!isNoteOn || channelIndex === drumChannelIndex) return;
     playsNotes[channelIndex] = true;
     if (mapped[key]) notesRetuned++;
@@ -46,7 +47,7 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
   const channelsUsed = playsNotes.flatMap((plays, index) => (plays ? [index + 1] : []));
 
   const setup = new TrackWriter();
-  setup.meta(0, 0x01, metaText(`Keyloom: tuning ${tuning.output.tuningName}`));
+  setup.meta(0, textMeta, metaText(`Keyloom: tuning ${tuning.output.tuningName}`));
   const sysex = tuningSysex(tuning.keys, tuning.output);
   for (const message of sysex.messages) setup.systemExclusive(0, message);
   for (const channel of channelsUsed) {
@@ -89,7 +90,7 @@ function fitOfSong(song: Uint8Array, tuning: SongTuning): { unmapped: UnmappedNo
   let lowest = 128;
   let highest = -1;
   readSong(song, (track, tick, status, key, velocity) => {
-    const isNoteOn = (status & 0xf0) === 0x90 && velocity > 0;
+    const isNoteOn = messageKind(status) === noteOn && velocity > 0;
     if (!isNoteOn || (status & 0x0f) === drumChannelIndex) return;
     lowest = Math.min(lowest, key);
     highest = Math.max(highest, key);

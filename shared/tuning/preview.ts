@@ -1,4 +1,5 @@
 import { type FieldError, fieldError } from '../result';
+import { keyRuns } from '../text/key-runs';
 import { analyzeScale } from './analysis';
 import type { Beat } from './beats';
 import { ratioToString } from './interval';
@@ -75,17 +76,6 @@ export interface PreviewTable {
 
 function sizeJson(size: IntervalSize): SizeJson {
   return { ratio: size.ratio ? ratioToString(size.ratio) : null, cents: size.cents };
-}
-
-/** Runs of consecutive keys written compactly: 0-3, 126, 127 becomes "0-3, 126-127". */
-function keyRuns(keys: number[]): string {
-  const runs: [number, number][] = [];
-  for (const key of keys) {
-    const last = runs[runs.length - 1];
-    if (last && last[1] === key - 1) last[1] = key;
-    else runs.push([key, key]);
-  }
-  return runs.map(([first, last]) => (first === last ? `${first}` : `${first}-${last}`)).join(', ');
 }
 
 function mtsRangeWarning(keys: KeyTable): FieldError[] {
