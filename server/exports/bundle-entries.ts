@@ -1,5 +1,5 @@
-// The files of the bundle: every export that applies to a preset, the tuner sheet and a read-me. Runs on a worker
-// thread (server/work/heavy-work.ts); bundle.ts zips what it returns.
+// The files of the bundle: every export that applies to a preset, the tuner sheet and a read-me.
+// Made on a worker thread (server/work/heavy-work.ts); bundle.ts zips what it returns.
 import { exportFormats, renderExport } from '../../shared/export/export-catalogue';
 import type { ResolvedPreset } from '../../shared/preset/preset-document';
 import { type SheetRevision, renderTunerSheet } from './tuner-sheet';

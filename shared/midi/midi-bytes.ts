@@ -1,5 +1,6 @@
-// The status bytes of MIDI 1.0 messages, the meta events of Standard MIDI Files, and how many data bytes a channel
-// message carries (MIDI 1.0 Detailed Specification, "Summary of MIDI Messages"; SMF 1.0, "Meta-Events").
+// The status bytes of MIDI 1.0 messages, the meta events of Standard MIDI Files, and how many data
+// bytes a channel message carries (MIDI 1.0 Detailed Specification, "Summary of MIDI Messages";
+// SMF 1.0, "Meta-Events").
 
 /** Channel messages: the status byte's high nibble; the low nibble is the channel (0-15). */
 export const noteOff = 0x80;
@@ -27,7 +28,7 @@ export function messageKind(status: number): number {
   return status & 0xf0;
 }
 
-/** The data bytes of a channel message: one for program change and channel pressure, two for the others. */
+/** The data bytes of a channel message: one for program change and channel pressure, else two. */
 export function dataLengthOf(status: number): 1 | 2 {
   const kind = messageKind(status);
   return kind === programChange || kind === channelPressure ? 1 : 2;

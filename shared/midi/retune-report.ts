@@ -1,5 +1,6 @@
-// What retuning a song takes and gives back: the tuning it needs from a preset, the mode, and the report. Both
-// ways of retuning (song-retune.ts with MTS, mpe-song-rewrite.ts with MPE) and the song's sounding stand on it.
+// What retuning a song takes and gives back: the tuning it needs from a preset, the mode, and the
+// report. Both ways of retuning (song-retune.ts with MTS, mpe-song-rewrite.ts with MPE) and the
+// song's sounding (song-sounding.ts) stand on it.
 import type { FieldError } from '../result';
 import type { KeyPitch } from './frequency-word';
 import type { LeadIn } from './lead-in';

@@ -1,5 +1,6 @@
-// What a scale is, apart from how it is built: the spec as the preset document gives it, and the built scale. The
-// builders (equal-scale.ts, generated-scale.ts, harmonic-scale.ts, list-scale.ts) and scale.ts stand on this file.
+// What a scale is, apart from how it is built: the spec as the preset document gives it, and the
+// built scale. The builders (equal-scale.ts, generated-scale.ts, harmonic-scale.ts, list-scale.ts)
+// and scale.ts, which picks one of them, stand on this file.
 import type { FieldError } from '../result';
 import type { IntervalSize } from './interval-size';
 import type { ScaleDegree } from './scale-degrees';
