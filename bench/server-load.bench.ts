@@ -4,7 +4,8 @@
 // Run: npx tsx bench/server-load.bench.ts
 import autocannon from 'autocannon';
 import { Writable } from 'node:stream';
-import { streamBundle, bundleEntries } from '../server/exports/bundle';
+import { streamBundle } from '../server/exports/bundle';
+import { bundleEntries } from '../server/exports/bundle-entries';
 import { parsePresetDocument } from '../shared/preset/preset-document';
 import { CookieJar } from '../tests/support/cookie-jar';
 import { startBenchStack } from './support/bench-stack';

@@ -6,7 +6,8 @@ import { type MidiData, parseMidi } from 'midi-file';
 import { parsePresetDocument } from '../shared/preset/preset-document';
 import { tuningOfPreset } from '../shared/export/preset-tuning';
 import { standardMidiFile, TrackWriter } from '../shared/midi/smf-writer';
-import { type RetuneMode, retuneSong } from '../shared/midi/song-retune';
+import type { RetuneMode } from '../shared/midi/retune-report';
+import { retuneSong } from '../shared/midi/song-retune';
 
 const noteCount = 200_000;
 const voices = 4;

@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import type { ImportedTuning, ImportKind } from '../../shared/api/songs';
 import { presetFromIntervalList } from '../../shared/import/interval-list';
+import { systemExclusive } from '../../shared/midi/midi-bytes';
 import { parsePresetDocument, type PresetDocument } from '../../shared/preset/preset-document';
 import type { Result } from '../../shared/result';
 import type { Database } from '../db/client';
@@ -9,7 +10,6 @@ import { recordUpload, requireFile, singleUpload } from '../http/uploads';
 import { valueOrThrow } from '../http/validation';
 import { syxImportOffThread } from '../work/worker-pool';
 
-const systemExclusive = 0xf0;
 /** A preset document or a list of intervals is a few kilobytes; a text file past this is refused unread. */
 const largestTextBytes = 256 * 1024;
 

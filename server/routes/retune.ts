@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { tuningOfPreset } from '../../shared/export/preset-tuning';
 import type { RetuneAnswer, SongReport, SongReportCounts } from '../../shared/api/songs';
 import { defaultLeadInMs, leadInFault } from '../../shared/midi/lead-in';
-import type { RetuneMode } from '../../shared/midi/song-retune';
+import type { RetuneMode } from '../../shared/midi/retune-report';
 import { parsePresetDocument, type ResolvedPreset } from '../../shared/preset/preset-document';
 import type { Database } from '../db/client';
 import { exportFileName } from '../../shared/export/export-file-name';

@@ -2,11 +2,12 @@
 // one big song or PDF never holds up the requests of everyone else.
 import { presetFromKeys } from '../../shared/import/tuning-from-keys';
 import { decodeMtsStream } from '../../shared/midi/mts-decode';
-import { retuneSong, type RetuneMode } from '../../shared/midi/song-retune';
+import type { RetuneMode } from '../../shared/midi/retune-report';
+import { retuneSong } from '../../shared/midi/song-retune';
 import type { Result } from '../../shared/result';
 import type { KeyTable } from '../../shared/tuning/key-table';
 import type { ResolvedPreset } from '../../shared/preset/preset-document';
-import { bundleEntries } from '../exports/bundle';
+import { bundleEntries } from '../exports/bundle-entries';
 import { type SheetRevision, renderTunerSheet } from '../exports/tuner-sheet';
 
 export type HeavyTask =

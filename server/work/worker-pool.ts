@@ -3,7 +3,7 @@
 import { availableParallelism } from 'node:os';
 import Piscina from 'piscina';
 import { HttpError } from '../http/errors';
-import type { BundleEntry } from '../exports/bundle';
+import type { BundleEntry } from '../exports/bundle-entries';
 import type { HeavyTask, retune as retuneOnThread, syxImport as syxImportOnThread } from './heavy-work';
 
 /** Tasks waiting for a thread at most; past that the server says it is busy rather than queueing without end. */

@@ -1,6 +1,6 @@
 // The answers of the routes that take a file: importing a tuning, retuning a song.
 import type { LeadIn } from '../midi/lead-in';
-import type { RetuneMode, RetuneReport } from '../midi/song-retune';
+import type { RetuneMode, RetuneReport } from '../midi/retune-report';
 import type { PresetDocument } from '../preset/preset-document';
 
 /** What `POST /api/import` found in a file: MTS messages, a preset document, or a list of intervals. */

@@ -1,7 +1,8 @@
 import type { ResolvedPreset } from '../preset/preset-document';
 import { type Result, succeed } from '../result';
 import { type KeyTable, mapKeys } from '../tuning/key-table';
-import { buildScale, type Scale } from '../tuning/scale';
+import { buildScale } from '../tuning/scale';
+import type { Scale } from '../tuning/scale-spec';
 
 /** A preset's scale laid across the 128 keys, with the output settings its exports use. */
 export interface PresetTuning {

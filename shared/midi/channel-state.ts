@@ -1,3 +1,5 @@
+import { channelPressure, controlChange, programChange } from './midi-bytes';
+
 /**
  * MIDI channels while a song is rewritten one note per channel: what each song channel has set
  * (controllers, program, pressure, its own bend and bend range), and what each member channel has
@@ -9,9 +11,6 @@ export interface MessageSink {
   send(status: number, data1: number, data2?: number): void;
 }
 
-const programChange = 0xc0;
-const channelPressure = 0xd0;
-const controlChange = 0xb0;
 const allSoundOff = 120;
 const resetAllControllers = 121;
 const localControl = 122;

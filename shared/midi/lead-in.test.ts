@@ -4,7 +4,8 @@ import { parseMidi } from 'midi-file';
 import { describe, expect, it } from 'vitest';
 import { pureFifthsOnWhiteKeys } from './key-tables.testing';
 import { defaultLeadInMs, withLeadIn } from './lead-in';
-import { retuneSong, type SongTuning } from './song-retune';
+import type { SongTuning } from './retune-report';
+import { retuneSong } from './song-retune';
 import { merged, notesOn, songOf, songs } from './songs.testing';
 
 const tuning: SongTuning = {

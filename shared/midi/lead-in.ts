@@ -1,4 +1,5 @@
 import { fail, fieldError, type Result, succeed } from '../result';
+import { messageKind, metaEvent, noteOn, tempoMeta } from './midi-bytes';
 import { readSong } from './smf-reader';
 import { ByteBuffer } from './smf-writer';
 
@@ -20,8 +21,6 @@ export interface LeadIn {
 
 /** A tempo of 120 quarter notes a minute, which SMF 1.0 assumes until a tempo event says otherwise. */
 const defaultMicrosecondsPerQuarter = 500_000;
-const metaEvent = 0xff;
-const tempoMeta = 0x51;
 /** The longest delta time four bytes of a variable-length quantity hold. */
 const longestDelta = 0x0fffffff;
 
@@ -60,7 +59,7 @@ export function withLeadIn(song: Uint8Array, ms: number): Result<{ bytes: Uint8A
     if (status === metaEvent && data1 === tempoMeta && tick === 0 && end - start === 6) {
       tempo = (song[end - 3] << 16) | (song[end - 2] << 8) | song[end - 1];
     }
-    const isNoteOn = (status & 0xf0) === 0x90 && data2 > 0;
+    const isNoteOn = messageKind(status) === noteOn && data2 > 0;
     if (points.has(track) || (tick === 0 && !isNoteOn)) return;
     points.set(track, { deltaStart, deltaEnd: start });
   });

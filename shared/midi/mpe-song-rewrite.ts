@@ -1,4 +1,14 @@
 import { type FieldError, fail, fieldError, type Result, succeed } from '../result';
+import {
+  endOfTrackMeta,
+  messageKind,
+  metaEvent,
+  noteOff,
+  noteOn,
+  pitchBend,
+  polyPressure,
+  systemExclusive,
+} from './midi-bytes';
 import { MemberChannelAllocator, mpeSetupMessages, mpeZoneOf } from './mpe';
 import {
   bendCentre,
@@ -12,7 +22,12 @@ import { readSong } from './smf-reader';
 import { standardMidiFile, TrackWriter } from './smf-writer';
 import { ChannelState, MemberChannel, type MessageSink } from './channel-state';
 import { mergedOrder, SongTrackEvents } from './song-events';
-import type { RetunedSong, SongTuning, StolenNote } from './song-retune';
+import {
+  drumChannelIndex,
+  type RetunedSong,
+  type SongTuning,
+  type StolenNote,
+} from './retune-report';
 import { unreachableKeysWarning } from './unreachable-keys';
 
 /**
@@ -23,14 +38,6 @@ import { unreachableKeysWarning } from './unreachable-keys';
  * non-registered parameters of the song are read (the song's own bend range is honoured) but not
  * passed on: the member channels' bend range is the preset's.
  */
-
-/** General MIDI's drum kit, left as it is. */
-export const drumChannelIndex = 9;
-
-const noteOff = 0x80;
-const noteOn = 0x90;
-const polyPressure = 0xa0;
-const pitchBend = 0xe0;
 
 interface SoundingNote {
   /** The song channel (0-15), key and track (0 first) of the note, and when it began. */
@@ -105,7 +112,7 @@ class MpeRewrite implements MessageSink {
     this.writer = writer;
     this.tick = tick;
     const channel = status & 0x0f;
-    const kind = status & 0xf0;
+    const kind = messageKind(status);
     if (kind === noteOn && data2 > 0) this.startNote(channel, data1, data2, track);
     else if (kind === noteOff || kind === noteOn) this.endNote(channel, data1, kind, data2, track);
     else if (kind === polyPressure) {
@@ -215,7 +222,7 @@ export function rewriteAsMpe(song: Uint8Array, tuning: SongTuning): Result<Retun
   let usesDrums = false;
   const layout = readSong(song, (track, tick, status, data1, data2, start, end) => {
     (tracks[track] ??= new SongTrackEvents()).add(tick, status, data1, data2, start, end);
-    if ((status & 0x0f) === drumChannelIndex && status < 0xf0) usesDrums = true;
+    if ((status & 0x0f) === drumChannelIndex && status < systemExclusive) usesDrums = true;
   });
   if (!layout.ok) return layout;
   const { trackCount, chunks, format, division } = layout.value;
@@ -249,8 +256,9 @@ export function rewriteAsMpe(song: Uint8Array, tuning: SongTuning): Result<Retun
     const tick = events.ticks[index];
     const message = events.messages[index];
     const status = message >> 16;
-    if (status >= 0xf0) {
-      if (status === 0xff && ((message >> 8) & 0xff) === 0x2f) endTicks[track] = tick;
+    if (status >= systemExclusive) {
+      const type = (message >> 8) & 0xff;
+      if (status === metaEvent && type === endOfTrackMeta) endTicks[track] = tick;
       else writer.copiedEvent(tick, song, events.starts[index], events.ends[index]);
     } else if ((status & 0x0f) === drumChannelIndex) {
       writer.channelMessage(tick, status, (message >> 8) & 0xff, message & 0xff);

@@ -1,4 +1,4 @@
-import { longestTuningName, tuningNameFrom } from '../preset/tuning-name';
+import { longestTuningName, tuningNameFrom } from './tuning-name';
 import { fail, type Result, succeed } from '../result';
 import {
   hzOfFrequencyWord,
@@ -6,10 +6,10 @@ import {
   mtsClampWarning,
   writeFrequencyWord,
 } from './frequency-word';
+import { endOfExclusive, systemExclusive } from './midi-bytes';
 import {
   type DecodedTuning,
   type EncodedMessages,
-  endOfExclusive,
   framingFault,
   hex,
   keyCount,
@@ -17,7 +17,6 @@ import {
   mtsChecksum,
   mtsForm,
   pitchesByKey,
-  systemExclusive,
   type TuningTarget,
   tuningSubId,
   universalNonRealTime,

@@ -2,14 +2,13 @@ import { fail, type FieldError, type Result, succeed } from '../result';
 import type { KeyPitch } from './frequency-word';
 import { decodeBulkDump } from './mts-bulk-dump';
 import { decodeDumpRequest } from './mts-dump-request';
+import { endOfExclusive, systemExclusive } from './midi-bytes';
 import {
   type DecodedMtsMessage,
-  endOfExclusive,
   hex,
   keyCount,
   messageFault,
   mtsForm,
-  systemExclusive,
   tuningSubId,
   universalNonRealTime,
   universalRealTime,

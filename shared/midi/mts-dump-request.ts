@@ -1,10 +1,9 @@
 import { fail, type Result, succeed } from '../result';
+import { endOfExclusive, systemExclusive } from './midi-bytes';
 import {
   type DecodedDumpRequest,
-  endOfExclusive,
   framingFault,
   mtsForm,
-  systemExclusive,
   tuningSubId,
   universalNonRealTime,
 } from './mts-message';

@@ -1,12 +1,11 @@
 import { type FieldError, fieldError } from '../result';
 import type { KeyPitch } from './frequency-word';
+import { endOfExclusive } from './midi-bytes';
 
 /**
  * What every MTS message shares: universal system exclusive `F0 7E|7F dev 08 sub-ID#2 ... F7`
  * (MMA MIDI Tuning Updated Specification).
  */
-export const systemExclusive = 0xf0;
-export const endOfExclusive = 0xf7;
 export const universalNonRealTime = 0x7e;
 export const universalRealTime = 0x7f;
 export const tuningSubId = 0x08;

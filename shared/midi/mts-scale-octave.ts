@@ -1,14 +1,13 @@
 import { fail, fieldError, type FieldError, type Result, succeed } from '../result';
 import { centsFromEqualTempered, noteName } from '../tuning/twelve-edo';
 import type { KeyPitch } from './frequency-word';
+import { endOfExclusive, systemExclusive } from './midi-bytes';
 import {
   type DecodedTuning,
   type EncodedMessages,
-  endOfExclusive,
   framingFault,
   keyCount,
   mtsForm,
-  systemExclusive,
   tuningSubId,
   universalNonRealTime,
   universalRealTime,

@@ -5,15 +5,14 @@ import {
   mtsClampWarning,
   writeFrequencyWord,
 } from './frequency-word';
+import { endOfExclusive, systemExclusive } from './midi-bytes';
 import {
   type DecodedTuning,
   type EncodedMessages,
-  endOfExclusive,
   framingFault,
   keyCount,
   messageFault,
   mtsForm,
-  systemExclusive,
   type TuningTarget,
   tuningSubId,
   universalNonRealTime,

@@ -1,3 +1,5 @@
+import { pitchBend } from './midi-bytes';
+
 /**
  * Playing a pitch on an instrument that only knows equal temperament: the nearest equal-tempered
  * note, bent by a 14-bit pitch bend `En ll mm` (LSB first, centre 8192) within the bend range (MIDI
@@ -66,5 +68,5 @@ export function bendClampWarning(bendRangeSemitones: number): string {
 
 /** The pitch bend message `En ll mm` on a channel 1-16. */
 export function pitchBendMessage(channel: number, bendValue14: number): number[] {
-  return [0xe0 | (channel - 1), bendValue14 & 0x7f, bendValue14 >> 7];
+  return [pitchBend | (channel - 1), bendValue14 & 0x7f, bendValue14 >> 7];
 }

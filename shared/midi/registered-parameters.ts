@@ -1,3 +1,5 @@
+import { controlChange as controlChangeStatus } from './midi-bytes';
+
 /**
  * Registered parameter numbers (RPN) as control changes on a channel 1-16: select with 101/100
  * (MSB/LSB), set with data entry 6 (and 38 for the fine part), then deselect with the null RPN 7F
@@ -8,7 +10,7 @@
 type ChannelMessage = number[];
 
 function controlChange(channel: number, controller: number, value: number): ChannelMessage {
-  return [0xb0 | (channel - 1), controller, value];
+  return [controlChangeStatus | (channel - 1), controller, value];
 }
 
 const rpnMsb = 0x65;

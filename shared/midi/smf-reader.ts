@@ -1,4 +1,11 @@
 import { fail, type FieldError, fieldError, type Result, succeed } from '../result';
+import {
+  dataLengthOf,
+  endOfExclusive,
+  endOfTrackMeta,
+  metaEvent,
+  systemExclusive,
+} from './midi-bytes';
 
 /**
  * A strict, linear reader of Standard MIDI Files (SMF 1.0), format 0 and 1: running status, system
@@ -43,9 +50,6 @@ export type SongEventVisitor = (
   end: number,
 ) => void;
 
-const metaEvent = 0xff;
-const endOfTrack = 0x2f;
-
 function songFault(fault: string): FieldError {
   return fieldError('file', fault);
 }
@@ -88,10 +92,9 @@ function readTrack(
       }
       status = runningStatus;
     } else at++;
-    if (status < 0xf0) {
+    if (status < systemExclusive) {
       runningStatus = status;
-      const kind = status & 0xf0;
-      const dataLength = kind === 0xc0 || kind === 0xd0 ? 1 : 2;
+      const dataLength = dataLengthOf(status);
       if (at + dataLength > end) {
         return `${name} is cut short inside an event at byte ${eventStart}`;
       }
@@ -108,7 +111,7 @@ function readTrack(
     if (status === metaEvent) {
       if (at >= end) return `${name} is cut short inside a meta event at byte ${eventStart}`;
       type = bytes[at++];
-    } else if (status !== 0xf0 && status !== 0xf7) {
+    } else if (status !== systemExclusive && status !== endOfExclusive) {
       const byte = status.toString(16).toUpperCase();
       return (
         `${name} holds the byte ${byte} at ${eventStart}, ` +
@@ -131,7 +134,7 @@ function readTrack(
     }
     at += dataLength;
     visit(track, tick, status, type, 0, eventStart, at);
-    if (status === metaEvent && type === endOfTrack) return null;
+    if (status === metaEvent && type === endOfTrackMeta) return null;
   }
   return null;
 }

@@ -1,3 +1,4 @@
+import { dataLengthOf, endOfTrackMeta, metaEvent, systemExclusive } from './midi-bytes';
 /**
  * A Standard MIDI File writer (SMF 1.0) that runs in time linear in what it writes: events go into
  * a byte buffer that doubles when full, each delta time as a variable-length quantity, channel
@@ -70,13 +71,6 @@ export class ByteBuffer {
 
 /** The largest tick count a variable-length quantity holds (4 bytes of 7 bits). */
 const largestDelta = 0x0fffffff;
-const endOfTrack = 0x2f;
-
-/** Channel messages with one data byte: program change (Cn) and channel pressure (Dn). */
-function dataBytesOf(status: number): number {
-  const kind = status & 0xf0;
-  return kind === 0xc0 || kind === 0xd0 ? 1 : 2;
-}
 
 /**
  * One track's events in time order. Ticks are absolute; the writer turns them into delta times.
@@ -111,7 +105,7 @@ export class TrackWriter {
     if (status !== this.runningStatus || !this.useRunningStatus) this.buffer.byte(status);
     this.runningStatus = status;
     this.buffer.byte(data1);
-    if (dataBytesOf(status) === 2) this.buffer.byte(data2);
+    if (dataLengthOf(status) === 2) this.buffer.byte(data2);
   }
 
   /** Channel messages given as byte lists, all at one tick. */
@@ -122,7 +116,7 @@ export class TrackWriter {
   /** A whole system exclusive message, F0 to F7, stored as `F0 <length> <the bytes after F0>`. */
   systemExclusive(tick: number, message: Uint8Array): void {
     this.delta(tick);
-    this.buffer.byte(0xf0);
+    this.buffer.byte(systemExclusive);
     this.buffer.variableLength(message.length - 1);
     this.buffer.bytes(message, 1);
     this.runningStatus = -1;
@@ -131,7 +125,7 @@ export class TrackWriter {
   /** A meta event `FF type <length> data`. */
   meta(tick: number, type: number, data: ArrayLike<number>): void {
     this.delta(tick);
-    this.buffer.byte(0xff);
+    this.buffer.byte(metaEvent);
     this.buffer.byte(type);
     this.buffer.variableLength(data.length);
     this.buffer.bytes(data);
@@ -158,7 +152,7 @@ export class TrackWriter {
    * earlier).
    */
   finish(endTick = this.lastTick): Uint8Array {
-    this.meta(Math.max(endTick, this.lastTick), endOfTrack, []);
+    this.meta(Math.max(endTick, this.lastTick), endOfTrackMeta, []);
     return this.buffer.toBytes();
   }
 }

@@ -6,7 +6,8 @@ import { centsBetween, pureFifthsOnWhiteKeys } from './key-tables.testing';
 import { decodeMtsStream } from './mts-decode';
 import { centsOfBendValue } from './pitch-bend';
 import { readSong } from './smf-reader';
-import { retuneSong, type RetuneMode, type SongTuning } from './song-retune';
+import type { RetuneMode, SongTuning } from './retune-report';
+import { retuneSong } from './song-retune';
 import { merged, notesOn, songOf, songs, type TestEvent } from './songs.testing';
 
 const output = {

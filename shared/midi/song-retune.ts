@@ -1,11 +1,19 @@
 import { type FieldError, fail, fieldError, type Result, succeed } from '../result';
 import type { KeyPitch } from './frequency-word';
-import { defaultLeadInMs, type LeadIn, withLeadIn } from './lead-in';
-import { drumChannelIndex, rewriteAsMpe } from './mpe-song-rewrite';
+import { defaultLeadInMs, withLeadIn } from './lead-in';
+import { messageKind, noteOn, textMeta } from './midi-bytes';
+import { rewriteAsMpe } from './mpe-song-rewrite';
 import { tuningSelectionMessages } from './registered-parameters';
 import { readSong } from './smf-reader';
 import { ByteBuffer, metaText, TrackWriter } from './smf-writer';
-import { type MtsOutput, tuningSysex } from './tuning-setup';
+import {
+  drumChannelIndex,
+  type RetunedSong,
+  type RetuneMode,
+  type SongTuning,
+  type UnmappedNote,
+} from './retune-report';
+import { tuningSysex } from './tuning-setup';
 
 /**
  * Retuning a song (a format 0 or 1 Standard MIDI File). Mode `mts` puts the tuning at tick 0 of the
@@ -14,61 +22,8 @@ import { type MtsOutput, tuningSysex } from './tuning-setup';
  * without MTS. Channel 10, the drum kit of General MIDI, is left alone in both.
  */
 
-export type RetuneMode = 'mts' | 'mpe';
-
-/** What a song needs from a preset: the keys' pitches and the output settings. */
-export interface SongTuning {
-  keys: readonly KeyPitch[];
-  output: MtsOutput & { bendRange: number; memberChannels: readonly [number, number] };
-  /** How many keys the tuning's layout repeats every (12 for a keyboard in octaves); unknown when absent. */
-  keysPerPeriod?: number;
-}
-
-/** A note on a key the tuning leaves unmapped: it plays at whatever pitch the instrument had. */
-export interface UnmappedNote {
-  /** Track (1 first), the tick the note began, and its key. */
-  track: number;
-  tick: number;
-  key: number;
-}
-
 /** The unmapped notes a report names at most; the count is always whole. */
 const listedUnmappedNotes = 5;
-
-/** A note cut off because every member channel was sounding when another note began. */
-export interface StolenNote {
-  /** Track (1 first), source channel (1-16) and key of the note, and the tick it began. */
-  track: number;
-  channel: number;
-  key: number;
-  startTick: number;
-  /** The tick it was cut off, and the member channel it was sounding on. */
-  stolenAtTick: number;
-  memberChannel: number;
-}
-
-export interface RetuneReport {
-  mode: RetuneMode;
-  /** Notes whose key the tuning maps (other notes keep the pitch they had). */
-  notesRetuned: number;
-  /**
-   * `mts`: the channels the tuning was selected on; `mpe`: the member channels notes were moved to
-   * (1-16).
-   */
-  channelsUsed: number[];
-  notesStolen: StolenNote[];
-  /** Notes on keys the tuning leaves unmapped (outside channel 10): how many, and the first few. */
-  notesUnmappedCount: number;
-  notesUnmapped: UnmappedNote[];
-  warnings: FieldError[];
-  /** How much later than written the song starts, so that the instrument applies the tuning first. */
-  leadIn: LeadIn;
-}
-
-export interface RetunedSong {
-  bytes: Uint8Array;
-  report: RetuneReport;
-}
 
 /** Keys the tuning maps, by key number. */
 function mappedKeys(keys: readonly KeyPitch[]): boolean[] {
@@ -83,7 +38,7 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
   let notesRetuned = 0;
   const layout = readSong(song, (_track, _tick, status, key, velocity) => {
     const channelIndex = status & 0x0f;
-    const isNoteOn = (status & 0xf0) === 0x90 && velocity > 0;
+    const isNoteOn = messageKind(status) === noteOn && velocity > 0;
     if (!isNoteOn || channelIndex === drumChannelIndex) return;
     playsNotes[channelIndex] = true;
     if (mapped[key]) notesRetuned++;
@@ -92,7 +47,7 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
   const channelsUsed = playsNotes.flatMap((plays, index) => (plays ? [index + 1] : []));
 
   const setup = new TrackWriter();
-  setup.meta(0, 0x01, metaText(`Keyloom: tuning ${tuning.output.tuningName}`));
+  setup.meta(0, textMeta, metaText(`Keyloom: tuning ${tuning.output.tuningName}`));
   const sysex = tuningSysex(tuning.keys, tuning.output);
   for (const message of sysex.messages) setup.systemExclusive(0, message);
   for (const channel of channelsUsed) {
@@ -135,7 +90,7 @@ function fitOfSong(song: Uint8Array, tuning: SongTuning): { unmapped: UnmappedNo
   let lowest = 128;
   let highest = -1;
   readSong(song, (track, tick, status, key, velocity) => {
-    const isNoteOn = (status & 0xf0) === 0x90 && velocity > 0;
+    const isNoteOn = messageKind(status) === noteOn && velocity > 0;
     if (!isNoteOn || (status & 0x0f) === drumChannelIndex) return;
     lowest = Math.min(lowest, key);
     highest = Math.max(highest, key);

@@ -1,7 +1,8 @@
 import { Midi } from '@tonejs/midi';
 import { describe, expect, it } from 'vitest';
 import { pureFifthsOnWhiteKeys } from './key-tables.testing';
-import { retuneSong, type SongTuning } from './song-retune';
+import type { SongTuning } from './retune-report';
+import { retuneSong } from './song-retune';
 import { songSound } from './song-sounding';
 import { merged, notesOn, songOf } from './songs.testing';
 

@@ -1,6 +1,17 @@
 import { type Result, succeed } from '../result';
+import {
+  controlChange,
+  endOfTrackMeta,
+  messageKind,
+  metaEvent,
+  noteOff,
+  noteOn,
+  pitchBend,
+  systemExclusive,
+  tempoMeta,
+} from './midi-bytes';
 import { decodeMtsMessage } from './mts-decode';
-import { drumChannelIndex } from './mpe-song-rewrite';
+import { drumChannelIndex } from './retune-report';
 import { readSong } from './smf-reader';
 
 /**
@@ -73,7 +84,7 @@ function exclusiveMessage(song: Uint8Array, start: number, end: number): Uint8Ar
   let at = start + 1;
   while (song[at] & 0x80) at++;
   const message = new Uint8Array(end - at);
-  message[0] = 0xf0;
+  message[0] = systemExclusive;
   message.set(song.subarray(at + 1, end), 1);
   return message;
 }
@@ -82,10 +93,12 @@ export function songSound(song: Uint8Array): Result<SongSound> {
   const events: TimedEvent[] = [];
   const tempos: { tick: number; microseconds: number }[] = [];
   const layout = readSong(song, (_track, tick, status, data1, data2, start, end) => {
-    if (status === 0xff && data1 === 0x51 && end - start === 6) {
+    if (status === metaEvent && data1 === tempoMeta && end - start === 6) {
       tempos.push({ tick, microseconds: (song[end - 3] << 16) | (song[end - 2] << 8) | song[end - 1] });
     }
-    if (status === 0xf0 || (status >= 0x80 && status < 0xf0) || (status === 0xff && data1 === 0x2f)) {
+    const isChannelMessage = status >= noteOff && status < systemExclusive;
+    const isEndOfTrack = status === metaEvent && data1 === endOfTrackMeta;
+    if (status === systemExclusive || isChannelMessage || isEndOfTrack) {
       events.push({ tick, status, data1, data2, start, end });
     }
   });
@@ -111,7 +124,7 @@ export function songSound(song: Uint8Array): Result<SongSound> {
   for (const event of events) {
     const at = secondsAt(event.tick);
     lastSeconds = Math.max(lastSeconds, at);
-    if (event.status === 0xf0) {
+    if (event.status === systemExclusive) {
       const decoded = decodeMtsMessage(exclusiveMessage(song, event.start, event.end));
       if (decoded.ok && decoded.value.kind !== 'dump-request') {
         for (const { key, hz } of decoded.value.keys) if (hz !== null && key >= 0 && key < 128) keyHz[key] = hz;
@@ -119,8 +132,8 @@ export function songSound(song: Uint8Array): Result<SongSound> {
       continue;
     }
     const channel = event.status & 0x0f;
-    switch (event.status & 0xf0) {
-      case 0x90:
+    switch (messageKind(event.status)) {
+      case noteOn:
         if (event.data2 > 0) {
           if (channel === drumChannelIndex) {
             drumNotes++;
@@ -135,13 +148,13 @@ export function songSound(song: Uint8Array): Result<SongSound> {
         }
         release(channel, event.data1, at);
         break;
-      case 0x80:
+      case noteOff:
         release(channel, event.data1, at);
         break;
-      case 0xe0:
+      case pitchBend:
         bend[channel] = event.data2 * 128 + event.data1;
         break;
-      case 0xb0:
+      case controlChange:
         if (event.data1 === 101) parameter[channel].msb = event.data2;
         else if (event.data1 === 100) parameter[channel].lsb = event.data2;
         else if (event.data1 === 6 && parameter[channel].msb === 0 && parameter[channel].lsb === 0) {

@@ -1,5 +1,6 @@
 import { type FieldError, fieldError } from '../result';
 import type { KeyEntry } from '../tuning/key-table';
+import { noteOff, noteOn, tempoMeta, trackNameMeta } from './midi-bytes';
 import { MemberChannelAllocator, mpeSetupMessages, mpeZoneOf } from './mpe';
 import { bendClampWarning, bendForPitch, pitchBendMessage } from './pitch-bend';
 import { tuningSelectionMessages } from './registered-parameters';
@@ -86,9 +87,9 @@ function phraseEvents(notes: PhraseNote[]): PhraseEvent[] {
 
 function startTrack(tuning: PhraseTuning): TrackWriter {
   const track = new TrackWriter();
-  track.meta(0, 0x03, metaText(tuning.output.tuningName));
+  track.meta(0, trackNameMeta, metaText(tuning.output.tuningName));
   const tempo = microsecondsPerQuarter;
-  track.meta(0, 0x51, [tempo >> 16, (tempo >> 8) & 0xff, tempo & 0xff]);
+  track.meta(0, tempoMeta, [tempo >> 16, (tempo >> 8) & 0xff, tempo & 0xff]);
   return track;
 }
 
@@ -116,7 +117,7 @@ export function tuningPhraseFile(tuning: PhraseTuning): PhraseFile {
   track.channelMessages(0, tuningSelectionMessages(channel, tuning.output));
   const notes = scalePhrase(tuning);
   for (const { tick, note, on } of phraseEvents(notes)) {
-    const status = (on ? 0x90 : 0x80) | (channel - 1);
+    const status = (on ? noteOn : noteOff) | (channel - 1);
     track.channelMessage(tick, status, note.key, on ? note.velocity : 0x40);
   }
   const bytes = standardMidiFile({ format: 0, division: ticksPerQuarter }, [track.finish()]);
@@ -141,7 +142,8 @@ export function mpePhraseFile(tuning: PhraseTuning): PhraseFile {
     if (!on) {
       const channel = channelOf.get(note);
       if (channel === undefined) continue;
-      track.channelMessage(tick, 0x80 | (channel - 1), bendForPitch(note.hz, bendRange).note, 0x40);
+      const released = bendForPitch(note.hz, bendRange).note;
+      track.channelMessage(tick, noteOff | (channel - 1), released, 0x40);
       allocator.release(channel);
       channelOf.delete(note);
       continue;
@@ -151,13 +153,13 @@ export function mpePhraseFile(tuning: PhraseTuning): PhraseFile {
     const { channel, stolen } = allocator.start(note);
     if (stolen) {
       const stolenNote = bendForPitch(stolen.hz, bendRange).note;
-      track.channelMessage(tick, 0x80 | (channel - 1), stolenNote, 0x40);
+      track.channelMessage(tick, noteOff | (channel - 1), stolenNote, 0x40);
       channelOf.delete(stolen);
     }
     channelOf.set(note, channel);
     track.channelMessages(tick, [
       pitchBendMessage(channel, bent.bendValue14),
-      [0x90 | (channel - 1), bent.note, note.velocity],
+      [noteOn | (channel - 1), bent.note, note.velocity],
     ]);
   }
   const bytes = standardMidiFile({ format: 0, division: ticksPerQuarter }, [track.finish()]);

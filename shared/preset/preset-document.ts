@@ -2,12 +2,13 @@ import * as z from 'zod';
 import { type FieldError, fieldError, type Result, succeed, fail } from '../result';
 import { readInterval } from '../tuning/interval';
 import { keyPlace, layoutFaults } from '../tuning/key-table';
-import { buildScale, type ScaleSpec } from '../tuning/scale';
+import { buildScale } from '../tuning/scale';
+import type { ScaleSpec } from '../tuning/scale-spec';
 import { largestScale } from '../tuning/scale-degrees';
 import { storableString } from '../text/plain-text';
 import { equalTemperedHz } from '../tuning/twelve-edo';
 import { schemaFaults } from './schema-faults';
-import { longestTuningName, tuningNameFrom, tuningNamePattern } from './tuning-name';
+import { longestTuningName, tuningNameFrom, tuningNamePattern } from '../midi/tuning-name';
 
 /** The one version of the preset document this code reads and writes. */
 const presetVersion = 1;

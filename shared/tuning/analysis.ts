@@ -1,7 +1,7 @@
 import { type Beat, beatRates } from './beats';
 import { type IntervalSize, intervalBetween } from './interval-size';
 import { type RatioApproximation, exactRatioOf, nearestSimpleRatio } from './ratio-approximation';
-import type { Scale } from './scale';
+import type { Scale } from './scale-spec';
 import type { ScaleDegree } from './scale-degrees';
 import { type StackAnalysis, analyzeStack } from './stack-analysis';
 import { type StepPattern, stepPattern } from './step-pattern';

@@ -1,4 +1,4 @@
-import type { Scale } from './scale';
+import type { Scale } from './scale-spec';
 
 /** How fast an interval near a just ratio beats, from one degree to another. */
 export interface Beat {

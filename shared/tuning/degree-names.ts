@@ -5,7 +5,7 @@
 // share one.
 import { fifthChainName, fifthsPerStep } from './chain-names';
 import { reduceIntoPeriod } from './interval-size';
-import type { Scale } from './scale';
+import type { Scale } from './scale-spec';
 
 const twelveNames = ['C', 'C♯', 'D', 'E♭', 'E', 'F', 'F♯', 'G', 'A♭', 'A', 'B♭', 'B'];
 

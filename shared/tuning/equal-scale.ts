@@ -1,7 +1,7 @@
 import Fraction from 'fraction.js';
 import { fieldError, type Result, succeed, fail } from '../result';
 import { exactSize, temperedSize } from './interval-size';
-import type { Scale, ScaleSpec } from './scale';
+import type { Scale, ScaleSpec } from './scale-spec';
 import { type ScaleDegree, largestScale, parsePeriod } from './scale-degrees';
 
 type EqualScaleSpec = Extract<ScaleSpec, { kind: 'equal' }>;

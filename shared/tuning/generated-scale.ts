@@ -12,7 +12,7 @@ import {
   temperedSize,
   unison,
 } from './interval-size';
-import type { Scale, ScaleSpec } from './scale';
+import type { Scale, ScaleSpec } from './scale-spec';
 import {
   type UnsortedDegree,
   largestScale,

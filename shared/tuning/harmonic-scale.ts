@@ -1,7 +1,7 @@
 import Fraction from 'fraction.js';
 import { fieldError, type Result, succeed, fail } from '../result';
 import { exactSize } from './interval-size';
-import type { Scale, ScaleSpec } from './scale';
+import type { Scale, ScaleSpec } from './scale-spec';
 import { largestScale, parsePeriod, tooManyDegrees } from './scale-degrees';
 
 type HarmonicScaleSpec = Extract<ScaleSpec, { kind: 'harmonic' }>;

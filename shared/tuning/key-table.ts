@@ -1,5 +1,5 @@
 import { type FieldError, fieldError } from '../result';
-import type { Scale } from './scale';
+import type { Scale } from './scale-spec';
 import { centsFromEqualTempered } from './twelve-edo';
 
 /** How the scale lies across the keys (DESIGN.md "Mapping"), the root pitch resolved. */

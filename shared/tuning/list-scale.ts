@@ -1,7 +1,7 @@
 import { type FieldError, fieldError, type Result, succeed, fail } from '../result';
 import { intervalToString, readInterval } from './interval';
 import { type IntervalSize, sameSizeCents, sizeOf, unison } from './interval-size';
-import type { Scale, ScaleSpec } from './scale';
+import type { Scale, ScaleSpec } from './scale-spec';
 import {
   type UnsortedDegree,
   largestScale,

@@ -1,11 +1,12 @@
-import type { ResolvedPreset } from '../preset/preset-document';
 import { type FieldError, fieldError } from '../result';
+import { keyRuns } from '../text/key-runs';
 import { analyzeScale } from './analysis';
 import type { Beat } from './beats';
 import { ratioToString } from './interval';
 import type { IntervalSize } from './interval-size';
-import { type KeyTable, mapKeys } from './key-table';
-import { buildScale, type Scale } from './scale';
+import { type KeyMapping, type KeyTable, mapKeys } from './key-table';
+import { buildScale } from './scale';
+import type { Scale, ScaleSpec } from './scale-spec';
 import { ratioSearch } from './ratio-approximation';
 import { fifthsPerStep } from './chain-names';
 import { chainIntervalName, degreeNames } from './degree-names';
@@ -77,17 +78,6 @@ function sizeJson(size: IntervalSize): SizeJson {
   return { ratio: size.ratio ? ratioToString(size.ratio) : null, cents: size.cents };
 }
 
-/** Runs of consecutive keys written compactly: 0-3, 126, 127 becomes "0-3, 126-127". */
-function keyRuns(keys: number[]): string {
-  const runs: [number, number][] = [];
-  for (const key of keys) {
-    const last = runs[runs.length - 1];
-    if (last && last[1] === key - 1) last[1] = key;
-    else runs.push([key, key]);
-  }
-  return runs.map(([first, last]) => (first === last ? `${first}` : `${first}-${last}`)).join(', ');
-}
-
 function mtsRangeWarning(keys: KeyTable): FieldError[] {
   const outside = keys.filter((entry) => entry.outOfMtsRange).map((entry) => entry.key);
   if (outside.length === 0) return [];
@@ -121,10 +111,10 @@ function chainJson(scale: Scale): NonNullable<PreviewTable['analysis']['stack']>
 /**
  * The body of `POST /api/preview/table`: the scale's degrees with their analysis, the scale-wide
  * analysis and the 128-key table, all JSON-safe (ratios as text, cents and Hz as numbers). Takes
- * what `parsePresetDocument` returned; a preset that did not come through it may not build, and
- * then this throws.
+ * the scale and mapping of what `parsePresetDocument` returned; a preset that did not come through
+ * it may not build, and then this throws.
  */
-export function previewTable(preset: ResolvedPreset): PreviewTable {
+export function previewTable(preset: { scale: ScaleSpec; mapping: KeyMapping }): PreviewTable {
   const built = buildScale(preset.scale);
   if (!built.ok) throw new Error(built.errors.map((error) => error.message).join('; '));
   const scale = built.value;

@@ -1,6 +1,7 @@
 import * as fc from 'fast-check';
 import { ratioToString } from './interval';
-import { buildScale, type Scale, type ScaleSpec } from './scale';
+import { buildScale } from './scale';
+import type { Scale, ScaleSpec } from './scale-spec';
 
 /** A generated scale: `up` generators stacked above the tonic and `down` below it. */
 export function stack(

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { ratioToString } from './interval';
-import type { ScaleSpec } from './scale';
+import type { ScaleSpec } from './scale-spec';
 import { builtScale, stack } from './scale.testing';
 import { analyzeStack } from './stack-analysis';
 

@@ -5,7 +5,7 @@ import {
   repeatInterval,
   sameSizeCents,
 } from './interval-size';
-import type { Scale } from './scale';
+import type { Scale } from './scale-spec';
 import { isBalanced } from './step-pattern';
 
 /** The largest scale size searched for moments of symmetry. */

@@ -2,7 +2,7 @@ import * as fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ratioToString } from './interval';
 import { intervalBetween } from './interval-size';
-import type { Scale } from './scale';
+import type { Scale } from './scale-spec';
 import { builtScale, stack } from './scale.testing';
 import { analyzeStack } from './stack-analysis';
 import { stepPattern } from './step-pattern';

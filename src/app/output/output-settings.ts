@@ -1,5 +1,5 @@
 import { Component, computed, inject, linkedSignal } from '@angular/core';
-import { tuningNameFrom } from '@shared/preset/tuning-name';
+import { tuningNameFrom } from '@shared/midi/tuning-name';
 import { DesignField } from '../design/design-field';
 import { DesignState } from '../design/design-state';
 import { typedFrom, typedText } from '../design/draft-document';

@@ -2,7 +2,7 @@ import { HttpClient, HttpErrorResponse, HttpEvent, HttpEventType } from '@angula
 import { Injectable, inject } from '@angular/core';
 import type { RetuneAnswer, SongReport } from '@shared/api/songs';
 import { uploadTooLarge } from '@shared/api/uploads';
-import type { RetuneMode } from '@shared/midi/song-retune';
+import type { RetuneMode } from '@shared/midi/retune-report';
 import { Observable, catchError, filter, map, of } from 'rxjs';
 import { apiErrorMessage } from '../library/api-error';
 

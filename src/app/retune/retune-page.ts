@@ -9,7 +9,7 @@ import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { defaultLeadInMs, leadInFault } from '@shared/midi/lead-in';
-import type { RetuneMode } from '@shared/midi/song-retune';
+import type { RetuneMode } from '@shared/midi/retune-report';
 import { parsePresetDocument } from '@shared/preset/preset-document';
 import { Subscription, catchError, map, of, switchMap } from 'rxjs';
 import { Session } from '../auth/session';
