@@ -112,8 +112,8 @@ export async function authorizeBandLibrary(db: Database, user: SignedInUser, ban
 }
 
 /**
- * The caller's own instrument. Instruments are private to their owner, admins included: anyone else's, an unknown
- * id and a text that is no id at all are the same 404. Signed out is 401.
+ * The caller's own instrument. Instruments are private to their owner, admins included: anyone
+ * else's, an unknown id and a text that is no id at all are the same 404. Signed out is 401.
  */
 export async function authorizeInstrument(
   db: Database,

@@ -39,7 +39,7 @@ async function sendExport(
       throw new HttpError(
         400,
         'instrument_required',
-        'instrument: for-instrument needs ?instrument=ID or the instrument\'s settings (receives=...).',
+        "instrument: for-instrument needs ?instrument=ID or an instrument's settings (receives=...).",
         'instrument',
       );
     }
@@ -60,8 +60,8 @@ async function sendExport(
 }
 
 /**
- * The instrument a download is for: the caller's own saved one (`?instrument=ID`, 404 when it is not theirs), or
- * one described by the query (a guest's); null for the preset's own output block.
+ * The instrument a download is for: the caller's own saved one (`?instrument=ID`, 404 when it is
+ * not theirs), or one described by the query (a guest's); null for the preset's own output block.
  */
 async function instrumentOf(db: Database, req: Request): Promise<InstrumentSettings | null> {
   const query = req.query as Record<string, unknown>;
@@ -72,7 +72,7 @@ async function instrumentOf(db: Database, req: Request): Promise<InstrumentSetti
     throw new HttpError(
       400,
       'invalid',
-      'instrument: give a saved instrument or an instrument\'s settings, not both.',
+      "instrument: give a saved instrument or an instrument's settings, not both.",
       'instrument',
     );
   }
@@ -80,9 +80,9 @@ async function instrumentOf(db: Database, req: Request): Promise<InstrumentSetti
 }
 
 /**
- * Downloads of unsaved designs (anyone), saved presets (their readers) and shared presets (link holders); each
- * for the preset's own output block, or for an instrument (`?instrument=ID`, or its settings in the query), and
- * `for-instrument` as the format picks the instrument's own form.
+ * Downloads of unsaved designs (anyone), saved presets (their readers) and shared presets (link
+ * holders); each for the preset's own output block, or for an instrument (`?instrument=ID`, or its
+ * settings in the query), and `for-instrument` as the format picks the instrument's own form.
  */
 export function exportsRouter(db: Database): Router {
   const router = Router();
@@ -90,7 +90,8 @@ export function exportsRouter(db: Database): Router {
   router.post('/api/preview/export/:format', async (req, res) => {
     const preset = valueOrThrow(parsePresetDocument(req.body));
     const instrument = await instrumentOf(db, req);
-    await sendExport(res, preset, req.params['format'], { revision: null, savedAt: null }, instrument);
+    const at = { revision: null, savedAt: null };
+    await sendExport(res, preset, req.params['format'], at, instrument);
   });
 
   async function savedRevision(presetId: string, user: Express.User | undefined, revisionQuery: unknown) {
@@ -116,7 +117,8 @@ export function exportsRouter(db: Database): Router {
     const { revision } = await resolveShareToken(db, req.params['token']);
     const at = { revision: revision.revision, savedAt: revision.createdAt };
     const instrument = await instrumentOf(db, req);
-    await sendExport(res, documentOrThrow(revision.document, 'document'), req.params['format'], at, instrument);
+    const shared = documentOrThrow(revision.document, 'document');
+    await sendExport(res, shared, req.params['format'], at, instrument);
   });
 
   router.get('/api/shared/:token/bundle', async (req, res) => {

@@ -16,7 +16,9 @@ import { valueOrThrow } from '../http/validation';
 import { iso } from '../http/wire';
 import { type InstrumentRow, authorizeInstrument, requireUser } from '../policy/policy';
 
-/** The most instruments one member keeps: far more than anyone's rig, and a bound on what one account can store. */
+/**
+ * The most instruments one member keeps: more than anyone's rig, and a bound on one account's rows.
+ */
 export const mostInstruments = 100;
 
 /** A stored instrument's settings, as the API and the exports read them. */
@@ -39,7 +41,12 @@ function columnsOf({ memberChannels: [first, last], ...settings }: InstrumentSet
 
 /** An instrument as the API answers it. */
 function instrumentAnswer(row: InstrumentRow): Instrument {
-  return { id: row.id, ...settingsOf(row), createdAt: iso(row.createdAt), updatedAt: iso(row.updatedAt) };
+  return {
+    id: row.id,
+    ...settingsOf(row),
+    createdAt: iso(row.createdAt),
+    updatedAt: iso(row.updatedAt),
+  };
 }
 
 /** A member's own instruments: only their owner ever reads or changes them. */
@@ -67,7 +74,11 @@ export function instrumentsRouter(db: Database): Router {
         .from(instruments)
         .where(eq(instruments.ownerId, user.id));
       if (count >= mostInstruments) {
-        throw new HttpError(409, 'too_many', `You keep ${count} instruments, the most there can be: delete one first.`);
+        throw new HttpError(
+          409,
+          'too_many',
+          `You keep ${count} instruments, the most there can be: delete one first.`,
+        );
       }
       const [created] = await tx
         .insert(instruments)
@@ -81,8 +92,12 @@ export function instrumentsRouter(db: Database): Router {
   router.patch('/api/instruments/:id', async (req, res) => {
     const stored = await authorizeInstrument(db, req.user, req.params['id']);
     const changes = valueOrThrow(parseRequest(updateInstrumentRequest, req.body));
-    const given = Object.fromEntries(Object.entries(changes).filter(([, value]) => value !== undefined));
-    const settings = valueOrThrow(parseRequest(instrumentSettings, { ...settingsOf(stored), ...given }));
+    const given = Object.fromEntries(
+      Object.entries(changes).filter(([, value]) => value !== undefined),
+    );
+    const settings = valueOrThrow(
+      parseRequest(instrumentSettings, { ...settingsOf(stored), ...given }),
+    );
     const [row] = await db
       .update(instruments)
       .set({ ...columnsOf(settings), updatedAt: new Date() })
@@ -94,7 +109,9 @@ export function instrumentsRouter(db: Database): Router {
 
   router.delete('/api/instruments/:id', async (req, res) => {
     const stored = await authorizeInstrument(db, req.user, req.params['id']);
-    await db.delete(instruments).where(and(eq(instruments.id, stored.id), eq(instruments.ownerId, stored.ownerId)));
+    await db
+      .delete(instruments)
+      .where(and(eq(instruments.id, stored.id), eq(instruments.ownerId, stored.ownerId)));
     res.status(204).end();
   });
 

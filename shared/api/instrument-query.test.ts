@@ -9,25 +9,44 @@ describe('an instrument in a download query', () => {
 
   it('reads numbers and a channel range, with a name of its own when none is given', () => {
     const read = readInstrumentQuery({
-      receives: 'mts-bulk', deviceId: '16', program: '5', bank: '0', bendRange: '48', memberChannels: '2-9',
+      receives: 'mts-bulk',
+      deviceId: '16',
+      program: '5',
+      bank: '0',
+      bendRange: '48',
+      memberChannels: '2-9',
     });
     expect(read).toEqual({
       ok: true,
       value: {
-        name: 'Instrument', receives: 'mts-bulk', deviceId: 16, program: 5, bank: 0, bendRange: 48,
-        memberChannels: [2, 9], port: null,
+        name: 'Instrument',
+        receives: 'mts-bulk',
+        deviceId: 16,
+        program: 5,
+        bank: 0,
+        bendRange: 48,
+        memberChannels: [2, 9],
+        port: null,
       },
     });
   });
 
   it('names the query field of each fault', () => {
-    const read = readInstrumentQuery({ receives: 'loud', deviceId: '200', memberChannels: '2', bank: 'x' });
+    const read = readInstrumentQuery({
+      receives: 'loud',
+      deviceId: '200',
+      memberChannels: '2',
+      bank: 'x',
+    });
     expect(read?.ok).toBe(false);
     const paths = read && !read.ok ? read.errors.map((e) => e.path).sort() : [];
     expect(paths).toEqual(['bank', 'deviceId', 'memberChannels', 'receives']);
     const downwards = readInstrumentQuery({ receives: 'mpe', memberChannels: '9-2' });
     expect(downwards && !downwards.ok && downwards.errors).toEqual([
-      { path: 'memberChannels', message: 'memberChannels: runs from 9 down to 2; write the lower channel first' },
+      {
+        path: 'memberChannels',
+        message: 'memberChannels: runs from 9 down to 2; write the lower channel first',
+      },
     ]);
   });
 
@@ -38,7 +57,11 @@ describe('an instrument in a download query', () => {
 
   it('reads back what instrumentQuery wrote', () => {
     const settings = instrumentSettings.parse({
-      name: 'Hex Synth', receives: 'mpe', bendRange: 48, memberChannels: [2, 9], port: 'USB MIDI 1',
+      name: 'Hex Synth',
+      receives: 'mpe',
+      bendRange: 48,
+      memberChannels: [2, 9],
+      port: 'USB MIDI 1',
     });
     expect(readInstrumentQuery(instrumentQuery(settings))).toEqual({ ok: true, value: settings });
   });

@@ -1,6 +1,8 @@
-// An instrument's settings in a download's query, for callers without a saved instrument (a guest on a share link,
-// an unsaved design): `?receives=mts-bulk&deviceId=16&program=5&bank=0&bendRange=48&memberChannels=2-9`. They are
-// checked by the same schema as a saved instrument's, with the name optional; faults name the query field.
+// An instrument's settings in a download's query, for callers without a saved instrument (a guest
+// on a share link, an unsaved design):
+// `?receives=mts-bulk&deviceId=16&program=5&bank=0&bendRange=48&memberChannels=2-9`. They are
+// checked by the same schema as a saved instrument's, with the name optional; faults name the query
+// field.
 import { schemaFaults } from '../preset/schema-faults';
 import { type Result, fail, succeed } from '../result';
 import { type InstrumentSettings, instrumentSettings } from './instruments';
@@ -19,7 +21,9 @@ export const instrumentQueryFields = [
 
 const numberFields = new Set(['deviceId', 'program', 'bank', 'bendRange']);
 
-/** A query text as the value the schema checks: whole numbers and `first-last` channels; anything else as it is. */
+/**
+ * A query text as the schema checks it: whole numbers, `first-last` channels, anything else as is.
+ */
 function queryValue(field: string, value: unknown): unknown {
   if (typeof value !== 'string') return value;
   if (numberFields.has(field)) return /^-?\d{1,6}$/.test(value) ? Number(value) : value;
@@ -34,10 +38,12 @@ function queryValue(field: string, value: unknown): unknown {
 const unnamed = 'Instrument';
 
 /**
- * The instrument a query describes, or null when the query holds none of its fields. Other fields of the query
- * (`revision`, `instrument`) are left to their own readers.
+ * The instrument a query describes, or null when the query holds none of its fields. Other fields
+ * of the query (`revision`, `instrument`) are left to their own readers.
  */
-export function readInstrumentQuery(query: Record<string, unknown>): Result<InstrumentSettings> | null {
+export function readInstrumentQuery(
+  query: Record<string, unknown>,
+): Result<InstrumentSettings> | null {
   const given = instrumentQueryFields.filter((field) => query[field] !== undefined);
   if (given.length === 0) return null;
   const input: Record<string, unknown> = { name: unnamed };
@@ -46,7 +52,9 @@ export function readInstrumentQuery(query: Record<string, unknown>): Result<Inst
   return parsed.success ? succeed(parsed.data) : fail(schemaFaults(parsed.error.issues));
 }
 
-/** The query that describes an instrument: what the app appends to a download's address for a guest. */
+/**
+ * The query that describes an instrument: what the app adds to a download's address for a guest.
+ */
 export function instrumentQuery(settings: InstrumentSettings): Record<string, string> {
   const { name, receives, deviceId, program, bank, bendRange, memberChannels, port } = settings;
   return {

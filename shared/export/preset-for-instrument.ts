@@ -1,5 +1,6 @@
-// A preset as one player's instrument takes it: the instrument's settings stand in for the preset's `output` block
-// (the author's suggestion), while the tuning itself, its tuning name and its samples stay the preset's.
+// A preset as one player's instrument takes it: the instrument's settings stand in for the preset's
+// `output` block (the author's suggestion), while the tuning itself, its tuning name and its
+// samples stay the preset's.
 import type { InstrumentSettings } from '../api/instruments';
 import type { ResolvedPreset } from '../preset/preset-document';
 
@@ -9,8 +10,11 @@ export type InstrumentOutput = Pick<
   'deviceId' | 'program' | 'bank' | 'bendRange' | 'memberChannels'
 >;
 
-/** A copy of the preset with the instrument's output settings; the preset given is left as it was. */
-export function presetForInstrument(preset: ResolvedPreset, instrument: InstrumentOutput): ResolvedPreset {
+/** A copy of the preset with the instrument's output settings; the preset given stays as it was. */
+export function presetForInstrument(
+  preset: ResolvedPreset,
+  instrument: InstrumentOutput,
+): ResolvedPreset {
   const { deviceId, program, bank, bendRange, memberChannels } = instrument;
   const [first, last] = memberChannels;
   return {

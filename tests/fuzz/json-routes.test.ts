@@ -62,13 +62,20 @@ const jsonRoutes: Record<string, JsonRoute> = {
   'GET /api/presets/:id/export/:format': {
     method: 'get',
     path: (ids) => `/api/presets/${ids.presetId}/export/sfz`,
-    query: () => ({ revision: 1, receives: 'sfz', deviceId: 16, program: 5, bank: 0, bendRange: 48, memberChannels: '2-9' }),
+    query: () => ({
+      revision: 1, receives: 'sfz', deviceId: 16, program: 5, bank: 0, bendRange: 48,
+      memberChannels: '2-9',
+    }),
   },
   'POST /api/instruments': {
-    method: 'post', path: () => '/api/instruments', body: () => ({ name: 'Fuzz synth', receives: 'mpe', memberChannels: [2, 9] }),
+    method: 'post',
+    path: () => '/api/instruments',
+    body: () => ({ name: 'Fuzz synth', receives: 'mpe', memberChannels: [2, 9] }),
   },
   'PATCH /api/instruments/:id': {
-    method: 'patch', path: (ids) => `/api/instruments/${ids.instrumentId}`, body: () => ({ program: 9, memberChannels: [3, 9] }),
+    method: 'patch',
+    path: (ids) => `/api/instruments/${ids.instrumentId}`,
+    body: () => ({ program: 9, memberChannels: [3, 9] }),
   },
   'DELETE /api/shares/:id': { method: 'delete', path: (ids) => `/api/shares/${ids.shareId}` },
   'POST /api/bands': { method: 'post', path: () => '/api/bands', body: () => ({ name: 'Fuzz Band' }) },
@@ -124,7 +131,8 @@ beforeAll(async () => {
   const presetId = (await post('/api/presets', { document: doc, bandId })).body.id;
   await post(`/api/presets/${presetId}/revisions`, { document: listDoc });
   const shareId = (await post(`/api/presets/${presetId}/shares`, {})).body.id;
-  const instrumentId = (await post('/api/instruments', { name: 'Fuzz keys', receives: 'mts-bulk' })).body.id;
+  const keys = { name: 'Fuzz keys', receives: 'mts-bulk' };
+  const instrumentId = (await post('/api/instruments', keys)).body.id;
   ids = { presetId, bandId, shareId, userId: other.user.id, instrumentId };
 });
 afterAll(() => server.close());
