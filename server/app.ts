@@ -22,6 +22,7 @@ import { presetsRouter } from './routes/presets';
 import { sharesRouter } from './routes/shares';
 import { importsRouter } from './routes/imports';
 import { exportsRouter } from './routes/exports';
+import { instrumentsRouter } from './routes/instruments';
 import { retuneRouter } from './routes/retune';
 import { benchFloorRouter } from './routes/bench-floor';
 import { uploadErrors } from './http/uploads';
@@ -122,6 +123,7 @@ export function createApp({ db, config, mailer }: AppDependencies): Express {
   app.use(bandsRouter(db));
   app.use(invitesRouter(db, config, mailer, limit));
   app.use(exportsRouter(db));
+  app.use(instrumentsRouter(db));
   if (config.benchRoutes) app.use(benchFloorRouter());
   app.use('/api', apiNotFound);
   app.use(builtApp(config.staticDir));

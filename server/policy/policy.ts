@@ -3,7 +3,7 @@
 import { and, eq } from 'drizzle-orm';
 import type { SignedInUser } from '../auth/github';
 import type { Database } from '../db/client';
-import { bands, memberships, presets } from '../db/schema';
+import { bands, instruments, memberships, presets } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import { type BandRole, type PresetAccess, presetAccessLevels } from '../../shared/api/roles';
 
@@ -19,6 +19,7 @@ const bandOrder: BandAccess[] = ['none', 'member', 'owner'];
 
 export type PresetRow = typeof presets.$inferSelect;
 export type BandRow = typeof bands.$inferSelect;
+export type InstrumentRow = typeof instruments.$inferSelect;
 
 const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 export const isId = (text: string) => uuidPattern.test(text);
@@ -108,4 +109,23 @@ export async function authorizeBandLibrary(db: Database, user: SignedInUser, ban
   if (access !== 'owner' && role !== 'editor') {
     throw new HttpError(403, 'forbidden', 'Viewers cannot add presets to the band\'s library.', 'bandId');
   }
+}
+
+/**
+ * The caller's own instrument. Instruments are private to their owner, admins included: anyone
+ * else's, an unknown id and a text that is no id at all are the same 404. Signed out is 401.
+ */
+export async function authorizeInstrument(
+  db: Database,
+  user: SignedInUser | undefined,
+  instrumentId: string,
+): Promise<InstrumentRow> {
+  const caller = requireUser(user);
+  const instrument = isId(instrumentId)
+    ? await db.query.instruments.findFirst({
+        where: and(eq(instruments.id, instrumentId), eq(instruments.ownerId, caller.id)),
+      })
+    : undefined;
+  if (!instrument) throw notFound('instrument');
+  return instrument;
 }

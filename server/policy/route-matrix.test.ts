@@ -5,7 +5,9 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { listRoutes } from '../../tests/support/route-list';
 import { startTestServer } from '../../tests/support/test-server';
-import { bands, invites, memberships, presetRevisions, presets, shareLinks, users } from '../db/schema';
+import {
+  bands, instruments, invites, memberships, presetRevisions, presets, shareLinks, users,
+} from '../db/schema';
 import { hashToken } from '../library/tokens';
 
 type Actor = 'anonymous' | 'stranger' | 'viewer' | 'editor' | 'owner' | 'admin' | 'linkHolder';
@@ -25,6 +27,8 @@ interface Fixture {
   inviteId: string;
   inviteToken: string;
   viewerId: string;
+  /** An instrument of the owner's: private to them, admins included. */
+  instrumentId: string;
 }
 
 interface Case {
@@ -96,6 +100,20 @@ const matrix: Record<string, Case> = {
   'GET /api/shared/:token/bundle': {
     allowed: ['linkHolder'], path: (f, actor) => `/api/shared/${actor === 'linkHolder' ? f.shareToken : 'guessed-token'}/bundle`,
   },
+  'GET /api/instruments': { allowed: signedIn, path: () => '/api/instruments' },
+  'POST /api/instruments': {
+    allowed: signedIn,
+    path: () => '/api/instruments',
+    body: () => ({ name: 'Matrix synth', receives: 'mts-bulk' }),
+  },
+  'PATCH /api/instruments/:id': {
+    allowed: ['owner'],
+    path: (f) => `/api/instruments/${f.instrumentId}`,
+    body: () => ({ program: 9 }),
+  },
+  'DELETE /api/instruments/:id': {
+    allowed: ['owner'], path: (f) => `/api/instruments/${f.instrumentId}`,
+  },
   'POST /api/retune': { allowed: everyone, path: () => '/api/retune' },
   'POST /api/import': { allowed: everyone, path: () => '/api/import' },
   'GET /{*splat}': { allowed: everyone, path: () => '/library' },
@@ -145,7 +163,17 @@ async function freshFixture(): Promise<Fixture> {
       invitedBy: ids.get('owner'), expiresAt: new Date(Date.now() + 86_400_000),
     })
     .returning();
-  return { bandId: band.id, presetId: preset.id, shareId: share.id, shareToken, inviteId: invite.id, inviteToken, viewerId: ids.get('viewer')! };
+  const [instrument] = await db
+    .insert(instruments)
+    .values({
+      ownerId: ids.get('owner')!, name: `Matrix synth ${n}`, receives: 'mts-bulk', deviceId: 16,
+      program: 5, bank: 0, bendRange: 2, firstMemberChannel: 2, lastMemberChannel: 16,
+    })
+    .returning();
+  return {
+    bandId: band.id, presetId: preset.id, shareId: share.id, shareToken, inviteId: invite.id,
+    inviteToken, viewerId: ids.get('viewer')!, instrumentId: instrument.id,
+  };
 }
 
 async function send(actor: Actor, route: string, fixture: Fixture, withXsrf = true) {

@@ -29,6 +29,7 @@ interface Ids {
   bandId: string;
   shareId: string;
   userId: string;
+  instrumentId: string;
 }
 
 interface JsonRoute {
@@ -41,7 +42,10 @@ interface JsonRoute {
 /** Every route that takes JSON, a query or address parameters, with a valid request to start from. */
 const jsonRoutes: Record<string, JsonRoute> = {
   'POST /api/preview/table': { method: 'post', path: () => '/api/preview/table', body: () => doc },
-  'POST /api/preview/export/:format': { method: 'post', path: () => '/api/preview/export/bend-json', body: () => listDoc },
+  'POST /api/preview/export/:format': {
+    method: 'post', path: () => '/api/preview/export/bend-json', body: () => listDoc,
+    query: () => ({ instrument: ids.instrumentId }),
+  },
   'POST /api/presets': { method: 'post', path: () => '/api/presets', body: () => ({ document: doc, note: 'first' }) },
   'GET /api/presets': { method: 'get', path: () => '/api/presets', query: () => ({ q: 'Fifths', sort: 'name', page: 1, pageSize: 20 }) },
   'GET /api/presets/:id': { method: 'get', path: (ids) => `/api/presets/${ids.presetId}` },
@@ -56,7 +60,22 @@ const jsonRoutes: Record<string, JsonRoute> = {
   'POST /api/presets/:id/fork': { method: 'post', path: (ids) => `/api/presets/${ids.presetId}/fork`, body: () => ({}) },
   'POST /api/presets/:id/shares': { method: 'post', path: (ids) => `/api/presets/${ids.presetId}/shares`, body: () => ({ revision: 1 }) },
   'GET /api/presets/:id/export/:format': {
-    method: 'get', path: (ids) => `/api/presets/${ids.presetId}/export/sfz`, query: () => ({ revision: 1 }),
+    method: 'get',
+    path: (ids) => `/api/presets/${ids.presetId}/export/sfz`,
+    query: () => ({
+      revision: 1, receives: 'sfz', deviceId: 16, program: 5, bank: 0, bendRange: 48,
+      memberChannels: '2-9',
+    }),
+  },
+  'POST /api/instruments': {
+    method: 'post',
+    path: () => '/api/instruments',
+    body: () => ({ name: 'Fuzz synth', receives: 'mpe', memberChannels: [2, 9] }),
+  },
+  'PATCH /api/instruments/:id': {
+    method: 'patch',
+    path: (ids) => `/api/instruments/${ids.instrumentId}`,
+    body: () => ({ program: 9, memberChannels: [3, 9] }),
   },
   'DELETE /api/shares/:id': { method: 'delete', path: (ids) => `/api/shares/${ids.shareId}` },
   'POST /api/bands': { method: 'post', path: () => '/api/bands', body: () => ({ name: 'Fuzz Band' }) },
@@ -112,7 +131,9 @@ beforeAll(async () => {
   const presetId = (await post('/api/presets', { document: doc, bandId })).body.id;
   await post(`/api/presets/${presetId}/revisions`, { document: listDoc });
   const shareId = (await post(`/api/presets/${presetId}/shares`, {})).body.id;
-  ids = { presetId, bandId, shareId, userId: other.user.id };
+  const keys = { name: 'Fuzz keys', receives: 'mts-bulk' };
+  const instrumentId = (await post('/api/instruments', keys)).body.id;
+  ids = { presetId, bandId, shareId, userId: other.user.id, instrumentId };
 });
 afterAll(() => server.close());
 
