@@ -2,7 +2,7 @@ import type { Request, Response } from 'express';
 import { Router } from 'express';
 import { readInstrumentQuery } from '../../shared/api/instrument-query';
 import { type InstrumentSettings, exportOfReceiveForm } from '../../shared/api/instruments';
-import { presetForInstrument } from '../../shared/export/preset-for-instrument';
+import { presetForInstrument } from '../../shared/api/preset-for-instrument';
 import { parsePresetDocument, type ResolvedPreset } from '../../shared/preset/preset-document';
 import type { Database } from '../db/client';
 import { streamBundle } from '../exports/bundle';

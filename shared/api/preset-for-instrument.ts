@@ -1,7 +1,7 @@
 // A preset as one player's instrument takes it: the instrument's settings stand in for the preset's
 // `output` block (the author's suggestion), while the tuning itself, its tuning name and its
 // samples stay the preset's.
-import type { InstrumentSettings } from '../api/instruments';
+import type { InstrumentSettings } from './instruments';
 import type { ResolvedPreset } from '../preset/preset-document';
 
 /** The settings of an instrument that override a preset's output block. */

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { parsePresetDocument, type ResolvedPreset } from '../preset/preset-document';
-import { renderExport } from './export-catalogue';
+import { renderExport } from '../export/export-catalogue';
 import { presetForInstrument } from './preset-for-instrument';
 
 function preset(): ResolvedPreset {
