@@ -1,7 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { PresetDocument } from '@shared/preset/preset-document';
-import { firstValueFrom } from 'rxjs';
+import { type Observable, map } from 'rxjs';
 import type { DraftDocument } from './draft-document';
 
 /** A saved preset as `GET /api/presets/:id` answers it (the latest revision). */
@@ -26,27 +26,33 @@ export interface BandMembership {
 export class PresetApi {
   private readonly http = inject(HttpClient);
 
-  load(id: string): Promise<SavedPresetAnswer> {
-    return firstValueFrom(this.http.get<SavedPresetAnswer>(`/api/presets/${encodeURIComponent(id)}`));
+  load(id: string): Observable<SavedPresetAnswer> {
+    return this.http.get<SavedPresetAnswer>(`/api/presets/${encodeURIComponent(id)}`);
   }
 
-  create(document: DraftDocument, bandId: string | null, note: string): Promise<{ id: string; revision: number }> {
+  create(
+    document: DraftDocument,
+    bandId: string | null,
+    note: string,
+  ): Observable<{ id: string; revision: number }> {
     const body = { document, ...(bandId ? { bandId } : {}), ...(note ? { note } : {}) };
-    return firstValueFrom(this.http.post<{ id: string; revision: number }>('/api/presets', body));
+    return this.http.post<{ id: string; revision: number }>('/api/presets', body);
   }
 
-  saveRevision(id: string, document: DraftDocument, note: string): Promise<{ revision: number }> {
+  saveRevision(id: string, document: DraftDocument, note: string): Observable<{ revision: number }> {
     const body = { document, ...(note ? { note } : {}) };
-    return firstValueFrom(this.http.post<{ revision: number }>(`/api/presets/${encodeURIComponent(id)}/revisions`, body));
+    const path = `/api/presets/${encodeURIComponent(id)}/revisions`;
+    return this.http.post<{ revision: number }>(path, body);
   }
 
-  fork(id: string): Promise<{ id: string }> {
-    return firstValueFrom(this.http.post<{ id: string }>(`/api/presets/${encodeURIComponent(id)}/fork`, {}));
+  fork(id: string): Observable<{ id: string }> {
+    return this.http.post<{ id: string }>(`/api/presets/${encodeURIComponent(id)}/fork`, {});
   }
 
   /** The bands whose library the member may save into: those where they are owner or editor. */
-  async writableBands(): Promise<BandMembership[]> {
-    const answer = await firstValueFrom(this.http.get<{ items: BandMembership[] }>('/api/bands'));
-    return answer.items.filter((band) => band.role === 'owner' || band.role === 'editor');
+  writableBands(): Observable<BandMembership[]> {
+    return this.http
+      .get<{ items: BandMembership[] }>('/api/bands')
+      .pipe(map((answer) => answer.items.filter((band) => band.role === 'owner' || band.role === 'editor')));
   }
 }

@@ -1,8 +1,8 @@
 import { HttpClient, HttpErrorResponse, HttpEvent, HttpEventType } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { RetuneMode, RetuneReport } from '@shared/midi/song-retune';
-import { Observable, catchError, filter, map, of } from 'rxjs';
-import { apiErrorMessage } from '../library/api-error';
+import { Observable, catchError, filter, from, map } from 'rxjs';
+import { apiErrorMessage } from '../api/api-error';
 
 /** The report the server sends with the song: every stolen note counted, the first hundred listed. */
 export interface SongReportHeader extends RetuneReport {
@@ -56,10 +56,13 @@ function stepOf(event: HttpEvent<RetuneAnswer>): RetuneStep | null {
 }
 
 /** A refusal in the server's words. */
-function refusalOf(error: unknown): RetuneStep {
+async function refusalOf(error: unknown): Promise<RetuneStep> {
   const status = error instanceof HttpErrorResponse ? error.status : null;
-  const fallback = status === 413 ? 'file: larger than the limit of 5 MB.' : `The server did not retune the song (${status ?? 'no answer'}).`;
-  return { kind: 'refused', message: apiErrorMessage(error, fallback) };
+  const fallback =
+    status === 413
+      ? 'file: larger than the limit of 5 MB.'
+      : `The server did not retune the song (${status ?? 'no answer'}).`;
+  return { kind: 'refused', message: await apiErrorMessage(error, fallback) };
 }
 
 /**
@@ -82,7 +85,7 @@ export class RetuneApi {
       .pipe(
         map((event) => stepOf(event)),
         filter((step): step is RetuneStep => step !== null),
-        catchError((error: unknown) => of(refusalOf(error))),
+        catchError((error: unknown) => from(refusalOf(error))),
       );
   }
 }
