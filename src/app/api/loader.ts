@@ -1,6 +1,7 @@
 import {
   DestroyRef,
   Injector,
+  PendingTasks,
   type Signal,
   assertInInjectionContext,
   computed,
@@ -58,10 +59,17 @@ export function loader<T>(
     reloads();
     return request();
   });
+  // Reading an error body can take a moment (a Blob); until it is read, the app is not stable.
+  const pendingTasks = injector.get(PendingTasks);
   const failed = async (error: unknown): Promise<Step<T>> => {
-    const notFound = options.notFound && isNotFound(error) ? options.notFound : null;
-    const message = notFound ?? (await apiErrorMessage(error, options.fallback));
-    return { kind: 'failed', message };
+    const done = pendingTasks.add();
+    try {
+      const notFound = options.notFound && isNotFound(error) ? options.notFound : null;
+      const message = notFound ?? (await apiErrorMessage(error, options.fallback));
+      return { kind: 'failed', message };
+    } finally {
+      done();
+    }
   };
 
   toObservable(requests, { injector })
