@@ -70,7 +70,8 @@ export class BandInvites {
         this.snackBar.open(`Sent again to ${invite.email}; the earlier link no longer works.`, 'Close', { duration: 6000 });
         this.reload();
       },
-      error: (error: unknown) => void this.tellFailure(error, 'The invite could not be sent again.'),
+      error: (error: unknown) =>
+        void this.tellFailure(error, 'The invite could not be sent again.'),
     });
   }
 

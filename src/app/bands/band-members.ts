@@ -92,7 +92,8 @@ export class BandMembers {
       )
       .subscribe({
         next: done,
-        error: async (error: unknown) => this.failure.set(await apiErrorMessage(error, 'That did not work.')),
+        error: async (error: unknown) =>
+          this.failure.set(await apiErrorMessage(error, 'That did not work.')),
       });
   }
 }

@@ -41,11 +41,14 @@ export class BandPage {
         trashed: this.bandPresets(id, true),
       });
     },
-    { fallback: 'The band could not be loaded.', notFound: 'There is no such band, or you are not in it.' },
+    {
+      fallback: 'The band could not be loaded.',
+      notFound: 'There is no such band, or you are not in it.',
+    },
   );
   protected readonly band = computed<BandDetail | null>(() => this.loaded.value()?.band ?? null);
-  protected readonly presets = computed<PresetPage>(() => this.loaded.value()?.presets ?? noPresets);
-  private readonly trashed = computed<PresetPage>(() => this.loaded.value()?.trashed ?? noPresets);
+  protected readonly presets = computed(() => this.loaded.value()?.presets ?? noPresets);
+  private readonly trashed = computed(() => this.loaded.value()?.trashed ?? noPresets);
   protected readonly failure = this.loaded.failure;
 
   protected readonly recentPresets = computed(() => this.presets().items.slice(0, 5));

@@ -39,7 +39,11 @@ export class PresetApi {
     return this.http.post<{ id: string; revision: number }>('/api/presets', body);
   }
 
-  saveRevision(id: string, document: DraftDocument, note: string): Observable<{ revision: number }> {
+  saveRevision(
+    id: string,
+    document: DraftDocument,
+    note: string,
+  ): Observable<{ revision: number }> {
     const body = { document, ...(note ? { note } : {}) };
     const path = `/api/presets/${encodeURIComponent(id)}/revisions`;
     return this.http.post<{ revision: number }>(path, body);
@@ -51,8 +55,9 @@ export class PresetApi {
 
   /** The bands whose library the member may save into: those where they are owner or editor. */
   writableBands(): Observable<BandMembership[]> {
+    const writable = (band: BandMembership) => band.role === 'owner' || band.role === 'editor';
     return this.http
       .get<{ items: BandMembership[] }>('/api/bands')
-      .pipe(map((answer) => answer.items.filter((band) => band.role === 'owner' || band.role === 'editor')));
+      .pipe(map((answer) => answer.items.filter(writable)));
   }
 }

@@ -54,7 +54,8 @@ export class InvitePage {
       },
       error: async (error: unknown) => {
         this.joining.set(false);
-        this.joinFailure.set(await apiErrorMessage(error, 'Joining did not work. Try again in a moment.'));
+        const fallback = 'Joining did not work. Try again in a moment.';
+        this.joinFailure.set(await apiErrorMessage(error, fallback));
       },
     });
   }

@@ -12,7 +12,7 @@ import { apiErrorMessage } from '../api/api-error';
 import { loader } from '../api/loader';
 import { Session } from '../auth/session';
 import { ConfirmDialog, ConfirmDialogData } from './confirm-dialog';
-import { LibraryApi, PresetDetail, RevisionChanges, RevisionEntry } from './library-api';
+import { LibraryApi, RevisionChanges, RevisionEntry } from './library-api';
 import { SignInPrompt } from './sign-in-prompt';
 
 /** Every revision of one preset, what each changed, and a restore that saves an old one again as the newest. */
@@ -42,13 +42,15 @@ export class HistoryPage {
       notFound: 'There is no such preset, or it is not shared with you.',
     },
   );
-  protected readonly preset = computed<PresetDetail | null>(() => this.history.value()?.preset ?? null);
-  protected readonly revisions = computed<RevisionEntry[]>(() => this.history.value()?.revisions ?? []);
+  protected readonly preset = computed(() => this.history.value()?.preset ?? null);
+  protected readonly revisions = computed(() => this.history.value()?.revisions ?? []);
   protected readonly failure = this.history.failure;
   /** The revision shown: the newest whenever the history (re)loads, until another is picked. */
-  protected readonly selected = linkedSignal<number | null>(() => this.revisions()[0]?.revision ?? null);
+  protected readonly selected = linkedSignal<number | null>(
+    () => this.revisions()[0]?.revision ?? null,
+  );
 
-  /** What the selected revision changed since the one before it; revision 1 has nothing before it. */
+  /** What the selected revision changed since the one before; revision 1 has nothing before it. */
   private readonly revisionChanges = loader(
     () => {
       const revision = this.selected();

@@ -200,7 +200,8 @@ export class LibraryPage {
         this.reload();
         this.tell(`“${row.name}” is back in the library.`);
       },
-      error: (error: unknown) => void this.tellFailure(error, 'The preset could not be brought back.'),
+      error: (error: unknown) =>
+        void this.tellFailure(error, 'The preset could not be brought back.'),
     });
   }
 

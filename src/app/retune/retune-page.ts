@@ -67,8 +67,8 @@ export class RetunePage {
   private readonly savedPresets = loader(
     () => {
       if (!this.signedIn()) return null;
-      const query = { q: '', sort: 'name' as const, page: 1, pageSize: 100, bandId: null, trash: false };
-      return this.library.presets(query).pipe(map((page) => page.items));
+      const all = { q: '', page: 1, pageSize: 100, bandId: null, trash: false };
+      return this.library.presets({ ...all, sort: 'name' }).pipe(map((page) => page.items));
     },
     { fallback: 'Your saved presets could not be loaded.' },
   );

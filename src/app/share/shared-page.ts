@@ -54,8 +54,8 @@ export class SharedPage {
     {
       fallback: 'The shared preset could not be loaded.',
       notFound:
-        'This link does not open anything: it was revoked, its preset was deleted, or the address ' +
-        'is not complete.',
+        'This link does not open anything: it was revoked, its preset was deleted, ' +
+        'or the address is not complete.',
     },
   );
   protected readonly shared = computed<SharedPreset | null>(() => this.link.value() ?? null);
@@ -83,10 +83,11 @@ export class SharedPage {
   });
   protected readonly bundleHref = computed(() => this.shareApi.bundleUrl(this.token()));
 
-  /** The tuning is heard through the designer's audition engine, read-only: nothing here can change it. */
+  /** The tuning is heard through the designer's audition engine, read-only: nothing changes it. */
   private openReadOnly(shared: SharedPreset): void {
-    const origin = { id: 'shared', revision: shared.revision, bandId: null, access: 'read' as const };
-    this.design.open(draftFrom(shared.document as PresetDocument), origin);
+    const { revision, document } = shared;
+    const origin = { id: 'shared', revision, bandId: null, access: 'read' as const };
+    this.design.open(draftFrom(document as PresetDocument), origin);
   }
 
   /**
