@@ -1,10 +1,8 @@
 import { DatePipe } from '@angular/common';
-import { Component, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
-import { EMPTY, catchError, switchMap } from 'rxjs';
-import { apiErrorMessage } from '../library/api-error';
+import { Component, computed, inject, input } from '@angular/core';
+import { loader } from '../api/loader';
 import { AuditNames, auditSentence } from './audit-sentence';
-import { AuditEntry, BandDetail, BandsApi } from './bands-api';
+import { BandDetail, BandsApi } from './bands-api';
 
 /** Who changed what in the band, newest first, in plain words (owners only). */
 @Component({
@@ -44,10 +42,12 @@ export class BandAudit {
   /** Names of the band's presets by id, including those in the trash. */
   readonly presetNames = input.required<ReadonlyMap<string, string>>();
 
-  private readonly entries = signal<AuditEntry[] | null>(null);
-  protected readonly failure = signal<string | null>(null);
+  private readonly log = loader(() => this.api.audit(this.band().id), {
+    fallback: 'The log could not be loaded.',
+  });
+  protected readonly failure = this.log.failure;
   protected readonly lines = computed(() => {
-    const entries = this.entries();
+    const entries = this.log.value();
     if (!entries) return null;
     const names: AuditNames = {
       presets: this.presetNames(),
@@ -55,23 +55,4 @@ export class BandAudit {
     };
     return entries.map((entry) => ({ id: entry.id, createdAt: entry.createdAt, sentence: auditSentence(entry, names) }));
   });
-
-  constructor() {
-    toObservable(this.band)
-      .pipe(
-        switchMap((band) =>
-          this.api.audit(band.id).pipe(
-            catchError((error: unknown) => {
-              this.failure.set(apiErrorMessage(error, 'The log could not be loaded.'));
-              return EMPTY;
-            }),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((entries) => {
-        this.failure.set(null);
-        this.entries.set(entries);
-      });
-  }
 }

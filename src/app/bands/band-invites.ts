@@ -1,6 +1,5 @@
 import { DatePipe, TitleCasePipe } from '@angular/common';
-import { Component, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { Component, computed, inject, input, signal } from '@angular/core';
 import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -9,8 +8,8 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { inviteRequest } from '@shared/api/requests';
-import { EMPTY, catchError, switchMap } from 'rxjs';
-import { apiErrorMessage } from '../library/api-error';
+import { apiErrorMessage } from '../api/api-error';
+import { loader } from '../api/loader';
 import { BandRole, BandsApi, PendingInvite, bandRoles, roleWithArticle } from './bands-api';
 import { requestFieldValidator } from './request-validator';
 
@@ -36,32 +35,20 @@ export class BandInvites {
     email: new FormControl('', { nonNullable: true, validators: requestFieldValidator(inviteRequest, 'email', 'This') }),
     role: new FormControl<BandRole>('editor', { nonNullable: true }),
   });
-  protected readonly pending = signal<PendingInvite[] | null>(null);
+  private readonly invites = loader(() => this.api.invites(this.bandId()), {
+    fallback: 'The pending invites could not be loaded.',
+  });
+  protected readonly pending = computed<PendingInvite[] | null>(() => this.invites.value() ?? null);
   protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
-  private readonly reloads = signal(0);
-
-  constructor() {
-    toObservable(this.reloads)
-      .pipe(
-        switchMap(() =>
-          this.api.invites(this.bandId()).pipe(
-            catchError((error: unknown) => {
-              this.failure.set(apiErrorMessage(error, 'The pending invites could not be loaded.'));
-              return EMPTY;
-            }),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((invites) => this.pending.set(invites));
-  }
+  /** Why the last invite, resend or revoke did not work. */
+  private readonly actionFailure = signal<string | null>(null);
+  protected readonly failure = computed(() => this.actionFailure() ?? this.invites.failure());
 
   protected sendInvite(formDirective: FormGroupDirective): void {
     if (this.form.invalid) return;
     const { email, role } = this.form.getRawValue();
     this.busy.set(true);
-    this.failure.set(null);
+    this.actionFailure.set(null);
     this.api.invite(this.bandId(), email.trim(), role).subscribe({
       next: () => {
         this.busy.set(false);
@@ -71,34 +58,39 @@ export class BandInvites {
       },
       error: (error: unknown) => {
         this.busy.set(false);
-        this.failure.set(apiErrorMessage(error, 'The invite could not be sent.'));
+        void this.tellFailure(error, 'The invite could not be sent.');
       },
     });
   }
 
   protected resendInvite(invite: PendingInvite): void {
-    this.failure.set(null);
+    this.actionFailure.set(null);
     this.api.resendInvite(this.bandId(), invite.id).subscribe({
       next: () => {
         this.snackBar.open(`Sent again to ${invite.email}; the earlier link no longer works.`, 'Close', { duration: 6000 });
         this.reload();
       },
-      error: (error: unknown) => this.failure.set(apiErrorMessage(error, 'The invite could not be sent again.')),
+      error: (error: unknown) =>
+        void this.tellFailure(error, 'The invite could not be sent again.'),
     });
   }
 
   protected revokeInvite(invite: PendingInvite): void {
-    this.failure.set(null);
+    this.actionFailure.set(null);
     this.api.revokeInvite(this.bandId(), invite.id).subscribe({
       next: () => {
         this.snackBar.open(`The invite to ${invite.email} is revoked.`, 'Close', { duration: 6000 });
         this.reload();
       },
-      error: (error: unknown) => this.failure.set(apiErrorMessage(error, 'The invite could not be revoked.')),
+      error: (error: unknown) => void this.tellFailure(error, 'The invite could not be revoked.'),
     });
   }
 
   private reload(): void {
-    this.reloads.update((n) => n + 1);
+    this.invites.reload();
+  }
+
+  private async tellFailure(error: unknown, fallback: string): Promise<void> {
+    this.actionFailure.set(await apiErrorMessage(error, fallback));
   }
 }

@@ -8,7 +8,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
 import { filter, switchMap } from 'rxjs';
-import { apiErrorMessage } from '../library/api-error';
+import { apiErrorMessage } from '../api/api-error';
 import { ConfirmDialog, ConfirmDialogData } from '../library/confirm-dialog';
 import { BandDetail, BandMember, BandRole, BandsApi, bandRoles, roleWithArticle } from './bands-api';
 
@@ -46,8 +46,8 @@ export class BandMembers {
         this.snackBar.open(`${this.nameOf(member)} is now ${roleWithArticle[role]}.`, 'Close', { duration: 6000 });
         this.changed.emit();
       },
-      error: (error: unknown) => {
-        this.failure.set(apiErrorMessage(error, 'The role could not be changed.'));
+      error: async (error: unknown) => {
+        this.failure.set(await apiErrorMessage(error, 'The role could not be changed.'));
         this.changed.emit();
       },
     });
@@ -92,7 +92,8 @@ export class BandMembers {
       )
       .subscribe({
         next: done,
-        error: (error: unknown) => this.failure.set(apiErrorMessage(error, 'That did not work.')),
+        error: async (error: unknown) =>
+          this.failure.set(await apiErrorMessage(error, 'That did not work.')),
       });
   }
 }

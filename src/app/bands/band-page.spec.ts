@@ -5,6 +5,7 @@ import { TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
+import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { Member, Session } from '../auth/session';
 import { PresetRow } from '../library/library-api';
 import { BandPage } from './band-page';
@@ -154,12 +155,12 @@ describe('BandPage', () => {
       { error: { code: 'last_owner', message: 'A band always keeps at least one owner: make another member an owner first.' } },
       { status: 409, statusText: 'Conflict' },
     );
-    await settle();
+    await waitFor('the reason', () => page().querySelector('[role="alert"]'), settle);
     expect(page().querySelector('.members + [role="alert"], [role="alert"]')!.textContent).toContain(
       'A band always keeps at least one owner',
     );
     expect(TestBed.inject(Router).url).toBe('/bands/b-fen');
-  });
+  }, patientSpecMs);
 
   it('shows an editor the roles as words, lets them leave, and hides invites and the log', async () => {
     await open(tobias, asEditor);

@@ -1,12 +1,11 @@
-import { Component, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { Component, computed, inject, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { EMPTY, catchError, filter, forkJoin, of, switchMap } from 'rxjs';
+import { catchError, forkJoin, of } from 'rxjs';
+import { loader } from '../api/loader';
 import { Session } from '../auth/session';
-import { apiErrorMessage, isNotFound } from '../library/api-error';
 import { LibraryApi, PresetPage, PresetQuery } from '../library/library-api';
 import { SignInPrompt } from '../library/sign-in-prompt';
 import { BandAudit } from './band-audit';
@@ -32,50 +31,33 @@ export class BandPage {
   /** The band's id, from the address. */
   readonly id = input.required<string>();
 
-  private readonly reloads = signal(0);
-  protected readonly band = signal<BandDetail | null>(null);
-  protected readonly presets = signal<PresetPage>(noPresets);
-  private readonly trashed = signal<PresetPage>(noPresets);
-  protected readonly failure = signal<string | null>(null);
+  private readonly loaded = loader(
+    () => {
+      const id = this.id();
+      if (!this.session.member()) return null;
+      return forkJoin({
+        band: this.bandsApi.band(id),
+        presets: this.bandPresets(id, false),
+        trashed: this.bandPresets(id, true),
+      });
+    },
+    {
+      fallback: 'The band could not be loaded.',
+      notFound: 'There is no such band, or you are not in it.',
+    },
+  );
+  protected readonly band = computed<BandDetail | null>(() => this.loaded.value()?.band ?? null);
+  protected readonly presets = computed(() => this.loaded.value()?.presets ?? noPresets);
+  private readonly trashed = computed(() => this.loaded.value()?.trashed ?? noPresets);
+  protected readonly failure = this.loaded.failure;
 
   protected readonly recentPresets = computed(() => this.presets().items.slice(0, 5));
   protected readonly presetNames = computed(
     () => new Map([...this.presets().items, ...this.trashed().items].map((p) => [p.id, p.name])),
   );
 
-  constructor() {
-    const request = computed(() => (this.session.member() ? { id: this.id(), reload: this.reloads() } : null));
-    toObservable(request)
-      .pipe(
-        filter((r) => r !== null),
-        switchMap(({ id }) =>
-          forkJoin({
-            band: this.bandsApi.band(id),
-            presets: this.bandPresets(id, false),
-            trashed: this.bandPresets(id, true),
-          }).pipe(
-            catchError((error: unknown) => {
-              this.failure.set(
-                isNotFound(error)
-                  ? 'There is no such band, or you are not in it.'
-                  : apiErrorMessage(error, 'The band could not be loaded.'),
-              );
-              return EMPTY;
-            }),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe(({ band, presets, trashed }) => {
-        this.failure.set(null);
-        this.band.set(band);
-        this.presets.set(presets);
-        this.trashed.set(trashed);
-      });
-  }
-
   protected reload(): void {
-    this.reloads.update((n) => n + 1);
+    this.loaded.reload();
   }
 
   /** The band's presets, newest first; a failure here leaves the rest of the page standing. */

@@ -1,5 +1,4 @@
 import { Component, computed, inject, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -9,9 +8,9 @@ import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import { bandNameRequest } from '@shared/api/requests';
-import { EMPTY, catchError, filter, switchMap } from 'rxjs';
 import { Session } from '../auth/session';
-import { apiErrorMessage } from '../library/api-error';
+import { apiErrorMessage } from '../api/api-error';
+import { loader } from '../api/loader';
 import { SignInPrompt } from '../library/sign-in-prompt';
 import { BandSummary, BandsApi, roleWithArticle } from './bands-api';
 import { requestFieldValidator } from './request-validator';
@@ -88,30 +87,17 @@ export class BandsPage {
   protected readonly session = inject(Session);
   protected readonly roleWithArticle = roleWithArticle;
 
-  protected readonly bands = signal<BandSummary[] | null>(null);
-  protected readonly failure = signal<string | null>(null);
+  private readonly signedIn = computed(() => Boolean(this.session.member()));
+  private readonly myBands = loader(() => (this.signedIn() ? this.api.bands() : null), {
+    fallback: 'Your bands could not be loaded.',
+  });
+  protected readonly bands = computed<BandSummary[] | null>(() => this.myBands.value() ?? null);
+  protected readonly failure = this.myBands.failure;
   protected readonly form = new FormGroup({
     name: new FormControl('', { nonNullable: true, validators: requestFieldValidator(bandNameRequest, 'name', 'The band name') }),
   });
   protected readonly createFailure = signal<string | null>(null);
   protected readonly busy = signal(false);
-
-  constructor() {
-    toObservable(computed(() => Boolean(this.session.member())))
-      .pipe(
-        filter(Boolean),
-        switchMap(() =>
-          this.api.bands().pipe(
-            catchError((error: unknown) => {
-              this.failure.set(apiErrorMessage(error, 'Your bands could not be loaded.'));
-              return EMPTY;
-            }),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((bands) => this.bands.set(bands));
-  }
 
   protected createBand(): void {
     if (this.form.invalid) return;
@@ -119,9 +105,9 @@ export class BandsPage {
     this.createFailure.set(null);
     this.api.createBand(this.form.controls.name.value.trim()).subscribe({
       next: (band) => void this.router.navigate(['/bands', band.id]),
-      error: (error: unknown) => {
+      error: async (error: unknown) => {
         this.busy.set(false);
-        this.createFailure.set(apiErrorMessage(error, 'The band could not be made.'));
+        this.createFailure.set(await apiErrorMessage(error, 'The band could not be made.'));
       },
     });
   }

@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import type { BandSummary } from '@shared/api/bands';
 import type { CreatedPreset, ForkedPreset, SavedPreset, SavedRevision } from '@shared/api/presets';
 import type { ItemList } from '@shared/api/wire';
-import { firstValueFrom } from 'rxjs';
+import { type Observable, map } from 'rxjs';
 import type { DraftDocument } from './draft-document';
 
 /** A band the signed-in member belongs to, with their role in it. */
@@ -14,27 +14,30 @@ export type BandMembership = BandSummary;
 export class PresetApi {
   private readonly http = inject(HttpClient);
 
-  load(id: string): Promise<SavedPreset> {
-    return firstValueFrom(this.http.get<SavedPreset>(`/api/presets/${encodeURIComponent(id)}`));
+  load(id: string): Observable<SavedPreset> {
+    return this.http.get<SavedPreset>(`/api/presets/${encodeURIComponent(id)}`);
   }
 
-  create(document: DraftDocument, bandId: string | null, note: string): Promise<CreatedPreset> {
+  create(document: DraftDocument, bandId: string | null, note: string): Observable<CreatedPreset> {
     const body = { document, ...(bandId ? { bandId } : {}), ...(note ? { note } : {}) };
-    return firstValueFrom(this.http.post<CreatedPreset>('/api/presets', body));
+    return this.http.post<CreatedPreset>('/api/presets', body);
   }
 
-  saveRevision(id: string, document: DraftDocument, note: string): Promise<SavedRevision> {
+  saveRevision(id: string, document: DraftDocument, note: string): Observable<SavedRevision> {
     const body = { document, ...(note ? { note } : {}) };
-    return firstValueFrom(this.http.post<SavedRevision>(`/api/presets/${encodeURIComponent(id)}/revisions`, body));
+    const path = `/api/presets/${encodeURIComponent(id)}/revisions`;
+    return this.http.post<SavedRevision>(path, body);
   }
 
-  fork(id: string): Promise<ForkedPreset> {
-    return firstValueFrom(this.http.post<ForkedPreset>(`/api/presets/${encodeURIComponent(id)}/fork`, {}));
+  fork(id: string): Observable<ForkedPreset> {
+    return this.http.post<ForkedPreset>(`/api/presets/${encodeURIComponent(id)}/fork`, {});
   }
 
   /** The bands whose library the member may save into: those where they are owner or editor. */
-  async writableBands(): Promise<BandMembership[]> {
-    const answer = await firstValueFrom(this.http.get<ItemList<BandSummary>>('/api/bands'));
-    return answer.items.filter((band) => band.role === 'owner' || band.role === 'editor');
+  writableBands(): Observable<BandMembership[]> {
+    const writable = (band: BandMembership) => band.role === 'owner' || band.role === 'editor';
+    return this.http
+      .get<ItemList<BandSummary>>('/api/bands')
+      .pipe(map((answer) => answer.items.filter(writable)));
   }
 }

@@ -3,8 +3,8 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
+import { apiErrorMessage } from '../api/api-error';
 import { Session } from '../auth/session';
-import { apiFaultMessage } from './api-fault';
 import { DesignState } from './design-state';
 import { type DraftDocument, draftFrom } from './draft-document';
 import { PresetApi } from './preset-api';
@@ -37,13 +37,13 @@ export class SavedPreset {
     this.loading.set(true);
     this.loadFault.set(null);
     try {
-      const answer = await this.api.load(id);
+      const answer = await firstValueFrom(this.api.load(id));
       const origin = { id: answer.id, revision: answer.revision, bandId: answer.bandId, access: answer.access };
       // Opened as a draft: the designer names whatever in a stored document it cannot read, as it does for typing.
       this.state.open(draftFrom(answer.document as DraftDocument), origin);
       return true;
     } catch (error) {
-      this.loadFault.set(await apiFaultMessage(error));
+      this.loadFault.set(await apiErrorMessage(error));
       return false;
     } finally {
       this.loading.set(false);
@@ -71,7 +71,7 @@ export class SavedPreset {
     try {
       const data: SaveDialogData = {
         name: this.state.draft().name,
-        bands: origin ? null : await this.api.writableBands(),
+        bands: origin ? null : await firstValueFrom(this.api.writableBands()),
         nextRevision: origin ? origin.revision + 1 : null,
       };
       const dialog = this.dialog.open<SaveDialog, SaveDialogData, SaveChoice>(SaveDialog, { data, autoFocus: 'dialog' });
@@ -79,16 +79,18 @@ export class SavedPreset {
       if (!choice) return;
       this.state.rename(choice.name);
       if (origin) {
-        const { revision } = await this.api.saveRevision(origin.id, this.state.draft(), choice.note);
+        const saving = this.api.saveRevision(origin.id, this.state.draft(), choice.note);
+        const { revision } = await firstValueFrom(saving);
         this.state.markSaved(revision);
         this.tell(`Saved revision ${revision}.`);
       } else {
-        const { id } = await this.api.create(this.state.draft(), choice.bandId, choice.note);
+        const creating = this.api.create(this.state.draft(), choice.bandId, choice.note);
+        const { id } = await firstValueFrom(creating);
         this.tell('Saved as revision 1.');
         await this.router.navigate(['/presets', id]);
       }
     } catch (error) {
-      this.tell(await apiFaultMessage(error), true);
+      this.tell(await apiErrorMessage(error), true);
     } finally {
       this.busy.set(false);
     }
@@ -100,11 +102,11 @@ export class SavedPreset {
     if (!origin || !this.session.member() || this.busy()) return;
     this.busy.set(true);
     try {
-      const { id } = await this.api.fork(origin.id);
+      const { id } = await firstValueFrom(this.api.fork(origin.id));
       this.tell('Forked into your library.');
       await this.router.navigate(['/presets', id]);
     } catch (error) {
-      this.tell(await apiFaultMessage(error), true);
+      this.tell(await apiErrorMessage(error), true);
     } finally {
       this.busy.set(false);
     }

@@ -4,10 +4,11 @@ import { presetFromKeys } from '@shared/import/tuning-from-keys';
 import { decodeMtsMessage } from '@shared/midi/mts-decode';
 import { encodeDumpRequest } from '@shared/midi/mts-dump-request';
 import { type DecodedTuning, mtsForm, tuningSubId, universalNonRealTime } from '@shared/midi/mts-message';
+import { firstValueFrom } from 'rxjs';
 import { Session } from '../auth/session';
 import { draftFrom } from '../design/draft-document';
 import { PresetApi } from '../design/preset-api';
-import { apiErrorMessage } from '../library/api-error';
+import { apiErrorMessage } from '../api/api-error';
 import { MidiAccess } from './midi-access';
 import { TuningSender } from './tuning-sender';
 
@@ -117,10 +118,11 @@ export class TuningBackup {
     if (imported?.ok) {
       try {
         const note = `Backup of tuning program ${program} on ${portName}, taken before sending a tuning there`;
-        const saved = await this.presets.create(draftFrom(imported.value.document), null, note);
+        const saving = this.presets.create(draftFrom(imported.value.document), null, note);
+        const saved = await firstValueFrom(saving);
         return { kind: 'kept', presetId: saved.id, name, message: `Backed up as "${name}" in your library.` };
       } catch (error) {
-        const why = apiErrorMessage(error, 'the library did not answer');
+        const why = await apiErrorMessage(error, 'the library did not answer');
         return this.download(bytes, portName, program, `Saving to your library failed (${why}), so it was downloaded instead.`);
       }
     }

@@ -4,6 +4,7 @@ import { TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
+import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { decodeDesign } from '../design/design-address';
 import { ImportPage } from './import-page';
 
@@ -97,12 +98,12 @@ describe('ImportPage', () => {
     // The message shared/tuning/interval.ts gives for a bare decimal, at the line shared/import/interval-list.ts names.
     const message = 'line 3: 1.5 needs a unit: write 1.5c for cents or a ratio such as 3/2';
     http.expectOne('/api/import').flush({ error: { code: 'invalid', message, field: 'line 3' } }, { status: 400, statusText: 'Bad Request' });
-    await settle();
+    await waitFor('the refusal', () => page().querySelector('.refusal'), settle);
     expect(text('.refusal h3')).toBe('This file could not be imported');
     expect(text('.refusal-message')).toBe(message);
     expect(text('.announcement')).toBe('');
     expect(page().querySelector('a.open')).toBeNull();
-  });
+  }, patientSpecMs);
 
   it('refuses a file over 5 MB without sending it', async () => {
     await drop(new File([new Uint8Array(6 * 1024 * 1024)], 'copper-fen.syx'));

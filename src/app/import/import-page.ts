@@ -6,9 +6,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { Subscription } from 'rxjs';
+import { apiErrorMessage } from '../api/api-error';
 import { encodeDesign } from '../design/design-address';
 import { draftFrom } from '../design/draft-document';
-import { apiErrorMessage } from '../library/api-error';
 import { FileDrop } from '../retune/file-drop';
 import { fileSize, uploadFault } from '../retune/upload-limit';
 import { readPresetDocument } from '../scale/preset-reading';
@@ -83,9 +83,11 @@ export class ImportPage {
           this.importing.set(false);
           this.imported.set(imported);
         },
-        error: (error: unknown) => {
+        error: async (error: unknown) => {
+          const message = await apiErrorMessage(error, 'The file could not be imported.');
+          if (this.file() !== file) return;
+          this.failure.set(message);
           this.importing.set(false);
-          this.failure.set(apiErrorMessage(error, 'The file could not be imported.'));
         },
       });
   }

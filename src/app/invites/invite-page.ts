@@ -1,15 +1,14 @@
 import { DatePipe } from '@angular/common';
 import { Component, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, RouterLink } from '@angular/router';
-import { EMPTY, catchError, switchMap } from 'rxjs';
+import { apiErrorMessage } from '../api/api-error';
+import { loader } from '../api/loader';
 import { Session } from '../auth/session';
 import { roleWithArticle } from '../bands/bands-api';
-import { apiErrorMessage, isNotFound } from '../library/api-error';
 import { SignInPrompt } from '../library/sign-in-prompt';
 import { InviteApi, InviteSummary } from './invite-api';
 
@@ -30,32 +29,17 @@ export class InvitePage {
   /** The invite's token, from the address. */
   readonly token = input.required<string>();
 
-  protected readonly invite = signal<InviteSummary | null>(null);
-  protected readonly failure = signal<string | null>(null);
+  private readonly loaded = loader(() => this.api.invite(this.token()), {
+    fallback: 'The invite could not be read.',
+    notFound:
+      'This invite link is not known. Check that the whole link was copied from the e-mail, ' +
+      "or ask the band's owner to send a new invite.",
+  });
+  protected readonly invite = computed<InviteSummary | null>(() => this.loaded.value() ?? null);
+  protected readonly failure = this.loaded.failure;
   protected readonly joinFailure = signal<string | null>(null);
   protected readonly joining = signal(false);
   protected readonly returnPath = computed(() => `/invites/${encodeURIComponent(this.token())}`);
-
-  constructor() {
-    toObservable(this.token)
-      .pipe(
-        switchMap((token) =>
-          this.api.invite(token).pipe(
-            catchError((error: unknown) => {
-              this.failure.set(
-                isNotFound(error)
-                  ? 'This invite link is not known. Check that the whole link was copied from the e-mail, ' +
-                      'or ask the band\'s owner to send a new invite.'
-                  : apiErrorMessage(error, 'The invite could not be read.'),
-              );
-              return EMPTY;
-            }),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((invite) => this.invite.set(invite));
-  }
 
   protected joinBand(invite: InviteSummary): void {
     this.joining.set(true);
@@ -68,9 +52,10 @@ export class InvitePage {
         this.snackBar.open(message, 'Close', { duration: 8000 });
         void this.router.navigate(['/bands', accepted.bandId]);
       },
-      error: (error: unknown) => {
+      error: async (error: unknown) => {
         this.joining.set(false);
-        this.joinFailure.set(apiErrorMessage(error, 'Joining did not work. Try again in a moment.'));
+        const fallback = 'Joining did not work. Try again in a moment.';
+        this.joinFailure.set(await apiErrorMessage(error, fallback));
       },
     });
   }

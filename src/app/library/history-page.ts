@@ -1,6 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { Component, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { Component, computed, inject, input, linkedSignal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
@@ -8,11 +7,12 @@ import { MatListModule } from '@angular/material/list';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { RouterLink } from '@angular/router';
-import { EMPTY, catchError, filter, forkJoin, map, of, switchMap } from 'rxjs';
+import { filter, forkJoin, map, switchMap } from 'rxjs';
+import { apiErrorMessage } from '../api/api-error';
+import { loader } from '../api/loader';
 import { Session } from '../auth/session';
-import { apiErrorMessage, isNotFound } from './api-error';
 import { ConfirmDialog, ConfirmDialogData } from './confirm-dialog';
-import { LibraryApi, SavedPreset, RevisionChanges, RevisionEntry } from './library-api';
+import { LibraryApi, RevisionChanges, RevisionEntry } from './library-api';
 import { SignInPrompt } from './sign-in-prompt';
 
 /** Every revision of one preset, what each changed, and a restore that saves an old one again as the newest. */
@@ -31,60 +31,43 @@ export class HistoryPage {
   /** The preset's id, from the address. */
   readonly id = input.required<string>();
 
-  private readonly reloads = signal(0);
-  protected readonly preset = signal<SavedPreset | null>(null);
-  protected readonly revisions = signal<RevisionEntry[]>([]);
-  protected readonly failure = signal<string | null>(null);
-  protected readonly selected = signal<number | null>(null);
-  protected readonly changes = signal<RevisionChanges | null>(null);
-  protected readonly changesFailure = signal<string | null>(null);
+  private readonly history = loader(
+    () => {
+      const id = this.id();
+      if (!this.session.member()) return null;
+      return forkJoin({ preset: this.api.preset(id), revisions: this.api.revisions(id) });
+    },
+    {
+      fallback: 'The history could not be loaded.',
+      notFound: 'There is no such preset, or it is not shared with you.',
+    },
+  );
+  protected readonly preset = computed(() => this.history.value()?.preset ?? null);
+  protected readonly revisions = computed(() => this.history.value()?.revisions ?? []);
+  protected readonly failure = this.history.failure;
+  /** The revision shown: the newest whenever the history (re)loads, until another is picked. */
+  protected readonly selected = linkedSignal<number | null>(
+    () => this.revisions()[0]?.revision ?? null,
+  );
+
+  /** What the selected revision changed since the one before; revision 1 has nothing before it. */
+  private readonly revisionChanges = loader(
+    () => {
+      const revision = this.selected();
+      return revision === null || revision < 2 ? null : this.api.changes(this.id(), revision);
+    },
+    { fallback: 'The changes could not be worked out.' },
+  );
+  protected readonly changes = computed<RevisionChanges | null>(() =>
+    this.revisionChanges.loading() ? null : (this.revisionChanges.value() ?? null),
+  );
+  protected readonly changesFailure = computed(() =>
+    this.revisionChanges.loading() ? null : this.revisionChanges.failure(),
+  );
 
   protected readonly entry = computed(() => this.revisions().find((r) => r.revision === this.selected()) ?? null);
   protected readonly latest = computed(() => this.preset()?.revision ?? 0);
   protected readonly canRestore = computed(() => this.preset()?.access !== 'read');
-
-  constructor() {
-    const request = computed(() => (this.session.member() ? { id: this.id(), reload: this.reloads() } : null));
-    toObservable(request)
-      .pipe(
-        filter((r) => r !== null),
-        switchMap(({ id }) =>
-          forkJoin({ preset: this.api.preset(id), revisions: this.api.revisions(id) }).pipe(
-            catchError((error: unknown) => {
-              this.failure.set(
-                isNotFound(error)
-                  ? 'There is no such preset, or it is not shared with you.'
-                  : apiErrorMessage(error, 'The history could not be loaded.'),
-              );
-              return EMPTY;
-            }),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe(({ preset, revisions }) => {
-        this.preset.set(preset);
-        this.revisions.set(revisions);
-        this.failure.set(null);
-        this.selected.set(revisions[0]?.revision ?? null);
-      });
-    toObservable(this.selected)
-      .pipe(
-        switchMap((revision) => {
-          this.changes.set(null);
-          this.changesFailure.set(null);
-          if (revision === null || revision < 2) return of(null);
-          return this.api.changes(this.id(), revision).pipe(
-            catchError((error: unknown) => {
-              this.changesFailure.set(apiErrorMessage(error, 'The changes could not be worked out.'));
-              return of(null);
-            }),
-          );
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((changes) => this.changes.set(changes));
-  }
 
   protected authorOf(entry: RevisionEntry): string {
     return entry.authorName ?? entry.authorLogin ?? 'a former member';
@@ -114,10 +97,14 @@ export class HistoryPage {
       .subscribe({
         next: (message) => {
           this.snackBar.open(message, 'Close', { duration: 6000 });
-          this.reloads.update((n) => n + 1);
+          this.history.reload();
         },
-        error: (error: unknown) =>
-          this.snackBar.open(apiErrorMessage(error, 'The revision could not be restored.'), 'Close', { duration: 8000 }),
+        error: (error: unknown) => void this.tellFailure(error),
       });
+  }
+
+  private async tellFailure(error: unknown): Promise<void> {
+    const message = await apiErrorMessage(error, 'The revision could not be restored.');
+    this.snackBar.open(message, 'Close', { duration: 8000 });
   }
 }

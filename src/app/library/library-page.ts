@@ -15,13 +15,14 @@ import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
-import { EMPTY, catchError, debounceTime, distinctUntilChanged, filter, map, switchMap, tap } from 'rxjs';
+import { debounceTime, distinctUntilChanged, filter, map, switchMap } from 'rxjs';
+import { apiErrorMessage } from '../api/api-error';
+import { loader } from '../api/loader';
 import { Session } from '../auth/session';
 import { BandSummary, BandsApi } from '../bands/bands-api';
 import { ShareDialog, ShareDialogData } from '../share/share-dialog';
-import { apiErrorMessage } from './api-error';
 import { ForkDialog, ForkDialogData, ForkTarget } from './fork-dialog';
-import { LibraryApi, PresetPage, PresetQuery, PresetRow, PresetSort } from './library-api';
+import { LibraryApi, PresetPage, PresetRow, PresetSort } from './library-api';
 import { SignInPrompt } from './sign-in-prompt';
 
 const searchDelayMs = 300;
@@ -55,14 +56,32 @@ export class LibraryPage {
   protected readonly sort = signal<PresetSort>('-updated');
   protected readonly pageIndex = signal(0);
   protected readonly pageSize = signal(20);
-  private readonly reloads = signal(0);
 
   protected readonly trash = computed(() => this.view() === 'trash');
   protected readonly bandId = computed(() => this.band() ?? null);
-  protected readonly bands = signal<BandSummary[]>([]);
-  protected readonly page = signal<PresetPage | null>(null);
-  protected readonly loading = signal(false);
-  protected readonly failure = signal<string | null>(null);
+  private readonly signedIn = computed(() => Boolean(this.session.member()));
+  private readonly presets = loader(
+    () =>
+      this.signedIn()
+        ? this.api.presets({
+            q: this.q(),
+            sort: this.sort(),
+            page: this.pageIndex() + 1,
+            pageSize: this.pageSize(),
+            bandId: this.bandId(),
+            trash: this.trash(),
+          })
+        : null,
+    { fallback: 'The library could not be loaded.' },
+  );
+  /** The bands I am in; without them the library still lists, so their failure is not shown. */
+  private readonly myBands = loader(() => (this.signedIn() ? this.bandsApi.bands() : null), {
+    fallback: 'Your bands could not be loaded.',
+  });
+  protected readonly bands = computed<BandSummary[]>(() => this.myBands.value() ?? []);
+  protected readonly page = computed<PresetPage | null>(() => this.presets.value() ?? null);
+  protected readonly loading = this.presets.loading;
+  protected readonly failure = this.presets.failure;
 
   protected readonly columns = computed(() =>
     this.trash()
@@ -71,20 +90,6 @@ export class LibraryPage {
   );
   protected readonly filteredBandName = computed(() => this.bands().find((b) => b.id === this.bandId())?.name ?? null);
 
-  private readonly signedIn = computed(() => Boolean(this.session.member()));
-  private readonly query = computed<PresetQuery | null>(() => {
-    this.reloads();
-    if (!this.signedIn()) return null;
-    return {
-      q: this.q(),
-      sort: this.sort(),
-      page: this.pageIndex() + 1,
-      pageSize: this.pageSize(),
-      bandId: this.bandId(),
-      trash: this.trash(),
-    };
-  });
-
   constructor() {
     toObservable(this.searchText)
       .pipe(debounceTime(searchDelayMs), map((text) => text.trim()), distinctUntilChanged(), takeUntilDestroyed())
@@ -92,33 +97,6 @@ export class LibraryPage {
         this.pageIndex.set(0);
         this.q.set(q);
       });
-    toObservable(this.query)
-      .pipe(
-        filter((query): query is PresetQuery => query !== null),
-        tap(() => this.loading.set(true)),
-        switchMap((query) =>
-          this.api.presets(query).pipe(
-            catchError((error: unknown) => {
-              this.failure.set(apiErrorMessage(error, 'The library could not be loaded.'));
-              this.loading.set(false);
-              return EMPTY;
-            }),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((page) => {
-        this.page.set(page);
-        this.failure.set(null);
-        this.loading.set(false);
-      });
-    toObservable(this.signedIn)
-      .pipe(
-        filter(Boolean),
-        switchMap(() => this.bandsApi.bands().pipe(catchError(() => EMPTY))),
-        takeUntilDestroyed(),
-      )
-      .subscribe((bands) => this.bands.set(bands));
   }
 
   protected sortBy(sort: Sort): void {
@@ -188,7 +166,7 @@ export class LibraryPage {
             .onAction()
             .subscribe(() => void this.router.navigate(['/presets', id]));
         },
-        error: (error: unknown) => this.tell(apiErrorMessage(error, 'The fork could not be made.')),
+        error: (error: unknown) => void this.tellFailure(error, 'The fork could not be made.'),
       });
   }
 
@@ -209,7 +187,8 @@ export class LibraryPage {
           .onAction()
           .subscribe(() => this.restoreFromTrash(row));
       },
-      error: (error: unknown) => this.tell(apiErrorMessage(error, 'The preset could not be moved to the trash.')),
+      error: (error: unknown) =>
+        void this.tellFailure(error, 'The preset could not be moved to the trash.'),
     });
   }
 
@@ -219,7 +198,8 @@ export class LibraryPage {
         this.reload();
         this.tell(`“${row.name}” is back in the library.`);
       },
-      error: (error: unknown) => this.tell(apiErrorMessage(error, 'The preset could not be brought back.')),
+      error: (error: unknown) =>
+        void this.tellFailure(error, 'The preset could not be brought back.'),
     });
   }
 
@@ -229,10 +209,14 @@ export class LibraryPage {
   }
 
   private reload(): void {
-    this.reloads.update((n) => n + 1);
+    this.presets.reload();
   }
 
   private tell(message: string): void {
     this.snackBar.open(message, 'Close', { duration: 8000 });
+  }
+
+  private async tellFailure(error: unknown, fallback: string): Promise<void> {
+    this.tell(await apiErrorMessage(error, fallback));
   }
 }

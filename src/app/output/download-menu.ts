@@ -4,7 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { apiFaultMessage } from '../design/api-fault';
+import { apiErrorMessage } from '../api/api-error';
 import { DesignState } from '../design/design-state';
 import type { ExportSource } from './downloads';
 import { Downloads } from './downloads';
@@ -76,7 +76,7 @@ export class DownloadMenu {
       if (warnings.length > 0) this.snackBar.open(`Downloaded ${name}. ${warnings.join(' ')}`, 'Dismiss');
       else this.snackBar.open(`Downloaded ${name}.`, undefined, { duration: 4000 });
     } catch (error) {
-      this.snackBar.open(await apiFaultMessage(error), 'Dismiss');
+      this.snackBar.open(await apiErrorMessage(error), 'Dismiss');
     } finally {
       this.busy.set(false);
     }

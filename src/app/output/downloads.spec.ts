@@ -2,7 +2,7 @@ import { HttpErrorResponse, HttpHeaders, provideHttpClient } from '@angular/comm
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { exportFormats as catalogue } from '@shared/export/export-catalogue';
-import { apiFaultMessage } from '../design/api-fault';
+import { apiErrorMessage } from '../api/api-error';
 import { newDraft } from '../design/draft-document';
 import { Downloads, fileNameFrom } from './downloads';
 import { exportFormats } from './export-formats';
@@ -67,7 +67,7 @@ describe('Downloads', () => {
     });
     const error = await done.then(() => null, (failure: unknown) => failure);
     expect(error).toBeInstanceOf(HttpErrorResponse);
-    expect(await apiFaultMessage(error)).toBe('Scale/octave tuning needs 12 keys per octave.');
+    expect(await apiErrorMessage(error)).toBe('Scale/octave tuning needs 12 keys per octave.');
     expect(clicked).toEqual([]);
   });
 

@@ -3,8 +3,8 @@ import { Injectable, inject } from '@angular/core';
 import type { RetuneAnswer, SongReport } from '@shared/api/songs';
 import { uploadTooLarge } from '@shared/api/uploads';
 import type { RetuneMode } from '@shared/midi/retune-report';
-import { Observable, catchError, filter, map, of } from 'rxjs';
-import { apiErrorMessage } from '../library/api-error';
+import { Observable, catchError, filter, from, map } from 'rxjs';
+import { apiErrorMessage } from '../api/api-error';
 
 /** The report the server sends with the song: every stolen note counted, the first hundred listed. */
 export type SongReportHeader = SongReport;
@@ -48,10 +48,11 @@ function stepOf(event: HttpEvent<RetuneAnswer>): RetuneStep | null {
 }
 
 /** A refusal in the server's words. */
-function refusalOf(error: unknown): RetuneStep {
+async function refusalOf(error: unknown): Promise<RetuneStep> {
   const status = error instanceof HttpErrorResponse ? error.status : null;
-  const fallback = status === 413 ? uploadTooLarge : `The server did not retune the song (${status ?? 'no answer'}).`;
-  return { kind: 'refused', message: apiErrorMessage(error, fallback) };
+  const fallback =
+    status === 413 ? uploadTooLarge : `The server did not retune the song (${status ?? 'no answer'}).`;
+  return { kind: 'refused', message: await apiErrorMessage(error, fallback) };
 }
 
 /**
@@ -74,7 +75,7 @@ export class RetuneApi {
       .pipe(
         map((event) => stepOf(event)),
         filter((step): step is RetuneStep => step !== null),
-        catchError((error: unknown) => of(refusalOf(error))),
+        catchError((error: unknown) => from(refusalOf(error))),
       );
   }
 }

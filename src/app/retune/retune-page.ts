@@ -1,5 +1,5 @@
 import { Component, DestroyRef, computed, inject, input, linkedSignal, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
@@ -11,10 +11,10 @@ import { RouterLink } from '@angular/router';
 import { defaultLeadInMs, leadInFault } from '@shared/midi/lead-in';
 import type { RetuneMode } from '@shared/midi/retune-report';
 import { parsePresetDocument } from '@shared/preset/preset-document';
-import { Subscription, catchError, map, of, switchMap } from 'rxjs';
+import { Subscription, map } from 'rxjs';
+import { loader } from '../api/loader';
 import { Session } from '../auth/session';
 import { decodeDesign } from '../design/design-address';
-import { apiErrorMessage } from '../library/api-error';
 import { LibraryApi, PresetRow } from '../library/library-api';
 import { SignInPrompt } from '../library/sign-in-prompt';
 import { FileDrop } from './file-drop';
@@ -64,9 +64,17 @@ export class RetunePage {
 
   protected readonly signedIn = computed(() => Boolean(this.session.member()));
   protected readonly signedOut = computed(() => this.session.member() === null);
-  protected readonly presets = signal<PresetRow[]>([]);
-  protected readonly presetsLoading = signal(false);
-  protected readonly presetsFailure = signal<string | null>(null);
+  private readonly savedPresets = loader(
+    () => {
+      if (!this.signedIn()) return null;
+      const all = { q: '', page: 1, pageSize: 100, bandId: null, trash: false };
+      return this.library.presets({ ...all, sort: 'name' }).pipe(map((page) => page.items));
+    },
+    { fallback: 'Your saved presets could not be loaded.' },
+  );
+  protected readonly presets = computed<PresetRow[]>(() => this.savedPresets.value() ?? []);
+  protected readonly presetsLoading = this.savedPresets.loading;
+  protected readonly presetsFailure = this.savedPresets.failure;
   protected readonly presetId = signal<string | null>(null);
 
   protected readonly presetFile = signal<{ file: File; reading: PresetFile } | null>(null);
@@ -107,26 +115,6 @@ export class RetunePage {
   private running: Subscription | null = null;
 
   constructor() {
-    toObservable(this.signedIn)
-      .pipe(
-        switchMap((signedIn) => {
-          if (!signedIn) return of([]);
-          this.presetsLoading.set(true);
-          const query = { q: '', sort: 'name' as const, page: 1, pageSize: 100, bandId: null, trash: false };
-          return this.library.presets(query).pipe(
-            map((page) => page.items),
-            catchError((error: unknown) => {
-              this.presetsFailure.set(apiErrorMessage(error, 'Your saved presets could not be loaded.'));
-              return of([]);
-            }),
-          );
-        }),
-        takeUntilDestroyed(),
-      )
-      .subscribe((presets) => {
-        this.presetsLoading.set(false);
-        this.presets.set(presets);
-      });
     this.destroyRef.onDestroy(() => this.replaceDownload(null));
   }
 

@@ -1,6 +1,6 @@
 import { ClipboardModule } from '@angular/cdk/clipboard';
 import { DatePipe } from '@angular/common';
-import { Component, inject, signal } from '@angular/core';
+import { Component, computed, inject, signal } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
@@ -9,7 +9,8 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { apiErrorMessage } from '../library/api-error';
+import { apiErrorMessage } from '../api/api-error';
+import { loader } from '../api/loader';
 import { NewShareLink, ShareApi, ShareLink } from './share-api';
 
 export interface ShareDialogData {
@@ -36,39 +37,40 @@ export class ShareDialog {
 
   protected readonly pinned = signal(false);
   protected readonly created = signal<NewShareLink | null>(null);
-  protected readonly links = signal<ShareLink[] | null>(null);
+  private readonly existing = loader(() => this.api.links(this.data.presetId), {
+    fallback: 'The links could not be loaded.',
+  });
+  protected readonly links = computed<ShareLink[] | null>(() => this.existing.value() ?? null);
   protected readonly busy = signal(false);
-  protected readonly failure = signal<string | null>(null);
-
-  constructor() {
-    this.loadLinks();
-  }
+  /** Why the last link could not be made or revoked. */
+  private readonly actionFailure = signal<string | null>(null);
+  protected readonly failure = computed(() => this.actionFailure() ?? this.existing.failure());
 
   protected createLink(): void {
     this.busy.set(true);
-    this.failure.set(null);
+    this.actionFailure.set(null);
     this.api.createLink(this.data.presetId, this.pinned() ? this.data.revision : null).subscribe({
       next: (link) => {
         this.busy.set(false);
         this.created.set(link);
-        this.loadLinks();
+        this.existing.reload();
       },
       error: (error: unknown) => {
         this.busy.set(false);
-        this.failure.set(apiErrorMessage(error, 'The link could not be made.'));
+        void this.tellFailure(error, 'The link could not be made.');
       },
     });
   }
 
   protected revokeLink(link: ShareLink): void {
-    this.failure.set(null);
+    this.actionFailure.set(null);
     this.api.revokeLink(link.id).subscribe({
       next: () => {
         if (this.created()?.id === link.id) this.created.set(null);
         this.snackBar.open('Link revoked: it no longer opens the preset.', 'Close', { duration: 6000 });
-        this.loadLinks();
+        this.existing.reload();
       },
-      error: (error: unknown) => this.failure.set(apiErrorMessage(error, 'The link could not be revoked.')),
+      error: (error: unknown) => void this.tellFailure(error, 'The link could not be revoked.'),
     });
   }
 
@@ -81,10 +83,7 @@ export class ShareDialog {
     return link.revision === null ? 'Latest revision' : `Revision ${link.revision}`;
   }
 
-  private loadLinks(): void {
-    this.api.links(this.data.presetId).subscribe({
-      next: (links) => this.links.set(links),
-      error: (error: unknown) => this.failure.set(apiErrorMessage(error, 'The links could not be loaded.')),
-    });
+  private async tellFailure(error: unknown, fallback: string): Promise<void> {
+    this.actionFailure.set(await apiErrorMessage(error, fallback));
   }
 }

@@ -1,14 +1,14 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
 import { Component, computed, inject, input, signal } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, RouterLink } from '@angular/router';
-import { EMPTY, catchError, switchMap } from 'rxjs';
+import { tap } from 'rxjs';
+import { apiErrorMessage } from '../api/api-error';
+import { loader } from '../api/loader';
 import { Session } from '../auth/session';
-import { apiErrorMessage, isNotFound } from '../library/api-error';
 import { LibraryApi } from '../library/library-api';
 import { SignInPrompt } from '../library/sign-in-prompt';
 import { DegreeTable } from '../scale/degree-table';
@@ -49,8 +49,17 @@ export class SharedPage {
   /** The link's token, from the address. */
   readonly token = input.required<string>();
 
-  protected readonly shared = signal<SharedPreset | null>(null);
-  protected readonly failure = signal<string | null>(null);
+  private readonly link = loader(
+    () => this.shareApi.shared(this.token()).pipe(tap((shared) => this.openReadOnly(shared))),
+    {
+      fallback: 'The shared preset could not be loaded.',
+      notFound:
+        'This link does not open anything: it was revoked, its preset was deleted, ' +
+        'or the address is not complete.',
+    },
+  );
+  protected readonly shared = computed<SharedPreset | null>(() => this.link.value() ?? null);
+  protected readonly failure = this.link.failure;
   protected readonly forking = signal(false);
   protected readonly returnPath = computed(() => `/s/${encodeURIComponent(this.token())}`);
 
@@ -74,29 +83,11 @@ export class SharedPage {
   });
   protected readonly bundleHref = computed(() => this.shareApi.bundleUrl(this.token()));
 
-  constructor() {
-    toObservable(this.token)
-      .pipe(
-        switchMap((token) =>
-          this.shareApi.shared(token).pipe(
-            catchError((error: unknown) => {
-              this.failure.set(
-                isNotFound(error)
-                  ? 'This link does not open anything: it was revoked, its preset was deleted, or the address ' +
-                      'is not complete.'
-                  : apiErrorMessage(error, 'The shared preset could not be loaded.'),
-              );
-              return EMPTY;
-            }),
-          ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((shared) => {
-        this.shared.set(shared);
-        // The tuning is heard through the designer's audition engine, read-only: nothing here can change it.
-        this.design.open(draftFrom(shared.document as PresetDocument), { id: 'shared', revision: shared.revision, bandId: null, access: 'read' });
-      });
+  /** The tuning is heard through the designer's audition engine, read-only: nothing changes it. */
+  private openReadOnly(shared: SharedPreset): void {
+    const { revision, document } = shared;
+    const origin = { id: 'shared', revision, bandId: null, access: 'read' as const };
+    this.design.open(draftFrom(document as PresetDocument), origin);
   }
 
   /**
@@ -113,9 +104,10 @@ export class SharedPage {
           .onAction()
           .subscribe(() => void this.router.navigate(['/presets', id]));
       },
-      error: (error: unknown) => {
+      error: async (error: unknown) => {
         this.forking.set(false);
-        this.snackBar.open(apiErrorMessage(error, 'The copy could not be saved.'), 'Close', { duration: 8000 });
+        const message = await apiErrorMessage(error, 'The copy could not be saved.');
+        this.snackBar.open(message, 'Close', { duration: 8000 });
       },
     });
   }
