@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { EMPTY, catchError, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../library/api-error';
@@ -9,6 +9,7 @@ import { AuditEntry, BandDetail, BandsApi } from './bands-api';
 /** Who changed what in the band, newest first, in plain words (owners only). */
 @Component({
   selector: 'app-band-audit',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DatePipe],
   template: `
     @if (failure(); as message) {

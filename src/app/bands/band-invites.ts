@@ -1,5 +1,5 @@
 import { DatePipe, TitleCasePipe } from '@angular/common';
-import { Component, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -17,6 +17,7 @@ import { requestFieldValidator } from './request-validator';
 /** Invite by e-mail with a role, and the invites still waiting for an answer (send again, revoke). */
 @Component({
   selector: 'app-band-invites',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     DatePipe, TitleCasePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule,
     MatSelectModule,

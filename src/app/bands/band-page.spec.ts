@@ -1,6 +1,6 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
@@ -32,7 +32,10 @@ const audit: AuditEntry[] = [
   { id: 1, action: 'member.role', presetId: null, detail: { userId: 'u-tobias', from: 'viewer', to: 'editor' }, createdAt: '2026-11-04T09:30:00Z', actorLogin: 'mira-vale', actorName: 'Mira Vale' },
 ];
 
-@Component({ selector: 'app-bands-stub', template: 'bands' })
+@Component({
+  selector: 'app-bands-stub', template: 'bands',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
 class BandsStub {}
 
 describe('BandPage', () => {

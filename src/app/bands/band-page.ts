@@ -1,4 +1,4 @@
-import { Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -19,6 +19,7 @@ const noPresets: PresetPage = { items: [], total: 0, page: 1, pageSize: 100 };
 /** One band: members and roles, invites, its presets and (for owners) what happened in it. */
 @Component({
   selector: 'app-band-page',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, BandMembers, BandInvites, BandAudit],
   templateUrl: './band-page.html',
   styleUrl: './band-page.scss',

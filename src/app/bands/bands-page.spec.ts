@@ -1,6 +1,6 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Router, provideRouter } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
@@ -9,7 +9,10 @@ import { BandsPage } from './bands-page';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 
-@Component({ template: 'band' })
+@Component({
+  template: 'band',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
 class BandStub {}
 
 describe('BandsPage', () => {

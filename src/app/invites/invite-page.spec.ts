@@ -1,6 +1,6 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
@@ -14,7 +14,10 @@ const invite: InviteSummary = {
   expiresAt: '2026-11-27T10:00:00Z', status: 'pending',
 };
 
-@Component({ selector: 'app-band-stub', template: 'band' })
+@Component({
+  selector: 'app-band-stub', template: 'band',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
 class BandStub {}
 
 describe('InvitePage', () => {
