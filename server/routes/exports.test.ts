@@ -9,6 +9,7 @@ import { previewTable } from '../../shared/tuning/preview';
 import { asBytes } from '../../tests/support/binary-response';
 import { startTestServer } from '../../tests/support/test-server';
 import { readZip } from '../../tests/support/zip';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 beforeAll(async () => {
@@ -16,13 +17,7 @@ beforeAll(async () => {
 });
 afterAll(() => server.close());
 
-const fifths = {
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Fen Fifths!',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3 },
-  mapping: { rootKey: 60 },
-};
+const fifths = fifthsPreset('Fen Fifths!', 8, 3);
 const bp = { ...fifths, name: 'Tritave Thirteen', scale: { kind: 'equal', divisions: 13, period: '3/1' } };
 
 const exportOf = (format: string, document: object = fifths) =>

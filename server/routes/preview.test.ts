@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer } from '../../tests/support/test-server';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 beforeAll(async () => {
@@ -8,13 +9,7 @@ beforeAll(async () => {
 });
 afterAll(() => server.close());
 
-const fifths = (up: number, down: number) => ({
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Fen Fifths',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up, down },
-  mapping: { rootKey: 60 },
-});
+const fifths = (up: number, down: number) => fifthsPreset('Fen Fifths', up, down);
 
 describe('POST /api/preview/table', () => {
   it('answers the degrees, the analysis and all 128 keys of "5 fifths up, 1 down" from C, without sign-in', async () => {

@@ -5,6 +5,7 @@ import { parsePresetDocument } from '../../shared/preset/preset-document';
 import { previewTable } from '../../shared/tuning/preview';
 import { asBytes } from '../../tests/support/binary-response';
 import { startTestServer } from '../../tests/support/test-server';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 beforeAll(async () => {
@@ -13,11 +14,7 @@ beforeAll(async () => {
 afterAll(() => server.close());
 
 const preset = {
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Fen Fifths',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3 },
-  mapping: { rootKey: 60 },
+  ...fifthsPreset('Fen Fifths', 8, 3),
   output: { bendRange: 2, memberChannels: [2, 9] },
 };
 const keysHz = (() => {

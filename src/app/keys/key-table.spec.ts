@@ -1,16 +1,13 @@
 import { TestBed } from '@angular/core/testing';
-import { parsePresetDocument } from '@shared/preset/preset-document';
+import { fifthsPreset, resolvedPreset } from '@shared/preset/presets.testing';
 import { previewTable } from '@shared/tuning/preview';
 import { KeyTable } from './key-table';
 
 describe('KeyTable', () => {
   async function render(mapping: object) {
-    const parsed = parsePresetDocument({
-      format: 'keyloom.preset', version: 1, name: 'T', scale: { kind: 'generated', generator: '3/2', up: 5, down: 1 }, mapping,
-    });
-    if (!parsed.ok) throw new Error(parsed.errors[0].message);
+    const preset = resolvedPreset({ ...fifthsPreset('T'), mapping });
     const fixture = TestBed.createComponent(KeyTable);
-    fixture.componentRef.setInput('keys', previewTable(parsed.value).keys);
+    fixture.componentRef.setInput('keys', previewTable(preset).keys);
     await fixture.whenStable();
     const element = fixture.nativeElement as HTMLElement;
     const details = element.querySelector('details')!;

@@ -9,6 +9,7 @@ import { MatRadioButtonHarness } from '@angular/material/radio/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
+import { fifthsPreset } from '@shared/preset/presets.testing';
 import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { Member, Session } from '../auth/session';
 import { encodeDesign } from '../design/design-address';
@@ -26,13 +27,7 @@ const reedOrgan: PresetRow = {
   id: 'p-reed', name: 'Reed Organ Meantone', bandId: null, bandName: null, ownerId: 'u-mira', ownerLogin: 'mira-vale',
   revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null,
 };
-const fenFifthsDocument = {
-  format: 'keyloom.preset' as const,
-  version: 1 as const,
-  name: 'Fen Fifths',
-  scale: { kind: 'generated' as const, generator: '3/2', period: '2/1', up: 5, down: 1 },
-  mapping: { rootKey: 60 },
-};
+const fenFifthsDocument = fifthsPreset('Fen Fifths');
 /** A report in the shape server/routes/retune.ts answers in its JSON body. */
 const mpeReport: SongReportHeader = {
   mode: 'mpe',

@@ -5,17 +5,15 @@ import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import { exportFormats as catalogue } from '@shared/export/export-catalogue';
+import { fifthsPreset } from '@shared/preset/presets.testing';
 import { Member, Session } from '../auth/session';
 import { SharedPreset } from './share-api';
 import { SharedPage } from './shared-page';
 
 const tobias: Member = { id: 'u-tobias', login: 'tobias-reed', name: 'Tobias Reed', email: null, avatarUrl: null, siteRole: 'member' };
 const fenFifths = {
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Fen Fifths',
+  ...fifthsPreset('Fen Fifths'),
   notes: 'Stacked pure fifths from C for the drone pieces.',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 },
   mapping: { rootKey: 60, concertA: 440, keysPerPeriod: 12, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
 };
 const shared: SharedPreset = { name: 'Fen Fifths', revision: 3, pinned: true, savedAt: '2026-11-20T09:30:00Z', document: fenFifths };
