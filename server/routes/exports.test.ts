@@ -62,7 +62,8 @@ describe('downloads of an unsaved design', () => {
   it('writes a bulk dump of 408 bytes with a correct checksum', async () => {
     const res = await exportOf('mts-bulk');
     expect(res.body.length).toBe(408);
-    // REFERENCE.md: checksum = XOR of every byte after F0 up to the last data byte, AND 7F.
+    // MIDI Tuning specification: checksum = XOR of every byte after F0 up to the last data byte,
+    // AND 7F.
     let checksum = 0;
     for (let i = 1; i < 406; i++) checksum ^= res.body[i];
     expect(res.body[406]).toBe(checksum & 0x7f);
@@ -84,7 +85,8 @@ describe('downloads of an unsaved design', () => {
       const imported = await request(server.app).post('/api/import').attach('file', file.body, `fen-fifths.${format === 'preset' ? 'json' : 'syx'}`);
       expect([format, imported.status]).toEqual([format, 200]);
       const after = previewTable(valid(imported.body.document)).keys;
-      // REFERENCE.md: the nearest frequency word is at most 0.0030517578125 cents away.
+      // MIDI Tuning specification: the nearest frequency word is at most 0.0030517578125 cents
+      // away.
       const tolerance = format === 'preset' ? 1e-9 : 0.0030517578125 + 1e-9;
       for (let key = 0; key < 128; key++) {
         expect(Math.abs(1200 * Math.log2(after[key].hz! / before[key].hz!))).toBeLessThanOrEqual(tolerance);

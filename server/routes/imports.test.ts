@@ -27,7 +27,8 @@ describe('POST /api/import', () => {
     expect(res.body.document.name).toBe('fen fifths');
     const before = previewTable(resolvedPreset(fifths)).keys;
     const after = previewTable(resolvedPreset(res.body.document)).keys;
-    // REFERENCE.md: rounding to the nearest frequency word leaves at most 0.0030517578125 cents of error.
+    // MIDI Tuning specification: rounding to the nearest frequency word leaves at most
+    // 0.0030517578125 cents of error.
     for (let key = 0; key < 128; key++) {
       expect(Math.abs(1200 * Math.log2(after[key].hz! / before[key].hz!))).toBeLessThanOrEqual(0.0030517578125 + 1e-9);
     }

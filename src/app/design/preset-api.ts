@@ -21,7 +21,7 @@ export interface BandMembership {
   role: 'owner' | 'editor' | 'viewer';
 }
 
-/** The library calls the designer makes (DESIGN.md "HTTP API"). */
+/** The library calls the designer makes (the library routes of the HTTP API). */
 @Injectable({ providedIn: 'root' })
 export class PresetApi {
   private readonly http = inject(HttpClient);

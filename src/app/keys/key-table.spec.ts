@@ -23,7 +23,8 @@ describe('KeyTable', () => {
   it('lists all 128 keys with note, degree, Hz, cents from 12-TET and whether each is mapped', async () => {
     const { rows } = await render({ rootKey: 60, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] });
     expect(rows.length).toBe(128);
-    // REFERENCE.md: pure G above equal-tempered C4 is 392.4383 Hz, 1.955 cents above equal-tempered G4.
+    // arithmetic (MIDI convention): pure G above equal-tempered C4 is 392.4383 Hz, 1.955 cents
+    // above equal-tempered G4.
     expect(rows[67]).toEqual(['67', 'G4', '4', '392.438', '+1.96¢', 'yes']);
     expect(rows[61]).toEqual(['61', 'C#4', '–', '–', '–', 'no']);
   });

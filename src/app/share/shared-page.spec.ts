@@ -58,7 +58,7 @@ describe('SharedPage', () => {
     expect(page().querySelector('.about')!.textContent).toContain('always opens this revision');
     expect(page().querySelector('.summary')!.textContent).toContain('7 degrees in a period of 2/1');
     expect(page().querySelector('.summary')!.textContent).toContain('LLsLLLs');
-    // Middle C at A4 = 440 Hz is 261.6256 Hz (REFERENCE.md: MIDI convention).
+    // Middle C at A4 = 440 Hz is 261.6256 Hz (MIDI convention).
     expect(page().querySelector('.summary .pitch')!.textContent).toBe('Root key 60 (C4) sounds 261.6256 Hz.');
     // The tuning can be heard here: the play panel (with its volume caution) and the keys to play.
     expect(page().querySelector('.listen app-play-panel')).not.toBeNull();
@@ -70,8 +70,9 @@ describe('SharedPage', () => {
       Array.from(tr.children).map((cell) => cell.textContent!.trim()),
     );
     expect(rows.length).toBe(7);
-    // In the designer's style: pure fifth 3/2 = 701.955¢, 1.955¢ above the equal-tempered G (REFERENCE.md:
-    // 1200 log2(3/2)), and its pitch from middle C, 392.438 Hz (REFERENCE.md: G 3/2 = 392.4383 Hz).
+    // In the designer's style: pure fifth 3/2 = 701.955¢, 1.955¢ above the equal-tempered G
+    // (definition: 1200 log2(3/2)), and its pitch from middle C, 392.438 Hz (arithmetic (MIDI
+    // convention): G 3/2 = 392.4383 Hz).
     expect(rows[4].slice(0, 7)).toEqual(['4', 'G', '3/2', '701.955¢', '9/8', 'G4', '+2.0¢']);
     expect(rows[4][7]).toBe('392.438');
     expect(rows[3].slice(0, 4)).toEqual(['3', 'F', '4/3', '498.045¢']);
