@@ -1,14 +1,10 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { provideRouter, withComponentInputBinding } from '@angular/router';
-import { RouterTestingHarness } from '@angular/router/testing';
+import { HttpTestingController } from '@angular/common/http/testing';
 import { exportFormats as catalogue } from '@shared/export/export-catalogue';
 import { fifthsPreset } from '@shared/preset/presets.testing';
-import { Member, Session } from '../auth/session';
+import { Member } from '../auth/session';
 import { SharedPreset } from './share-api';
 import { SharedPage } from './shared-page';
+import { PageTest } from '../../testing/page-test';
 
 const tobias: Member = { id: 'u-tobias', login: 'tobias-reed', name: 'Tobias Reed', email: null, avatarUrl: null, siteRole: 'member' };
 const fenFifths = {
@@ -20,33 +16,21 @@ const shared: SharedPreset = { name: 'Fen Fifths', revision: 3, pinned: true, sa
 
 describe('SharedPage', () => {
   let http: HttpTestingController;
-  let harness: RouterTestingHarness;
+  let pages: PageTest;
 
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideRouter([{ path: 's/:token', component: SharedPage }], withComponentInputBinding()),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
+    pages = new PageTest([{ path: 's/:token', component: SharedPage }]);
+    http = pages.http;
   });
 
-  afterEach(() => http.verify());
+  afterEach(() => pages.verify());
 
-  const page = () => harness.routeNativeElement as HTMLElement;
+  const page = () => pages.page();
 
-  async function settle() {
-    await harness.fixture.whenStable();
-    harness.detectChanges();
-  }
+  const settle = () => pages.settle();
 
   async function open(member: Member | null, answer: SharedPreset = shared) {
-    TestBed.inject(Session).member.set(member);
-    harness = await RouterTestingHarness.create('/s/tok-123');
-    await settle();
+    await pages.open('/s/tok-123', member);
     http.expectOne('/api/shared/tok-123').flush(answer);
     await settle();
   }
@@ -117,13 +101,11 @@ describe('SharedPage', () => {
     expect(save.request.body).toEqual({ document: fenFifths, note: 'Copied from a share link' });
     save.flush({ id: 'p9', revision: 1 }, { status: 201, statusText: 'Created' });
     await settle();
-    expect(document.querySelector('.mat-mdc-snack-bar-container')!.textContent).toContain('“Fen Fifths” is now in your library.');
+    expect(await pages.snackBar()).toContain('“Fen Fifths” is now in your library.');
   });
 
   it('says plainly when the link was revoked or never existed', async () => {
-    TestBed.inject(Session).member.set(null);
-    harness = await RouterTestingHarness.create('/s/tok-123');
-    await settle();
+    await pages.open('/s/tok-123', null);
     http.expectOne('/api/shared/tok-123').flush(
       { error: { code: 'not_found', message: 'No such shared preset.' } },
       { status: 404, statusText: 'Not Found' },
