@@ -11,6 +11,7 @@ export interface AuthorizeRequest {
 }
 
 export const signInPageTitle = 'Fake GitHub sign-in';
+const standIn = 'GitHub sign-in';
 
 export function signInPage(request: AuthorizeRequest, identities: readonly GitHubIdentity[]): string {
   const hiddenFields = [
@@ -36,6 +37,7 @@ export function signInPage(request: AuthorizeRequest, identities: readonly GitHu
 
   return htmlPage(
     signInPageTitle,
+    standIn,
     `<h1>${signInPageTitle}</h1>
 <p class="notice">This is a local stand-in for GitHub, for development and tests. No password is asked and nothing leaves this computer.</p>
 <p>The application <code>${escapeHtml(request.clientId)}</code> asks who you are. After you choose, you return to
@@ -64,6 +66,7 @@ ${hiddenFields}
 export function errorPage(title: string, message: string): string {
   return htmlPage(
     `${title} - Fake GitHub`,
+    standIn,
     `<h1>${escapeHtml(title)}</h1>
 <p>${escapeHtml(message)}</p>
 <p class="muted">This is a local stand-in for GitHub, for development and tests.</p>`,
@@ -73,6 +76,7 @@ export function errorPage(title: string, message: string): string {
 export function profilePage(identity: GitHubIdentity): string {
   return htmlPage(
     `${identity.login} - Fake GitHub`,
+    standIn,
     `<h1><img src="/avatars/${escapeHtml(identity.login)}.svg" alt="" width="48" height="48"> ${escapeHtml(identity.name)}</h1>
 <p class="notice">A person of the local stand-in for GitHub.</p>
 <dl>

@@ -3,6 +3,7 @@ import { htmlPage } from '../page-layout';
 import type { MailMessage } from './message-store';
 
 export const mailboxTitle = 'Keyloom mailbox (local)';
+const standIn = 'an e-mail inbox';
 
 const urlPattern = /\bhttps?:\/\/[^\s<>"']+/g;
 const trailingPunctuation = /[.,;:!?)\]}]+$/;
@@ -34,6 +35,7 @@ export function messageListPage(messages: readonly MailMessage[], smtpAddress: s
 
   return htmlPage(
     mailboxTitle,
+    standIn,
     `<h1>${mailboxTitle}</h1>
 <p class="notice">A local stand-in for an e-mail inbox: everything sent to SMTP <code>${escapeHtml(smtpAddress)}</code> lands here, whoever it is addressed to. Nothing is delivered anywhere else.</p>
 <p><a class="button" href="/">Refresh</a> <span class="muted">${messages.length} message${messages.length === 1 ? '' : 's'}, newest first</span></p>
@@ -50,6 +52,7 @@ export function messagePage(message: MailMessage): string {
 
   return htmlPage(
     `${message.subject || '(no subject)'} - ${mailboxTitle}`,
+    standIn,
     `<p><a href="/">Back to all messages</a></p>
 <h1>${escapeHtml(message.subject || '(no subject)')}</h1>
 <dl>
@@ -66,6 +69,7 @@ ${htmlPart}`,
 export function notFoundPage(): string {
   return htmlPage(
     `Not found - ${mailboxTitle}`,
+    standIn,
     `<h1>Not found</h1>
 <p>There is no such message; it may have been deleted.</p>
 <p><a href="/">Back to all messages</a></p>`,

@@ -31,7 +31,7 @@ describe('the tuner sheet', () => {
   it('says what to dial into a tuner for each key: pure fifths from C against equal temperament', () => {
     const rows = tunerRows(fifths);
     expect(rows.map((r) => r.tunerNote)).toEqual(['C4', 'C#4', 'D4', 'D#4', 'E4', 'F4', 'F#4', 'G4', 'G#4', 'A4', 'A#4', 'B4']);
-    // REFERENCE.md (arithmetic): pure fifths from equal-tempered C4: D 294.3288, E 331.1199, F 348.8341,
+    // arithmetic: pure fifths from equal-tempered C4: D 294.3288, E 331.1199, F 348.8341,
     // G 392.4383, A 441.4931, B 496.6798 Hz.
     const hz = Object.fromEntries(rows.map((r) => [r.tunerNote, r.hz]));
     expect(hz['D4']).toBeCloseTo(294.3288, 3);
@@ -40,7 +40,8 @@ describe('the tuner sheet', () => {
     expect(hz['G4']).toBeCloseTo(392.4383, 3);
     expect(hz['A4']).toBeCloseTo(441.4931, 3);
     expect(hz['B4']).toBeCloseTo(496.6798, 3);
-    // REFERENCE.md: 3/2 = 701.9550008654 cents, so G sits 1.955 cents above equal-tempered G.
+    // Definition: 3/2 = 1200 log2(3/2) = 701.9550008654 cents, so G sits 1.955 cents above
+    // equal-tempered G.
     expect(rows.find((r) => r.tunerNote === 'G4')!.offsetCents).toBeCloseTo(1.9550008654, 8);
   });
 
@@ -60,7 +61,8 @@ describe('the tuner sheet', () => {
       mapping: { rootKey: 60 },
     });
     const text = await pdfText(await renderTunerSheet(meantone, saved));
-    // REFERENCE.md: the quarter-comma fifth is 696.578 c, 5.377 c narrow of 3/2; G# is exactly 25/16.
+    // Standard acoustics texts: the quarter-comma fifth is 696.578 c, 5.377 c narrow of 3/2; G# is
+    // exactly 25/16.
     expect(text).toContain('about 3/2 (−5.4c)');
     expect(text).toContain('25/16');
     expect(text).not.toContain('≈');
@@ -72,7 +74,8 @@ describe('the tuner sheet', () => {
       mapping: { rootKey: 60, anchor: { key: 69, hz: 415 } },
     });
     const text = await pdfText(await renderTunerSheet(anchored, saved));
-    // REFERENCE.md: with A4 anchored at 415 Hz on key 69 in quarter-comma meantone, C4 = 248.2279 Hz (arithmetic).
+    // With A4 anchored at 415 Hz on key 69 in quarter-comma meantone, C4 = 248.2279 Hz
+    // (arithmetic).
     expect(text).toContain('Key A4 (69) sounds 415 Hz; Root key C4 (60) = 248.2279 Hz');
     const rows = tunerRows(anchored);
     expect(rows.find((row) => row.key === 'A4 (69)')!.hz).toBeCloseTo(415, 9);

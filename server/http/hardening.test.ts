@@ -5,18 +5,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { asBytes } from '../../tests/support/binary-response';
 import { startTestServer } from '../../tests/support/test-server';
 import { readZip } from '../../tests/support/zip';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let owner: Awaited<ReturnType<typeof server.signIn>>;
 
-const doc = (name = 'Hardened Fifths', extra: object = {}) => ({
-  format: 'keyloom.preset',
-  version: 1,
-  name,
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 },
-  mapping: { rootKey: 60 },
-  ...extra,
-});
+const doc = (name = 'Hardened Fifths', extra: object = {}) => ({ ...fifthsPreset(name), ...extra });
 const post = (path: string, body?: object) => owner.agent.post(path).set('X-XSRF-TOKEN', owner.xsrf).send(body);
 
 beforeAll(async () => {

@@ -9,6 +9,7 @@ import {
   bands, instruments, invites, memberships, presetRevisions, presets, shareLinks, users,
 } from '../db/schema';
 import { hashToken } from '../library/tokens';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 type Actor = 'anonymous' | 'stranger' | 'viewer' | 'editor' | 'owner' | 'admin' | 'linkHolder';
 const actors: Actor[] = ['anonymous', 'stranger', 'viewer', 'editor', 'owner', 'admin', 'linkHolder'];
@@ -37,13 +38,7 @@ interface Case {
   body?: (f: Fixture) => object;
 }
 
-const doc = {
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Matrix Fifths',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 },
-  mapping: { rootKey: 60 },
-};
+const doc = fifthsPreset('Matrix Fifths');
 
 const matrix: Record<string, Case> = {
   'GET /api/health': { allowed: everyone, path: () => '/api/health' },

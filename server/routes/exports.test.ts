@@ -9,6 +9,7 @@ import { previewTable } from '../../shared/tuning/preview';
 import { asBytes } from '../../tests/support/binary-response';
 import { startTestServer } from '../../tests/support/test-server';
 import { readZip } from '../../tests/support/zip';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 beforeAll(async () => {
@@ -16,13 +17,7 @@ beforeAll(async () => {
 });
 afterAll(() => server.close());
 
-const fifths = {
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Fen Fifths!',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3 },
-  mapping: { rootKey: 60 },
-};
+const fifths = fifthsPreset('Fen Fifths!', 8, 3);
 const bp = { ...fifths, name: 'Tritave Thirteen', scale: { kind: 'equal', divisions: 13, period: '3/1' } };
 
 const exportOf = (format: string, document: object = fifths) =>
@@ -67,7 +62,8 @@ describe('downloads of an unsaved design', () => {
   it('writes a bulk dump of 408 bytes with a correct checksum', async () => {
     const res = await exportOf('mts-bulk');
     expect(res.body.length).toBe(408);
-    // REFERENCE.md: checksum = XOR of every byte after F0 up to the last data byte, AND 7F.
+    // MIDI Tuning specification: checksum = XOR of every byte after F0 up to the last data byte,
+    // AND 7F.
     let checksum = 0;
     for (let i = 1; i < 406; i++) checksum ^= res.body[i];
     expect(res.body[406]).toBe(checksum & 0x7f);
@@ -89,7 +85,8 @@ describe('downloads of an unsaved design', () => {
       const imported = await request(server.app).post('/api/import').attach('file', file.body, `fen-fifths.${format === 'preset' ? 'json' : 'syx'}`);
       expect([format, imported.status]).toEqual([format, 200]);
       const after = previewTable(valid(imported.body.document)).keys;
-      // REFERENCE.md: the nearest frequency word is at most 0.0030517578125 cents away.
+      // MIDI Tuning specification: the nearest frequency word is at most 0.0030517578125 cents
+      // away.
       const tolerance = format === 'preset' ? 1e-9 : 0.0030517578125 + 1e-9;
       for (let key = 0; key < 128; key++) {
         expect(Math.abs(1200 * Math.log2(after[key].hz! / before[key].hz!))).toBeLessThanOrEqual(tolerance);

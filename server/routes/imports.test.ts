@@ -2,9 +2,9 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { tuningOfPreset } from '../../shared/export/preset-tuning';
 import { encodeBulkDump } from '../../shared/midi/mts-bulk-dump';
-import { parsePresetDocument } from '../../shared/preset/preset-document';
 import { previewTable } from '../../shared/tuning/preview';
 import { startTestServer } from '../../tests/support/test-server';
+import { fifthsPreset, resolvedPreset } from '../../shared/preset/presets.testing';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 beforeAll(async () => {
@@ -12,34 +12,23 @@ beforeAll(async () => {
 });
 afterAll(() => server.close());
 
-const fifths = {
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Fen Fifths',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3 },
-  mapping: { rootKey: 60 },
-};
+const fifths = fifthsPreset('Fen Fifths', 8, 3);
 
 const upload = (bytes: Buffer | string, fileName: string) =>
   request(server.app).post('/api/import').attach('file', Buffer.from(bytes), fileName);
 
-function resolved(document: unknown) {
-  const parsed = parsePresetDocument(document);
-  if (!parsed.ok) throw new Error(parsed.errors[0].message);
-  return parsed.value;
-}
-
 describe('POST /api/import', () => {
   it('turns an .syx bulk dump into a preset that lays the same pitches on every key', async () => {
-    const tuning = tuningOfPreset(resolved(fifths));
+    const tuning = tuningOfPreset(resolvedPreset(fifths));
     if (!tuning.ok) throw new Error('no tuning');
     const [dump] = encodeBulkDump(tuning.value.keys, { deviceId: 0x7f, program: 0, tuningName: 'FEN FIFTHS' }).messages;
     const res = await upload(Buffer.from(dump), 'fen-fifths.syx').expect(200);
     expect(res.body.kind).toBe('syx');
     expect(res.body.document.name).toBe('fen fifths');
-    const before = previewTable(resolved(fifths)).keys;
-    const after = previewTable(resolved(res.body.document)).keys;
-    // REFERENCE.md: rounding to the nearest frequency word leaves at most 0.0030517578125 cents of error.
+    const before = previewTable(resolvedPreset(fifths)).keys;
+    const after = previewTable(resolvedPreset(res.body.document)).keys;
+    // MIDI Tuning specification: rounding to the nearest frequency word leaves at most
+    // 0.0030517578125 cents of error.
     for (let key = 0; key < 128; key++) {
       expect(Math.abs(1200 * Math.log2(after[key].hz! / before[key].hz!))).toBeLessThanOrEqual(0.0030517578125 + 1e-9);
     }

@@ -3,19 +3,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer } from '../../tests/support/test-server';
 import { memberships, presets } from '../db/schema';
 import { purgeExpiredTrash } from './presets';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let mira: Awaited<ReturnType<typeof server.signIn>>;
 let tobias: Awaited<ReturnType<typeof server.signIn>>;
 let bandId: string;
 
-const fifths = (name: string, up = 5, down = 1) => ({
-  format: 'keyloom.preset',
-  version: 1,
-  name,
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up, down },
-  mapping: { rootKey: 60 },
-});
+const fifths = (name: string, up = 5, down = 1) => fifthsPreset(name, up, down);
 
 const post = (who: typeof mira, path: string, body?: object) => who.agent.post(path).set('X-XSRF-TOKEN', who.xsrf).send(body);
 

@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer } from '../../tests/support/test-server';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 beforeAll(async () => {
@@ -8,13 +9,7 @@ beforeAll(async () => {
 });
 afterAll(() => server.close());
 
-const fifths = (up: number, down: number) => ({
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Fen Fifths',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up, down },
-  mapping: { rootKey: 60 },
-});
+const fifths = (up: number, down: number) => fifthsPreset('Fen Fifths', up, down);
 
 describe('POST /api/preview/table', () => {
   it('answers the degrees, the analysis and all 128 keys of "5 fifths up, 1 down" from C, without sign-in', async () => {
@@ -25,7 +20,7 @@ describe('POST /api/preview/table', () => {
     ]);
     expect(res.body.analysis.stepPattern.pattern).toBe('LLsLLLs');
     expect(res.body.keys).toHaveLength(128);
-    // REFERENCE.md (MIDI convention): key 60 = 261.6255653006 Hz with A4 = 440.
+    // MIDI convention: key 60 = 261.6255653006 Hz with A4 = 440.
     expect(res.body.keys[60]).toMatchObject({ key: 60, degree: 0, cents: 0 });
     expect(res.body.keys[60].hz).toBeCloseTo(261.6255653006, 9);
     // Without a layout, seven keys make a period: key 0 is 60 keys = 9 periods less 3 degrees below the root,
@@ -37,7 +32,7 @@ describe('POST /api/preview/table', () => {
   it('reports the Pythagorean comma for twelve pure fifths', async () => {
     const res = await request(server.app).post('/api/preview/table').send(fifths(11, 0));
     expect(res.status).toBe(200);
-    // REFERENCE.md: Pythagorean comma 531441/524288 = 23.4600103846 cents (standard acoustics texts).
+    // Pythagorean comma 531441/524288 = 23.4600103846 cents (standard acoustics texts).
     expect(res.body.analysis.stack.comma.ratio).toBe('531441/524288');
     expect(res.body.analysis.stack.comma.cents).toBeCloseTo(23.4600103846, 8);
   });

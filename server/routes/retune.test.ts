@@ -5,6 +5,7 @@ import { parsePresetDocument } from '../../shared/preset/preset-document';
 import { previewTable } from '../../shared/tuning/preview';
 import { asBytes } from '../../tests/support/binary-response';
 import { startTestServer } from '../../tests/support/test-server';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 beforeAll(async () => {
@@ -13,11 +14,7 @@ beforeAll(async () => {
 afterAll(() => server.close());
 
 const preset = {
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Fen Fifths',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3 },
-  mapping: { rootKey: 60 },
+  ...fifthsPreset('Fen Fifths', 8, 3),
   output: { bendRange: 2, memberChannels: [2, 9] },
 };
 const keysHz = (() => {
@@ -57,7 +54,8 @@ const retune = (file: Buffer, name: string, fields: Record<string, string>) => {
   return asBytes(req);
 };
 
-/** The frequency of an MTS word by REFERENCE.md's formula, worked here without Keyloom's decoder. */
+/** The frequency of an MTS word by the formula of the MIDI Tuning specification, worked here
+ * without Keyloom's decoder. */
 const wordHz = (xx: number, yy: number, zz: number) => 440 * 2 ** ((xx + (128 * yy + zz) / 16384 - 69) / 12);
 
 describe('POST /api/retune', () => {
@@ -99,7 +97,8 @@ describe('POST /api/retune', () => {
     const events = tuned.tracks.flat();
     const dump = events.find((e) => e.type === 'sysEx' && e.data[3] === 0x01) as { data: ArrayLike<number> } | undefined;
     if (!dump) throw new Error('no bulk dump in the retuned song');
-    // REFERENCE.md: program selection by RPN 3 on each channel that plays: Bn 64 03 65 00 06 tt.
+    // MIDI Tuning specification: program selection by RPN 3 on each channel that plays: Bn 64 03 65
+    // 00 06 tt.
     const rpn = events.filter((e) => e.type === 'controller' && (e as { channel: number }).channel === 0).map((e) => [(e as { controllerType: number }).controllerType, (e as { value: number }).value]);
     expect(rpn).toEqual(expect.arrayContaining([[0x64, 0x03], [0x65, 0x00], [0x06, 0x00]]));
     expect(events.some((e) => e.type === 'controller' && (e as { channel: number }).channel === 9)).toBe(false);
@@ -131,7 +130,8 @@ describe('POST /api/retune', () => {
         if (e.type === 'noteOn' && e.velocity > 0 && e.channel !== 9) {
           expect(e.channel).toBeGreaterThanOrEqual(1);
           expect(e.channel).toBeLessThanOrEqual(8);
-          // REFERENCE.md: pitch bend value - 8192 over 8192 of the bend range, in semitones.
+          // MIDI 1.0 specification: pitch bend value - 8192 over 8192 of the bend range, in
+          // semitones.
           const semitones = ((bend.get(e.channel) ?? 0) / 8192) * (range.get(e.channel) ?? 2);
           const hz = 440 * 2 ** ((e.noteNumber + semitones - 69) / 12);
           const original = [48, 50, 52, 53, 55, 57, 59, 60, 62, 64, 65, 67, 69, 71, 72].find((k) => Math.abs(1200 * Math.log2(keysHz[k]! / hz)) < 1);

@@ -1,17 +1,12 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestServer } from '../../tests/support/test-server';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let owner: Awaited<ReturnType<typeof server.signIn>>;
 
-const doc = (up: number) => ({
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Guest Fifths',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up, down: 0 },
-  mapping: { rootKey: 60 },
-});
+const doc = (up: number) => fifthsPreset('Guest Fifths', up, 0);
 const post = (path: string, body?: object) => owner.agent.post(path).set('X-XSRF-TOKEN', owner.xsrf).send(body);
 
 beforeAll(async () => {

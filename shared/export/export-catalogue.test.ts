@@ -14,7 +14,7 @@ function presetOf(document: Record<string, unknown>): ResolvedPreset {
   return parsed.value;
 }
 
-/** The example document of DESIGN.md, "The preset document". */
+/** The product's example preset document: fifths from F. */
 const fifthsFromF = presetOf({
   name: 'Fifths from F',
   notes: 'free text',
@@ -50,7 +50,7 @@ function rendered(preset: ResolvedPreset, format: string) {
 const text = (bytes: Uint8Array) => new TextDecoder().decode(bytes);
 
 describe('the export catalogue', () => {
-  it('offers the export formats of DESIGN.md under their contract ids', () => {
+  it('offers every export format under its contract id', () => {
     expect(exportFormats.map((format) => format.id)).toEqual([
       'mts-bulk',
       'mts-bulk-bank',
@@ -98,14 +98,14 @@ describe('the export catalogue', () => {
     for (const format of ['mts-bulk', 'mts-bulk-bank', 'mts-notes', 'mts-octave-2']) {
       const decoded = decodeMtsStream(rendered(fifthsFromF, format).bytes);
       if (!decoded.ok) throw new Error(decoded.errors[0].message);
-      // REFERENCE.md: a just fifth above equal-tempered C4, 392.4383 Hz
+      // arithmetic (MIDI convention): a just fifth above equal-tempered C4, 392.4383 Hz
       expect(decoded.value.keys[67].hz).toBeCloseTo(392.4383, 3);
       for (const entry of tuning.value.keys) {
         if (entry.hz === null) continue;
         const hz = decoded.value.keys[entry.key].hz ?? 0;
         const errorCents = Math.abs(1200 * Math.log2(hz / entry.hz));
-        // REFERENCE.md: frequency words leave at most 0.0030517578125 cents; the 2-byte
-        // scale/octave form at most half of 0.01220703125 cents
+        // MIDI Tuning specification: frequency words leave at most 0.0030517578125 cents; the
+        // 2-byte scale/octave form at most half of 0.01220703125 cents
         expect(errorCents).toBeLessThanOrEqual(format === 'mts-octave-2' ? 0.0061036 : 0.0030518);
       }
     }
@@ -140,7 +140,7 @@ describe('the export catalogue', () => {
       mapping: { rootKey: 60, rootHz: 1000 },
     });
     const file = rendered(high, 'mts-bulk');
-    // REFERENCE.md: 7F 7F 7E = 13289.6566 Hz is the top of the range
+    // MIDI Tuning specification: 7F 7F 7E = 13289.6566 Hz is the top of the range
     expect([...file.bytes.subarray(22 + 3 * 127, 25 + 3 * 127)]).toEqual([0x7f, 0x7f, 0x7e]);
     expect(file.warnings).toHaveLength(1);
     expect(file.warnings[0].message).toMatch(/^mapping: keys 105-127 lie outside the pitches MTS/);

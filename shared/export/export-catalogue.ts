@@ -12,7 +12,7 @@ import { keyTableCsv } from './key-table-csv';
 import { presetDocumentFile } from './preset-export';
 import { type PresetTuning, tuningOfPreset } from './preset-tuning';
 
-/** The export formats of DESIGN.md that are rendered from one preset (ids are a contract). */
+/** The export formats rendered from one preset (ids are a contract: clients and links name them). */
 export const exportFormats = [
   {
     id: 'mts-bulk',

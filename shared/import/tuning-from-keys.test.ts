@@ -31,7 +31,7 @@ const doc = (scale: object, mapping: object = { rootKey: 60 }): PresetDocument =
 
 describe('presetFromKeys', () => {
   it('finds twelve equal steps in a 12-tone equal dump, with the octave as period', () => {
-    // REFERENCE.md (MIDI convention): key n = 440 * 2^((n-69)/12).
+    // MIDI convention: key n = 440 * 2^((n-69)/12).
     const keys = Array.from({ length: 128 }, (_, key) => ({ key, hz: 440 * 2 ** ((key - 69) / 12) }));
     const imported = presetFromKeys(keys, 'Equal');
     expect(imported.ok).toBe(true);
@@ -61,8 +61,8 @@ describe('presetFromKeys', () => {
     const original = dumpedKeys(doc({ kind: 'equal', divisions: 13, period: '3/1' }, { rootKey: 57 }));
     const { imported, again } = importAndDumpAgain(original);
     expect((imported.document.scale as { period: string }).period).toBe('3/1');
-    // REFERENCE.md: a frequency word counts 100/16384 cents; 3/1 is no whole number of them, so a period read back
-    // from rounded words can land one unit off (arithmetic).
+    // MIDI Tuning specification: a frequency word counts 100/16384 cents; 3/1 is no whole number of
+    // them, so a period read back from rounded words can land one unit off (arithmetic).
     const unit = 100 / 16384;
     for (const { key, hz } of original) {
       const back = again[key].hz;

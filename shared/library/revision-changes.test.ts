@@ -25,7 +25,7 @@ describe('summarizeChanges', () => {
     const [moved] = summarizeChanges(pure, wider).degreesMoved;
     expect(moved.from.ratio).toBe('5/4');
     expect(moved.to.ratio).toBe('81/64');
-    // REFERENCE.md: syntonic comma 81/80 = 21.5062895967 cents (standard acoustics texts).
+    // Syntonic comma 81/80 = 21.5062895967 cents (standard acoustics texts).
     expect(moved.byCents).toBeCloseTo(21.5062895967, 8);
   });
 

@@ -17,7 +17,7 @@ describe('pitch-bend tables', () => {
     const table = bendTable(twelveEqualKeys, output);
     expect(table.rows).toHaveLength(128);
     expect(table.channelAssignment).toBe('fixed');
-    // REFERENCE.md: MIDI 1.0 pitch bend centre 8192
+    // MIDI 1.0 specification, pitch bend centre 8192
     expect(table.rows.every((row) => row.bendValue14 === 8192)).toBe(true);
     expect(table.rows.every((row) => row.note === row.key && row.channel === 2)).toBe(true);
   });
@@ -26,8 +26,8 @@ describe('pitch-bend tables', () => {
     const table = bendTable(pureFifthsOnWhiteKeys, output);
     expect(table.rows.some((row) => row.key === 61)).toBe(false);
     const g4 = table.rows.find((row) => row.key === 67);
-    // REFERENCE.md: pure fifths from equal-tempered C4, G 392.4383 Hz against 391.9954 Hz: +1.955
-    // cents, at 0.0244140625 cents per step of a +-2 semitone range
+    // arithmetic (MIDI convention): pure fifths from equal-tempered C4, G 392.4383 Hz against
+    // 391.9954 Hz: +1.955 cents, at 0.0244140625 cents per step of a +-2 semitone range
     expect(g4).toMatchObject({ note: 67, bendValue14: 8192 + Math.round(1.955 / 0.0244140625) });
     const channelsByBend = new Map<number, Set<number>>();
     for (const row of table.rows) {
@@ -56,7 +56,7 @@ describe('pitch-bend tables', () => {
           if (errorCents > halfStep) beyond.push(row.key);
           else largestErrorCents = Math.max(largestErrorCents, errorCents);
         }
-        // REFERENCE.md: MIDI 1.0 resolution 100 * range / 8192 cents per step; half a step at most
+        // MIDI 1.0 specification, resolution 100 * range / 8192 cents per step; half a step at most
         expect(largestErrorCents).toBeLessThanOrEqual(halfStep);
         expect(table.warnings.length).toBe(beyond.length > 0 ? 1 : 0);
         const outsideKeyboard = (key: number) => {
@@ -75,7 +75,7 @@ describe('pitch-bend tables', () => {
     expect(csv[0]).toBe('key,hz,channel,note,bend,residual_cents');
     expect(csv).toHaveLength(table.rows.length + 1);
     const json = JSON.parse(bendTableJson(table));
-    // REFERENCE.md: MIDI 1.0 resolution at +-48 semitones is 0.5859375 cents per step
+    // MIDI 1.0 specification, resolution at +-48 semitones is 0.5859375 cents per step
     expect(json.bendStepCents).toBe(0.5859375);
     const jsonRows = json.keys.map(
       (row: { key: number; bend: number }) => `${row.key}:${row.bend}`,

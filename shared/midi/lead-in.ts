@@ -5,8 +5,8 @@ import { ByteBuffer } from './smf-writer';
 
 /**
  * The lead-in of a retuned song: instruments need a moment to apply a tuning dump, so everything after the
- * song's setup at tick 0 (names, tempo, programs, controllers) moves later by a settable time (DESIGN.md,
- * "a lead-in, default 100 ms, settable, 0 allowed"). Only one delta time per track changes: the one before its
+ * song's setup at tick 0 (names, tempo, programs, controllers) moves later by a settable time (the lead-in:
+ * 100 ms unless set, 0 allowed). Only one delta time per track changes: the one before its
  * first note or first event after tick 0.
  */
 

@@ -3,7 +3,7 @@ import { MemberChannelAllocator, mpeSetupMessages, mpeZoneOf } from './mpe';
 
 describe('MPE zones', () => {
   it('makes a lower zone when channel 1 is free to manage it', () => {
-    // REFERENCE.md: MPE lower zone, manager channel 1, member channels 2 upward
+    // MPE specification (MMA RP-053): lower zone, manager channel 1, member channels 2 upward
     expect(mpeZoneOf([2, 16])).toMatchObject({ managerChannel: 1, memberCount: 15, warnings: [] });
     expect(mpeZoneOf([3, 8])).toMatchObject({
       managerChannel: 1,
@@ -13,7 +13,7 @@ describe('MPE zones', () => {
   });
 
   it('makes an upper zone when the members start at channel 1', () => {
-    // REFERENCE.md: MPE upper zone, manager 16, members downward
+    // MPE specification (MMA RP-053): upper zone, manager 16, members downward
     expect(mpeZoneOf([1, 8])).toMatchObject({ managerChannel: 16, memberCount: 15 });
   });
 
@@ -26,8 +26,8 @@ describe('MPE zones', () => {
 
   it('configures the zone before setting the bend range on every member channel', () => {
     const messages = mpeSetupMessages(mpeZoneOf([2, 4]), 48);
-    // REFERENCE.md: MPE configuration on the manager channel Bn 64 06, Bn 65 00, Bn 06 count; bend
-    // range RPN 0
+    // MPE specification (MMA RP-053): configuration on the manager channel Bn 64 06, Bn 65 00, Bn
+    // 06 count; bend range RPN 0
     expect(messages.slice(0, 3)).toEqual([
       [0xb0, 0x64, 0x06],
       [0xb0, 0x65, 0x00],

@@ -22,8 +22,8 @@ describe('MTS bulk dump (08 01)', () => {
       tuningName: '12-TET',
     });
     const [dump] = messages;
-    // REFERENCE.md: check value, a 12-tone equal dump, device 7F, program 0, name "12-TET" padded
-    // with spaces to 16 bytes, entries nn 00 00, has checksum 0x63 and 408 bytes
+    // MIDI Tuning specification: check value, a 12-tone equal dump, device 7F, program 0, name
+    // "12-TET" padded with spaces to 16 bytes, entries nn 00 00, has checksum 0x63 and 408 bytes
     expect(dump).toHaveLength(408);
     expect([...dump.subarray(0, 6)]).toEqual([0xf0, 0x7e, 0x7f, 0x08, 0x01, 0x00]);
     expect(String.fromCharCode(...dump.subarray(6, 22))).toBe('12-TET          ');
@@ -36,7 +36,8 @@ describe('MTS bulk dump (08 01)', () => {
   it('writes unmapped keys as "no change" and the just fifth G as 43 02 40', () => {
     const target = { ...allDevices, tuningName: 'FIFTHS C' };
     const [dump] = encodeBulkDump(pureFifthsOnWhiteKeys, target).messages;
-    // REFERENCE.md: 7F 7F 7F means "no change"; a just fifth above equal-tempered C4 is 43 02 40
+    // MIDI Tuning specification: 7F 7F 7F means "no change"; a just fifth above equal-tempered C4
+    // is 43 02 40
     expect(wordOfKey(dump, 61)).toEqual([0x7f, 0x7f, 0x7f]);
     expect(wordOfKey(dump, 67)).toEqual([0x43, 0x02, 0x40]);
     expect(wordOfKey(dump, 60)).toEqual([0x3c, 0x00, 0x00]);
@@ -52,8 +53,8 @@ describe('MTS bulk dump (08 01)', () => {
   it('clamps keys MTS cannot express and reports them', () => {
     const high = twelveEqualKeys.map((entry) => ({ key: entry.key, hz: (entry.hz ?? 0) * 1.2 }));
     const { messages, warnings } = encodeBulkDump(high, { ...allDevices, tuningName: 'high' });
-    // REFERENCE.md: 7F 7F 7E = 13289.6566 Hz is the top of the range; key 125 * 1.2 = 13410.6 Hz
-    // lies above it
+    // MIDI Tuning specification: 7F 7F 7E = 13289.6566 Hz is the top of the range; key 125 * 1.2 =
+    // 13410.6 Hz lies above it
     expect(wordOfKey(messages[0], 127)).toEqual([0x7f, 0x7f, 0x7e]);
     expect(warnings).toHaveLength(1);
     expect(warnings[0].path).toBe('mapping');
@@ -77,7 +78,8 @@ describe('MTS bulk dump (08 01)', () => {
             largestErrorCents = Math.max(largestErrorCents, errorCents);
           }
         }
-        // REFERENCE.md: rounding to the nearest unit leaves at most 0.0030517578125 cents of error
+        // MIDI Tuning specification: rounding to the nearest unit leaves at most 0.0030517578125
+        // cents of error
         expect(largestErrorCents).toBeLessThanOrEqual(0.0030518);
       }),
       { numRuns: 300 },
@@ -90,13 +92,14 @@ describe('MTS key-based dump with bank (08 04)', () => {
 
   it('writes bank and program before the name, 409 bytes, and reads them back', () => {
     const [dump] = encodeBankedBulkDump(pureFifthsOnWhiteKeys, target).messages;
-    // REFERENCE.md: MTS 04 key-based dump with bank, F0 7E dev 08 04 bb tt name[16]
+    // MIDI Tuning specification: MTS 04 key-based dump with bank, F0 7E dev 08 04 bb tt name[16]
     // (xx yy zz)x128 cs F7, 409 bytes
     expect(dump).toHaveLength(409);
     expect([...dump.subarray(0, 7)]).toEqual([0xf0, 0x7e, 0x10, 0x08, 0x04, 0x03, 0x05]);
     let xor = 0;
     for (let index = 1; index < 407; index++) xor ^= dump[index];
-    // REFERENCE.md: checksum = XOR of every byte after F0 up to the last data byte, AND 7F
+    // MIDI Tuning specification: checksum = XOR of every byte after F0 up to the last data byte,
+    // AND 7F
     expect(dump[407]).toBe(xor & 0x7f);
     const decoded = decodeBulkDump(dump);
     expect(decoded.ok && decoded.value).toMatchObject({

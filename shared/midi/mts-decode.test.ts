@@ -71,8 +71,8 @@ describe('decoding MTS messages and .syx streams', () => {
     const decoded = decodeMtsStream(concatenate([...dump, ...changes]));
     if (!decoded.ok) throw new Error(decoded.errors[0].message);
     expect(decoded.value.messages).toHaveLength(1 + changes.length);
-    // REFERENCE.md: pure fifths from equal-tempered C4: G = 392.4383 Hz; equal-tempered C#4 =
-    // 277.1826 Hz (frequency word table, 3D 00 00)
+    // arithmetic (MIDI convention): pure fifths from equal-tempered C4: G = 392.4383 Hz;
+    // equal-tempered C#4 = 277.1826 Hz (frequency word table, 3D 00 00)
     expect(decoded.value.keys[67].hz).toBeCloseTo(392.4383, 3);
     expect(decoded.value.keys[61].hz).toBeCloseTo(277.1826, 3);
   });

@@ -4,7 +4,7 @@ import { decodeDumpRequest, encodeDumpRequest } from './mts-dump-request';
 describe('MTS bulk dump request (08 00)', () => {
   it('asks for one tuning program in 7 bytes and reads back', () => {
     const request = encodeDumpRequest({ deviceId: 0x7f, program: 9 });
-    // REFERENCE.md: MTS 00 dump request, F0 7E dev 08 00 tt F7, 7 bytes
+    // MIDI Tuning specification: MTS 00 dump request, F0 7E dev 08 00 tt F7, 7 bytes
     expect([...request]).toEqual([0xf0, 0x7e, 0x7f, 0x08, 0x00, 0x09, 0xf7]);
     expect(decodeDumpRequest(request)).toEqual({
       ok: true,

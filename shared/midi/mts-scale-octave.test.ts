@@ -29,8 +29,8 @@ describe('MTS scale/octave tuning (08 08, 08 09)', () => {
       const [message] = encodeScaleOctave1(offsets, { ...target, channels }).messages;
       return [...message.subarray(5, 8)];
     };
-    // REFERENCE.md: channel bitmap, all channels = 03 7F 7F; hh bits 0-6 = channels 1-7, gg bits
-    // 0-6 = channels 8-14, ff bits 0-1 = channels 15-16
+    // MIDI Tuning specification: channel bitmap, all channels = 03 7F 7F; hh bits 0-6 = channels
+    // 1-7, gg bits 0-6 = channels 8-14, ff bits 0-1 = channels 15-16
     expect(bitmap(everyChannel)).toEqual([0x03, 0x7f, 0x7f]);
     expect(bitmap([1])).toEqual([0x00, 0x00, 0x01]);
     expect(bitmap([8, 16])).toEqual([0x02, 0x01, 0x00]);
@@ -40,7 +40,8 @@ describe('MTS scale/octave tuning (08 08, 08 09)', () => {
     const offsets = offsetsOf(twelveEqualKeys);
     const [one] = encodeScaleOctave1(offsets, target).messages;
     const [two] = encodeScaleOctave2(offsets, target).messages;
-    // REFERENCE.md: 08 08 is 21 bytes, ss = 40 is 0 cents; 08 09 is 33 bytes, 40 00 is 0 cents
+    // MIDI Tuning specification: 08 08 is 21 bytes, ss = 40 is 0 cents; 08 09 is 33 bytes, 40 00 is
+    // 0 cents
     const header = [0xf0, 0x7f, 0x7f, 0x08, 0x08, 0x03, 0x7f, 0x7f];
     expect([...one]).toEqual([...header, ...new Array(12).fill(0x40), 0xf7]);
     expect(two).toHaveLength(33);
@@ -49,22 +50,22 @@ describe('MTS scale/octave tuning (08 08, 08 09)', () => {
 
   it('writes pure fifths as the offset of each note name, unmapped ones unchanged', () => {
     const offsets = offsetsOf(pureFifthsOnWhiteKeys);
-    // REFERENCE.md: pure fifths from equal-tempered C4: G 392.4383 Hz against 391.9954 (+1.955
-    // cents), E 331.1199 against 329.6276
+    // arithmetic (MIDI convention): pure fifths from equal-tempered C4: G 392.4383 Hz against
+    // 391.9954 (+1.955 cents), E 331.1199 against 329.6276
     expect(offsets[7]).toBeCloseTo(1.955, 3);
     expect(offsets[4]).toBeCloseTo(1200 * Math.log2(331.1199 / 329.6276), 3);
     expect(offsets[1]).toBeNull();
     const { messages, warnings } = encodeScaleOctave2(offsets, { ...target, realTime: false });
-    // REFERENCE.md: 2-byte offset v = 128*ss + tt, cents = (v - 8192) * 100 / 8192: +1.955 cents
-    // is v = 8352
+    // MIDI Tuning specification: 2-byte offset v = 128*ss + tt, cents = (v - 8192) * 100 / 8192:
+    // +1.955 cents is v = 8352
     expect([...messages[0].subarray(8 + 14, 8 + 16)]).toEqual([8352 >> 7, 8352 & 0x7f]);
     expect(messages[0][1]).toBe(0x7e);
     expect(warnings.map((warning) => warning.message)).toEqual([
       'mapping: C#, D#, F#, G#, A# have no mapped key; sent in equal temperament',
     ]);
     const [one] = encodeScaleOctave1(offsets, target).messages;
-    // REFERENCE.md: 1-byte offset, cents = ss - 64: +2 cents (1.955 rounded) is 42, +8 cents
-    // (7.82 rounded) is 48
+    // MIDI Tuning specification: 1-byte offset, cents = ss - 64: +2 cents (1.955 rounded) is 42, +8
+    // cents (7.82 rounded) is 48
     expect(one[8 + 7]).toBe(0x42);
     expect(one[8 + 4]).toBe(0x48);
   });
@@ -87,7 +88,7 @@ describe('MTS scale/octave tuning (08 08, 08 09)', () => {
       hz: (entry.hz ?? 0) * 2 ** (80 / 1200),
     }));
     const { messages, warnings } = encodeScaleOctave1(offsetsOf(sharp), target);
-    // REFERENCE.md: 1-byte offset, 7F = +63 cents is the top
+    // MIDI Tuning specification: 1-byte offset, 7F = +63 cents is the top
     expect(messages[0][8]).toBe(0x7f);
     expect(warnings[0].message).toMatch(
       /C, C#, D, D#, E, F, F#, G, G#, A, A#, B lie further .* -64 to \+63\.000 cents/,
@@ -123,8 +124,8 @@ describe('MTS scale/octave tuning (08 08, 08 09)', () => {
           if (!applies) continue;
           for (const entry of keys) {
             const hz = decoded.value.keys[entry.key].hz ?? 0;
-            // REFERENCE.md: 2-byte step 0.01220703125 cents, 1-byte step 1 cent; rounding to the
-            // nearest leaves half a step
+            // MIDI Tuning specification: 2-byte step 0.01220703125 cents, 1-byte step 1 cent;
+            // rounding to the nearest leaves half a step
             const errorCents = Math.abs(centsBetween(entry.hz ?? 0, hz));
             expect(errorCents).toBeLessThanOrEqual(halfStepCents + 1e-9);
           }

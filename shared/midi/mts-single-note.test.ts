@@ -18,8 +18,8 @@ describe('MTS single-note tuning changes (08 02, 08 07)', () => {
     const total = messages.reduce((sum, message) => sum + message[6], 0);
     expect(total).toBe(mapped.length);
     const [first] = messages;
-    // REFERENCE.md: MTS 02 single-note change, real-time, F0 7F dev 08 02 tt ll (kk xx yy zz)xll
-    // F7, 8 + 4ll bytes
+    // MIDI Tuning specification: MTS 02 single-note change, real-time, F0 7F dev 08 02 tt ll (kk xx
+    // yy zz)xll F7, 8 + 4ll bytes
     expect([...first.subarray(0, 6)]).toEqual([0xf0, 0x7f, 0x7f, 0x08, 0x02, 0x02]);
     expect(first).toHaveLength(8 + 4 * first[6]);
     expect(first[first.length - 1]).toBe(0xf7);
@@ -29,7 +29,8 @@ describe('MTS single-note tuning changes (08 02, 08 07)', () => {
     const { messages } = encodeSingleNoteChanges(pureFifthsOnWhiteKeys, target, bankless);
     const bytes = [...messages[0]];
     const at = bytes.findIndex((byte, index) => index > 6 && (index - 7) % 4 === 0 && byte === 67);
-    // REFERENCE.md: a just fifth above equal-tempered C4, 392.4383 Hz, encodes as 43 02 40
+    // MIDI Tuning specification: a just fifth above equal-tempered C4, 392.4383 Hz, encodes as 43
+    // 02 40
     expect(bytes.slice(at, at + 4)).toEqual([67, 0x43, 0x02, 0x40]);
   });
 
@@ -43,7 +44,7 @@ describe('MTS single-note tuning changes (08 02, 08 07)', () => {
   it('writes the bank form with bank and program, real-time or not', () => {
     const options = { withBank: true, keysPerMessage: 1 };
     const realTime = encodeSingleNoteChanges(twelveEqualKeys, target, options);
-    // REFERENCE.md: MTS 07 single-note change with bank, F0 7F|7E dev 08 07 bb tt ll
+    // MIDI Tuning specification: MTS 07 single-note change with bank, F0 7F|7E dev 08 07 bb tt ll
     // (kk xx yy zz)xll F7, 9 + 4ll bytes
     expect([...realTime.messages[60]]).toEqual([
       0xf0, 0x7f, 0x7f, 0x08, 0x07, 0x01, 0x02, 0x01, 60, 0x3c, 0x00, 0x00, 0xf7,
@@ -78,7 +79,8 @@ describe('MTS single-note tuning changes (08 02, 08 07)', () => {
           if (entry.hz === null) expect(decoded.has(entry.key)).toBe(false);
           else if (!entry.outOfMtsRange) {
             const errorCents = Math.abs(centsBetween(entry.hz, decoded.get(entry.key) ?? 0));
-            // REFERENCE.md: rounding to the nearest unit leaves at most 0.0030517578125 cents
+            // MIDI Tuning specification: rounding to the nearest unit leaves at most
+            // 0.0030517578125 cents
             expect(errorCents).toBeLessThanOrEqual(0.0030518);
           }
         }

@@ -10,14 +10,14 @@ import {
 
 describe('pitch bend', () => {
   it('has the resolution of the MIDI 1.0 specification', () => {
-    // REFERENCE.md: MIDI 1.0 resolution, 100 * range / 8192 cents per step: 0.0244140625 at +-2,
+    // MIDI 1.0 specification, resolution, 100 * range / 8192 cents per step: 0.0244140625 at +-2,
     // 0.5859375 at +-48
     expect(bendStepCents(2)).toBe(0.0244140625);
     expect(bendStepCents(48)).toBe(0.5859375);
   });
 
   it('writes En ll mm, LSB first, centre 00 40', () => {
-    // REFERENCE.md: MIDI 1.0 pitch bend En ll mm, LSB first, value = 128*mm + ll, centre 8192
+    // MIDI 1.0 specification, pitch bend En ll mm, LSB first, value = 128*mm + ll, centre 8192
     // (En 00 40)
     expect(pitchBendMessage(1, 8192)).toEqual([0xe0, 0x00, 0x40]);
     expect(pitchBendMessage(16, 16383)).toEqual([0xef, 0x7f, 0x7f]);
@@ -25,8 +25,8 @@ describe('pitch bend', () => {
   });
 
   it('plays the just fifth above C4 as G4 bent up 1.955 cents', () => {
-    // REFERENCE.md: pure fifths from equal-tempered C4: G 392.4383 Hz against equal-tempered
-    // 391.9954 Hz
+    // arithmetic (MIDI convention): pure fifths from equal-tempered C4: G 392.4383 Hz against
+    // equal-tempered 391.9954 Hz
     const bent = bendForPitch(392.4383, 2);
     expect(bent.note).toBe(67);
     expect(bent.bendValue14).toBe(8192 + Math.round(1.955 / 0.0244140625));
@@ -43,7 +43,7 @@ describe('pitch bend', () => {
   });
 
   it('flags pitches beyond the keys it can bend', () => {
-    // REFERENCE.md: key 127 = 12543.8539514 Hz; 20 kHz lies 8 semitones above it
+    // MIDI convention: key 127 = 12543.8539514 Hz; 20 kHz lies 8 semitones above it
     expect(bendForPitch(20000, 2)).toMatchObject({ note: 127, bendValue14: 16383, clamped: true });
     expect(bendForPitch(20000, 12).clamped).toBe(false);
   });
@@ -57,7 +57,8 @@ describe('pitch bend', () => {
         const sounding = 440 * 2 ** ((bent.note - 69) / 12 + bentCents / 1200);
         const errorCents = 1200 * Math.log2(hz / sounding);
         expect(errorCents).toBeCloseTo(bent.residualCents, 9);
-        // REFERENCE.md: resolution 100 * range / 8192 cents per step; nearest leaves half a step
+        // MIDI 1.0 specification: resolution 100 * range / 8192 cents per step; nearest leaves half
+        // a step
         expect(Math.abs(errorCents)).toBeLessThanOrEqual(bendStepCents(range) / 2 + 1e-9);
       }),
       { numRuns: 3000 },

@@ -21,7 +21,7 @@ function regionsOf(text: string): Region[] {
 
 /** The pitch a region plays: the middle C sample moved by (key - centre) semitones + tune cents. */
 function soundingHz(region: Region): number {
-  // REFERENCE.md: key 60 = 261.6255653006 Hz (MIDI convention)
+  // MIDI convention: key 60 = 261.6255653006 Hz (MIDI convention)
   return 261.6255653006 * 2 ** (((region.key - region.centre) * 100 + region.tune) / 1200);
 }
 
@@ -40,8 +40,8 @@ describe('SFZ sampler maps', () => {
   it('writes one region per mapped key: the just fifth G4 is 2 cents sharp', () => {
     const regions = regionsOf(sfzMap(pureFifthsOnWhiteKeys, { name: 'fifths' }).text);
     expect(regions.map((region) => region.key)).not.toContain(61);
-    // REFERENCE.md: pure fifths from equal-tempered C4, G = 392.4383 Hz, 1.955 cents above
-    // equal-tempered G (391.9954 Hz)
+    // arithmetic (MIDI convention): pure fifths from equal-tempered C4, G = 392.4383 Hz, 1.955
+    // cents above equal-tempered G (391.9954 Hz)
     expect(regions.find((region) => region.key === 67)).toEqual({ key: 67, centre: 60, tune: 2 });
   });
 
@@ -87,7 +87,7 @@ describe('SFZ sampler maps from several samples', () => {
     expect([sampleOf(30), sampleOf(48), sampleOf(49), sampleOf(72), sampleOf(73), sampleOf(120)]).toEqual([
       'piano-c2.wav', 'piano-c2.wav', 'piano-c4.wav', 'piano-c4.wav', 'piano-c6.wav', 'piano-c6.wav',
     ]);
-    // Each sample sounds its key's equal-tempered pitch (MIDI convention, REFERENCE.md): moved by (key - centre)
+    // Each sample sounds its key's equal-tempered pitch (MIDI convention): moved by (key - centre)
     // semitones plus tune cents from its own key, every key of twelve equal sounds exactly.
     for (const region of regions) {
       const sampleKey = samples.find((sample) => sample.file === region.file)!.key;

@@ -34,7 +34,7 @@ describe('Standard MIDI File writer', () => {
     const track = new TrackWriter();
     track.systemExclusive(0, dump);
     const bytes = track.finish();
-    // REFERENCE.md: SMF 1.0, a system exclusive event is F0 <variable-length n> <n bytes after F0,
+    // SMF 1.0, a system exclusive event is F0 <variable-length n> <n bytes after F0,
     // including F7>;
     // a bulk dump is stored as F0 83 17 7E ... F7
     expect([...bytes.subarray(0, 5)]).toEqual([0x00, 0xf0, 0x83, 0x17, 0x7e]);
@@ -51,7 +51,7 @@ describe('Standard MIDI File writer', () => {
     track.channelMessage(20, 0xc0, 6);
     track.meta(20, 0x01, [0x41]);
     track.channelMessage(30, 0xc0, 7);
-    // REFERENCE.md: SMF 1.0, system exclusive and meta events cancel running status
+    // SMF 1.0, system exclusive and meta events cancel running status
     expect([...track.finish()]).toEqual([
       ...[0x00, 0x90, 60, 100, 0x0a, 64, 100, 0x00, 0xc0, 5],
       ...[0x0a, 0xf0, 0x05, 0x7e, 0x7f, 0x09, 0x01, 0xf7, 0x00, 0xc0, 6],

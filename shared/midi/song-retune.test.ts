@@ -117,7 +117,8 @@ describe('retuning a song with MTS', () => {
     );
     const decoded = decodeMtsStream(Uint8Array.from(sysex.flat()));
     if (!decoded.ok) throw new Error(decoded.errors[0].message);
-    // REFERENCE.md: MTS 01 bulk dump and 02 single-note changes; a just fifth G4 = 392.4383 Hz
+    // MIDI Tuning specification: MTS 01 bulk dump and 02 single-note changes; a just fifth G4 =
+    // 392.4383 Hz
     expect(decoded.value.messages.map((message) => message.kind)).toEqual([
       'bulk-dump',
       'single-note',
@@ -134,8 +135,8 @@ describe('retuning a song with MTS', () => {
         ? [[event.channel + 1, event.value]]
         : [],
     );
-    // REFERENCE.md: selecting a tuning program/bank, Bn 64 03 65 00 06 tt (program) and RPN 4
-    // (bank): bank 0 then program 4 on channels 1 and 2
+    // MIDI Tuning specification: selecting a tuning program/bank, Bn 64 03 65 00 06 tt (program)
+    // and RPN 4 (bank): bank 0 then program 4 on channels 1 and 2
     expect(dataEntries).toEqual([
       [1, 0],
       [1, 4],
@@ -196,7 +197,7 @@ describe('retuning a song as MPE', () => {
     }
     const centsOf = (key: number) => 1200 * Math.log2((pureFifthsOnWhiteKeys[key].hz ?? 0) / 440);
     // The piano's bend 0x3000 above centre is +1 semitone of its default range of 2 semitones
-    // (REFERENCE.md: MIDI 1.0, default range +-2, value = 128*mm + ll)
+    // (MIDI 1.0 specification, default range +-2, value = 128*mm + ll)
     const expected: [number, number][] = [
       [0, centsOf(60)],
       [0, centsOf(64)],
@@ -210,7 +211,7 @@ describe('retuning a song as MPE', () => {
     sort(expected);
     sort(starts).forEach(([tick, cents], index) => {
       expect(tick).toBe(expected[index][0]);
-      // REFERENCE.md: MIDI 1.0 resolution at +-2 semitones, 0.0244140625 cents per step; half a
+      // MIDI 1.0 specification, resolution at +-2 semitones, 0.0244140625 cents per step; half a
       // step at most
       expect(Math.abs(cents - expected[index][1])).toBeLessThanOrEqual(0.0244140625 / 2 + 1e-9);
     });
@@ -223,7 +224,8 @@ describe('retuning a song as MPE', () => {
     const bentCents = at480
       .map((event) => ('value' in event ? centsOfBendValue(event.value + 8192, 2) : 0))
       .sort((a, b) => a - b);
-    // REFERENCE.md: just E4 = 331.1199 Hz against equal-tempered 329.6276 Hz, plus 100 cents
+    // Arithmetic (MIDI convention): just E4 = 331.1199 Hz against equal-tempered 329.6276 Hz, plus
+    // 100 cents
     expect(bentCents[2]).toBeCloseTo(100 + centsBetween(329.6276, 331.1199), 1);
   });
 
@@ -253,7 +255,8 @@ describe('retuning a song as MPE', () => {
 
   it('configures the zone and the bend range first', () => {
     const first = tracks[0].filter((event) => event.type === 'controller').slice(0, 3);
-    // REFERENCE.md: MPE configuration on the manager channel, Bn 64 06, Bn 65 00, Bn 06 count
+    // MPE specification (MMA RP-053): configuration on the manager channel, Bn 64 06, Bn 65 00, Bn
+    // 06 count
     expect(first.map((event) => ('value' in event ? [event.channel, event.value] : []))).toEqual([
       [0, 6],
       [0, 0],

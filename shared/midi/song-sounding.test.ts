@@ -26,7 +26,8 @@ describe('what a song sounds like, note by note', () => {
   it('plays an untuned song in 12-tone equal temperament at A4 = 440 Hz', () => {
     const sound = songSound(song);
     if (!sound.ok) throw new Error(sound.errors[0].message);
-    // REFERENCE.md frequency words: 3C 00 00 is 261.6256 Hz (middle C), 45 00 00 is 440 Hz.
+    // MIDI Tuning specification, frequency words: 3C 00 00 is 261.6256 Hz (middle C), 45 00 00 is
+    // 440 Hz.
     expect(sound.value.notes[0].hz).toBeCloseTo(261.6256, 3);
     expect(sound.value.notes.find((note) => Math.abs(note.hz - 440) < 1e-9)).toBeDefined();
     expect(sound.value.drumNotes).toBe(2);
@@ -59,7 +60,8 @@ describe('what a song sounds like, note by note', () => {
       const heard = sound.value.notes.map((note) => note.hz);
       expect(heard.length).toBe(written.length);
       for (const [index, key] of written.entries()) {
-        // MTS words round to 0.0031 cents (REFERENCE.md); a 14-bit bend over 2 semitones steps 0.0244 cents.
+        // MTS words round to 0.0031 cents (MIDI Tuning specification); a 14-bit bend over 2
+        // semitones steps 0.0244 cents.
         const tolerance = mode === 'mts' ? 0.0031 : 0.0123;
         expect(Math.abs(cents(heard[index], pureFifthsOnWhiteKeys[key].hz!))).toBeLessThanOrEqual(tolerance);
       }

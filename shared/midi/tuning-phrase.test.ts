@@ -46,7 +46,7 @@ describe('the smf phrase file', () => {
   it('tunes at tick 0 with a bulk dump and single-note changes that decode to the tuning', () => {
     const atStart = parsed.tracks[0].filter((event) => event.deltaTime === 0);
     const sysex = sysexOf(atStart);
-    // REFERENCE.md: SMF 1.0, a bulk dump is stored as F0 83 17 7E ... F7 (407 bytes after F0)
+    // SMF 1.0, a bulk dump is stored as F0 83 17 7E ... F7 (407 bytes after F0)
     expect(sysex[0]).toHaveLength(408);
     expect(sysex[0].slice(0, 5)).toEqual([0xf0, 0x7e, 0x7f, 0x08, 0x01]);
     expect(sysex.slice(1).every((message) => message[4] === 0x02)).toBe(true);
@@ -57,14 +57,15 @@ describe('the smf phrase file', () => {
     for (const entry of pureFifthsOnWhiteKeys) {
       const hz = decoded.value.keys[entry.key].hz;
       if (entry.hz === null) expect(hz).toBeNull();
-      // REFERENCE.md: MTS rounding to the nearest unit leaves at most 0.0030517578125 cents
+      // MIDI Tuning specification: rounding to the nearest unit leaves at most 0.0030517578125
+      // cents
       else expect(Math.abs(centsBetween(entry.hz, hz ?? 0))).toBeLessThanOrEqual(0.0030518);
     }
     expect(warnings).toEqual([]);
   });
 
   it('selects the tuning bank and program on channel 1 with RPN 4 and RPN 3', () => {
-    // REFERENCE.md: MIDI Tuning Standard, selecting a tuning program/bank, Bn 64 03 65 00 06 tt
+    // MIDI Tuning specification, selecting a tuning program/bank, Bn 64 03 65 00 06 tt
     // (RPN 3 program, RPN 4 bank)
     expect(controllers(parsed.tracks[0]).slice(0, 6)).toEqual([
       [1, 0x64, 0x04],
@@ -98,7 +99,8 @@ describe('the smf phrase file', () => {
   it('uses the bank forms for a tuning in another bank', () => {
     const inBank = tuningPhraseFile({ ...fifths, output: { ...output, bank: 2 } });
     const sysex = sysexOf(parseMidi(inBank.bytes).tracks[0]);
-    // REFERENCE.md: MTS 04 key-based dump with bank and 07 single-note change with bank
+    // MIDI Tuning specification: MTS 04 key-based dump with bank and 07 single-note change with
+    // bank
     expect(sysex.map((message) => message[4])).toEqual([0x04, 0x07, 0x07, 0x07]);
   });
 
@@ -117,14 +119,15 @@ describe('the mpe-smf phrase file', () => {
 
   it('configures the zone and sets the bend range on every member channel first', () => {
     const setup = controllers(parsed.tracks[0]);
-    // REFERENCE.md: MPE configuration on the manager channel, Bn 64 06, Bn 65 00, Bn 06 count (15
-    // members, channels 2-16)
+    // MPE specification (MMA RP-053): configuration on the manager channel, Bn 64 06, Bn 65 00, Bn
+    // 06 count (15 members, channels 2-16)
     expect(setup.slice(0, 3)).toEqual([
       [1, 0x64, 0x06],
       [1, 0x65, 0x00],
       [1, 0x06, 15],
     ]);
-    // REFERENCE.md: bend range RPN 0, Bn 65 00, Bn 64 00, Bn 06 semitones, Bn 26 cents, null RPN
+    // MIDI 1.0 specification: bend range RPN 0, Bn 65 00, Bn 64 00, Bn 06 semitones, Bn 26 cents,
+    // null RPN
     for (let channel = 2; channel <= 16; channel++) {
       expect(setup.filter((entry) => entry[0] === channel).slice(0, 6)).toEqual([
         [channel, 0x65, 0],
@@ -167,7 +170,7 @@ describe('the mpe-smf phrase file', () => {
       .flatMap((track) =>
         track.notes.map((note) => {
           const bend = track.pitchBends.filter((pitchBend) => pitchBend.ticks <= note.ticks).at(-1);
-          // STACK.md: @tonejs/midi reads a bend scaled to +-1 of the bend range (here 48)
+          // @tonejs/midi reads a bend scaled to +-1 of the bend range (here 48), seen in its output
           const semitones = note.midi + (bend?.value ?? 0) * 48;
           return { ticks: note.ticks, semitones, channel: track.channel };
         }),
@@ -180,7 +183,7 @@ describe('the mpe-smf phrase file', () => {
     const expectedHz = [...walkKeys, ...chordKeys].map((key) => pureFifthsOnWhiteKeys[key].hz ?? 0);
     played.forEach((note, index) => {
       const hz = 440 * 2 ** ((note.semitones - 69) / 12);
-      // REFERENCE.md: MIDI 1.0 resolution at +-48 semitones is 0.5859375 cents per step; half a
+      // MIDI 1.0 specification, resolution at +-48 semitones is 0.5859375 cents per step; half a
       // step at most
       const errorCents = Math.abs(centsBetween(expectedHz[index], hz));
       expect(errorCents).toBeLessThanOrEqual(0.5859375 / 2 + 1e-6);

@@ -6,7 +6,7 @@ import { scaleSpecs } from '../tuning/scale.testing';
 import { previewTable } from '../tuning/preview';
 import { parsePresetDocument, type PresetDocument, type ResolvedPreset } from './preset-document';
 
-/** The example preset document of DESIGN.md, field for field. */
+/** The product's example preset document, every field written out. */
 const designExample: PresetDocument = {
   format: 'keyloom.preset',
   version: 1,
@@ -51,7 +51,7 @@ function faults(input: unknown): string[] {
 }
 
 describe('parsePresetDocument', () => {
-  it('reads the example document of DESIGN.md as written', () => {
+  it('reads the example document as written', () => {
     // Resolving adds only what the document leaves unsaid: here, that it names no anchor key.
     expect(resolved(designExample)).toEqual({ ...designExample, mapping: { ...designExample.mapping, anchor: null } });
   });
@@ -63,11 +63,11 @@ describe('parsePresetDocument', () => {
     }
   });
 
-  it('fills in every default of DESIGN.md', () => {
+  it('fills in every default', () => {
     const preset = resolved(smallest);
     expect(preset.notes).toBe('');
     expect(preset.scale).toEqual({ kind: 'equal', divisions: 19, period: '2/1' });
-    // REFERENCE.md: MIDI convention (key 60 = 261.6255653006 Hz with A4 = 440 Hz)
+    // MIDI convention (key 60 = 261.6255653006 Hz with A4 = 440 Hz)
     expect(preset.mapping.rootHz).toBeCloseTo(261.6255653006, 9);
     expect(preset.mapping).toMatchObject({ concertA: 440, keysPerPeriod: 19, layout: null });
     expect(preset.output).toEqual({
@@ -307,7 +307,8 @@ describe('the anchor: the key that sounds the pitch a musician tunes to', () => 
       format: 'keyloom.preset', version: 1, name: '12', scale: { kind: 'equal', divisions: 12 }, mapping: { rootKey: 60, anchor: { key: 69, hz: 440 } },
     });
     if (!parsed.ok) throw new Error('refused');
-    // An independent library for key to frequency (REFERENCE.md): @tonaljs/midi midiToFreq, 440 * 2^((n - 69) / 12).
+    // An independent library for key to frequency: @tonaljs/midi midiToFreq, 440 * 2^((n - 69) /
+    // 12).
     previewTable(parsed.value).keys.forEach((key) => expect(key.hz! / midiToFreq(key.key)).toBeCloseTo(1, 12));
   });
 

@@ -14,7 +14,8 @@ import { longestTuningName, tuningNameFrom, tuningNamePattern } from '../midi/tu
 const presetVersion = 1;
 
 /**
- * An interval in the syntax of DESIGN.md, as text (a JSON number is read as its text: 2 is 2/1).
+ * An interval in the preset syntax (a ratio 3/2, cents 701.955c or equal steps 7\12), as text (a JSON
+ * number is read as its text: 2 is 2/1).
  */
 const interval = z
   .union([z.string(), z.number()], { error: 'must be an interval such as "3/2" or "701.955c"' })
@@ -123,7 +124,7 @@ const outputSchema = z
     }
   });
 
-/** The preset document of DESIGN.md: the contract of the API, imports, exports and forms. */
+/** The preset document: the contract of the API, imports, exports and forms. */
 export const presetDocumentSchema = z.strictObject({
   format: z.literal('keyloom.preset'),
   version: z.literal(presetVersion),
@@ -137,7 +138,7 @@ export const presetDocumentSchema = z.strictObject({
 /** A preset document as the user wrote it: optional fields may be missing. */
 export type PresetDocument = z.input<typeof presetDocumentSchema>;
 
-/** A preset document checked through and through, with every default of DESIGN.md filled in. */
+/** A preset document checked through and through, with every default filled in. */
 export interface ResolvedPreset {
   format: 'keyloom.preset';
   version: typeof presetVersion;

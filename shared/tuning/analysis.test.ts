@@ -13,10 +13,10 @@ describe('analyzeScale', () => {
     expect(degrees.map((degree) => degree.nearestNote.name)).toEqual([
       'C4', 'D4', 'E4', 'F4', 'G4', 'A4', 'B4',
     ]);
-    // REFERENCE.md: arithmetic (pure fifths from C4: E 331.1199 Hz; equal-tempered 329.6276)
+    // arithmetic (pure fifths from C4: E 331.1199 Hz; equal-tempered 329.6276)
     const offsets = degrees.map((degree) => degree.nearestNote.offsetCents);
     expect(offsets[2]).toBeCloseTo(1200 * Math.log2(331.1199 / 329.6276), 3);
-    // REFERENCE.md: arithmetic (F 348.8341 Hz against equal-tempered 349.2282)
+    // arithmetic (F 348.8341 Hz against equal-tempered 349.2282)
     expect(offsets[3]).toBeCloseTo(1200 * Math.log2(348.8341 / 349.2282), 3);
     expect(degrees.map((degree) => ratioToString(degree.step.ratio!))).toEqual([
       '9/8', '9/8', '256/243', '9/8', '9/8', '9/8', '256/243',
@@ -36,12 +36,12 @@ describe('analyzeScale', () => {
     });
     const { degrees } = analyzeScale(meantone, fromMiddleC);
     const third = degrees.find((degree) => degree.stackPosition === 4);
-    // REFERENCE.md: arithmetic (four fifths of 5^(1/4) make 5/1, two octaves above a pure 5/4): exactly 5/4,
+    // arithmetic (four fifths of 5^(1/4) make 5/1, two octaves above a pure 5/4): exactly 5/4,
     // so the third is shown as that ratio and approximates nothing.
     expect(third?.ratio && ratioToString(third.ratio)).toBe('5/4');
     expect(third?.approximation).toBeNull();
     const fifth = degrees.find((degree) => degree.stackPosition === 1);
-    // REFERENCE.md: standard acoustics texts (quarter-comma fifth); definition (3/2)
+    // standard acoustics texts (quarter-comma fifth); definition (3/2)
     expect(fifth?.approximation?.errorCents).toBeCloseTo(696.5784284662 - 701.9550008654, 9);
   });
 

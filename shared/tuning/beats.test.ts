@@ -9,7 +9,7 @@ describe('beatRates', () => {
   it('counts 3 beats a second for 201 Hz against 300 Hz', () => {
     const scale = builtScale({ kind: 'list', degrees: ['300/201'], period: '2/1' });
     const [tonic] = beatRates(scale, 201);
-    // REFERENCE.md: standard acoustics handbooks (201 Hz against 300 Hz beats 3 times a second)
+    // standard acoustics handbooks (201 Hz against 300 Hz beats 3 times a second)
     expect(tonic.fifth?.beatsPerSecond).toBeCloseTo(3, 9);
     expect(tonic.fifth?.toDegree).toBe(1);
   });
@@ -17,9 +17,9 @@ describe('beatRates', () => {
   it('gives the equal-tempered thirds on F3 and C4 their familiar beat rates', () => {
     const fromF3 = beatRates(twelveEqual, equalTemperedHz(53, 440));
     const fromC4 = beatRates(twelveEqual, equalTemperedHz(60, 440));
-    // REFERENCE.md: standard acoustics handbooks (equal-tempered F3-A3 about 6.9 beats a second)
+    // standard acoustics handbooks (equal-tempered F3-A3 about 6.9 beats a second)
     expect(fromF3[0].majorThird?.beatsPerSecond).toBeCloseTo(6.9, 1);
-    // REFERENCE.md: standard acoustics handbooks (equal-tempered C4-E4 about 10.4 beats a second)
+    // standard acoustics handbooks (equal-tempered C4-E4 about 10.4 beats a second)
     expect(fromC4[0].majorThird?.beatsPerSecond).toBeCloseTo(10.4, 1);
     expect(fromC4[0].majorThird?.toDegree).toBe(4);
     expect(fromC4[0].fifth?.toDegree).toBe(7);

@@ -74,7 +74,7 @@ describe('the preview names degrees and the wolf', () => {
     const wolf = table.analysis.stack!.wolf!;
     expect(wolf.name).toBe('diminished sixth G♯–E♭');
     // Quarter-comma meantone: the wolf G#-Eb is 737.637 c, 41.059 c wider than the tempered fifth of 696.578 c
-    // (REFERENCE.md values; arithmetic).
+    // (arithmetic).
     expect(wolf.cents).toBeCloseTo(737.637, 3);
     expect(wolf.deviationCents).toBeCloseTo(41.059, 3);
     expect(table.degrees.map((degree) => degree.name)).toEqual(['C', 'C♯', 'D', 'E♭', 'E', 'F', 'F♯', 'G', 'G♯', 'A', 'B♭', 'B']);

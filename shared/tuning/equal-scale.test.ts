@@ -4,14 +4,14 @@ import { builtScale, degreeRatios, scaleFaults } from './scale.testing';
 describe('equal scales', () => {
   it('divides the tritave into 13 equal steps', () => {
     const scale = builtScale({ kind: 'equal', divisions: 13, period: '3/1' });
-    // REFERENCE.md: published definition of the scale (Bohlen-Pierce step, 3^(1/13))
+    // published definition of the scale (Bohlen-Pierce step, 3^(1/13))
     expect(scale.degrees[1].cents).toBeCloseTo(146.3042308358, 9);
     expect(scale.degrees).toHaveLength(13);
   });
 
   it('has a fifth 0.0682 cents narrow of pure in 53 equal divisions', () => {
     const scale = builtScale({ kind: 'equal', divisions: 53, period: '2/1' });
-    // REFERENCE.md: definition (53 equal fifth, 701.8867924528 cents, -0.0682 from 3/2)
+    // definition (53 equal fifth, 701.8867924528 cents, -0.0682 from 3/2)
     expect(scale.degrees[31].cents).toBeCloseTo(701.8867924528, 9);
     expect(scale.degrees[31].cents - 701.9550008654).toBeCloseTo(-0.0682, 4);
   });

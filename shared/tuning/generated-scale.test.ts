@@ -11,7 +11,7 @@ const temperedFifth = (fraction: string) =>
 describe('generated scales', () => {
   it('stacks 5 fifths up and 1 down into the seven exact degrees, sorted', () => {
     const scale = fifths(5, 1);
-    // REFERENCE.md: arithmetic (pure fifths stacked from C: D 9/8, E 81/64 ... B 243/128)
+    // arithmetic (pure fifths stacked from C: D 9/8, E 81/64 ... B 243/128)
     expect(degreeRatios(scale)).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
     expect(scale.degrees.map((degree) => degree.stackPosition)).toEqual([0, 2, 4, -1, 1, 3, 5]);
     expect(scale.warnings).toEqual([]);
@@ -19,24 +19,24 @@ describe('generated scales', () => {
 
   it('keeps a stack of 53 pure fifths exact', () => {
     const top = fifths(53).degrees.find((degree) => degree.stackPosition === 53);
-    // REFERENCE.md: arithmetic, 3^53 / 2^84
+    // arithmetic, 3^53 / 2^84
     expect(top?.ratio && ratioToString(top.ratio)).toBe(
       '19383245667680019896796723/19342813113834066795298816',
     );
-    // REFERENCE.md: arithmetic (3.615 cents)
+    // arithmetic (3.615 cents)
     expect(top?.cents).toBeCloseTo(3.615, 3);
   });
 
   it('lands the twelfth pure fifth a Pythagorean comma above the tonic', () => {
     const twelfth = fifths(12).degrees.find((degree) => degree.stackPosition === 12);
-    // REFERENCE.md: standard acoustics texts (Pythagorean comma, 23.4600103846 cents)
+    // standard acoustics texts (Pythagorean comma, 23.4600103846 cents)
     expect(twelfth?.ratio && ratioToString(twelfth.ratio)).toBe('531441/524288');
     expect(twelfth?.cents).toBeCloseTo(23.4600103846, 9);
   });
 
   it('narrows the fifth by a quarter of the syntonic comma', () => {
     const scale = temperedFifth('1/4');
-    // REFERENCE.md: standard acoustics texts (quarter-comma meantone fifth, 5^(1/4))
+    // standard acoustics texts (quarter-comma meantone fifth, 5^(1/4))
     expect(scale.generator?.cents).toBeCloseTo(696.5784284662, 9);
     expect(scale.degrees[1].cents).toBeCloseTo(696.5784284662, 9);
     expect(scale.degrees[1].ratio).toBeNull();

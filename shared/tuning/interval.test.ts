@@ -66,16 +66,16 @@ describe('parseInterval', () => {
 
 describe('ratioCents', () => {
   it('measures the pure fifth', () => {
-    // REFERENCE.md: definition, 1200 log2(3/2)
+    // definition, 1200 log2(3/2)
     expect(ratioCents(new Fraction(3, 2))).toBeCloseTo(701.9550008654, 9);
   });
 
   it('measures the commas', () => {
-    // REFERENCE.md: standard acoustics texts
+    // standard acoustics texts
     expect(ratioCents(new Fraction(531441, 524288))).toBeCloseTo(23.4600103846, 9);
-    // REFERENCE.md: standard acoustics texts
+    // standard acoustics texts
     expect(ratioCents(new Fraction(81, 80))).toBeCloseTo(21.5062895967, 9);
-    // REFERENCE.md: standard acoustics texts
+    // standard acoustics texts
     expect(ratioCents(new Fraction(32805, 32768))).toBeCloseTo(1.9537207879, 9);
   });
 

@@ -18,12 +18,12 @@ describe('mapKeys', () => {
     const table = mapKeys(twelveEqual, fromMiddleC);
     expect(table).toHaveLength(128);
     for (const entry of table) {
-      // REFERENCE.md: @tonaljs/midi midiToFreq, an independent reference for key-to-frequency
+      // @tonaljs/midi midiToFreq, an independent reference for key-to-frequency
       expect(entry.hz).toBeCloseTo(midiToFreq(entry.key), 9);
       expect(entry.centsFrom12).toBeCloseTo(0, 9);
       expect(entry.outOfMtsRange).toBe(false);
     }
-    // REFERENCE.md: MIDI convention (key 60, key 0 and key 127 in Hz)
+    // MIDI convention (key 60, key 0 and key 127 in Hz)
     expect(table[60].hz).toBeCloseTo(261.6255653006, 9);
     expect(table[0].hz).toBeCloseTo(8.1757989156, 9);
     expect(table[127].hz).toBeCloseTo(12543.8539514, 6);
@@ -39,7 +39,7 @@ describe('mapKeys', () => {
       rootHz: 261.6255653,
       layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
     });
-    // REFERENCE.md: arithmetic (pure fifths stacked from equal-tempered C4), and the ET pitches
+    // arithmetic (pure fifths stacked from equal-tempered C4), and the ET pitches
     const expected: [number, number, number][] = [
       [62, 294.3288, 293.6648],
       [64, 331.1199, 329.6276],
@@ -76,13 +76,13 @@ describe('mapKeys', () => {
 
   it('flags keys that MTS cannot express instead of wrapping them', () => {
     const high = mapKeys(twelveEqual, { ...fromMiddleC, rootHz: 300 });
-    // REFERENCE.md: MIDI Tuning Standard, 7F 7F 7E = 13289.6566 Hz is the top of the range
+    // MIDI Tuning specification, 7F 7F 7E = 13289.6566 Hz is the top of the range
     expect(high.filter((entry) => entry.outOfMtsRange).map((entry) => entry.key)).toEqual([
       126, 127,
     ]);
     expect(high[127].hz).toBeCloseTo(300 * 2 ** (67 / 12), 6);
     const low = mapKeys(twelveEqual, { ...fromMiddleC, rootHz: 250 });
-    // REFERENCE.md: MIDI Tuning Standard, 00 00 00 = 8.1758 Hz is the bottom of the range
+    // MIDI Tuning specification, 00 00 00 = 8.1758 Hz is the bottom of the range
     expect(low.filter((entry) => entry.outOfMtsRange).map((entry) => entry.key)).toEqual([0]);
     const hairBelow = mapKeys(twelveEqual, { ...fromMiddleC, rootHz: 261.6255653 });
     expect(hairBelow[0].hz).toBeLessThan(equalTemperedHz(0, 440));

@@ -2,7 +2,7 @@ import { type FieldError, fieldError } from '../result';
 import type { Scale } from './scale-spec';
 import { centsFromEqualTempered } from './twelve-edo';
 
-/** How the scale lies across the keys (DESIGN.md "Mapping"), the root pitch resolved. */
+/** How the scale lies across the keys (the preset's mapping), the root pitch resolved. */
 export interface KeyMapping {
   /** The key that plays degree 0 at `rootHz`. */
   rootKey: number;

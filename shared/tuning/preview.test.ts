@@ -17,17 +17,17 @@ describe('previewTable', () => {
     );
     const roundTrip = JSON.parse(JSON.stringify(table));
     expect(roundTrip).toEqual(table);
-    // REFERENCE.md: arithmetic, 3^53 / 2^84
+    // arithmetic, 3^53 / 2^84
     expect(table.analysis.stack?.comma.ratio).toBe(
       '19383245667680019896796723/19342813113834066795298816',
     );
     expect(table.degrees[0]).toMatchObject({ ratio: '1/1', cents: 0, stackPosition: 0 });
   });
 
-  it('gives the 128-key table with cents from the root, as DESIGN.md shows it', () => {
+  it('gives the 128-key table with cents from the root', () => {
     const table = previewTable(preset({ kind: 'equal', divisions: 12, period: '2/1' }));
     expect(table.keys).toHaveLength(128);
-    // REFERENCE.md: MIDI convention (key 0 = 8.1757989156 Hz)
+    // MIDI convention (key 0 = 8.1757989156 Hz)
     expect(table.keys[0]).toEqual({
       key: 0,
       degree: 0,
@@ -46,7 +46,7 @@ describe('previewTable', () => {
     expect(table.warnings).toEqual([]);
   });
 
-  it('shows the fifths from F as the first journey of DESIGN.md needs them', () => {
+  it('shows the fifths from F as the first journey (designing a scale) needs them', () => {
     const table = previewTable(
       preset(
         stack('3/2', '2/1', 5, 1),
@@ -57,14 +57,14 @@ describe('previewTable', () => {
         },
       ),
     );
-    // REFERENCE.md: arithmetic (pure fifths stacked from C: D 9/8, E 81/64 ... B 243/128)
+    // arithmetic (pure fifths stacked from C: D 9/8, E 81/64 ... B 243/128)
     expect(table.degrees.map((degree) => degree.ratio)).toEqual([
       '1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128',
     ]);
     expect(table.analysis.stepPattern.pattern).toBe('LLsLLLs');
     expect(table.analysis.stack?.comma.ratio).toBe('2187/2048');
     expect(table.analysis.stack?.wolf).toMatchObject({ from: 6, to: 3, ratio: '1024/729' });
-    // REFERENCE.md: arithmetic (G 3/2 above equal-tempered C4 = 392.4383 Hz)
+    // arithmetic (G 3/2 above equal-tempered C4 = 392.4383 Hz)
     expect(table.keys[67]).toMatchObject({ degree: 4, hz: expect.closeTo(392.4383, 4) });
     expect(table.keys[61]).toMatchObject({ degree: null, hz: null, cents: null });
   });

@@ -44,7 +44,7 @@ describe('nearestSimpleRatio', () => {
   });
 
   it('prefers the smaller height over the nearer ratio', () => {
-    // Tenney height of p/q in lowest terms is p * q; the smaller, the simpler (Tenney, 1983, as REFERENCE.md cites).
+    // Tenney height of p/q in lowest terms is p * q; the smaller, the simpler (Tenney, 1983).
     // 386 c: 5/4 (height 20, 0.31 c away) over anything nearer and more complex.
     expect(ratioToString(nearestSimpleRatio(386)!.ratio)).toBe('5/4');
     // 969 c: 7/4 (968.826 c, height 28).

@@ -16,11 +16,11 @@ describe('analyzeStack', () => {
   it('finds the Pythagorean comma and the wolf of twelve pure fifths', () => {
     const scale = builtScale(stack('3/2', '2/1', 8, 3));
     const found = analyzeStack(scale);
-    // REFERENCE.md: standard acoustics texts (Pythagorean comma, 23.4600103846 cents)
+    // standard acoustics texts (Pythagorean comma, 23.4600103846 cents)
     expect(found?.comma.ratio && ratioToString(found.comma.ratio)).toBe('531441/524288');
     expect(found?.comma.cents).toBeCloseTo(23.4600103846, 9);
     const wolf = found?.wolf;
-    // REFERENCE.md: arithmetic (the wolf is a pure fifth less the comma: 262144/177147)
+    // arithmetic (the wolf is a pure fifth less the comma: 262144/177147)
     expect(wolf?.size.ratio && ratioToString(wolf.size.ratio)).toBe('262144/177147');
     expect(wolf?.size.cents).toBeCloseTo(701.9550008654 - 23.4600103846, 9);
     expect(wolf?.deviationCents).toBeCloseTo(-23.4600103846, 9);
@@ -30,7 +30,7 @@ describe('analyzeStack', () => {
 
   it('keeps the comma of 53 pure fifths exact', () => {
     const found = stackOf(stack('3/2', '2/1', 52, 0));
-    // REFERENCE.md: arithmetic, 3^53 / 2^84 (3.615 cents)
+    // arithmetic, 3^53 / 2^84 (3.615 cents)
     expect(found.comma.ratio && ratioToString(found.comma.ratio)).toBe(
       '19383245667680019896796723/19342813113834066795298816',
     );
@@ -39,7 +39,7 @@ describe('analyzeStack', () => {
 
   it('reports a stack that falls short as a comma below unison', () => {
     const found = stackOf(stack('3/2', '2/1', 4, 0));
-    // REFERENCE.md: arithmetic (five fifths reach 243/128, a 256/243 short of the octave)
+    // arithmetic (five fifths reach 243/128, a 256/243 short of the octave)
     expect(found.comma.ratio && ratioToString(found.comma.ratio)).toBe('243/256');
     expect(found.comma.cents).toBeLessThan(0);
   });
@@ -53,9 +53,9 @@ describe('analyzeStack', () => {
       down: 0,
       temper: quarterComma,
     });
-    // REFERENCE.md: standard acoustics texts (quarter-comma meantone fifth, 696.5784284662 cents)
+    // standard acoustics texts (quarter-comma meantone fifth, 696.5784284662 cents)
     const fifth = 696.5784284662;
-    // REFERENCE.md: arithmetic (twelve quarter-comma fifths are 5^3, seven octaves up: 125/128)
+    // arithmetic (twelve quarter-comma fifths are 5^3, seven octaves up: 125/128)
     expect(found.comma.cents).toBeCloseTo(1200 * Math.log2(125 / 128), 8);
     expect(found.comma.ratio).toBeNull();
     expect(found.wolf?.size.cents).toBeCloseTo(7 * 1200 - 11 * fifth, 8);

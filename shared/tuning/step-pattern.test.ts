@@ -20,7 +20,7 @@ describe('stepPattern', () => {
     );
     expect(pattern.pattern).toBe('LLsLLLs');
     expect(pattern.isMos).toBe(true);
-    // REFERENCE.md: arithmetic (9/8: two fifths less an octave; 256/243: an octave less 5 fifths)
+    // arithmetic (9/8: two fifths less an octave; 256/243: an octave less 5 fifths)
     const sizes = pattern.sizes.map((size) => [size.letter, size.ratio!.toFraction(), size.count]);
     expect(sizes).toEqual([
       ['L', '9/8', 5],
@@ -36,7 +36,7 @@ describe('stepPattern', () => {
         period: '2/1',
       }),
     );
-    // REFERENCE.md: arithmetic (steps 9/8, 10/9, 16/15 between the listed ratios)
+    // arithmetic (steps 9/8, 10/9, 16/15 between the listed ratios)
     expect(pattern.pattern).toBe('LMsLMLs');
     expect(pattern.sizes.map((size) => size.ratio && ratioToString(size.ratio))).toEqual([
       '9/8',

@@ -50,7 +50,8 @@ describe('a chain tempered link by link', () => {
       if (!parsed.ok) throw new Error(parsed.errors[0].message);
       const stack = previewTable(parsed.value).analysis.stack!;
       expect(stack.wolf).toBeNull();
-      // The comma the chain spreads: the Pythagorean comma, 23.4600103846 c (REFERENCE.md, standard acoustics texts).
+      // The comma the chain spreads: the Pythagorean comma, 23.4600103846 c (standard acoustics
+      // texts).
       expect(stack.comma.cents).toBeCloseTo(23.4600103846, 9);
     }
   });
@@ -62,7 +63,7 @@ describe('a chain tempered link by link', () => {
     expect(chain.map((link) => [link.from, link.to])).toEqual([
       [-3, -2], [-2, -1], [-1, 0], [0, 1], [1, 2], [2, 3], [3, 4], [4, 5], [5, 6], [6, 7], [7, 8],
     ]);
-    // A quarter of the Pythagorean comma is 5.865 c (REFERENCE.md: 23.4600103846 / 4).
+    // A quarter of the Pythagorean comma is 5.865 c (standard acoustics texts: 23.4600103846 / 4).
     expect(chain.map((link) => Number(link.deviationCents.toFixed(3)))).toEqual([0, 0, 0, -5.865, -5.865, -5.865, 0, 0, -5.865, 0, 0]);
     expect(chain[0].ratio).toBe('3/2');
     expect(chain[3].ratio).toBeNull();
@@ -78,7 +79,7 @@ describe('a chain tempered link by link', () => {
     const decimal = builtScale({
       kind: 'generated', generator: '3/2', period: '2/1', up: 1, down: 0, temper: [{ comma: '81/80', fraction: '0.25' }],
     });
-    // 0.25 of 81/80 is the quarter comma: the fifth of 696.5784284662 c (REFERENCE.md).
+    // 0.25 of 81/80 is the quarter comma: the fifth of 696.5784284662 c (standard acoustics texts).
     expect(decimal.degrees[1].cents).toBeCloseTo(696.5784284662, 9);
   });
 

@@ -1,3 +1,5 @@
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatMenuHarness } from '@angular/material/menu/testing';
 import { HttpClient, provideHttpClient, withInterceptors } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
@@ -75,12 +77,9 @@ describe('App shell', () => {
     expect(button.querySelector('img')?.getAttribute('src')).toBe(avatar);
     expect(element.querySelector('a.sign-in')).toBeNull();
 
-    button.click();
-    fixture.detectChanges();
-    const signOut = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-menu-panel button')).find((b) =>
-      b.textContent?.includes('Sign out'),
-    )!;
-    signOut.click();
+    const menu = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatMenuHarness.with({ selector: 'button.member' }));
+    await menu.open();
+    await menu.clickItem({ text: /Sign out/ });
     const logout = http.expectOne('/auth/logout');
     expect(logout.request.method).toBe('POST');
     logout.flush(null, { status: 204, statusText: 'No Content' });

@@ -40,7 +40,8 @@ function standInMidi(mode: MidiMode): void {
   };
   // The instrument's own MIDI output, seen by the computer as an input of the same name.
   const input = Object.assign(portOf('stand-in-in', 'input'), { onmidimessage: null as Handler });
-  /** A 12-tone equal dump of `program` by REFERENCE.md's layout and checksum rule, named "STAND-IN". */
+  /** A 12-tone equal dump of `program` by the layout and checksum rule of the MIDI Tuning
+   * specification, named "STAND-IN". */
   const dumpOf = (program: number) => {
     const name = Array.from('STAND-IN'.padEnd(16, ' '), (character) => character.charCodeAt(0));
     const body = [0x7e, 0x7f, 0x08, 0x01, program, ...name, ...Array.from({ length: 128 }, (_, key) => [key, 0, 0]).flat()];
@@ -170,8 +171,8 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     expect(document['mapping']).toMatchObject({ anchor: { key: 69, hz: 415 } });
     const [sent] = await sentBytes(page);
     expect(sent).toEqual([...new Uint8Array(await (await preview('export/mts-bulk', document)).arrayBuffer())]);
-    // REFERENCE.md (MTS bulk dump): key k's frequency word at byte 22 + 3k, f = 440 * 2^((xx + (128 yy + zz) / 16384
-    // - 69) / 12). Key 69 sounds 415 Hz to within half a unit (0.003 cents).
+    // MTS bulk dump: key k's frequency word at byte 22 + 3k, f = 440 * 2^((xx + (128 yy + zz) /
+    // 16384 - 69) / 12). Key 69 sounds 415 Hz to within half a unit (0.003 cents).
     const word = (key: number) => sent.slice(22 + 3 * key, 25 + 3 * key);
     const hzOf = ([xx, yy, zz]: number[]) => 440 * 2 ** ((xx + (128 * yy + zz) / 16384 - 69) / 12);
     expect(Math.abs(1200 * Math.log2(hzOf(word(69)) / 415))).toBeLessThan(0.0031);
@@ -192,7 +193,7 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     const after = { ...before, scale: { ...(before['scale'] as object), generator: '696.578c' } };
     const [oldHz, newHz] = await Promise.all([keyHz(before), keyHz(after)]);
     const changed = newHz.flatMap((hz, key) => (hz !== null && hz !== oldHz[key] ? [key] : []));
-    // REFERENCE.md: F0 7F dev 08 02 tt ll (kk xx yy zz)xll F7.
+    // MIDI Tuning specification: F0 7F dev 08 02 tt ll (kk xx yy zz)xll F7.
     const keysIn = (messages: number[][]) =>
       messages
         .flatMap((message) => Array.from({ length: message[6] }, (_, index) => message[7 + 4 * index]))
@@ -225,8 +226,8 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     ]);
     expect(download.suggestedFilename()).toBe('backup-stand-in-synth-program-0.syx');
     const kept = readFileSync((await download.path())!);
-    // REFERENCE.md: a bulk dump is 408 bytes, F0 7E dev 08 01 tt ...; its checksum is the XOR of the bytes from 7E up
-    // to the last data byte, AND 7F.
+    // MIDI Tuning specification: a bulk dump is 408 bytes, F0 7E dev 08 01 tt ...; its checksum is
+    // the XOR of the bytes from 7E up to the last data byte, AND 7F.
     expect(kept.length).toBe(408);
     expect([...kept.subarray(0, 6)]).toEqual([0xf0, 0x7e, 0x7f, 0x08, 0x01, 0x00]);
     expect(kept[406]).toBe(kept.subarray(1, 406).reduce((sum, byte) => sum ^ byte, 0) & 0x7f);

@@ -1,4 +1,4 @@
-// DESIGN.md's journeys 1 to 5 in Chromium, as a person drives the app: by labels and roles. Each saves
+// The product's five user journeys in Chromium, as a person drives the app: by labels and roles. Each saves
 // screenshots under tests/e2e/screenshots/.
 import { readFileSync } from 'node:fs';
 import { type MidiEvent, parseMidi, writeMidi } from 'midi-file';
@@ -52,7 +52,8 @@ describe('journey 1: a composer designs signed out and downloads an MTS bulk dum
     await page.getByRole('button', { name: 'Download' }).click();
     const file = await downloaded(page, () => page.getByRole('menuitem', { name: /^MTS bulk dump \(\.syx\)/ }).click());
     expect(file.name).toBe('journey-fifths.syx');
-    // REFERENCE.md: a bulk dump is 408 bytes, F0 7E dev 08 01 ... F7, its checksum the XOR of bytes 1-405 AND 7F.
+    // MIDI Tuning specification: a bulk dump is 408 bytes, F0 7E dev 08 01 ... F7, its checksum the
+    // XOR of bytes 1-405 AND 7F.
     expect(file.bytes.length).toBe(408);
     expect([...file.bytes.subarray(0, 5)]).toEqual([0xf0, 0x7e, 0x7f, 0x08, 0x01]);
     let checksum = 0;

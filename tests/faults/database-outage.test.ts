@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { applyMigrations, createDatabase } from '../../server/db/client';
 import { type Cluster, ensureCluster } from '../../scripts/stack/postgres';
 import { startTestServer } from '../support/test-server';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 const stateDir = `/tmp/keyloom-outage-${process.pid}`;
 let cluster: Cluster;
@@ -30,10 +31,7 @@ afterAll(async () => {
 describe('a database outage', () => {
   it('answers 503 while PostgreSQL is down, keeps pure routes working, and recovers by itself', async () => {
     const owner = await server.signIn('outage-owner');
-    const doc = {
-      format: 'keyloom.preset', version: 1, name: 'Outage Fifths',
-      scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 }, mapping: { rootKey: 60 },
-    };
+    const doc = fifthsPreset('Outage Fifths');
     const created = await owner.agent.post('/api/presets').set('X-XSRF-TOKEN', owner.xsrf).send({ document: doc }).expect(201);
 
     // Requests in flight while the server stops: each gets an answer, 200 or 503, none a 500.

@@ -12,16 +12,11 @@ import { renderExport } from '../../shared/export/export-catalogue';
 import { notesOn, songOf } from '../../shared/midi/songs.testing';
 import { parsePresetDocument } from '../../shared/preset/preset-document';
 import { type ServerProcess, startServerProcess } from '../support/server-process';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 const run = promisify(execFile);
 const megabytes = 5 * 1024 * 1024 - 64 * 1024;
-const document = {
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Hostile Fifths',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 11, down: 0 },
-  mapping: { rootKey: 60 },
-};
+const document = fifthsPreset('Hostile Fifths', 11, 0);
 
 function bulkDump(): Uint8Array {
   const parsed = parsePresetDocument(document);

@@ -1,6 +1,7 @@
 // Many players at once: each signs in, keeps a preset, and in a loop reads it, saves revisions and downloads
 // exports. Every save the server acknowledged is remembered, so that it can be checked afterwards.
 import { CookieJar } from './cookie-jar';
+import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 export interface Acknowledged {
   presetId: string;
@@ -35,13 +36,7 @@ export interface LoadOptions {
   onAcknowledged?: (ack: Acknowledged) => void;
 }
 
-const document = (name: string, up: number) => ({
-  format: 'keyloom.preset',
-  version: 1,
-  name,
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up, down: 1 },
-  mapping: { rootKey: 60 },
-});
+const document = (name: string, up: number) => fifthsPreset(name, up, 1);
 
 export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
   const report: LoadReport = { requests: 0, failures: [], failuresDuringOutage: 0, acknowledged: [] };

@@ -27,7 +27,8 @@ async function render(seconds: number, play: (engine: AuditionEngine) => void): 
 
 describe('AuditionEngine', () => {
   it('sounds a soft note at its mapped frequency within 0.1 cents', async () => {
-    // REFERENCE.md: a just fifth above equal-tempered C4 is 392.4383 Hz (3/2 x 261.6255653006).
+    // arithmetic (MIDI convention): a just fifth above equal-tempered C4 is 392.4383 Hz (3/2 x
+    // 261.6255653006).
     const mappedHz = 261.6255653006 * 1.5;
     const samples = await render(4, (engine) => engine.start('fifth', mappedHz, 'soft', 0));
     const errorCents = centsBetween(measuredHz(samples, 0.5), mappedHz);

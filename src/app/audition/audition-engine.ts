@@ -1,7 +1,7 @@
 /** The sounds the audition synth can make. */
 export type Timbre = 'soft' | 'bright' | 'pluck';
 
-/** Master volume the synth starts at: quiet, for the listener's hearing (DESIGN.md, cautions). */
+/** Master volume the synth starts at: quiet, to spare the listener's hearing. */
 export const startingVolumeDb = -24;
 
 /** The last gain after the limiter stays under full scale, so that its overshoot cannot clip. */

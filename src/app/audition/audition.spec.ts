@@ -16,8 +16,8 @@ describe('Audition', () => {
 
   it('plays a key at its mapped frequency, and in equal temperament only when comparing', () => {
     // The starting design lays 1/1 9/8 81/64 4/3 3/2 ... on their nearest keys from C4 (key 60): key 67 plays 3/2.
-    // REFERENCE.md: G 3/2 above equal-tempered C4 is 392.4383 Hz, E 81/64 331.1199 Hz; equal-tempered G4 (key 67)
-    // is 391.9954 Hz.
+    // arithmetic (MIDI convention): G 3/2 above equal-tempered C4 is 392.4383 Hz, E 81/64 331.1199
+    // Hz; equal-tempered G4 (key 67) is 391.9954 Hz.
     expect(audition.hzOfKey(67)).toBeCloseTo(392.4383, 4);
     expect(audition.hzOfKey(64)).toBeCloseTo(331.1199, 4);
     audition.setCompare(true);

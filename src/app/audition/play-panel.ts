@@ -1,4 +1,11 @@
-import { Component, computed, inject, input, linkedSignal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  input,
+  linkedSignal,
+} from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -20,6 +27,7 @@ function isTyping(target: EventTarget | null): boolean {
 /** The Play panel: volume, timbre, sustain, drone, compare and a MIDI controller, and the computer keyboard. */
 @Component({
   selector: 'app-play-panel',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatSelectModule, MatSliderModule, MatSlideToggleModule],
   templateUrl: './play-panel.html',
   styleUrl: './play-panel.scss',

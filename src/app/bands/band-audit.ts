@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { Component, computed, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { loader } from '../api/loader';
 import { AuditNames, auditSentence } from './audit-sentence';
 import { BandDetail, BandsApi } from './bands-api';
@@ -7,6 +7,7 @@ import { BandDetail, BandsApi } from './bands-api';
 /** Who changed what in the band, newest first, in plain words (owners only). */
 @Component({
   selector: 'app-band-audit',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DatePipe],
   template: `
     @if (failure(); as message) {

@@ -1,5 +1,5 @@
 import { DatePipe, TitleCasePipe } from '@angular/common';
-import { Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -16,6 +16,7 @@ import { requestFieldValidator } from './request-validator';
 /** Invite by e-mail with a role, and the invites still waiting for an answer (send again, revoke). */
 @Component({
   selector: 'app-band-invites',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     DatePipe, TitleCasePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule,
     MatSelectModule,

@@ -1,5 +1,13 @@
 import { DatePipe, TitleCasePipe } from '@angular/common';
-import { Component, computed, inject, input, output, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  input,
+  output,
+  signal,
+} from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -15,6 +23,7 @@ import { BandDetail, BandMember, BandRole, BandsApi, bandRoles, roleWithArticle 
 /** The band's members with their roles: owners change roles and remove members; anyone may leave. */
 @Component({
   selector: 'app-band-members',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DatePipe, TitleCasePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatSelectModule],
   templateUrl: './band-members.html',
   styleUrl: './band-members.scss',

@@ -1,15 +1,13 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { Component } from '@angular/core';
+import { HttpTestingController } from '@angular/common/http/testing';
+import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
-import { RouterTestingHarness } from '@angular/router/testing';
+import { Router } from '@angular/router';
 import { patientSpecMs, waitFor } from '../../testing/wait-for';
-import { Member, Session } from '../auth/session';
+import { Member } from '../auth/session';
 import { PresetRow } from '../library/library-api';
 import { BandPage } from './band-page';
 import { AuditEntry, BandDetail, PendingInvite } from './bands-api';
+import { PageTest } from '../../testing/page-test';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 const tobias: Member = { ...mira, id: 'u-tobias', login: 'tobias-reed', name: 'Tobias Reed' };
@@ -33,36 +31,26 @@ const audit: AuditEntry[] = [
   { id: 1, action: 'member.role', presetId: null, detail: { userId: 'u-tobias', from: 'viewer', to: 'editor' }, createdAt: '2026-11-04T09:30:00Z', actorId: 'u-mira', actorLogin: 'mira-vale', actorName: 'Mira Vale' },
 ];
 
-@Component({ selector: 'app-bands-stub', template: 'bands' })
+@Component({
+  selector: 'app-bands-stub', template: 'bands',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
 class BandsStub {}
 
 describe('BandPage', () => {
   let http: HttpTestingController;
-  let harness: RouterTestingHarness;
+  let pages: PageTest;
 
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideRouter(
-          [{ path: 'bands/:id', component: BandPage }, { path: 'bands', component: BandsStub }],
-          withComponentInputBinding(),
-        ),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
+    pages = new PageTest([{ path: 'bands/:id', component: BandPage }, { path: 'bands', component: BandsStub }]);
+    http = pages.http;
   });
 
-  afterEach(() => http.verify());
+  afterEach(() => pages.verify());
 
-  const page = () => harness.routeNativeElement as HTMLElement;
+  const page = () => pages.page();
 
-  async function settle() {
-    await harness.fixture.whenStable();
-    harness.detectChanges();
-  }
+  const settle = () => pages.settle();
 
   /**
    * Answers the band page's reads: the band, its presets and trash, and for owners its log and (on first load)
@@ -85,9 +73,7 @@ describe('BandPage', () => {
   }
 
   async function open(me: Member, band: BandDetail) {
-    TestBed.inject(Session).member.set(me);
-    harness = await RouterTestingHarness.create('/bands/b-fen');
-    await settle();
+    await pages.open('/bands/b-fen', me);
     await answerBand(band, true);
   }
 
@@ -128,7 +114,7 @@ describe('BandPage', () => {
     expect(patch.request.body).toEqual({ role: 'owner' });
     patch.flush({ userId: 'u-tobias', role: 'owner' });
     await settle();
-    expect(document.querySelector('.mat-mdc-snack-bar-container')!.textContent).toContain('Tobias Reed is now an owner.');
+    expect(await pages.snackBar()).toContain('Tobias Reed is now an owner.');
     await answerBand({ ...copperFen, members: [copperFen.members[0], { ...copperFen.members[1], role: 'owner' }] });
     expect(page().querySelectorAll('.members mat-select')[1].textContent).toContain('Owner');
   });
@@ -194,7 +180,7 @@ describe('BandPage', () => {
     expect(invite.request.body).toEqual({ email: 'ada.quill@example.org', role: 'editor' });
     invite.flush({ id: 'i2' }, { status: 201, statusText: 'Created' });
     await settle();
-    expect(document.querySelector('.mat-mdc-snack-bar-container')!.textContent).toContain('Invite sent to ada.quill@example.org.');
+    expect(await pages.snackBar()).toContain('Invite sent to ada.quill@example.org.');
     http.expectOne('/api/bands/b-fen/invites').flush({ items: pending });
   });
 
@@ -218,9 +204,7 @@ describe('BandPage', () => {
   });
 
   it('says so when the band cannot be seen', async () => {
-    TestBed.inject(Session).member.set(mira);
-    harness = await RouterTestingHarness.create('/bands/b-fen');
-    await settle();
+    await pages.open('/bands/b-fen', mira);
     http.expectOne('/api/bands/b-fen').flush(
       { error: { code: 'not_found', message: 'No such band.' } },
       { status: 404, statusText: 'Not Found' },

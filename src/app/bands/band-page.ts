@@ -1,4 +1,4 @@
-import { Component, computed, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -18,6 +18,7 @@ const noPresets: PresetPage = { items: [], total: 0, page: 1, pageSize: 100 };
 /** One band: members and roles, invites, its presets and (for owners) what happened in it. */
 @Component({
   selector: 'app-band-page',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, BandMembers, BandInvites, BandAudit],
   templateUrl: './band-page.html',
   styleUrl: './band-page.scss',

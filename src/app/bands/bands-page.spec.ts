@@ -1,48 +1,39 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { Component } from '@angular/core';
+import { HttpTestingController } from '@angular/common/http/testing';
+import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
-import { Router, provideRouter } from '@angular/router';
-import { RouterTestingHarness } from '@angular/router/testing';
-import { Member, Session } from '../auth/session';
+import { Router } from '@angular/router';
+import { Member } from '../auth/session';
 import { BandsPage } from './bands-page';
+import { PageTest } from '../../testing/page-test';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 
-@Component({ template: 'band' })
+@Component({
+  template: 'band',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
 class BandStub {}
 
 describe('BandsPage', () => {
   let http: HttpTestingController;
-  let harness: RouterTestingHarness;
+  let pages: PageTest;
 
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideRouter([
+    pages = new PageTest([
           { path: 'bands', component: BandsPage },
           { path: 'bands/:id', component: BandStub },
-        ]),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
+        ]);
+    http = pages.http;
   });
 
-  afterEach(() => http.verify());
+  afterEach(() => pages.verify());
 
-  const page = () => harness.routeNativeElement as HTMLElement;
+  const page = () => pages.page();
 
-  async function settle() {
-    await harness.fixture.whenStable();
-    harness.detectChanges();
-  }
+  const settle = () => pages.settle();
 
   async function open(member: Member | null) {
-    TestBed.inject(Session).member.set(member);
-    harness = await RouterTestingHarness.create('/bands');
-    await settle();
+    await pages.open('/bands', member);
   }
 
   async function typeName(name: string) {

@@ -1,4 +1,4 @@
-import { Component, computed, inject, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, output } from '@angular/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { DesignState } from './design-state';
@@ -10,6 +10,7 @@ import { FieldFault } from './field-fault';
  */
 @Component({
   selector: 'app-design-field',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatFormFieldModule, MatInputModule, FieldFault],
   template: `
     <mat-form-field [subscriptSizing]="'dynamic'" [floatLabel]="floatLabel()">

@@ -1,10 +1,13 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { HttpTestingController, TestRequest } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import { MatDialog } from '@angular/material/dialog';
-import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
+import { MatSnackBarHarness } from '@angular/material/snack-bar/testing';
+import { MatTabGroupHarness } from '@angular/material/tabs/testing';
+import { Router } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
 import { of } from 'rxjs';
+import { PageTest } from '../../testing/page-test';
 import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { Session } from '../auth/session';
 import { decodeDesign, encodeDesign } from './design-address';
@@ -16,26 +19,20 @@ const member = { id: 'u1', login: 'mira-vale', name: 'Mira Vale', email: null, a
 
 describe('DesignPage', () => {
   let http: HttpTestingController;
+  let pages: PageTest;
 
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideRouter(
-          [
-            { path: 'design', component: DesignPage },
-            { path: 'presets/:id', component: DesignPage },
-          ],
-          withComponentInputBinding(),
-        ),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MatDialog, useValue: { open: () => ({ afterClosed: () => of(undefined) }) } },
+    pages = new PageTest(
+      [
+        { path: 'design', component: DesignPage },
+        { path: 'presets/:id', component: DesignPage },
       ],
-    });
-    http = TestBed.inject(HttpTestingController);
+      [{ provide: MatDialog, useValue: { open: () => ({ afterClosed: () => of(undefined) }) } }],
+    );
+    http = pages.http;
   });
 
-  afterEach(() => http.verify());
+  afterEach(() => pages.verify());
 
   async function open(url: string, who: typeof member | null) {
     TestBed.inject(Session).member.set(who);
@@ -135,17 +132,19 @@ describe('DesignPage', () => {
   }, patientSpecMs);
 
   it('says why Ctrl+S cannot save for a visitor who has not signed in', async () => {
-    await open('/design', null);
+    const { harness } = await open('/design', null);
     document.dispatchEvent(new KeyboardEvent('keydown', { key: 's', code: 'KeyS', ctrlKey: true, cancelable: true }));
-    const label = await waitFor('a snack bar', () => document.querySelector('.mat-mdc-snack-bar-label'));
-    expect(label.textContent).toContain('Sign in to save');
+    await waitFor('a snack bar', () => document.querySelector('mat-snack-bar-container'));
+    const snackBar = await TestbedHarnessEnvironment.documentRootLoader(harness.fixture).getHarness(MatSnackBarHarness);
+    expect(await snackBar.getMessage()).toContain('Sign in to save');
   }, patientSpecMs);
 
   it('switches tabs with Alt and a number', async () => {
     const { harness, element } = await open('/design', null);
     document.dispatchEvent(new KeyboardEvent('keydown', { key: '2', code: 'Digit2', altKey: true }));
     await harness.fixture.whenStable();
-    expect(element.querySelector('.mdc-tab--active')?.textContent).toContain('Keys');
+    const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
+    expect(await (await tabs.getSelectedTab()).getLabel()).toContain('Keys');
     expect(element.querySelector('app-keyboard-strip')).not.toBeNull();
   });
 });

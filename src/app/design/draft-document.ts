@@ -55,7 +55,7 @@ export interface DraftOutput {
 }
 
 /**
- * A preset document being edited: the shape of DESIGN.md's document, with number fields that may
+ * A preset document being edited: the shape of the preset document, with number fields that may
  * still hold text. `parsePresetDocument` judges it; nothing here checks it.
  */
 export interface DraftDocument {

@@ -9,7 +9,7 @@ import type { DraftDocument } from './draft-document';
 /** A band the signed-in member belongs to, with their role in it. */
 export type BandMembership = BandSummary;
 
-/** The library calls the designer makes (DESIGN.md "HTTP API"). */
+/** The library calls the designer makes (the library routes of the HTTP API). */
 @Injectable({ providedIn: 'root' })
 export class PresetApi {
   private readonly http = inject(HttpClient);

@@ -1,3 +1,5 @@
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatSelectHarness } from '@angular/material/select/testing';
 import { TestBed } from '@angular/core/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { SaveDialog, type SaveDialogData } from './save-dialog';
@@ -25,9 +27,9 @@ describe('SaveDialog', () => {
     saveButton().click();
     expect(close).toHaveBeenCalledWith({ name: 'Fifths', bandId: null, note: '' });
 
-    element.querySelector<HTMLElement>('.mat-mdc-select-trigger')!.click();
-    await fixture.whenStable();
-    Array.from(document.querySelectorAll<HTMLElement>('mat-option')).find((option) => option.textContent?.includes('Copper Fen'))!.click();
+    const library = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatSelectHarness);
+    await library.open();
+    await library.clickOptions({ text: /Copper Fen/ });
     const note = element.querySelector<HTMLTextAreaElement>('textarea')!;
     note.value = ' widened the wolf ';
     note.dispatchEvent(new Event('input'));

@@ -1,4 +1,4 @@
-import { Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -29,6 +29,7 @@ const longestNote = 500;
 /** Asks for the preset's name, the library it goes into (first save only) and a note on the change. */
 @Component({
   selector: 'app-save-dialog',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [FieldFault, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule],
   template: `
     <h2 mat-dialog-title>{{ data.nextRevision ? 'Save revision ' + data.nextRevision : 'Save preset' }}</h2>

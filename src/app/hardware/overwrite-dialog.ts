@@ -1,4 +1,4 @@
-import { Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -25,6 +25,7 @@ export interface OverwriteQuestion {
  */
 @Component({
   selector: 'app-overwrite-dialog',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatDialogModule, MatButtonModule, MatProgressBarModule, RouterLink],
   template: `
     <h2 mat-dialog-title>Replace the tuning on {{ data.portName }}?</h2>

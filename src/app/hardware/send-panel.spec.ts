@@ -36,7 +36,7 @@ describe('SendPanel', () => {
     const element = fixture.nativeElement as HTMLElement;
     const sendButton = () => Array.from(element.querySelectorAll('button')).find((b) => b.textContent?.includes('Send tuning'))!;
 
-    // REFERENCE.md, MTS key-based dump with bank: F0 7E dev 08 04 bb tt name[16] ... F7.
+    // MIDI Tuning specification, key-based dump with bank: F0 7E dev 08 04 bb tt name[16] ... F7.
     for (const [field, value] of [['deviceId', 5], ['program', 9], ['bank', 3]] as const) {
       state.setOutputField(field, value);
       await fixture.whenStable();

@@ -1,4 +1,4 @@
-import { Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -23,6 +23,7 @@ function hexLines(messages: Uint8Array[]): string {
 /** Putting the tuning into a connected instrument over Web MIDI, once or following every edit. */
 @Component({
   selector: 'app-send-panel',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, MatSelectModule,
     MatSlideToggleModule,

@@ -13,7 +13,8 @@ import { TuningBackup } from './tuning-backup';
 import { TuningSender } from './tuning-sender';
 
 /**
- * REFERENCE.md, MTS bulk dump `F0 7E dev 08 01 tt name[16] (xx yy zz)x128 cs F7`, written out here by the rule:
+ * MIDI Tuning specification, bulk dump `F0 7E dev 08 01 tt name[16] (xx yy zz)x128 cs F7`, written
+  * out here by the rule:
  * 12-tone equal, device 7F, program 0, name "12-TET" padded with spaces, entries `nn 00 00`, checksum the XOR of
  * every byte from 7E up to the last data byte, AND 7F. The published check value is 0x63, 408 bytes.
  */
@@ -71,7 +72,8 @@ describe('TuningBackup', () => {
     const asked = backup.backUp();
     const http = TestBed.inject(HttpTestingController);
     const save = await waitFor('the backup to be saved', () => http.match('/api/presets')[0]);
-    // REFERENCE.md: dump request `F0 7E dev 08 00 tt F7`, device 7F (every device) unless set, tt the program.
+    // MIDI Tuning specification: dump request `F0 7E dev 08 00 tt F7`, device 7F (every device)
+    // unless set, tt the program.
     expect(instrument.requests).toEqual([[0xf0, 0x7e, 0x7f, 0x08, 0x00, 0x05, 0xf7]]);
     const body = save.request.body as { document: { name: string; scale: { kind: string; degrees?: string[] } }; note: string };
     expect(body.document.name).toMatch(/^12-TET, backed up from Test synth program 5 \(\d{4}-\d\d-\d\d\)$/);

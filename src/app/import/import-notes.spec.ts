@@ -1,11 +1,10 @@
-import { parsePresetDocument } from '@shared/preset/preset-document';
+import { fifthsPreset, resolvedPreset } from '@shared/preset/presets.testing';
 import { previewTable } from '@shared/tuning/preview';
 import { importNotes } from './import-notes';
 
 function notesOf(document: unknown): string[] {
-  const parsed = parsePresetDocument(document);
-  if (!parsed.ok) throw new Error(parsed.errors[0].message);
-  return importNotes(parsed.value, previewTable(parsed.value));
+  const preset = resolvedPreset(document);
+  return importNotes(preset, previewTable(preset));
 }
 
 describe('importNotes', () => {
@@ -33,8 +32,7 @@ describe('importNotes', () => {
 
   it('counts the keys a layout leaves unmapped', () => {
     const notes = notesOf({
-      format: 'keyloom.preset', version: 1, name: 'Fen Fifths',
-      scale: { kind: 'generated', generator: '3/2', up: 5, down: 1 },
+      ...fifthsPreset('Fen Fifths'),
       mapping: { rootKey: 60, keysPerPeriod: 12, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
     });
     expect(notes).toContain('5 of every 12 keys are left unmapped: the instrument keeps its own pitch for them.');

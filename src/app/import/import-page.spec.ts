@@ -1,12 +1,8 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { provideRouter } from '@angular/router';
-import { RouterTestingHarness } from '@angular/router/testing';
+import { HttpTestingController } from '@angular/common/http/testing';
 import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { decodeDesign } from '../design/design-address';
 import { ImportPage } from './import-page';
+import { PageTest } from '../../testing/page-test';
 
 /** What server/routes/imports.ts answers for a text list of Pythagorean intervals (shared/import/interval-list.ts). */
 const fenFifthsList = {
@@ -23,30 +19,20 @@ const fenFifthsList = {
 
 describe('ImportPage', () => {
   let http: HttpTestingController;
-  let harness: RouterTestingHarness;
+  let pages: PageTest;
 
   beforeEach(async () => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideRouter([{ path: 'import', component: ImportPage }]),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
-    harness = await RouterTestingHarness.create('/import');
+    pages = new PageTest([{ path: 'import', component: ImportPage }]);
+    http = pages.http;
+    await pages.open('/import', null);
   });
 
-  afterEach(() => http.verify());
+  afterEach(() => pages.verify());
 
-  const page = () => harness.routeNativeElement as HTMLElement;
-  const text = (selector: string) => page().querySelector(selector)?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
+  const page = () => pages.page();
+  const text = (selector: string) => pages.text(selector);
 
-  async function settle() {
-    await harness.fixture.whenStable();
-    harness.detectChanges();
-  }
+  const settle = () => pages.settle();
 
   async function drop(file: File) {
     const transfer = new DataTransfer();

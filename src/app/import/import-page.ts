@@ -1,5 +1,12 @@
 import { DecimalPipe } from '@angular/common';
-import { Component, DestroyRef, computed, inject, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  computed,
+  inject,
+  signal,
+} from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -25,6 +32,7 @@ const kindNames: Record<ImportKind, string> = {
 /** Import: a tuning from an .syx file, a preset file or a list of intervals, shown, then opened in the designer. */
 @Component({
   selector: 'app-import-page',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, FileDrop, DegreeTable],
   templateUrl: './import-page.html',
   styleUrl: './import-page.scss',

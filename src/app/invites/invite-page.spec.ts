@@ -1,12 +1,11 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { Component } from '@angular/core';
+import { HttpTestingController } from '@angular/common/http/testing';
+import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
-import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
-import { RouterTestingHarness } from '@angular/router/testing';
-import { Member, Session } from '../auth/session';
+import { Router } from '@angular/router';
+import { Member } from '../auth/session';
 import { InviteSummary } from './invite-api';
 import { InvitePage } from './invite-page';
+import { PageTest } from '../../testing/page-test';
 
 const ada: Member = { id: 'u-ada', login: 'ada-quill', name: 'Ada Quill', email: null, avatarUrl: null, siteRole: 'member' };
 const invite: InviteSummary = {
@@ -14,40 +13,29 @@ const invite: InviteSummary = {
   expiresAt: '2026-11-27T10:00:00Z', status: 'pending',
 };
 
-@Component({ selector: 'app-band-stub', template: 'band' })
+@Component({
+  selector: 'app-band-stub', template: 'band',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
 class BandStub {}
 
 describe('InvitePage', () => {
   let http: HttpTestingController;
-  let harness: RouterTestingHarness;
+  let pages: PageTest;
 
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideRouter(
-          [{ path: 'invites/:token', component: InvitePage }, { path: 'bands/:id', component: BandStub }],
-          withComponentInputBinding(),
-        ),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
+    pages = new PageTest([{ path: 'invites/:token', component: InvitePage }, { path: 'bands/:id', component: BandStub }]);
+    http = pages.http;
   });
 
-  afterEach(() => http.verify());
+  afterEach(() => pages.verify());
 
-  const page = () => harness.routeNativeElement as HTMLElement;
+  const page = () => pages.page();
 
-  async function settle() {
-    await harness.fixture.whenStable();
-    harness.detectChanges();
-  }
+  const settle = () => pages.settle();
 
   async function open(member: Member | null, answer: InviteSummary = invite) {
-    TestBed.inject(Session).member.set(member);
-    harness = await RouterTestingHarness.create('/invites/tok-abc');
-    await settle();
+    await pages.open('/invites/tok-abc', member);
     http.expectOne('/api/invites/tok-abc').flush(answer);
     await settle();
   }
@@ -106,9 +94,7 @@ describe('InvitePage', () => {
   }
 
   it('says when the invite link is not known', async () => {
-    TestBed.inject(Session).member.set(null);
-    harness = await RouterTestingHarness.create('/invites/tok-abc');
-    await settle();
+    await pages.open('/invites/tok-abc', null);
     http.expectOne('/api/invites/tok-abc').flush(
       { error: { code: 'not_found', message: 'No such invite.' } },
       { status: 404, statusText: 'Not Found' },

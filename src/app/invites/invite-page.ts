@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -15,6 +15,7 @@ import { InviteApi, InviteSummary } from './invite-api';
 /** Where an invite e-mail leads: what the invite is, sign-in when needed, and joining the band. */
 @Component({
   selector: 'app-invite-page',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt],
   templateUrl: './invite-page.html',
   styleUrl: './invite-page.scss',

@@ -1,16 +1,13 @@
 import { TestBed } from '@angular/core/testing';
-import { parsePresetDocument } from '@shared/preset/preset-document';
+import { fifthsPreset, resolvedPreset } from '@shared/preset/presets.testing';
 import { previewTable } from '@shared/tuning/preview';
 import { KeyTable } from './key-table';
 
 describe('KeyTable', () => {
   async function render(mapping: object) {
-    const parsed = parsePresetDocument({
-      format: 'keyloom.preset', version: 1, name: 'T', scale: { kind: 'generated', generator: '3/2', up: 5, down: 1 }, mapping,
-    });
-    if (!parsed.ok) throw new Error(parsed.errors[0].message);
+    const preset = resolvedPreset({ ...fifthsPreset('T'), mapping });
     const fixture = TestBed.createComponent(KeyTable);
-    fixture.componentRef.setInput('keys', previewTable(parsed.value).keys);
+    fixture.componentRef.setInput('keys', previewTable(preset).keys);
     await fixture.whenStable();
     const element = fixture.nativeElement as HTMLElement;
     const details = element.querySelector('details')!;
@@ -26,7 +23,8 @@ describe('KeyTable', () => {
   it('lists all 128 keys with note, degree, Hz, cents from 12-TET and whether each is mapped', async () => {
     const { rows } = await render({ rootKey: 60, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] });
     expect(rows.length).toBe(128);
-    // REFERENCE.md: pure G above equal-tempered C4 is 392.4383 Hz, 1.955 cents above equal-tempered G4.
+    // arithmetic (MIDI convention): pure G above equal-tempered C4 is 392.4383 Hz, 1.955 cents
+    // above equal-tempered G4.
     expect(rows[67]).toEqual(['67', 'G4', '4', '392.438', '+1.96¢', 'yes']);
     expect(rows[61]).toEqual(['61', 'C#4', '–', '–', '–', 'no']);
   });

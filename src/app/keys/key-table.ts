@@ -1,5 +1,5 @@
 import { DOCUMENT } from '@angular/common';
-import { Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { PreviewKey } from '@shared/tuning/preview';
@@ -18,6 +18,7 @@ interface KeyRow {
 /** Every one of the 128 keys: its note, the degree it plays, its pitch and its distance from 12-tone equal; printable. */
 @Component({
   selector: 'app-key-table',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatButtonModule, MatIconModule],
   template: `
     <details [open]="open()" (toggle)="open.set(details.open)" #details>

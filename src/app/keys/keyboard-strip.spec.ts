@@ -1,17 +1,14 @@
 import { TestBed } from '@angular/core/testing';
-import { parsePresetDocument } from '@shared/preset/preset-document';
+import { fifthsPreset, resolvedPreset } from '@shared/preset/presets.testing';
 import { previewTable } from '@shared/tuning/preview';
 import { KeyboardStrip } from './keyboard-strip';
 
 describe('KeyboardStrip', () => {
   function render(mapping: unknown, anchorKey: number | null = null) {
-    const parsed = parsePresetDocument({
-      format: 'keyloom.preset', version: 1, name: 'T', scale: { kind: 'generated', generator: '3/2', up: 5, down: 1 }, mapping,
-    });
-    if (!parsed.ok) throw new Error(parsed.errors[0].message);
+    const preset = resolvedPreset({ ...fifthsPreset('T'), mapping });
     const fixture = TestBed.createComponent(KeyboardStrip);
-    fixture.componentRef.setInput('keys', previewTable(parsed.value).keys);
-    fixture.componentRef.setInput('rootKey', parsed.value.mapping.rootKey);
+    fixture.componentRef.setInput('keys', previewTable(preset).keys);
+    fixture.componentRef.setInput('rootKey', preset.mapping.rootKey);
     fixture.componentRef.setInput('scaleSize', 7);
     fixture.componentRef.setInput('anchorKey', anchorKey);
     fixture.detectChanges();

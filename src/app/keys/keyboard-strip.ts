@@ -1,4 +1,14 @@
-import { Component, DestroyRef, ElementRef, afterNextRender, computed, inject, input, viewChild } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  ElementRef,
+  afterNextRender,
+  computed,
+  inject,
+  input,
+  viewChild,
+} from '@angular/core';
 import type { PreviewKey } from '@shared/tuning/preview';
 import { noteName } from '@shared/tuning/twelve-edo';
 
@@ -34,6 +44,7 @@ function fillFor(degree: number, size: number, black: boolean): string {
 /** All 128 MIDI keys drawn as a keyboard, each coloured and numbered by the degree it plays. */
 @Component({
   selector: 'app-keyboard-strip',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <div class="scroller" #scroller tabindex="0" role="region" aria-label="Keyboard, scrolls sideways">
       <svg [attr.width]="width" [attr.height]="labelRow + 6" role="img" [attr.aria-label]="description()">

@@ -1,3 +1,5 @@
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatMenuItemHarness } from '@angular/material/menu/testing';
 import { TestBed } from '@angular/core/testing';
 import { DesignState } from '../design/design-state';
 import { LayoutEditor } from './layout-editor';
@@ -39,10 +41,10 @@ describe('LayoutEditor', () => {
     const { fixture, keys, state } = await render();
     keys()[1].click();
     await fixture.whenStable();
-    const items = Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-menu-panel button[mat-menu-item]'));
-    expect(items.map((item) => item.textContent?.trim())[0]).toBe('Unmapped (plays nothing)');
+    const items = await TestbedHarnessEnvironment.documentRootLoader(fixture).getAllHarnesses(MatMenuItemHarness);
+    expect(await items[0].getText()).toBe('Unmapped (plays nothing)');
     expect(items.length).toBe(8);
-    items[0].click();
+    await items[0].click();
     await fixture.whenStable();
     expect(state.layout()).toEqual([0, null, 2, 3, 4, 5, 6]);
     expect(keys()[1].classList).toContain('unmapped');

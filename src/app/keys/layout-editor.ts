@@ -1,4 +1,4 @@
-import { Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatMenuModule } from '@angular/material/menu';
 import { noteName } from '@shared/tuning/twelve-edo';
@@ -21,6 +21,7 @@ interface LayoutKey {
  */
 @Component({
   selector: 'app-layout-editor',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DesignField, MatButtonModule, MatMenuModule],
   template: `
     <fieldset [disabled]="state.readOnly()">

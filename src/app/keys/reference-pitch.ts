@@ -1,4 +1,4 @@
-import { Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { noteName } from '@shared/tuning/twelve-edo';
@@ -16,6 +16,7 @@ const commonAs = [415, 430, 432, 440, 442];
  */
 @Component({
   selector: 'app-reference-pitch',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DesignField, MatButtonModule, MatButtonToggleModule],
   template: `
     @let mapping = state.draft().mapping;

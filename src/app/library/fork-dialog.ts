@@ -1,4 +1,4 @@
-import { Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
@@ -18,6 +18,7 @@ export interface ForkDialogData {
 /** Asks where a fork goes: my library or a band where I may save. Closes with `{ bandId }`. */
 @Component({
   selector: 'app-fork-dialog',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatDialogModule, MatButtonModule, MatRadioModule, FormsModule],
   template: `
     <h2 mat-dialog-title>Fork “{{ data.name }}”</h2>

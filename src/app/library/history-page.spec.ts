@@ -1,12 +1,9 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { provideRouter, withComponentInputBinding } from '@angular/router';
-import { RouterTestingHarness } from '@angular/router/testing';
-import { Member, Session } from '../auth/session';
+import { Member } from '../auth/session';
 import { HistoryPage } from './history-page';
 import { SavedPreset, RevisionEntry } from './library-api';
+import { PageTest } from '../../testing/page-test';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 const preset: SavedPreset = {
@@ -22,33 +19,21 @@ const revisions: RevisionEntry[] = [
 
 describe('HistoryPage', () => {
   let http: HttpTestingController;
-  let harness: RouterTestingHarness;
+  let pages: PageTest;
 
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideRouter([{ path: 'library/:id/history', component: HistoryPage }], withComponentInputBinding()),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
-    TestBed.inject(Session).member.set(mira);
+    pages = new PageTest([{ path: 'library/:id/history', component: HistoryPage }]);
+    http = pages.http;
   });
 
-  afterEach(() => http.verify());
+  afterEach(() => pages.verify());
 
-  const page = () => harness.routeNativeElement as HTMLElement;
+  const page = () => pages.page();
 
-  async function settle() {
-    await harness.fixture.whenStable();
-    harness.detectChanges();
-  }
+  const settle = () => pages.settle();
 
   async function open(detail = preset) {
-    harness = await RouterTestingHarness.create('/library/p1/history');
-    await settle();
+    await pages.open('/library/p1/history', mira);
     http.expectOne('/api/presets/p1').flush(detail);
     http.expectOne('/api/presets/p1/revisions').flush({ items: revisions });
     await settle();
@@ -121,7 +106,7 @@ describe('HistoryPage', () => {
     expect(restore.request.body).toEqual({ revision: 1 });
     restore.flush({ revision: 4 }, { status: 201, statusText: 'Created' });
     await settle();
-    expect(document.querySelector('.mat-mdc-snack-bar-container')!.textContent).toContain(
+    expect(await pages.snackBar()).toContain(
       'Revision 1 is saved again as revision 4.',
     );
     http.expectOne('/api/presets/p1');
@@ -152,8 +137,7 @@ describe('HistoryPage', () => {
   });
 
   it('says so when the preset cannot be seen', async () => {
-    harness = await RouterTestingHarness.create('/library/p1/history');
-    await settle();
+    await pages.open('/library/p1/history', mira);
     http.expectOne('/api/presets/p1').flush(
       { error: { code: 'not_found', message: 'No such preset.' } },
       { status: 404, statusText: 'Not Found' },

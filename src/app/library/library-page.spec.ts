@@ -1,13 +1,15 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HttpTestingController, TestRequest } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { Router, provideRouter, withComponentInputBinding } from '@angular/router';
-import { RouterTestingHarness } from '@angular/router/testing';
-import { Member, Session } from '../auth/session';
+import { MatMenuHarness, MatMenuItemHarness } from '@angular/material/menu/testing';
+import { MatPaginatorHarness } from '@angular/material/paginator/testing';
+import { MatSnackBarHarness } from '@angular/material/snack-bar/testing';
+import { MatTableHarness } from '@angular/material/table/testing';
+import { Router } from '@angular/router';
+import { Member } from '../auth/session';
 import { BandSummary } from '../bands/bands-api';
 import { PresetRow } from './library-api';
 import { LibraryPage } from './library-page';
+import { PageTest } from '../../testing/page-test';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 const bands: BandSummary[] = [
@@ -29,37 +31,25 @@ const hollowDrone: PresetRow = {
 
 describe('LibraryPage', () => {
   let http: HttpTestingController;
-  let harness: RouterTestingHarness;
+  let pages: PageTest;
 
   beforeEach(async () => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideRouter([{ path: 'library', component: LibraryPage }], withComponentInputBinding()),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
+    pages = new PageTest([{ path: 'library', component: LibraryPage }]);
+    http = pages.http;
   });
 
-  afterEach(() => http.verify());
+  afterEach(() => pages.verify());
 
-  const page = () => harness.routeNativeElement as HTMLElement;
+  const page = () => pages.page();
 
-  async function settle() {
-    await harness.fixture.whenStable();
-    harness.detectChanges();
-  }
+  const settle = () => pages.settle();
 
   function presetRequest(): TestRequest {
     return http.expectOne((request) => request.url === '/api/presets');
   }
 
   async function open(url: string, rows = [fenFifths, reedOrgan, hollowDrone]) {
-    TestBed.inject(Session).member.set(mira);
-    harness = await RouterTestingHarness.create(url);
-    await settle();
+    await pages.open(url, mira);
     http.expectOne('/api/bands').flush({ items: bands });
     const request = presetRequest();
     request.flush({ items: rows, total: 41, page: 1, pageSize: 20 });
@@ -67,25 +57,23 @@ describe('LibraryPage', () => {
     return request;
   }
 
-  function rowTexts(): string[] {
-    return Array.from(page().querySelectorAll('tr.mat-mdc-row')).map((row) => row.textContent!.replace(/\s+/g, ' ').trim());
+  async function rowTexts(): Promise<string[]> {
+    const rows = await (await pages.loader.getHarness(MatTableHarness)).getRows();
+    return Promise.all(rows.map(async (row) => (await row.getCellTextByIndex()).join(' ')));
   }
 
-  function menuItem(label: string): HTMLButtonElement {
-    return Array.from(document.querySelectorAll<HTMLButtonElement>('.mat-mdc-menu-panel button')).find((b) =>
-      b.textContent!.includes(label),
-    )!;
+  function menuItem(label: string): Promise<MatMenuItemHarness> {
+    return pages.loader.getHarness(MatMenuItemHarness.with({ text: new RegExp(label) }));
   }
 
   async function openRowMenu(name: string) {
-    page().querySelector<HTMLButtonElement>(`button[aria-label="Actions for ${name}"]`)!.click();
+    const selector = `[aria-label="Actions for ${name}"]`;
+    await (await pages.loader.getHarness(MatMenuHarness.with({ selector }))).open();
     await settle();
   }
 
   it('asks a signed-out visitor to sign in and come back to the library', async () => {
-    TestBed.inject(Session).member.set(null);
-    harness = await RouterTestingHarness.create('/library');
-    await settle();
+    await pages.open('/library', null);
     const link = page().querySelector<HTMLAnchorElement>('a.sign-in-link')!;
     expect(link.textContent).toContain('Sign in to see your library');
     expect(link.getAttribute('href')).toBe('/auth/github?next=%2Flibrary');
@@ -98,7 +86,7 @@ describe('LibraryPage', () => {
     expect(request.request.params.get('page')).toBe('1');
     expect(request.request.params.get('pageSize')).toBe('20');
     expect(request.request.params.has('trash')).toBeFalse();
-    const rows = rowTexts();
+    const rows = await rowTexts();
     expect(rows.length).toBe(3);
     expect(rows[0]).toContain('Fen Fifths');
     expect(rows[0]).toContain('Copper Fen');
@@ -106,7 +94,7 @@ describe('LibraryPage', () => {
     expect(rows[1]).toContain('My library');
     expect(rows[2]).toContain('tobias-reed');
     expect(page().querySelector<HTMLAnchorElement>('a.name')!.getAttribute('href')).toBe('/presets/p1');
-    expect(page().querySelector('.mat-mdc-paginator-range-label')!.textContent).toContain('41');
+    expect(await (await pages.loader.getHarness(MatPaginatorHarness)).getRangeLabel()).toContain('41');
   });
 
   it('asks the server to sort by name when the name header is clicked', async () => {
@@ -131,23 +119,23 @@ describe('LibraryPage', () => {
       await open('/library');
       // The empty search the page starts with passes its pause and asks for nothing new.
       jasmine.clock().tick(300);
-      harness.detectChanges();
+      pages.harness.detectChanges();
       noPresetRequest();
       const input = page().querySelector<HTMLInputElement>('input[type="search"]')!;
       for (const text of ['f', 'fe', 'fen']) {
         input.value = text;
         input.dispatchEvent(new Event('input'));
-        harness.detectChanges();
+        pages.harness.detectChanges();
         jasmine.clock().tick(100);
-        harness.detectChanges();
+        pages.harness.detectChanges();
         noPresetRequest();
       }
       // 300 ms after the first key the search waits still: it counts its pause from the last key.
       jasmine.clock().tick(199);
-      harness.detectChanges();
+      pages.harness.detectChanges();
       noPresetRequest();
       jasmine.clock().tick(1);
-      harness.detectChanges();
+      pages.harness.detectChanges();
       // Runs the change detection Angular scheduled on the test's clock before that clock goes.
       jasmine.clock().tick(0);
     } finally {
@@ -197,31 +185,31 @@ describe('LibraryPage', () => {
   it('moves a preset to the trash and brings it back with Undo', async () => {
     await open('/library');
     await openRowMenu('Reed Organ Meantone');
-    menuItem('Move to trash').click();
+    await (await menuItem('Move to trash')).click();
     const deletion = http.expectOne('/api/presets/p2');
     expect(deletion.request.method).toBe('DELETE');
     deletion.flush(null, { status: 204, statusText: 'No Content' });
     await settle();
     presetRequest().flush({ items: [fenFifths], total: 1, page: 1, pageSize: 20 });
     await settle();
-    const snackBar = document.querySelector('.mat-mdc-snack-bar-container')!;
-    expect(snackBar.textContent).toContain('“Reed Organ Meantone” is in the trash for 30 days.');
-    snackBar.querySelector<HTMLButtonElement>('button')!.click();
+    const snackBar = await pages.loader.getHarness(MatSnackBarHarness);
+    expect(await snackBar.getMessage()).toContain('“Reed Organ Meantone” is in the trash for 30 days.');
+    await snackBar.dismissWithAction();
     expect(http.expectOne('/api/presets/p2/untrash').request.method).toBe('POST');
   });
 
   it('will not offer to share or delete a preset of a band where I only view', async () => {
     await open('/library');
     await openRowMenu('Hollow Drone');
-    expect(menuItem('Share').disabled).toBeTrue();
-    expect(menuItem('Move to trash').disabled).toBeTrue();
-    expect(menuItem('Fork').disabled).toBeFalse();
+    expect(await (await menuItem('Share')).isDisabled()).toBeTrue();
+    expect(await (await menuItem('Move to trash')).isDisabled()).toBeTrue();
+    expect(await (await menuItem('Fork')).isDisabled()).toBeFalse();
   });
 
   it('forks into a band where I may save, and not into one where I only view', async () => {
     await open('/library');
     await openRowMenu('Hollow Drone');
-    menuItem('Fork').click();
+    await (await menuItem('Fork')).click();
     await settle();
     const dialog = document.querySelector('mat-dialog-container')!;
     const options = Array.from(dialog.querySelectorAll('mat-radio-button')).map((o) => o.textContent!.trim());
@@ -236,7 +224,7 @@ describe('LibraryPage', () => {
     await settle();
     presetRequest().flush({ items: [], total: 0, page: 1, pageSize: 20 });
     await settle();
-    expect(document.querySelector('.mat-mdc-snack-bar-container')!.textContent).toContain(
+    expect(await pages.snackBar()).toContain(
       'Forked “Hollow Drone” into Copper Fen (band).',
     );
   });
@@ -244,16 +232,14 @@ describe('LibraryPage', () => {
   it('opens the share dialog for a preset I may change', async () => {
     await open('/library');
     await openRowMenu('Fen Fifths');
-    menuItem('Share').click();
+    await (await menuItem('Share')).click();
     await settle();
     expect(document.querySelector('mat-dialog-container h2')!.textContent).toContain('Share “Fen Fifths”');
     http.expectOne('/api/presets/p1/shares').flush({ items: [] });
   });
 
   it('shows the server\'s message when the library cannot be read', async () => {
-    TestBed.inject(Session).member.set(mira);
-    harness = await RouterTestingHarness.create('/library');
-    await settle();
+    await pages.open('/library', mira);
     http.expectOne('/api/bands').flush({ items: [] });
     presetRequest().flush(
       { error: { code: 'invalid', message: 'pageSize: must be at most 100' } },

@@ -1,3 +1,5 @@
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatSnackBarHarness } from '@angular/material/snack-bar/testing';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
@@ -65,7 +67,8 @@ describe('DownloadMenu', () => {
     document.querySelector<HTMLButtonElement>('.download-formats button[mat-menu-item]')!.click();
     http.expectOne({ method: 'GET', url: '/api/presets/p-3/export/mts-bulk' }).flush(new Blob(['x']));
     await settled(fixture);
-    expect(document.querySelector('.mat-mdc-snack-bar-label')?.textContent).toContain('Downloaded keyloom-mts-bulk.syx');
+    const snackBar = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatSnackBarHarness);
+    expect(await snackBar.getMessage()).toContain('Downloaded keyloom-mts-bulk.syx');
 
     state.rename('Changed');
     button.click();

@@ -1,4 +1,4 @@
-import { Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
@@ -14,6 +14,7 @@ import { exportRefusals } from './export-refusals';
 /** The download button and its menu of every export format, each with a line on what it is for. */
 @Component({
   selector: 'app-download-menu',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule],
   template: `
     <span [matTooltip]="blocked() ?? ''" [matTooltipDisabled]="!blocked()">

@@ -71,7 +71,7 @@ describe('Downloads', () => {
     expect(clicked).toEqual([]);
   });
 
-  it('offers every export format of DESIGN.md, each with a line on what it is for', () => {
+  it('offers every export format, each with a line on what it is for', () => {
     expect(exportFormats.map((candidate) => candidate.id)).toEqual([
       'mts-bulk', 'mts-bulk-bank', 'mts-notes', 'mts-octave-1', 'mts-octave-2', 'smf', 'mpe-smf', 'bend-csv',
       'bend-json', 'key-csv', 'sfz', 'tuner-sheet', 'preset', 'bundle',

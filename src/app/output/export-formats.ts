@@ -1,4 +1,4 @@
-/** A file the server makes from a preset (DESIGN.md "Export formats"; the ids are a contract). */
+/** A file the server makes from a preset (the ids are a contract). */
 export interface ExportFormat {
   id: string;
   label: string;

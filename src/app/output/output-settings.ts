@@ -1,4 +1,4 @@
-import { Component, computed, inject, linkedSignal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal } from '@angular/core';
 import { tuningNameFrom } from '@shared/midi/tuning-name';
 import { DesignField } from '../design/design-field';
 import { DesignState } from '../design/design-state';
@@ -7,6 +7,7 @@ import { typedFrom, typedText } from '../design/draft-document';
 /** Where the tuning goes on an instrument: device, tuning program and bank, name, bends and MPE channels. */
 @Component({
   selector: 'app-output-settings',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DesignField],
   template: `
     @let output = state.draft().output;

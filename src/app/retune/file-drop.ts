@@ -1,4 +1,4 @@
-import { Component, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, input, output, signal } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 
 /**
@@ -7,6 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
  */
 @Component({
   selector: 'app-file-drop',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatIconModule],
   template: `
     <button type="button" class="drop" [class.over]="over()" [attr.aria-describedby]="hintId"

@@ -1,21 +1,16 @@
-import { provideHttpClient } from '@angular/common/http';
 import { HttpEventType } from '@angular/common/http';
-import { HttpTestingController, TestRequest, provideHttpClientTesting } from '@angular/common/http/testing';
-import { HarnessLoader } from '@angular/cdk/testing';
-import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
-import { TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
+import { HttpTestingController, TestRequest } from '@angular/common/http/testing';
 import { MatRadioButtonHarness } from '@angular/material/radio/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
-import { provideRouter, withComponentInputBinding } from '@angular/router';
-import { RouterTestingHarness } from '@angular/router/testing';
+import { fifthsPreset } from '@shared/preset/presets.testing';
 import { patientSpecMs, waitFor } from '../../testing/wait-for';
-import { Member, Session } from '../auth/session';
+import { Member } from '../auth/session';
 import { encodeDesign } from '../design/design-address';
 import { draftFrom } from '../design/draft-document';
 import { PresetRow } from '../library/library-api';
 import { SongReportHeader } from './retune-api';
 import { RetunePage } from './retune-page';
+import { PageTest } from '../../testing/page-test';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 const fenFifths: PresetRow = {
@@ -26,13 +21,7 @@ const reedOrgan: PresetRow = {
   id: 'p-reed', name: 'Reed Organ Meantone', bandId: null, bandName: null, ownerId: 'u-mira', ownerLogin: 'mira-vale',
   revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null, access: 'own',
 };
-const fenFifthsDocument = {
-  format: 'keyloom.preset' as const,
-  version: 1 as const,
-  name: 'Fen Fifths',
-  scale: { kind: 'generated' as const, generator: '3/2', period: '2/1', up: 5, down: 1 },
-  mapping: { rootKey: 60 },
-};
+const fenFifthsDocument = fifthsPreset('Fen Fifths');
 /** A report in the shape server/routes/retune.ts answers in its JSON body. */
 const mpeReport: SongReportHeader = {
   mode: 'mpe',
@@ -51,30 +40,19 @@ const midiBytes = new Uint8Array([0x4d, 0x54, 0x68, 0x64, 0, 0, 0, 6, 0, 1, 0, 2
 
 describe('RetunePage', () => {
   let http: HttpTestingController;
-  let harness: RouterTestingHarness;
-  let loader: HarnessLoader;
+  let pages: PageTest;
 
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideRouter([{ path: 'retune', component: RetunePage }], withComponentInputBinding()),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
+    pages = new PageTest([{ path: 'retune', component: RetunePage }]);
+    http = pages.http;
   });
 
-  afterEach(() => http.verify());
+  afterEach(() => pages.verify());
 
-  const page = () => harness.routeNativeElement as HTMLElement;
-  const text = (selector: string) => page().querySelector(selector)?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
+  const page = () => pages.page();
+  const text = (selector: string) => pages.text(selector);
 
-  async function settle() {
-    await harness.fixture.whenStable();
-    harness.detectChanges();
-  }
+  const settle = () => pages.settle();
 
   /** Waits for work the page does outside Angular's knowledge (reading a Blob) to show. */
   async function until(what: string, shown: () => unknown) {
@@ -82,10 +60,7 @@ describe('RetunePage', () => {
   }
 
   async function open(url: string, member: Member | null) {
-    TestBed.inject(Session).member.set(member);
-    harness = await RouterTestingHarness.create(url);
-    loader = TestbedHarnessEnvironment.documentRootLoader(harness.fixture);
-    await settle();
+    await pages.open(url, member);
   }
 
   async function openSignedIn() {
@@ -131,10 +106,10 @@ describe('RetunePage', () => {
     expect(text('.chosen')).toContain('fen-song.mid');
     expect(text('.chosen')).toContain('14 bytes');
 
-    const select = await loader.getHarness(MatSelectHarness.with({ selector: '.preset-field mat-select' }));
+    const select = await pages.loader.getHarness(MatSelectHarness.with({ selector: '.preset-field mat-select' }));
     await select.open();
     await select.clickOptions({ text: /Fen Fifths/ });
-    await (await loader.getHarness(MatRadioButtonHarness.with({ label: 'One note per channel (MPE)' }))).check();
+    await (await pages.loader.getHarness(MatRadioButtonHarness.with({ label: 'One note per channel (MPE)' }))).check();
     await settle();
 
     const request = await retuneRequest();
@@ -184,7 +159,7 @@ describe('RetunePage', () => {
   it('retunes the same song again in the other mode without choosing it again', async () => {
     await openSignedIn();
     await choose(song());
-    const select = await loader.getHarness(MatSelectHarness);
+    const select = await pages.loader.getHarness(MatSelectHarness);
     await select.open();
     await select.clickOptions({ text: /Reed Organ/ });
     const first = await retuneRequest();
@@ -210,7 +185,7 @@ describe('RetunePage', () => {
   it('sends the lead-in as typed, refuses one out of range before sending, and says when there is none', async () => {
     await openSignedIn();
     await choose(song());
-    const select = await loader.getHarness(MatSelectHarness);
+    const select = await pages.loader.getHarness(MatSelectHarness);
     await select.open();
     await select.clickOptions({ text: /Fen Fifths/ });
     const leadIn = page().querySelector<HTMLInputElement>('.lead-in input')!;
@@ -267,7 +242,7 @@ describe('RetunePage', () => {
   it('shows the server\'s refusal in its own words', async () => {
     await openSignedIn();
     await choose(new File([new Uint8Array([0x50, 0x4b, 3, 4])], 'fen-song.mid'));
-    const select = await loader.getHarness(MatSelectHarness);
+    const select = await pages.loader.getHarness(MatSelectHarness);
     await select.open();
     await select.clickOptions({ text: /Fen Fifths/ });
     const request = await retuneRequest();
@@ -283,7 +258,7 @@ describe('RetunePage', () => {
 
   it('reads a chosen preset file in the browser and names its faults before anything is sent', async () => {
     await open('/retune', null);
-    expect(await (await loader.getHarness(MatRadioButtonHarness.with({ label: 'A preset file (.json)' }))).isChecked()).toBeTrue();
+    expect(await (await pages.loader.getHarness(MatRadioButtonHarness.with({ label: 'A preset file (.json)' }))).isChecked()).toBeTrue();
     await choose(song());
     const broken = { ...fenFifthsDocument, scale: { kind: 'generated', generator: '1.5', up: 5 } };
     await choose(new File([JSON.stringify(broken)], 'fen-fifths.json', { type: 'application/json' }), 1);

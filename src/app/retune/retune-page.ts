@@ -1,4 +1,4 @@
-import { Component, DestroyRef, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -31,6 +31,7 @@ const modeNames: Record<RetuneMode, string> = { mts: 'tuning messages (MTS)', mp
 /** Song retuning: choose a MIDI song, a tuning and a mode, watch it go, read the report, download the result. */
 @Component({
   selector: 'app-retune-page',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule,
     MatRadioModule, MatSelectModule, FileDrop, SignInPrompt, SongPreview, SongReport,

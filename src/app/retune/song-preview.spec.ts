@@ -6,7 +6,8 @@ import { SongPreview } from './song-preview';
 
 /**
  * A format 0 song written out byte by byte (SMF 1.0): an MTS real-time single-note change that tunes key 60 to the
- * just fifth above equal-tempered C4 (REFERENCE.md: 392.4383 Hz is `43 02 40`), then key 60 and key 69 one after
+ * just fifth above equal-tempered C4 (MIDI Tuning specification: 392.4383 Hz is `43 02 40`), then
+  * key 60 and key 69 one after
  * the other, and a drum note on channel 10.
  */
 const song = new Uint8Array([

@@ -1,4 +1,4 @@
-import { Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { noteName } from '@shared/tuning/twelve-edo';
 import { SongReportHeader } from './retune-api';
 
@@ -16,6 +16,7 @@ function channelRuns(channels: readonly number[]): string {
 /** What the server did to a song: notes retuned, the channels it used, notes cut short, and its warnings. */
 @Component({
   selector: 'app-song-report',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @let summary = report();
     <dl class="figures">

@@ -1,4 +1,4 @@
-import { Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { fifthsPerStep } from '@shared/tuning/chain-names';
 import { DesignField } from '../design/design-field';
@@ -39,6 +39,7 @@ const centre = 140;
  */
 @Component({
   selector: 'app-chain-editor',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DesignField, MatButtonModule],
   template: `
     @if (scale(); as scale) {

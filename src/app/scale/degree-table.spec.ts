@@ -1,12 +1,11 @@
 import { TestBed } from '@angular/core/testing';
-import { parsePresetDocument } from '@shared/preset/preset-document';
+import { presetOf, resolvedPreset } from '@shared/preset/presets.testing';
 import { previewTable } from '@shared/tuning/preview';
 import { DegreeTable } from './degree-table';
 
 function degreesOf(scale: unknown) {
-  const parsed = parsePresetDocument({ format: 'keyloom.preset', version: 1, name: 'T', scale, mapping: { rootKey: 60 } });
-  if (!parsed.ok) throw new Error(parsed.errors[0].message);
-  return { degrees: previewTable(parsed.value).degrees, rootHz: parsed.value.mapping.rootHz };
+  const preset = resolvedPreset(presetOf(scale));
+  return { degrees: previewTable(preset).degrees, rootHz: preset.mapping.rootHz };
 }
 
 describe('DegreeTable', () => {

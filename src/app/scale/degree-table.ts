@@ -1,4 +1,4 @@
-import { Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatTableModule } from '@angular/material/table';
 import type { PreviewDegree, SizeJson } from '@shared/tuning/preview';
 import { centsText, signedCentsText } from './cents-text';
@@ -45,6 +45,7 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
 /** Every degree of the scale: its name, ratio, cents, the step up from it, its nearest note and pitch. */
 @Component({
   selector: 'app-degree-table',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatTableModule],
   template: `
     <div class="scroller" tabindex="0" role="region" aria-label="Degrees, scrolls sideways">

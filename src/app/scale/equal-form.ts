@@ -1,4 +1,4 @@
-import { Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { DesignField } from '../design/design-field';
 import { DesignState } from '../design/design-state';
 import { typedFrom, typedText } from '../design/draft-document';
@@ -6,6 +6,7 @@ import { typedFrom, typedText } from '../design/draft-document';
 /** Equal divisions of a period. */
 @Component({
   selector: 'app-equal-form',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DesignField],
   template: `
     @if (scale(); as scale) {

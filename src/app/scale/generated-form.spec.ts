@@ -56,7 +56,7 @@ describe('GeneratedForm', () => {
       .click();
     await fixture.whenStable();
     expect(state.draft().scale).toEqual(jasmine.objectContaining({ temper: { comma: '81/80', fraction: '1/4' } }));
-    // 3/2 narrowed by 1/4 of 81/80 is 696.578c (DESIGN.md, "Scale kinds").
+    // 3/2 narrowed by 1/4 of 81/80 is 696.578c (standard acoustics texts: the quarter-comma fifth).
     expect(element.textContent).toContain('the generator becomes 696.578c');
   });
 });

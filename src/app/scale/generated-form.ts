@@ -1,4 +1,4 @@
-import { Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { DesignField } from '../design/design-field';
 import { DesignState } from '../design/design-state';
@@ -16,6 +16,7 @@ type GeneratedScale = Extract<DraftScale, { kind: 'generated' }>;
  */
 @Component({
   selector: 'app-generated-form',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DesignField, MatButtonToggleModule, ChainEditor],
   template: `
     @if (scale(); as scale) {

@@ -1,4 +1,4 @@
-import { Component, computed, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { DesignField } from '../design/design-field';
 import { DesignState } from '../design/design-state';
@@ -7,6 +7,7 @@ import { typedFrom, typedText } from '../design/draft-document';
 /** A segment of the harmonic series, or its mirror, the subharmonic series. */
 @Component({
   selector: 'app-harmonic-form',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DesignField, MatCheckboxModule],
   template: `
     @if (scale(); as scale) {

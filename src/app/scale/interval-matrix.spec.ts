@@ -1,12 +1,11 @@
 import { TestBed } from '@angular/core/testing';
-import { parsePresetDocument } from '@shared/preset/preset-document';
+import { presetOf, resolvedPreset } from '@shared/preset/presets.testing';
 import { previewTable } from '@shared/tuning/preview';
 import { IntervalMatrix } from './interval-matrix';
 
 function matrixOf(scale: unknown): number[][] {
-  const parsed = parsePresetDocument({ format: 'keyloom.preset', version: 1, name: 'T', scale, mapping: { rootKey: 60 } });
-  if (!parsed.ok) throw new Error(parsed.errors[0].message);
-  return previewTable(parsed.value).analysis.intervalMatrix;
+  const preset = resolvedPreset(presetOf(scale));
+  return previewTable(preset).analysis.intervalMatrix;
 }
 
 describe('IntervalMatrix', () => {

@@ -1,4 +1,11 @@
-import { Component, computed, input, linkedSignal, output } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  input,
+  linkedSignal,
+  output,
+} from '@angular/core';
 
 interface MatrixCell {
   cents: string;
@@ -19,6 +26,7 @@ const largestOpenMatrix = 24;
  */
 @Component({
   selector: 'app-interval-matrix',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <details [open]="open()" (toggle)="open.set(details.open)" #details>
       <summary>{{ open() ? 'Hide' : 'Show' }} the {{ size() }} × {{ size() - 1 }} intervals</summary>

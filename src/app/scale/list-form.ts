@@ -1,4 +1,4 @@
-import { Component, computed, inject, linkedSignal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal } from '@angular/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { readDegreeList } from '@shared/tuning/degree-list';
@@ -14,6 +14,7 @@ function sameDegrees(a: string[], b: string[]): boolean {
 /** A list of degrees above the tonic, as ratios or cents, and the period they repeat at. */
 @Component({
   selector: 'app-list-form',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [DesignField, MatFormFieldModule, MatInputModule, FieldFault],
   template: `
     @if (degrees(); as degrees) {

@@ -1,4 +1,4 @@
-import { Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { PreviewDegree } from '@shared/tuning/preview';
 import { signedCentsText } from './cents-text';
 
@@ -22,6 +22,7 @@ interface Bar {
 /** A bar per degree: how many cents it sits above or below its nearest twelve-tone equal-tempered note. */
 @Component({
   selector: 'app-offset-chart',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <div class="scroller">
       <svg [attr.viewBox]="'0 0 ' + width() + ' ' + height" [style.max-width.px]="width()" [style.min-width.px]="narrowest()"

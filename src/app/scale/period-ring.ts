@@ -1,4 +1,4 @@
-import { Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 
 const size = 240;
 const centre = size / 2;
@@ -25,6 +25,7 @@ function pointAt(fraction: number, radius: number): Point {
  */
 @Component({
   selector: 'app-period-ring',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     <svg [attr.viewBox]="'0 0 ' + size + ' ' + size" role="img" [attr.aria-label]="description()">
       <circle class="ring" [attr.cx]="centre" [attr.cy]="centre" [attr.r]="ringRadius" />

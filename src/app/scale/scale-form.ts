@@ -1,4 +1,4 @@
-import { Component, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { DesignState } from '../design/design-state';
 import type { ScaleKind } from '../design/draft-document';
@@ -15,6 +15,7 @@ interface KindChoice {
 /** The kind of scale and the form for that kind. */
 @Component({
   selector: 'app-scale-form',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatButtonToggleModule, GeneratedForm, EqualForm, ListForm, HarmonicForm],
   template: `
     <fieldset [disabled]="state.readOnly()">

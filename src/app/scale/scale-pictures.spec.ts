@@ -1,14 +1,13 @@
 import { TestBed } from '@angular/core/testing';
-import { parsePresetDocument } from '@shared/preset/preset-document';
+import { presetOf, resolvedPreset } from '@shared/preset/presets.testing';
 import { previewTable } from '@shared/tuning/preview';
 import { OffsetChart } from './offset-chart';
 import { PeriodRing } from './period-ring';
 import { ScaleSummary } from './scale-summary';
 
 function tableOf(scale: unknown) {
-  const parsed = parsePresetDocument({ format: 'keyloom.preset', version: 1, name: 'T', scale, mapping: { rootKey: 60 } });
-  if (!parsed.ok) throw new Error(parsed.errors[0].message);
-  return previewTable(parsed.value);
+  const preset = resolvedPreset(presetOf(scale));
+  return previewTable(preset);
 }
 
 const fifths = { kind: 'generated', generator: '3/2', up: 5, down: 1 };

@@ -1,4 +1,4 @@
-import { Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { PreviewTable, SizeJson } from '@shared/tuning/preview';
 import { centsText } from './cents-text';
 
@@ -9,6 +9,7 @@ function sizeText(size: SizeJson): string {
 /** What the scale does as a whole: size, period, step pattern, MOS sizes, the comma and the wolf. */
 @Component({
   selector: 'app-scale-summary',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
     @let analysis = table().analysis;
     <dl>

@@ -69,7 +69,7 @@ describe('ShareDialog', () => {
     http.expectOne('/api/presets/p1/shares').flush({ items: [{ ...links[0], revokedAt: '2026-11-22T10:00:00Z' }, links[1]] });
     await settle();
     expect(dialog.querySelectorAll('.links button.revoke').length).toBe(1);
-    expect(document.querySelector('.mat-mdc-snack-bar-container')!.textContent).toContain('Link revoked');
+    expect(document.querySelector('mat-snack-bar-container')!.textContent).toContain('Link revoked');
   });
 
   it('makes a link that follows the latest revision and copies it', async () => {
@@ -90,7 +90,7 @@ describe('ShareDialog', () => {
     button(dialog, 'Copy link').click();
     await settle();
     expect(copy).toHaveBeenCalledWith('http://127.0.0.1:3000/s/tok3');
-    expect(document.querySelector('.mat-mdc-snack-bar-container')!.textContent).toContain('Link copied.');
+    expect(document.querySelector('mat-snack-bar-container')!.textContent).toContain('Link copied.');
   });
 
   it('pins a link to the revision on screen when asked', async () => {

@@ -1,6 +1,6 @@
 import { ClipboardModule } from '@angular/cdk/clipboard';
 import { DatePipe } from '@angular/common';
-import { Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule } from '@angular/material/dialog';
@@ -23,6 +23,7 @@ export interface ShareDialogData {
 /** Makes, copies and revokes read-only links to a preset. Open it with `MatDialog.open(ShareDialog, { data })`. */
 @Component({
   selector: 'app-share-dialog',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     DatePipe, FormsModule, ClipboardModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatIconModule,
     MatInputModule, MatRadioModule,

@@ -1,54 +1,36 @@
-import { provideHttpClient } from '@angular/common/http';
-import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
-import { TestBed } from '@angular/core/testing';
-import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { provideRouter, withComponentInputBinding } from '@angular/router';
-import { RouterTestingHarness } from '@angular/router/testing';
+import { HttpTestingController } from '@angular/common/http/testing';
 import { exportFormats as catalogue } from '@shared/export/export-catalogue';
-import { Member, Session } from '../auth/session';
+import { fifthsPreset } from '@shared/preset/presets.testing';
+import { Member } from '../auth/session';
 import { SharedPreset } from './share-api';
 import { SharedPage } from './shared-page';
+import { PageTest } from '../../testing/page-test';
 
 const tobias: Member = { id: 'u-tobias', login: 'tobias-reed', name: 'Tobias Reed', email: null, avatarUrl: null, siteRole: 'member' };
 const fenFifths = {
-  format: 'keyloom.preset',
-  version: 1,
-  name: 'Fen Fifths',
+  ...fifthsPreset('Fen Fifths'),
   notes: 'Stacked pure fifths from C for the drone pieces.',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 },
   mapping: { rootKey: 60, concertA: 440, keysPerPeriod: 12, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
 };
 const shared: SharedPreset = { name: 'Fen Fifths', revision: 3, pinned: true, savedAt: '2026-11-20T09:30:00Z', document: fenFifths };
 
 describe('SharedPage', () => {
   let http: HttpTestingController;
-  let harness: RouterTestingHarness;
+  let pages: PageTest;
 
   beforeEach(() => {
-    TestBed.configureTestingModule({
-      providers: [
-        provideRouter([{ path: 's/:token', component: SharedPage }], withComponentInputBinding()),
-        provideHttpClient(),
-        provideHttpClientTesting(),
-        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
-      ],
-    });
-    http = TestBed.inject(HttpTestingController);
+    pages = new PageTest([{ path: 's/:token', component: SharedPage }]);
+    http = pages.http;
   });
 
-  afterEach(() => http.verify());
+  afterEach(() => pages.verify());
 
-  const page = () => harness.routeNativeElement as HTMLElement;
+  const page = () => pages.page();
 
-  async function settle() {
-    await harness.fixture.whenStable();
-    harness.detectChanges();
-  }
+  const settle = () => pages.settle();
 
   async function open(member: Member | null, answer: SharedPreset = shared) {
-    TestBed.inject(Session).member.set(member);
-    harness = await RouterTestingHarness.create('/s/tok-123');
-    await settle();
+    await pages.open('/s/tok-123', member);
     http.expectOne('/api/shared/tok-123').flush(answer);
     await settle();
   }
@@ -60,7 +42,7 @@ describe('SharedPage', () => {
     expect(page().querySelector('.about')!.textContent).toContain('always opens this revision');
     expect(page().querySelector('.summary')!.textContent).toContain('7 degrees in a period of 2/1');
     expect(page().querySelector('.summary')!.textContent).toContain('LLsLLLs');
-    // Middle C at A4 = 440 Hz is 261.6256 Hz (REFERENCE.md: MIDI convention).
+    // Middle C at A4 = 440 Hz is 261.6256 Hz (MIDI convention).
     expect(page().querySelector('.summary .pitch')!.textContent).toBe('Root key 60 (C4) sounds 261.6256 Hz.');
     // The tuning can be heard here: the play panel (with its volume caution) and the keys to play.
     expect(page().querySelector('.listen app-play-panel')).not.toBeNull();
@@ -72,8 +54,9 @@ describe('SharedPage', () => {
       Array.from(tr.children).map((cell) => cell.textContent!.trim()),
     );
     expect(rows.length).toBe(7);
-    // In the designer's style: pure fifth 3/2 = 701.955¢, 1.955¢ above the equal-tempered G (REFERENCE.md:
-    // 1200 log2(3/2)), and its pitch from middle C, 392.438 Hz (REFERENCE.md: G 3/2 = 392.4383 Hz).
+    // In the designer's style: pure fifth 3/2 = 701.955¢, 1.955¢ above the equal-tempered G
+    // (definition: 1200 log2(3/2)), and its pitch from middle C, 392.438 Hz (arithmetic (MIDI
+    // convention): G 3/2 = 392.4383 Hz).
     expect(rows[4].slice(0, 7)).toEqual(['4', 'G', '3/2', '701.955¢', '9/8', 'G4', '+2.0¢']);
     expect(rows[4][7]).toBe('392.438');
     expect(rows[3].slice(0, 4)).toEqual(['3', 'F', '4/3', '498.045¢']);
@@ -118,13 +101,11 @@ describe('SharedPage', () => {
     expect(save.request.body).toEqual({ document: fenFifths, note: 'Copied from a share link' });
     save.flush({ id: 'p9', revision: 1 }, { status: 201, statusText: 'Created' });
     await settle();
-    expect(document.querySelector('.mat-mdc-snack-bar-container')!.textContent).toContain('“Fen Fifths” is now in your library.');
+    expect(await pages.snackBar()).toContain('“Fen Fifths” is now in your library.');
   });
 
   it('says plainly when the link was revoked or never existed', async () => {
-    TestBed.inject(Session).member.set(null);
-    harness = await RouterTestingHarness.create('/s/tok-123');
-    await settle();
+    await pages.open('/s/tok-123', null);
     http.expectOne('/api/shared/tok-123').flush(
       { error: { code: 'not_found', message: 'No such shared preset.' } },
       { status: 404, statusText: 'Not Found' },

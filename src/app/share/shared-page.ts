@@ -1,5 +1,5 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
-import { Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -30,6 +30,7 @@ import { KeyboardStrip } from '../keys/keyboard-strip';
 /** What a share link opens, for anyone: the preset read-only, its degrees, downloads, and a fork. */
 @Component({
   selector: 'app-shared-page',
+  changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, DegreeTable,
     PlayPanel, KeyboardStrip, StripPlaying,
