@@ -1,4 +1,6 @@
-import { Component, DestroyRef, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import {
+  Component, DestroyRef, computed, inject, input, linkedSignal, resource, signal,
+} from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -8,10 +10,11 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
+import { tuningOfPreset } from '@shared/export/preset-tuning';
 import { defaultLeadInMs, leadInFault } from '@shared/midi/lead-in';
 import type { RetuneMode } from '@shared/midi/song-retune';
 import { parsePresetDocument } from '@shared/preset/preset-document';
-import { Subscription, catchError, map, of, switchMap } from 'rxjs';
+import { Subscription, catchError, map, of, startWith, switchMap } from 'rxjs';
 import { Session } from '../auth/session';
 import { decodeDesign } from '../design/design-address';
 import { apiErrorMessage } from '../library/api-error';
@@ -20,8 +23,10 @@ import { SignInPrompt } from '../library/sign-in-prompt';
 import { FileDrop } from './file-drop';
 import { PresetFile, readPresetFile } from './preset-file';
 import { RetuneApi, RetuneStep, RetuneTuning } from './retune-api';
+import { readRoll, retunedRoll, writtenRoll } from './roll-notes';
 import { SongPreview } from './song-preview';
 import { SongReport } from './song-report';
+import { SongRoll } from './song-roll';
 import { fileSize, uploadFault } from './upload-limit';
 
 type TuningSource = 'design' | 'saved' | 'file';
@@ -33,7 +38,7 @@ const modeNames: Record<RetuneMode, string> = { mts: 'tuning messages (MTS)', mp
   selector: 'app-retune-page',
   imports: [
     RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule,
-    MatRadioModule, MatSelectModule, FileDrop, SignInPrompt, SongPreview, SongReport,
+    MatRadioModule, MatSelectModule, FileDrop, SignInPrompt, SongPreview, SongReport, SongRoll,
   ],
   providers: [RetuneApi],
   templateUrl: './retune-page.html',
@@ -106,6 +111,44 @@ export class RetunePage {
   });
   private running: Subscription | null = null;
 
+  /** The chosen song as a piano roll, read in the browser. */
+  protected readonly songRoll = resource({
+    params: () => this.song() ?? undefined,
+    loader: ({ params }) => readRoll(params, writtenRoll),
+  });
+  /** The retuned song as a piano roll, read as an instrument would sound it. */
+  protected readonly retunedRoll = resource({
+    params: () => {
+      const step = this.step();
+      return step?.kind === 'done' ? step.song.blob : undefined;
+    },
+    loader: ({ params }) => readRoll(params, retunedRoll),
+  });
+  /** The chosen saved preset's document, fetched once a song is there to draw against it. */
+  private readonly savedDocument = signal<unknown>(null);
+  /** The keys the chosen tuning leaves unmapped; null while no tuning, or no sound one, is chosen. */
+  protected readonly unmappedKeys = computed(() => {
+    const document = this.tuningDocument();
+    if (document === null) return null;
+    const parsed = parsePresetDocument(document);
+    const tuning = parsed.ok ? tuningOfPreset(parsed.value) : null;
+    return tuning?.ok ? tuning.value.keys.filter((entry) => entry.hz === null).map((entry) => entry.key) : null;
+  });
+  private readonly tuningDocument = computed((): unknown => {
+    switch (this.source()) {
+      case 'design': {
+        const design = this.design();
+        return design && typeof design !== 'string' ? design : null;
+      }
+      case 'saved':
+        return this.savedDocument();
+      case 'file': {
+        const reading = this.presetFile()?.reading;
+        return reading?.ok ? reading.document : null;
+      }
+    }
+  });
+
   constructor() {
     toObservable(this.signedIn)
       .pipe(
@@ -127,6 +170,21 @@ export class RetunePage {
         this.presetsLoading.set(false);
         this.presets.set(presets);
       });
+    const savedToDraw = computed(() => (this.source() === 'saved' && this.song() ? this.presetId() : null));
+    toObservable(savedToDraw)
+      .pipe(
+        switchMap((id) =>
+          id === null
+            ? of(null)
+            : this.library.preset(id).pipe(
+                map((preset) => preset.document),
+                catchError(() => of(null)),
+                startWith(null),
+              ),
+        ),
+        takeUntilDestroyed(),
+      )
+      .subscribe((document) => this.savedDocument.set(document));
     this.destroyRef.onDestroy(() => this.replaceDownload(null));
   }
 
