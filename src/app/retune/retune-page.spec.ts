@@ -40,7 +40,11 @@ const fenFifthsDocument = {
 /** Fen Fifths on the white keys only: the black keys are left unmapped. */
 const whiteKeysDocument = {
   ...fenFifthsDocument,
-  mapping: { rootKey: 60, keysPerPeriod: 12, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
+  mapping: {
+    rootKey: 60,
+    keysPerPeriod: 12,
+    layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
+  },
 };
 /** A report in the shape server/routes/retune.ts answers in its JSON body. */
 const mpeReport: SongReportHeader = {
@@ -128,7 +132,7 @@ describe('RetunePage', () => {
     return new File([midiBytes], 'fen-song.mid', { type: 'audio/midi' });
   }
 
-  /** Answers the page's fetch of a chosen saved preset (GET /api/presets/:id), which it draws the song against. */
+  /** Answers the page's fetch of the chosen saved preset (GET /api/presets/:id), for the roll. */
   async function answerPreset(row: PresetRow, document: unknown) {
     await settle();
     http.expectOne(`/api/presets/${row.id}`).flush({ ...row, note: null, document, access: 'own' });
@@ -198,12 +202,14 @@ describe('RetunePage', () => {
     expect(Array.from(downloaded)).toEqual(Array.from(midiBytes));
   });
 
-  it('draws the chosen song, marks the notes on keys the saved preset leaves unmapped, then the retuned offsets', async () => {
+  it('draws the song, marks its notes on unmapped keys, then the retuned offsets', async () => {
     // A song written with @tonejs/midi's writer: C4, D4, E4 and C♯4 on channel 1.
     const midi = new Midi();
     const track = midi.addTrack();
     track.name = 'Tune';
-    [60, 62, 64, 61].forEach((key, index) => track.addNote({ midi: key, time: index * 0.5, duration: 0.5 }));
+    [60, 62, 64, 61].forEach((key, index) =>
+      track.addNote({ midi: key, time: index * 0.5, duration: 0.5 }),
+    );
     const bytes = new Uint8Array(midi.toArray());
     await openSignedIn();
     await choose(new File([bytes], 'fen-tune.mid', { type: 'audio/midi' }));
@@ -212,7 +218,9 @@ describe('RetunePage', () => {
       () => page().querySelector('app-song-roll.written-roll svg.plot[role=img]'),
       settle,
     );
-    expect(roll.getAttribute('aria-label')).toBe('Piano roll of the song: 4 notes in 1 track, keys 60–64 (C4–E4)');
+    expect(roll.getAttribute('aria-label')).toBe(
+      'Piano roll of the song: 4 notes in 1 track, keys 60–64 (C4–E4)',
+    );
     expect(page().querySelectorAll('.written-roll rect.note').length).toBe(4);
     expect(text('.roll-hint')).toContain('Once a tuning is chosen');
 
@@ -222,7 +230,9 @@ describe('RetunePage', () => {
     await answerPreset(fenFifths, whiteKeysDocument);
     expect(text('.written-roll .unmapped-count')).toBe('1');
     expect(page().querySelectorAll('.written-roll rect.note.unmapped').length).toBe(1);
-    expect(roll.getAttribute('aria-label')).toContain('4 notes in 1 track, keys 60–64 (C4–E4), 1 on keys the tuning');
+    expect(roll.getAttribute('aria-label')).toContain(
+      '4 notes in 1 track, keys 60–64 (C4–E4), 1 on keys the tuning',
+    );
     expect(page().querySelector('.roll-hint')).toBeNull();
 
     const parsed = parsePresetDocument(whiteKeysDocument);
@@ -236,9 +246,12 @@ describe('RetunePage', () => {
       report: { ...mpeReport, mode: 'mts', notesStolen: [], notesStolenCount: 0 },
       song: btoa(String.fromCharCode(...retuned.value.bytes)),
     });
-    await until('the roll of the retuned song', () => page().querySelector('app-song-roll.retuned-roll svg.plot'));
-    // From memory: pure fifths from C give D = 9/8 (203.910 cents) and E = 81/64 (407.820 cents), +3.9 and +7.8
-    // cents from 12-tone equal temperament; C4 is the root and C♯4, unmapped, keeps its equal-tempered pitch.
+    await until('the roll of the retuned song', () =>
+      page().querySelector('app-song-roll.retuned-roll svg.plot'),
+    );
+    // From memory: pure fifths from C give D = 9/8 (203.910 cents) and E = 81/64 (407.820 cents),
+    // +3.9 and +7.8 cents from 12-tone equal temperament; C4 is the root and C♯4, unmapped,
+    // keeps its equal-tempered pitch.
     expect(text('.retuned-roll .cents-range')).toContain('from ±0.0¢ to +7.8¢');
     expect(page().querySelectorAll('.retuned-roll rect.note').length).toBe(4);
   }, patientSpecMs);

@@ -126,13 +126,14 @@ export class RetunePage {
   });
   /** The chosen saved preset's document, fetched once a song is there to draw against it. */
   private readonly savedDocument = signal<unknown>(null);
-  /** The keys the chosen tuning leaves unmapped; null while no tuning, or no sound one, is chosen. */
+  /** The keys the chosen tuning leaves unmapped; null until a sound tuning is chosen. */
   protected readonly unmappedKeys = computed(() => {
     const document = this.tuningDocument();
     if (document === null) return null;
     const parsed = parsePresetDocument(document);
     const tuning = parsed.ok ? tuningOfPreset(parsed.value) : null;
-    return tuning?.ok ? tuning.value.keys.filter((entry) => entry.hz === null).map((entry) => entry.key) : null;
+    if (!tuning?.ok) return null;
+    return tuning.value.keys.filter((entry) => entry.hz === null).map((entry) => entry.key);
   });
   private readonly tuningDocument = computed((): unknown => {
     switch (this.source()) {
@@ -170,7 +171,9 @@ export class RetunePage {
         this.presetsLoading.set(false);
         this.presets.set(presets);
       });
-    const savedToDraw = computed(() => (this.source() === 'saved' && this.song() ? this.presetId() : null));
+    const savedToDraw = computed(() =>
+      this.source() === 'saved' && this.song() ? this.presetId() : null,
+    );
     toObservable(savedToDraw)
       .pipe(
         switchMap((id) =>

@@ -3,7 +3,9 @@ import { songSound } from '@shared/midi/song-sounding';
 import { singleLine } from '@shared/text/plain-text';
 import { Midi } from '@tonejs/midi';
 
-/** One note of a piano roll: its track (an index into the roll's tracks), key and time in seconds. */
+/**
+ * One note of a piano roll: its track (an index into the roll's tracks), key and time in seconds.
+ */
 export interface RollNote {
   track: number;
   key: number;
@@ -22,7 +24,10 @@ export interface RollTrack {
   drums: boolean;
 }
 
-/** A song as a piano roll draws it: the song as written, or the retuned song as an instrument sounds it. */
+/**
+ * A song as a piano roll draws it: the song as written, or the retuned song as an instrument sounds
+ * it.
+ */
 export interface SongRollNotes {
   kind: 'written' | 'retuned';
   tracks: RollTrack[];
@@ -43,15 +48,18 @@ function trackName(name: string, index: number): string {
 }
 
 /**
- * The notes of a chosen song, track by track, read by @tonejs/midi in the browser (it keeps one channel to a
- * track, splitting a track that plays on several); tracks without notes are left out.
+ * The notes of a chosen song, track by track, read by @tonejs/midi in the browser (it keeps one
+ * channel to a track, splitting a track that plays on several); tracks without notes are left out.
  */
 export function writtenRoll(bytes: Uint8Array): RollReading {
   let midi: Midi;
   try {
     midi = new Midi(bytes);
   } catch (error) {
-    return { ok: false, message: `it cannot be read as a Standard MIDI File (${(error as Error).message}).` };
+    return {
+      ok: false,
+      message: `it cannot be read as a Standard MIDI File (${(error as Error).message}).`,
+    };
   }
   const tracks: RollTrack[] = [];
   const notes: RollNote[] = [];
@@ -72,9 +80,10 @@ export function writtenRoll(bytes: Uint8Array): RollReading {
 }
 
 /**
- * The notes of a retuned song as an MTS and pitch-bend instrument sounds them (shared/midi/song-sounding.ts), each
- * with how far it lies from its key's 12-tone equal-tempered pitch: 1200 * log2(hz / (440 * 2^((key - 69) / 12))).
- * In MPE the key is the one the file plays, the nearest to the note's pitch, and the bend makes up the rest.
+ * The notes of a retuned song as an MTS and pitch-bend instrument sounds them
+ * (shared/midi/song-sounding.ts), each with how far it lies from its key's 12-tone equal-tempered
+ * pitch: 1200 * log2(hz / (440 * 2^((key - 69) / 12))). In MPE the key is the one the file plays,
+ * the nearest to the note's pitch, and the bend makes up the rest.
  */
 export function retunedRoll(bytes: Uint8Array): RollReading {
   const sound = songSound(bytes);
@@ -100,7 +109,10 @@ export function retunedRoll(bytes: Uint8Array): RollReading {
 }
 
 /** Reads a chosen or retuned song for its roll; whatever goes wrong is said, never thrown. */
-export async function readRoll(song: Blob, read: (bytes: Uint8Array) => RollReading): Promise<RollReading> {
+export async function readRoll(
+  song: Blob,
+  read: (bytes: Uint8Array) => RollReading,
+): Promise<RollReading> {
   try {
     return read(new Uint8Array(await song.arrayBuffer()));
   } catch (error) {

@@ -7,15 +7,17 @@ import { retunedRoll, writtenRoll, type SongRollNotes } from './roll-notes';
 import { SongRoll } from './song-roll';
 
 /**
- * A song written with @tonejs/midi's writer (120 a minute): a melody C4 D4 E4 F4 G4 on channel 1, a long C♯4 on
- * channel 2 and two drum notes on channel 10 (General MIDI's drums).
+ * A song written with @tonejs/midi's writer (120 a minute): a melody C4 D4 E4 F4 G4 on channel 1, a
+ * long C♯4 on channel 2 and two drum notes on channel 10 (General MIDI's drums).
  */
 function song(): Uint8Array {
   const midi = new Midi();
   const melody = midi.addTrack();
   melody.name = 'Melody';
   melody.channel = 0;
-  [60, 62, 64, 65, 67].forEach((key, index) => melody.addNote({ midi: key, time: index * 0.5, duration: 0.5 }));
+  [60, 62, 64, 65, 67].forEach((key, index) =>
+    melody.addNote({ midi: key, time: index * 0.5, duration: 0.5 }),
+  );
   const pad = midi.addTrack();
   pad.name = 'Pad';
   pad.channel = 1;
@@ -34,7 +36,11 @@ const fenFifths = parsePresetDocument({
   version: 1,
   name: 'Fen Fifths',
   scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1 },
-  mapping: { rootKey: 60, keysPerPeriod: 12, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
+  mapping: {
+    rootKey: 60,
+    keysPerPeriod: 12,
+    layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
+  },
 });
 
 function tuning() {
@@ -56,7 +62,8 @@ describe('SongRoll', () => {
     fixture.componentRef.setInput('unmappedKeys', unmappedKeys);
     await fixture.whenStable();
     const element = fixture.nativeElement as HTMLElement;
-    const text = (selector: string) => element.querySelector(selector)?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
+    const text = (selector: string) =>
+      element.querySelector(selector)?.textContent?.replace(/\s+/g, ' ').trim() ?? '';
     return { fixture, element, text };
   }
 
@@ -69,18 +76,24 @@ describe('SongRoll', () => {
     const plot = element.querySelector('svg.plot')!;
     expect(plot.getAttribute('role')).toBe('img');
     expect(plot.getAttribute('aria-label')).toBe(
-      'Piano roll of the song: 6 notes in 2 tracks, keys 60–67 (C4–G4); 2 drum notes on channel 10, drawn faint',
+      'Piano roll of the song: 6 notes in 2 tracks, keys 60–67 (C4–G4); ' +
+        '2 drum notes on channel 10, drawn faint',
     );
-    const legend = Array.from(element.querySelectorAll('.legend .track-entry')).map((entry) =>
-      [entry.querySelector('.track-name')!.textContent!.trim(), entry.querySelector('.channel')!.textContent!.trim()],
-    );
-    expect(legend).toEqual([['Melody', 'channel 1'], ['Pad', 'channel 2'], ['Kit', 'drums, channel 10']]);
+    const legend = Array.from(element.querySelectorAll('.legend .track-entry')).map((entry) => [
+      entry.querySelector('.track-name')!.textContent!.trim(),
+      entry.querySelector('.channel')!.textContent!.trim(),
+    ]);
+    expect(legend).toEqual([
+      ['Melody', 'channel 1'],
+      ['Pad', 'channel 2'],
+      ['Kit', 'drums, channel 10'],
+    ]);
     // No key table yet: nothing is marked.
     expect(element.querySelector('rect.note.unmapped')).toBeNull();
     expect(text('.unmapped-entry')).toBe('');
   });
 
-  it('marks the notes on keys the tuning leaves unmapped, drums aside, and counts them', async () => {
+  it('marks and counts the notes on keys the tuning leaves unmapped, drums aside', async () => {
     const unmapped = tuning()
       .keys.filter((entry) => entry.hz === null)
       .map((entry) => entry.key);
@@ -90,7 +103,7 @@ describe('SongRoll', () => {
     const { element, text } = await render(rollOf(writtenRoll(song())), unmapped);
     const marked = element.querySelectorAll<SVGRectElement>('rect.note.unmapped');
     expect(marked.length).toBe(1);
-    expect(marked[0].style.fill).toMatch(/^url\("?#song-roll-hatch-\d+"?\)$/);
+    expect(marked[0].style.fill).toMatch(/^url\("?#song-roll-\d+-hatch"?\)$/);
     expect(marked[0].querySelector('title')!.textContent).toContain('C#4 (key 61), Pad');
     expect(marked[0].querySelector('title')!.textContent).toContain('on an unmapped key');
     expect(text('.unmapped-count')).toBe('1');
@@ -99,28 +112,46 @@ describe('SongRoll', () => {
     );
   });
 
-  it('colours each retuned note by its distance from 12-tone equal temperament, with the cents written out', async () => {
+  it('colours each retuned note by its cents from 12-tone equal temperament', async () => {
     const retuned = retuneSong(song(), tuning(), 'mts', 0);
     if (!retuned.ok) throw new Error(retuned.errors[0].message);
     const { element, text } = await render(rollOf(retunedRoll(retuned.value.bytes)));
     // The drums are not sounded; the six other notes are drawn.
     expect(element.querySelectorAll('rect.note').length).toBe(6);
-    const titles = Array.from(element.querySelectorAll('rect.note title')).map((title) => title.textContent!);
-    // From memory: pure fifths from C give D = 9/8 (203.910 cents), E = 81/64 (407.820 cents), F = 4/3 (498.045
-    // cents), G = 3/2 (701.955 cents); against 200, 400, 500 and 700 that is +3.9, +7.8, −2.0 and +2.0 cents.
-    expect(titles.find((title) => title.startsWith('D4'))).toContain('+3.9¢ from 12-tone equal temperament');
+    const titles = Array.from(element.querySelectorAll('rect.note title')).map(
+      (title) => title.textContent!,
+    );
+    // From memory: pure fifths from C give D = 9/8 (203.910 cents), E = 81/64 (407.820 cents), F =
+    // 4/3 (498.045 cents), G = 3/2 (701.955 cents); against 200, 400, 500 and 700 that is +3.9,
+    // +7.8, −2.0 and +2.0 cents.
+    expect(titles.find((title) => title.startsWith('D4'))).toContain(
+      '+3.9¢ from 12-tone equal temperament',
+    );
     expect(titles.find((title) => title.startsWith('E4'))).toContain('+7.8¢');
     expect(titles.find((title) => title.startsWith('F4'))).toContain('−2.0¢');
     expect(titles.find((title) => title.startsWith('G4'))).toContain('+2.0¢');
     // C♯4 is unmapped and keeps its equal-tempered pitch; C4 is the root.
     expect(titles.find((title) => title.startsWith('C#4'))).toContain('±0.0¢');
-    expect(element.querySelector('rect.note[data-shade="1"] title')!.textContent).toMatch(/^E4/);
+    // The shades begin at 1, 3, 6, 12 and 25 cents either way: E4 is in the third sharp one, F4 in
+    // the first flat.
+    expect(element.querySelector('rect.note[data-shade="3"] title')!.textContent).toMatch(/^E4/);
+    expect(element.querySelector('rect.note[data-shade="-1"] title')!.textContent).toMatch(/^F4/);
+    expect(element.querySelectorAll('rect.note[data-shade="0"]').length).toBe(2);
     expect(text('.cents-range')).toContain('from −2.0¢ to +7.8¢');
     expect(text('.cents-range')).toContain('2 drum notes (channel 10) are left out');
-    const scale = Array.from(element.querySelectorAll('.scale-label')).map((label) => label.textContent!.trim());
-    expect(scale.filter(Boolean)).toEqual(['−40¢', '−20¢', '0¢', '+20¢', '+40¢']);
+    const scale = Array.from(element.querySelectorAll('.scale-label')).map((label) =>
+      label.textContent!.trim(),
+    );
+    expect(scale).toEqual(['−25', '−12', '−6', '−3', '−1', '0', '+1', '+3', '+6', '+12', '+25']);
+    expect(
+      element.querySelector('.scale-step[title="+6 to +12¢"] .swatch')!.getAttribute('data-shade'),
+    ).toBe('3');
+    expect(element.querySelector('.scale')!.getAttribute('aria-labelledby')).toBe(
+      element.querySelector('.scale-title')!.id,
+    );
     expect(element.querySelector('svg.plot')!.getAttribute('aria-label')).toBe(
-      'Piano roll of the retuned song: 6 notes, keys 60–67 (C4–G4); from −2.0¢ to +7.8¢ from 12-tone equal temperament',
+      'Piano roll of the retuned song: 6 notes, keys 60–67 (C4–G4); ' +
+        'from −2.0¢ to +7.8¢ from 12-tone equal temperament',
     );
   });
 

@@ -5,18 +5,24 @@ import type { RollNote, SongRollNotes } from './roll-notes';
 
 /** More notes than this make a slow page; the first ones are drawn and the rest counted. */
 const drawnAtMost = 3000;
-/** Time gets at least this much width, up to the widest plot; past the frame's width the roll scrolls. */
+/**
+ * Time gets at least this much width, up to the widest plot; past the frame's width the roll
+ * scrolls.
+ */
 const leastPixelsPerSecond = 24;
 const widestPlot = 12_000;
 const axisWidth = 34;
 const timeAxisHeight = 18;
 const trackColours = 6;
-/** A shade of colour for each 10 cents from 12-tone equal temperament, up to 50 cents and beyond. */
-const centsPerShade = 10;
-const shadeSteps = 5;
+/**
+ * Where each shade of colour begins, in cents from 12-tone equal temperament either way: finer near
+ * 0, where the tunings most songs are retuned to lie (a pure fifth is 2 cents from the tempered
+ * one, a just third 14).
+ */
+const shadeFrom = [1, 3, 6, 12, 25];
 const blackKeys = new Set([1, 3, 6, 8, 10]);
 /** Seconds between time marks, the first that leaves room enough between them. */
-const timeSteps = [1, 2, 5, 10, 15, 30, 60, 120, 300, 600];
+const timeSteps = [0.1, 0.2, 0.5, 1, 2, 5, 10, 15, 30, 60, 120, 300, 600];
 
 let rollsMade = 0;
 
@@ -47,13 +53,29 @@ function percent(value: number): string {
 }
 
 function shadeOf(cents: number): number {
-  return Math.max(-shadeSteps, Math.min(shadeSteps, Math.round(cents / centsPerShade)));
+  return Math.sign(cents) * shadeFrom.filter((from) => Math.abs(cents) >= from).length;
 }
 
 /**
- * A song as a piano roll: time across, keys up. The song as written gets a colour per track, drums (channel 10)
- * faint, and the notes on keys the tuning leaves unmapped hatched in the error colour; the retuned song gets a
- * colour per note for how far it lies from 12-tone equal temperament. The frame scrolls sideways on its own.
+ * A shade's lower bound as its label (`+6`, `−25`, `0`) and the span it covers, for its tooltip.
+ */
+function shadeStep(shade: number): { shade: number; label: string; span: string } {
+  const size = Math.abs(shade);
+  const sign = shade < 0 ? '−' : '+';
+  if (size === 0) return { shade, label: '0', span: `within ±${shadeFrom[0]}¢` };
+  const upper = size < shadeFrom.length ? ` to ${sign}${shadeFrom[size]}¢` : '¢ or more';
+  return {
+    shade,
+    label: `${sign}${shadeFrom[size - 1]}`,
+    span: `${sign}${shadeFrom[size - 1]}${upper}`,
+  };
+}
+
+/**
+ * A song as a piano roll: time across, keys up. The song as written gets a colour per track, drums
+ * (channel 10) faint, and the notes on keys the tuning leaves unmapped hatched in the error colour;
+ * the retuned song gets a colour per note for how far it lies from 12-tone equal temperament. The
+ * frame scrolls sideways on its own.
  */
 @Component({
   selector: 'app-song-roll',
@@ -62,7 +84,11 @@ function shadeOf(cents: number): number {
     @let song = roll();
     @if (song.notes.length === 0) {
       <p class="empty">
-        {{ song.kind === 'written' ? 'The song has no notes to draw.' : 'The retuned song has no notes to draw outside channel 10 (drums).' }}
+        {{
+          song.kind === 'written'
+            ? 'The song has no notes to draw.'
+            : 'The retuned song has no notes to draw outside channel 10 (drums).'
+        }}
       </p>
     } @else {
       <div class="frame">
@@ -72,11 +98,21 @@ function shadeOf(cents: number): number {
           }
         </svg>
         <div class="scroller" tabindex="0">
-          <svg class="plot" role="img" [attr.aria-label]="label()" [attr.height]="height()"
-               [style.min-width.px]="minWidth()">
+          <svg
+            class="plot"
+            role="img"
+            [attr.aria-label]="label()"
+            [attr.height]="height()"
+            [style.min-width.px]="minWidth()"
+          >
             <defs>
-              <pattern [attr.id]="hatchId" patternUnits="userSpaceOnUse" width="4" height="4"
-                       patternTransform="rotate(45)">
+              <pattern
+                [attr.id]="hatchId"
+                patternUnits="userSpaceOnUse"
+                width="4"
+                height="4"
+                patternTransform="rotate(45)"
+              >
                 <rect class="hatch-ground" width="4" height="4" />
                 <line class="hatch-line" x1="1" y1="0" x2="1" y2="4" />
               </pattern>
@@ -86,98 +122,212 @@ function shadeOf(cents: number): number {
               <rect class="black-row" width="100%" [attr.y]="y" [attr.height]="rowHeight()" />
             }
             @for (tick of timeTicks(); track tick.x) {
-              <line class="time-line" [attr.x1]="tick.x" [attr.x2]="tick.x" y1="0" [attr.y2]="plotHeight()" />
-              <text class="time" [class.first]="$first" [attr.x]="tick.x" [attr.y]="plotHeight() + 13">
+              <line
+                class="time-line"
+                [attr.x1]="tick.x"
+                [attr.x2]="tick.x"
+                y1="0"
+                [attr.y2]="plotHeight()"
+              />
+              <text
+                class="time"
+                [class.first]="$first"
+                [attr.x]="tick.x"
+                [attr.y]="plotHeight() + 13"
+              >
                 {{ tick.label }}
               </text>
             }
             @for (note of shapes(); track $index) {
-              <rect class="note" [class.drum]="note.drum" [class.unmapped]="note.unmapped"
-                    [attr.data-colour]="note.colour" [attr.data-shade]="note.shade"
-                    [attr.x]="note.x" [attr.y]="note.y" [attr.width]="note.width" [attr.height]="noteHeight()"
-                    [style.fill]="note.unmapped ? hatchFill : null"><title>{{ note.title }}</title></rect>
+              <rect
+                class="note"
+                [class.drum]="note.drum"
+                [class.unmapped]="note.unmapped"
+                [attr.data-colour]="note.colour"
+                [attr.data-shade]="note.shade"
+                [attr.x]="note.x"
+                [attr.y]="note.y"
+                [attr.width]="note.width"
+                [attr.height]="noteHeight()"
+                [style.fill]="note.unmapped ? hatchFill : null"
+              >
+                <title>{{ note.title }}</title>
+              </rect>
             }
           </svg>
         </div>
       </div>
       @if (song.notes.length > drawnAtMost) {
-        <p class="note-cap">The first {{ drawnAtMost }} of {{ song.notes.length }} notes are drawn.</p>
+        <p class="note-cap">
+          The first {{ drawnAtMost }} of {{ song.notes.length }} notes are drawn.
+        </p>
       }
       @if (song.kind === 'written') {
         <ul class="legend" aria-label="Legend">
           @for (track of song.tracks; track $index) {
             <li class="track-entry">
-              <span class="swatch" [class.drum]="track.drums" [attr.data-colour]="$index % trackColours"></span>
+              <span
+                class="swatch"
+                [class.drum]="track.drums"
+                [attr.data-colour]="$index % trackColours"
+              ></span>
               <span class="track-name">{{ track.name }}</span>
-              <span class="channel">{{ track.drums ? 'drums, channel 10' : 'channel ' + track.channel }}</span>
+              <span class="channel">{{
+                track.drums ? 'drums, channel 10' : 'channel ' + track.channel
+              }}</span>
             </li>
           }
           @if (unmappedCount(); as count) {
             <li class="unmapped-entry" [class.none]="count.notes === 0">
               <span class="swatch hatch"></span>
-              On keys the tuning leaves unmapped (they keep their old pitch):
-              <strong class="unmapped-count">{{ count.notes }}</strong>
+              <span>
+                On keys the tuning leaves unmapped (they keep their old pitch):
+                <strong class="unmapped-count">{{ count.notes }}</strong>
+              </span>
             </li>
           }
         </ul>
       } @else {
-        <div class="scale" aria-label="Colour scale in cents from 12-tone equal temperament" role="group">
-          <span class="scale-end">flat</span>
-          @for (step of scaleSteps; track step.shade) {
-            <span class="scale-step">
-              <span class="swatch" [attr.data-shade]="step.shade"></span>
-              <span class="scale-label">{{ step.label }}</span>
-            </span>
-          }
-          <span class="scale-end">sharp</span>
+        <div class="scale" role="group" [attr.aria-labelledby]="scaleId">
+          <span class="scale-title" [id]="scaleId"
+            >Cents from 12-tone equal temperament, flat to sharp</span
+          >
+          <span class="scale-steps">
+            @for (step of scaleSteps; track step.shade) {
+              <span class="scale-step" [attr.title]="step.span">
+                <span class="swatch" [attr.data-shade]="step.shade"></span>
+                <span class="scale-label">{{ step.label }}</span>
+              </span>
+            }
+          </span>
         </div>
         @if (centsRange(); as range) {
           <p class="cents-range">
-            Each note's distance from 12-tone equal temperament: from <strong>{{ range.low }}</strong> to
-            <strong>{{ range.high }}</strong>.
-            @if (song.drumNotesLeftOut) { {{ song.drumNotesLeftOut }} drum notes (channel 10) are left out. }
+            Each note's distance from 12-tone equal temperament: from
+            <strong>{{ range.low }}</strong> to <strong>{{ range.high }}</strong>.
+            @if (song.drumNotesLeftOut) {
+              {{ song.drumNotesLeftOut }} drum notes (channel 10) are left out.
+            }
           </p>
         }
       }
     }
   `,
   styles: `
-    :host { display: block; }
-    .frame { display: grid; grid-template-columns: auto minmax(0, 1fr); align-items: start; }
-    .keys { display: block; font: var(--mat-sys-label-small); }
-    .keys text { fill: var(--mat-sys-on-surface-variant); text-anchor: end; font-size: 10px; }
-    .scroller { overflow-x: auto; border-radius: var(--mat-sys-corner-extra-small); }
-    .scroller:focus-visible { outline: 2px solid var(--mat-sys-primary); outline-offset: 2px; }
-    .plot { display: block; width: 100%; }
-    .ground { fill: var(--mat-sys-surface-container-lowest); }
-    .black-row { fill: var(--mat-sys-surface-container-high); }
-    .time-line { stroke: var(--mat-sys-outline-variant); stroke-width: 1; }
-    .time { fill: var(--mat-sys-on-surface-variant); font-size: 10px; text-anchor: middle; }
-    .time.first { text-anchor: start; }
-    .hatch-ground { fill: var(--mat-sys-error-container); }
-    .hatch-line { stroke: var(--mat-sys-error); stroke-width: 1.5; }
+    :host {
+      display: block;
+    }
+    .frame {
+      display: grid;
+      grid-template-columns: auto minmax(0, 1fr);
+      align-items: start;
+    }
+    .keys {
+      display: block;
+      font: var(--mat-sys-label-small);
+    }
+    .keys text {
+      fill: var(--mat-sys-on-surface-variant);
+      text-anchor: end;
+      font-size: 10px;
+    }
+    .scroller {
+      overflow-x: auto;
+      border-radius: var(--mat-sys-corner-extra-small);
+    }
+    .scroller:focus-visible {
+      outline: 2px solid var(--mat-sys-primary);
+      outline-offset: 2px;
+    }
+    .plot {
+      display: block;
+      width: 100%;
+    }
+    .ground {
+      fill: var(--mat-sys-surface-container-lowest);
+    }
+    .black-row {
+      fill: var(--mat-sys-surface-container-high);
+    }
+    .time-line {
+      stroke: var(--mat-sys-outline-variant);
+      stroke-width: 1;
+    }
+    .time {
+      fill: var(--mat-sys-on-surface-variant);
+      font-size: 10px;
+      text-anchor: middle;
+    }
+    .time.first {
+      text-anchor: start;
+    }
+    .hatch-ground {
+      fill: var(--mat-sys-error-container);
+    }
+    .hatch-line {
+      stroke: var(--mat-sys-error);
+      stroke-width: 1.5;
+    }
 
-    [data-colour='0'] { --colour: var(--mat-sys-primary); }
-    [data-colour='1'] { --colour: var(--mat-sys-tertiary); }
-    [data-colour='2'] { --colour: var(--mat-sys-secondary); }
-    [data-colour='3'] { --colour: var(--mat-sys-primary-fixed-dim); }
-    [data-colour='4'] { --colour: var(--mat-sys-tertiary-fixed-dim); }
-    [data-colour='5'] { --colour: var(--mat-sys-on-surface-variant); }
+    /* Two hues in the theme: tracks differ by hue and strength; error is for unmapped keys. */
+    [data-colour='0'] {
+      --colour: var(--mat-sys-primary);
+    }
+    [data-colour='1'] {
+      --colour: var(--mat-sys-tertiary);
+    }
+    [data-colour='2'] {
+      --colour: color-mix(in srgb, var(--mat-sys-primary) 45%, var(--mat-sys-surface));
+    }
+    [data-colour='3'] {
+      --colour: var(--mat-sys-on-surface);
+    }
+    [data-colour='4'] {
+      --colour: color-mix(in srgb, var(--mat-sys-tertiary) 45%, var(--mat-sys-surface));
+    }
+    [data-colour='5'] {
+      --colour: var(--mat-sys-secondary);
+    }
     [data-shade] {
       --tone: var(--mat-sys-tertiary);
       --strength: 0%;
       --colour: color-mix(in srgb, var(--tone) var(--strength), var(--mat-sys-outline));
     }
-    [data-shade^='-'] { --tone: var(--mat-sys-primary); }
-    [data-shade='1'], [data-shade='-1'] { --strength: 35%; }
-    [data-shade='2'], [data-shade='-2'] { --strength: 52%; }
-    [data-shade='3'], [data-shade='-3'] { --strength: 68%; }
-    [data-shade='4'], [data-shade='-4'] { --strength: 84%; }
-    [data-shade='5'], [data-shade='-5'] { --strength: 100%; }
+    [data-shade^='-'] {
+      --tone: var(--mat-sys-primary);
+    }
+    [data-shade='1'],
+    [data-shade='-1'] {
+      --strength: 40%;
+    }
+    [data-shade='2'],
+    [data-shade='-2'] {
+      --strength: 60%;
+    }
+    [data-shade='3'],
+    [data-shade='-3'] {
+      --strength: 76%;
+    }
+    [data-shade='4'],
+    [data-shade='-4'] {
+      --strength: 90%;
+    }
+    [data-shade='5'],
+    [data-shade='-5'] {
+      --strength: 100%;
+    }
 
-    .note { fill: var(--colour); }
-    .note.drum { fill: var(--mat-sys-on-surface-variant); opacity: 0.3; }
-    .note.unmapped { stroke: var(--mat-sys-error); stroke-width: 1; }
+    .note {
+      fill: var(--colour);
+    }
+    .note.drum {
+      fill: var(--mat-sys-on-surface-variant);
+      opacity: 0.3;
+    }
+    .note.unmapped {
+      stroke: var(--mat-sys-error);
+      stroke-width: 1;
+    }
 
     .swatch {
       display: inline-block;
@@ -187,12 +337,18 @@ function shadeOf(cents: number): number {
       border-radius: 2px;
       background: var(--colour);
     }
-    .swatch.drum { background: var(--mat-sys-on-surface-variant); opacity: 0.3; }
+    .swatch.drum {
+      background: var(--mat-sys-on-surface-variant);
+      opacity: 0.3;
+    }
     .swatch.hatch {
       box-sizing: border-box;
       border: 1px solid var(--mat-sys-error);
       background: repeating-linear-gradient(
-        45deg, var(--mat-sys-error) 0 1.5px, var(--mat-sys-error-container) 1.5px 4px);
+        45deg,
+        var(--mat-sys-error) 0 1.5px,
+        var(--mat-sys-error-container) 1.5px 4px
+      );
     }
     .legend {
       display: flex;
@@ -203,45 +359,82 @@ function shadeOf(cents: number): number {
       list-style: none;
       font: var(--mat-sys-body-small);
     }
-    .legend li { display: flex; align-items: center; gap: 6px; min-width: 0; }
-    .track-name { overflow-wrap: anywhere; }
-    .channel { color: var(--mat-sys-on-surface-variant); white-space: nowrap; }
-    .unmapped-entry { color: var(--mat-sys-error); }
-    .unmapped-entry.none { color: var(--mat-sys-on-surface-variant); }
-    .scale {
+    .legend li {
       display: flex;
-      flex-wrap: wrap;
-      align-items: flex-start;
-      gap: 4px 2px;
+      align-items: center;
+      gap: 6px;
+      min-width: 0;
+    }
+    .track-name {
+      overflow-wrap: anywhere;
+    }
+    .channel {
+      color: var(--mat-sys-on-surface-variant);
+      white-space: nowrap;
+    }
+    .unmapped-entry {
+      color: var(--mat-sys-error);
+    }
+    .unmapped-entry.none {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .scale {
       margin: 8px 0 0;
       font: var(--mat-sys-body-small);
     }
-    .scale-end { color: var(--mat-sys-on-surface-variant); padding: 0 4px; line-height: 10px; }
-    .scale-step { display: flex; flex-direction: column; align-items: center; width: 30px; }
-    .scale-step .swatch { width: 100%; border-radius: 0; }
-    .scale-label { font-size: 10px; color: var(--mat-sys-on-surface-variant); white-space: nowrap; }
-    .cents-range, .note-cap, .empty {
+    .scale-title {
+      display: block;
+      color: var(--mat-sys-on-surface-variant);
+      margin-bottom: 2px;
+    }
+    .scale-steps {
+      display: flex;
+      gap: 2px;
+    }
+    .scale-step {
+      display: flex;
+      flex-direction: column;
+      align-items: center;
+      width: 28px;
+    }
+    .scale-step .swatch {
+      width: 100%;
+      border-radius: 0;
+    }
+    .scale-label {
+      font-size: 10px;
+      color: var(--mat-sys-on-surface-variant);
+      white-space: nowrap;
+    }
+    .cents-range,
+    .note-cap,
+    .empty {
       margin: 8px 0 0;
       font: var(--mat-sys-body-small);
       color: var(--mat-sys-on-surface-variant);
     }
-    .cents-range strong { color: var(--mat-sys-on-surface); font-variant-numeric: tabular-nums; }
+    .cents-range strong {
+      color: var(--mat-sys-on-surface);
+      font-variant-numeric: tabular-nums;
+    }
   `,
 })
 export class SongRoll {
   readonly roll = input.required<SongRollNotes>();
-  /** For the song as written: the keys the chosen tuning leaves unmapped, or null while no key table is known. */
+  /**
+   * For the song as written: the keys the chosen tuning leaves unmapped, or null while no key table
+   * is known.
+   */
   readonly unmappedKeys = input<readonly number[] | null>(null);
 
   protected readonly axisWidth = axisWidth;
   protected readonly drawnAtMost = drawnAtMost;
   protected readonly trackColours = trackColours;
-  protected readonly hatchId = `song-roll-hatch-${++rollsMade}`;
+  private readonly rollId = `song-roll-${++rollsMade}`;
+  protected readonly hatchId = `${this.rollId}-hatch`;
+  protected readonly scaleId = `${this.rollId}-scale`;
   protected readonly hatchFill = `url(#${this.hatchId})`;
-  protected readonly scaleSteps = [-5, -4, -3, -2, -1, 0, 1, 2, 3, 4, 5].map((shade) => ({
-    shade,
-    label: shade % 2 === 0 ? this.shadeLabel(shade) : '',
-  }));
+  protected readonly scaleSteps = [-5, -4, -3, -2, -1, 0, 1, 2, 3, 4, 5].map(shadeStep);
 
   /** Pitched notes only: drums say nothing about keys or tuning. */
   private readonly pitched = computed(() => this.roll().notes.filter((note) => !note.drum));
@@ -279,24 +472,28 @@ export class SongRoll {
   protected readonly blackRows = computed(() => {
     const { low, high } = this.keyRange();
     const rows: number[] = [];
-    for (let key = low; key <= high; key++) if (blackKeys.has(((key % 12) + 12) % 12)) rows.push(this.yOf(key));
+    for (let key = low; key <= high; key++)
+      if (blackKeys.has(((key % 12) + 12) % 12)) rows.push(this.yOf(key));
     return rows;
   });
   protected readonly keyLabels = computed(() => {
     const { low, high } = this.keyRange();
     const labels: { key: number; name: string; y: number }[] = [];
     for (let key = low; key <= high; key++) {
-      if (key % 12 === 0) labels.push({ key, name: noteName(key), y: this.yOf(key) + this.rowHeight() / 2 + 3.5 });
+      if (key % 12 === 0)
+        labels.push({ key, name: noteName(key), y: this.yOf(key) + this.rowHeight() / 2 + 3.5 });
     }
     return labels;
   });
   protected readonly timeTicks = computed(() => {
     const seconds = this.seconds();
     const room = Math.max(4, Math.floor(Math.max(this.minWidth(), 280) / 70));
-    const step = timeSteps.find((candidate) => seconds / candidate <= room) ?? timeSteps[timeSteps.length - 1];
+    const step =
+      timeSteps.find((candidate) => seconds / candidate <= room) ?? timeSteps[timeSteps.length - 1];
     const ticks: { x: string; label: string }[] = [];
-    for (let at = 0; at <= seconds - step * 0.4 || at === 0; at += step) {
-      ticks.push({ x: percent((100 * at) / seconds), label: clock(at) });
+    for (let index = 0; index === 0 || index * step <= seconds - step * 0.4; index++) {
+      const at = index * step;
+      ticks.push({ x: percent((100 * at) / seconds), label: clock(at, step < 1 ? 1 : 0) });
     }
     return ticks;
   });
@@ -321,7 +518,10 @@ export class SongRoll {
     });
   });
 
-  /** Notes (drums aside) on keys the tuning leaves unmapped, counted over the whole song; null while unknown. */
+  /**
+   * Notes (drums aside) on keys the tuning leaves unmapped, counted over the whole song; null while
+   * unknown.
+   */
   protected readonly unmappedCount = computed(() => {
     const unmapped = this.unmappedSet();
     if (!unmapped) return null;
@@ -340,18 +540,20 @@ export class SongRoll {
     const pitched = this.pitched();
     const drums = song.notes.length - pitched.length;
     const keys = pitched.map((note) => note.key);
-    const range = keys.length
-      ? `, keys ${Math.min(...keys)}–${Math.max(...keys)} (${noteName(Math.min(...keys))}–${noteName(Math.max(...keys))})`
-      : '';
+    const [low, high] = [Math.min(...keys), Math.max(...keys)];
+    const range = keys.length ? `, keys ${low}–${high} (${noteName(low)}–${noteName(high)})` : '';
     if (song.kind === 'retuned') {
       const cents = this.centsRange();
-      const offsets = cents ? `; from ${cents.low} to ${cents.high} from 12-tone equal temperament` : '';
+      const offsets = cents
+        ? `; from ${cents.low} to ${cents.high} from 12-tone equal temperament`
+        : '';
       return `Piano roll of the retuned song: ${plural(pitched.length, 'note')}${range}${offsets}`;
     }
     const tracks = song.tracks.filter((track) => !track.drums).length;
     const unmapped = this.unmappedCount();
     return (
-      `Piano roll of the song: ${plural(pitched.length, 'note')} in ${plural(tracks, 'track')}${range}` +
+      `Piano roll of the song: ${plural(pitched.length, 'note')} in ${plural(tracks, 'track')}` +
+      range +
       (unmapped ? `, ${unmapped.notes} on keys the tuning leaves unmapped` : '') +
       (drums ? `; ${plural(drums, 'drum note')} on channel 10, drawn faint` : '')
     );
@@ -361,16 +563,14 @@ export class SongRoll {
     return (this.keyRange().high - key) * this.rowHeight();
   }
 
-  private shadeLabel(shade: number): string {
-    return shade === 0 ? '0¢' : signedCentsText(shade * centsPerShade, 0);
-  }
-
   private titleOf(note: RollNote, unmapped: boolean): string {
     const song = this.roll();
     const when = `${clock(note.start, 2)}–${clock(note.end, 2)}`;
     const key = `${noteName(note.key)} (key ${note.key})`;
-    if (note.cents !== null) return `${key}, ${signedCentsText(note.cents)} from 12-tone equal temperament, ${when}`;
+    if (note.cents !== null)
+      return `${key}, ${signedCentsText(note.cents)} from 12-tone equal temperament, ${when}`;
     const track = song.tracks[note.track]?.name ?? '';
-    return `${note.drum ? `Drum key ${note.key}` : key}, ${track}, ${when}${unmapped ? ', on an unmapped key' : ''}`;
+    const off = unmapped ? ', on an unmapped key' : '';
+    return `${note.drum ? `Drum key ${note.key}` : key}, ${track}, ${when}${off}`;
   }
 }
