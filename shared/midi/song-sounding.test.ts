@@ -68,6 +68,39 @@ describe('what a song sounds like, note by note', () => {
     }
   });
 
+  it('names the key and channel of each note as the file writes them', () => {
+    const sound = songSound(song);
+    if (!sound.ok) throw new Error('refused');
+    // The song above: a C major chord and D4 on channel 1, A4 and B4 on channel 2 (0 and 1 here,
+    // counted from 0).
+    expect(sound.value.notes.map((note) => [note.key, note.channel])).toEqual([
+      [60, 0], [64, 0], [67, 0], [69, 1], [62, 0], [71, 1],
+    ]);
+  });
+
+  it('gives each retuned note the key its offset from equal temperament is measured from', () => {
+    for (const mode of ['mts', 'mpe'] as const) {
+      const retuned = retuneSong(song, tuning, mode, 0);
+      if (!retuned.ok) throw new Error(retuned.errors[0].message);
+      const sound = songSound(retuned.value.bytes);
+      if (!sound.ok) throw new Error(sound.errors[0].message);
+      const g4 = sound.value.notes[2];
+      // From memory: a pure fifth is 701.955 cents, 1.955 cents wider than the tempered one, so the
+      // G above middle C in pure fifths from C sits 1.955 cents above equal-tempered G4 (key 67,
+      // 392.00 Hz at A4 = 440).
+      expect(g4.key).toBe(67);
+      expect(cents(g4.hz, 440 * 2 ** ((g4.key - 69) / 12))).toBeCloseTo(1.955, 1);
+      // MTS keeps the song's channels; MPE gives each note of the chord a member channel of its own
+      // (2-16 here).
+      const chord = sound.value.notes.slice(0, 3).map((note) => note.channel);
+      if (mode === 'mts') expect(chord).toEqual([0, 0, 0]);
+      else {
+        expect(new Set(chord).size).toBe(3);
+        for (const channel of chord) expect(channel).toBeGreaterThanOrEqual(1);
+      }
+    }
+  });
+
   it('follows a bend range set by RPN 0, and the lead-in moves every note', () => {
     // RPN 0 (pitch bend sensitivity) to 12 semitones, then the highest bend: an octave up, less one step of 8192.
     const bent = songOf(0, [

@@ -32,6 +32,9 @@ export interface SoundingNote {
   hz: number;
   /** 1-127. */
   velocity: number;
+  /** The key the file plays (0-127) and its channel (0-15) as written; in MPE, a member channel. */
+  key: number;
+  channel: number;
 }
 
 export interface SongSound {
@@ -140,7 +143,15 @@ export function songSound(song: Uint8Array): Result<SongSound> {
             break;
           }
           const semitones = ((bend[channel] - 8192) / 8192) * bendRange[channel];
-          const note = { start: at, end: Number.POSITIVE_INFINITY, hz: keyHz[event.data1] * 2 ** (semitones / 12), velocity: event.data2 };
+          const hz = keyHz[event.data1] * 2 ** (semitones / 12);
+          const note = {
+            start: at,
+            end: Number.POSITIVE_INFINITY,
+            hz,
+            velocity: event.data2,
+            key: event.data1,
+            channel,
+          };
           notes.push(note);
           const id = channel * 128 + event.data1;
           sounding.set(id, [...(sounding.get(id) ?? []), note]);

@@ -5,13 +5,14 @@ import { parsePresetDocument, type PresetDocument, type ResolvedPreset } from '.
  * degree 0 on key 60 (C4), every other field left to its default.
  */
 export function fifthsPreset(name = 'Fen Fifths', up = 5, down = 1) {
+  // Fields a test may change stay writable; the literals stay literal, so the document is a PresetDocument.
   return {
-    format: 'keyloom.preset',
-    version: 1,
+    format: 'keyloom.preset' as const,
+    version: 1 as const,
     name,
-    scale: { kind: 'generated', generator: '3/2', period: '2/1', up, down },
+    scale: { kind: 'generated' as const, generator: '3/2' as string, period: '2/1', up, down },
     mapping: { rootKey: 60 },
-  } as const satisfies PresetDocument;
+  } satisfies PresetDocument;
 }
 
 /** A preset of `scale` with degree 0 on key 60, for tests that look at the scale alone. */

@@ -28,6 +28,17 @@ async function downloaded(page: Page, start: () => Promise<void>): Promise<{ nam
   return { name: download.suggestedFilename(), bytes: readFileSync((await download.path())!) };
 }
 
+/** Screenshots at the desktop width and at a phone's 390 px, where the page must not scroll. */
+async function rollScreenshots(page: Page, name: string): Promise<void> {
+  await screenshot(page, name);
+  await page.setViewportSize({ width: 390, height: 844 });
+  await expect
+    .poll(() => page.evaluate(() => document.documentElement.scrollWidth))
+    .toBeLessThanOrEqual(390);
+  await screenshot(page, `${name}-390`);
+  await page.setViewportSize({ width: 1280, height: 900 });
+}
+
 describe('journey 1: a composer designs signed out and downloads an MTS bulk dump', () => {
   it('builds 5 fifths up and 1 down from C, sees the degrees, keeps the design in the address, and downloads it', async () => {
     const { context, page } = await visitor();
@@ -160,15 +171,35 @@ describe('journey 5: a producer retunes a song', () => {
     const { context, page } = await visitor('mira-vale');
     await page.goto(`${inject('appUrl')}/retune`);
     await page.locator('input[type=file]').first().setInputFiles({ name: 'little-tune.mid', mimeType: 'audio/midi', buffer: song });
+    // The roll of the song as written, read in the browser, before any tuning is chosen.
+    const roll = page.getByRole('img', {
+      name: /^Piano roll of the song: 5 notes in 1 track, keys 60–67/,
+    });
+    await roll.waitFor();
     await page.getByRole('radio', { name: 'A saved preset' }).check();
     await page.getByRole('combobox', { name: 'Saved preset' }).click();
     await page.getByRole('option', { name: /Fen Fifths/ }).first().click();
+    // Fen Fifths' latest revision maps all twelve keys of the octave: no note on an unmapped key.
+    await expect
+      .poll(() => roll.getAttribute('aria-label'))
+      .toContain(', 0 on keys the tuning leaves unmapped');
+    await rollScreenshots(page, 'journey-5-roll-before');
     await page.getByRole('radio', { name: /One note per channel/ }).check();
     await page.getByLabel('Lead-in before the first note').fill('250');
     await page.getByRole('button', { name: /^Retune/ }).click();
     await expect.poll(() => page.getByText(/5 notes? retuned|retuned 5|Notes retuned/i).count()).toBeGreaterThan(0);
     await expect.poll(() => page.locator('.lead-in-note').textContent()).toContain('The song starts 250 ms (240 ticks) later');
     await screenshot(page, 'journey-5-report');
+    // The roll of the retuned song: each note against 12-tone equal temperament (in pure fifths
+    // from C, E4 is 81/64, 407.820 cents: 7.8 cents sharp; from memory).
+    const retunedRoll = page.getByRole('img', {
+      name: /^Piano roll of the retuned song: 5 notes, keys 60–67/,
+    });
+    await retunedRoll.waitFor();
+    expect(await retunedRoll.getAttribute('aria-label')).toContain(
+      'to +7.8¢ from 12-tone equal temperament',
+    );
+    await rollScreenshots(page, 'journey-5-roll-after');
     // Hear it first: the page's own signal that sound began is the hearing caution and a moving clock.
     await page.getByRole('button', { name: 'Hear it first' }).click();
     await page.getByText('Keep the volume low').waitFor();

@@ -2,7 +2,11 @@ import { HttpEventType } from '@angular/common/http';
 import { HttpTestingController, TestRequest } from '@angular/common/http/testing';
 import { MatRadioButtonHarness } from '@angular/material/radio/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
+import { tuningOfPreset } from '@shared/export/preset-tuning';
+import { retuneSong } from '@shared/midi/song-retune';
+import { parsePresetDocument } from '@shared/preset/preset-document';
 import { fifthsPreset } from '@shared/preset/presets.testing';
+import { Midi } from '@tonejs/midi';
 import { patientSpecMs, waitFor } from '../../testing/wait-for';
 import { Member } from '../auth/session';
 import { encodeDesign } from '../design/design-address';
@@ -22,6 +26,15 @@ const reedOrgan: PresetRow = {
   revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null, access: 'own',
 };
 const fenFifthsDocument = fifthsPreset('Fen Fifths');
+/** Fen Fifths on the white keys only: the black keys are left unmapped. */
+const whiteKeysDocument = {
+  ...fenFifthsDocument,
+  mapping: {
+    rootKey: 60,
+    keysPerPeriod: 12,
+    layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
+  },
+};
 /** A report in the shape server/routes/retune.ts answers in its JSON body. */
 const mpeReport: SongReportHeader = {
   mode: 'mpe',
@@ -94,6 +107,13 @@ describe('RetunePage', () => {
     return new File([midiBytes], 'fen-song.mid', { type: 'audio/midi' });
   }
 
+  /** Answers the page's fetch of the chosen saved preset (GET /api/presets/:id), for the roll. */
+  async function answerPreset(row: PresetRow, document: unknown) {
+    await settle();
+    http.expectOne(`/api/presets/${row.id}`).flush({ ...row, note: null, document, access: 'own' });
+    await settle();
+  }
+
   async function answerWithSong(request: TestRequest, fileName: string, report: SongReportHeader) {
     // The JSON answer server/routes/retune.ts gives a client that asks for it: the song as base64 and the report.
     request.flush({ fileName, report, song: btoa(String.fromCharCode(...midiBytes)) });
@@ -109,6 +129,7 @@ describe('RetunePage', () => {
     const select = await pages.loader.getHarness(MatSelectHarness.with({ selector: '.preset-field mat-select' }));
     await select.open();
     await select.clickOptions({ text: /Fen Fifths/ });
+    await answerPreset(fenFifths, fenFifthsDocument);
     await (await pages.loader.getHarness(MatRadioButtonHarness.with({ label: 'One note per channel (MPE)' }))).check();
     await settle();
 
@@ -156,12 +177,67 @@ describe('RetunePage', () => {
     expect(Array.from(downloaded)).toEqual(Array.from(midiBytes));
   });
 
+  it('draws the song, marks its notes on unmapped keys, then the retuned offsets', async () => {
+    // A song written with @tonejs/midi's writer: C4, D4, E4 and C♯4 on channel 1.
+    const midi = new Midi();
+    const track = midi.addTrack();
+    track.name = 'Tune';
+    [60, 62, 64, 61].forEach((key, index) =>
+      track.addNote({ midi: key, time: index * 0.5, duration: 0.5 }),
+    );
+    const bytes = new Uint8Array(midi.toArray());
+    await openSignedIn();
+    await choose(new File([bytes], 'fen-tune.mid', { type: 'audio/midi' }));
+    const roll = await waitFor(
+      'the roll of the chosen song',
+      () => page().querySelector('app-song-roll.written-roll svg.plot[role=img]'),
+      settle,
+    );
+    expect(roll.getAttribute('aria-label')).toBe(
+      'Piano roll of the song: 4 notes in 1 track, keys 60–64 (C4–E4)',
+    );
+    expect(page().querySelectorAll('.written-roll rect.note').length).toBe(4);
+    expect(text('.roll-hint')).toContain('Once a tuning is chosen');
+
+    const select = await pages.loader.getHarness(MatSelectHarness);
+    await select.open();
+    await select.clickOptions({ text: /Fen Fifths/ });
+    await answerPreset(fenFifths, whiteKeysDocument);
+    expect(text('.written-roll .unmapped-count')).toBe('1');
+    expect(page().querySelectorAll('.written-roll rect.note.unmapped').length).toBe(1);
+    expect(roll.getAttribute('aria-label')).toContain(
+      '4 notes in 1 track, keys 60–64 (C4–E4), 1 on keys the tuning',
+    );
+    expect(page().querySelector('.roll-hint')).toBeNull();
+
+    const parsed = parsePresetDocument(whiteKeysDocument);
+    const tuning = parsed.ok ? tuningOfPreset(parsed.value) : null;
+    if (!tuning?.ok) throw new Error('the preset does not build');
+    const retuned = retuneSong(bytes, tuning.value, 'mts', 0);
+    if (!retuned.ok) throw new Error(retuned.errors[0].message);
+    const request = await retuneRequest();
+    request.flush({
+      fileName: 'fen-tune-fen-fifths-mts.mid',
+      report: { ...mpeReport, mode: 'mts', notesStolen: [], notesStolenCount: 0 },
+      song: btoa(String.fromCharCode(...retuned.value.bytes)),
+    });
+    await until('the roll of the retuned song', () =>
+      page().querySelector('app-song-roll.retuned-roll svg.plot'),
+    );
+    // From memory: pure fifths from C give D = 9/8 (203.910 cents) and E = 81/64 (407.820 cents),
+    // +3.9 and +7.8 cents from 12-tone equal temperament; C4 is the root and C♯4, unmapped,
+    // keeps its equal-tempered pitch.
+    expect(text('.retuned-roll .cents-range')).toContain('from ±0.0¢ to +7.8¢');
+    expect(page().querySelectorAll('.retuned-roll rect.note').length).toBe(4);
+  }, patientSpecMs);
+
   it('retunes the same song again in the other mode without choosing it again', async () => {
     await openSignedIn();
     await choose(song());
     const select = await pages.loader.getHarness(MatSelectHarness);
     await select.open();
     await select.clickOptions({ text: /Reed Organ/ });
+    await answerPreset(reedOrgan, { ...fenFifthsDocument, name: 'Reed Organ Meantone' });
     const first = await retuneRequest();
     expect((first.request.body as FormData).get('mode')).toBe('mts');
     await answerWithSong(first, 'fen-song-reed-organ-meantone-mts.mid', { ...mpeReport, mode: 'mts', notesStolen: [], notesStolenCount: 0 });
@@ -188,6 +264,7 @@ describe('RetunePage', () => {
     const select = await pages.loader.getHarness(MatSelectHarness);
     await select.open();
     await select.clickOptions({ text: /Fen Fifths/ });
+    await answerPreset(fenFifths, fenFifthsDocument);
     const leadIn = page().querySelector<HTMLInputElement>('.lead-in input')!;
     leadIn.value = '9000';
     leadIn.dispatchEvent(new Event('input'));
@@ -230,6 +307,8 @@ describe('RetunePage', () => {
     expect(back.searchParams.get('d')).toBe(d);
 
     await choose(song());
+    await until('the song\'s fault', () => page().querySelector('.roll-fault'));
+    expect(text('.roll-fault')).toContain('This song cannot be drawn here');
     const request = await retuneRequest();
     const form = request.request.body as FormData;
     expect(form.get('mode')).toBe('mts');
@@ -245,6 +324,7 @@ describe('RetunePage', () => {
     const select = await pages.loader.getHarness(MatSelectHarness);
     await select.open();
     await select.clickOptions({ text: /Fen Fifths/ });
+    await answerPreset(fenFifths, fenFifthsDocument);
     const request = await retuneRequest();
     // The refusal of server/routes/retune.ts for a file that starts with "PK".
     const refusal = { error: { code: 'not_midi', message: 'file: is not a Standard MIDI File; it looks like a zip archive.', field: 'file' } };

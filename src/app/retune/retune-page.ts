@@ -1,4 +1,14 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  computed,
+  inject,
+  input,
+  linkedSignal,
+  resource,
+  signal,
+} from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -8,6 +18,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
+import { tuningOfPreset } from '@shared/export/preset-tuning';
 import { defaultLeadInMs, leadInFault } from '@shared/midi/lead-in';
 import type { RetuneMode } from '@shared/midi/retune-report';
 import { parsePresetDocument } from '@shared/preset/preset-document';
@@ -20,8 +31,10 @@ import { SignInPrompt } from '../library/sign-in-prompt';
 import { FileDrop } from './file-drop';
 import { PresetFile, readPresetFile } from './preset-file';
 import { RetuneApi, RetuneStep, RetuneTuning } from './retune-api';
+import { readRoll, retunedRoll, writtenRoll } from './roll-notes';
 import { SongPreview } from './song-preview';
 import { SongReport } from './song-report';
+import { SongRoll } from './song-roll';
 import { fileSize, uploadFault } from './upload-limit';
 
 type TuningSource = 'design' | 'saved' | 'file';
@@ -34,7 +47,7 @@ const modeNames: Record<RetuneMode, string> = { mts: 'tuning messages (MTS)', mp
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule,
-    MatRadioModule, MatSelectModule, FileDrop, SignInPrompt, SongPreview, SongReport,
+    MatRadioModule, MatSelectModule, FileDrop, SignInPrompt, SongPreview, SongReport, SongRoll,
   ],
   providers: [RetuneApi],
   templateUrl: './retune-page.html',
@@ -114,6 +127,54 @@ export class RetunePage {
     }
   });
   private running: Subscription | null = null;
+
+  /** The chosen song as a piano roll, read in the browser. */
+  protected readonly songRoll = resource({
+    params: () => this.song() ?? undefined,
+    loader: ({ params }) => readRoll(params, writtenRoll),
+  });
+  /** The retuned song as a piano roll, read as an instrument would sound it. */
+  protected readonly retunedRoll = resource({
+    params: () => {
+      const step = this.step();
+      return step?.kind === 'done' ? step.song.blob : undefined;
+    },
+    loader: ({ params }) => readRoll(params, retunedRoll),
+  });
+  /** The chosen saved preset, fetched once a song is there to draw against it. */
+  private readonly savedToDraw = loader(
+    () => {
+      const id = this.source() === 'saved' && this.song() ? this.presetId() : null;
+      return id === null ? null : this.library.preset(id);
+    },
+    { fallback: 'The saved preset could not be read.' },
+  );
+  private readonly savedDocument = computed((): unknown =>
+    this.savedToDraw.loading() ? null : (this.savedToDraw.value()?.document ?? null),
+  );
+  /** The keys the chosen tuning leaves unmapped; null until a sound tuning is chosen. */
+  protected readonly unmappedKeys = computed(() => {
+    const document = this.tuningDocument();
+    if (document === null) return null;
+    const parsed = parsePresetDocument(document);
+    const tuning = parsed.ok ? tuningOfPreset(parsed.value) : null;
+    if (!tuning?.ok) return null;
+    return tuning.value.keys.filter((entry) => entry.hz === null).map((entry) => entry.key);
+  });
+  private readonly tuningDocument = computed((): unknown => {
+    switch (this.source()) {
+      case 'design': {
+        const design = this.design();
+        return design && typeof design !== 'string' ? design : null;
+      }
+      case 'saved':
+        return this.savedDocument();
+      case 'file': {
+        const reading = this.presetFile()?.reading;
+        return reading?.ok ? reading.document : null;
+      }
+    }
+  });
 
   constructor() {
     this.destroyRef.onDestroy(() => this.replaceDownload(null));
