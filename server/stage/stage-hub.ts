@@ -126,6 +126,10 @@ export function createStageHub(
 
   return {
     follow(setlistId, follower) {
+      if (closed) {
+        follower.end();
+        return () => {};
+      }
       let those = followers.get(setlistId);
       if (!those) followers.set(setlistId, (those = new Set()));
       those.add(follower);
