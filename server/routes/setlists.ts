@@ -287,7 +287,7 @@ function streamFollower(res: Response, lastId: number): StageFollower {
       return lastId;
     },
     offer(state) {
-      if (state.eventId <= lastId || res.writableEnded) return;
+      if (state.eventId <= lastId || res.writableEnded || res.destroyed) return;
       lastId = state.eventId;
       if (state.stage) res.write(positionEvent(state));
     },
