@@ -1,10 +1,12 @@
 // The stage's live streams, measured against their floors:
-// 1. Fan-out: 50 followers spread over two server instances on one database; each move is POSTed to one instance
-//    (alternating), and the time from the POST to the event reaching each follower is set against the same POST's
-//    own round trip (target: p99 under 100 ms).
-// 2. Idle streams: 200 followers held open (5 minutes unless BENCH_IDLE_SECONDS says otherwise) while the server's
-//    memory (RSS and heap) is sampled; the last samples against the first (target: flat within 10%).
-// Run: npx tsx bench/stage-fanout.bench.ts   (BENCH_MOVES, BENCH_FOLLOWERS, BENCH_IDLE_FOLLOWERS, BENCH_IDLE_SECONDS)
+// 1. Fan-out: 50 followers spread over two server instances on one database; each move is POSTed to
+//    one instance (alternating), and the time from the POST to the event reaching each follower is
+//    set against the same POST's own round trip (target: p99 under 100 ms).
+// 2. Idle streams: 200 followers held open (5 minutes unless BENCH_IDLE_SECONDS says otherwise)
+//    while the server's memory (RSS and heap) is sampled; the last third of the samples against the
+//    first third (target: flat within 10%).
+// Run: npx tsx bench/stage-fanout.bench.ts
+// (BENCH_MOVES, BENCH_FOLLOWERS, BENCH_IDLE_FOLLOWERS and BENCH_IDLE_SECONDS make it shorter)
 import { CookieJar } from '../tests/support/cookie-jar';
 import { type EventStream, openEventStream } from '../tests/support/event-stream';
 import { startServerProcess } from '../tests/support/server-process';
@@ -44,12 +46,20 @@ try {
   const entries = [];
   for (const divisions of [12, 19, 31, 53]) {
     const document = {
-      format: 'keyloom.preset', version: 1, name: `${divisions} equal`,
-      scale: { kind: 'equal', divisions, period: '2/1' }, mapping: { rootKey: 60 },
+      format: 'keyloom.preset',
+      version: 1,
+      name: `${divisions} equal`,
+      scale: { kind: 'equal', divisions, period: '2/1' },
+      mapping: { rootKey: 60 },
     };
-    entries.push({ presetId: (await post(`${instances[0]}/api/presets`, { document, bandId: band.id })).id });
+    entries.push({
+      presetId: (await post(`${instances[0]}/api/presets`, { document, bandId: band.id })).id,
+    });
   }
-  const setlist = await post(`${instances[0]}/api/bands/${band.id}/setlists`, { name: 'Bench', entries });
+  const setlist = await post(`${instances[0]}/api/bands/${band.id}/setlists`, {
+    name: 'Bench',
+    entries,
+  });
 
   /** Opens `count` streams on `url` in small batches, each answered with its first event. */
   async function follow(count: number, url: (i: number) => string): Promise<EventStream[]> {
@@ -57,7 +67,9 @@ try {
     for (let i = 0; i < count; i += 20) {
       const batch = await Promise.all(
         Array.from({ length: Math.min(20, count - i) }, (_, j) =>
-          openEventStream(`${url(i + j)}/api/setlists/${setlist.id}/live`, { cookie: jar.header() }),
+          openEventStream(`${url(i + j)}/api/setlists/${setlist.id}/live`, {
+            cookie: jar.header(),
+          }),
         ),
       );
       for (const stream of batch) {
@@ -87,10 +99,22 @@ try {
   }
   const p99 = percentile(arrivals, 99);
   const floor = percentile(roundTrips, 99);
-  console.log(`Fan-out: ${moves} moves to ${followerCount} followers over 2 instances (${arrivals.length} events)`);
-  console.log(`  POST to event: median ${ms(percentile(arrivals, 50))}, p99 ${ms(p99)}, max ${ms(Math.max(...arrivals))}`);
-  console.log(`  floor, the POST's own round trip: median ${ms(percentile(roundTrips, 50))}, p99 ${ms(floor)}`);
-  console.log(`  ratio p99 ${(p99 / floor).toFixed(2)} (target: p99 under 100 ms: ${p99 < 100 ? 'met' : 'NOT MET'})`);
+  console.log(
+    `Fan-out: ${moves} moves to ${followerCount} followers over 2 instances ` +
+      `(${arrivals.length} events)`,
+  );
+  console.log(
+    `  POST to event: median ${ms(percentile(arrivals, 50))}, p99 ${ms(p99)}, ` +
+      `max ${ms(Math.max(...arrivals))}`,
+  );
+  console.log(
+    `  floor, the POST's own round trip: median ${ms(percentile(roundTrips, 50))}, ` +
+      `p99 ${ms(floor)}`,
+  );
+  console.log(
+    `  ratio p99 ${(p99 / floor).toFixed(2)} ` +
+      `(target: p99 under 100 ms: ${p99 < 100 ? 'met' : 'NOT MET'})`,
+  );
   failed ||= p99 >= 100;
   for (const stream of followers) stream.close();
 
@@ -113,18 +137,27 @@ try {
   const third = Math.max(1, Math.floor(samples.length / 3));
   const mean = (list: NodeJS.MemoryUsage[], key: 'rss' | 'heapUsed') =>
     list.reduce((sum, sample) => sum + sample[key], 0) / list.length;
-  console.log(`Idle streams: ${idleCount} followers held ${idleSeconds} s on one instance, ${samples.length} samples`);
+  console.log(
+    `Idle streams: ${idleCount} followers held ${idleSeconds} s on one instance, ` +
+      `${samples.length} samples`,
+  );
   for (const key of ['rss', 'heapUsed'] as const) {
     const first = mean(samples.slice(0, third), key);
     const last = mean(samples.slice(-third), key);
     const peak = Math.max(...samples.map((sample) => sample[key]));
     const ratio = last / first;
-    console.log(`  ${key}: first third ${mb(first)}, last third ${mb(last)}, peak ${mb(peak)}: ` +
-      `ratio ${ratio.toFixed(3)} (target: within 10%: ${Math.abs(ratio - 1) <= 0.1 ? 'met' : 'NOT MET'})`);
+    console.log(
+      `  ${key}: first third ${mb(first)}, last third ${mb(last)}, peak ${mb(peak)}: ` +
+        `ratio ${ratio.toFixed(3)} ` +
+        `(target: within 10%: ${Math.abs(ratio - 1) <= 0.1 ? 'met' : 'NOT MET'})`,
+    );
     failed ||= Math.abs(ratio - 1) > 0.1;
   }
-  console.log(`  ${alive} of ${idleCount} streams open to the end, each with at least ${keptAlive} keep-alive ` +
-    `comments; ${heard} heard the move made after`);
+  console.log(
+    `  ${alive} of ${idleCount} streams open to the end, ` +
+      `each with at least ${keptAlive} keep-alive ` +
+      `comments; ${heard} heard the move made after`,
+  );
   failed ||= alive < idleCount || heard < idleCount;
 } finally {
   for (const stream of streams) stream.close();

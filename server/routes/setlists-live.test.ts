@@ -1,4 +1,5 @@
-// The stage's live stream, read byte for byte over a raw socket as a browser's EventSource reads it.
+// The stage's live stream, read byte for byte over a raw socket as a browser's EventSource reads
+// it.
 import type { AddressInfo } from 'node:net';
 import type { Server } from 'node:http';
 import { sql } from 'drizzle-orm';
@@ -29,11 +30,16 @@ const fifths = (name: string, up = 5) => ({
 });
 
 async function newPreset(name: string): Promise<string> {
-  return (await send(owner, 'post', '/api/presets', { document: fifths(name), bandId }).expect(201)).body.id;
+  return (await send(owner, 'post', '/api/presets', { document: fifths(name), bandId }).expect(201))
+    .body.id;
 }
 
 async function newSetlist(entries: object[]): Promise<string> {
-  return (await send(owner, 'post', `/api/bands/${bandId}/setlists`, { name: 'Live', entries }).expect(201)).body.id;
+  return (
+    await send(owner, 'post', `/api/bands/${bandId}/setlists`, { name: 'Live', entries }).expect(
+      201,
+    )
+  ).body.id;
 }
 
 async function follow(who: Member, setlistId: string, lastEventId?: string): Promise<EventStream> {
@@ -68,7 +74,7 @@ afterAll(async () => {
 });
 
 describe('the live stream', () => {
-  it('answers a viewer at once with the current position, as an uncompressed, unbuffered event stream', async () => {
+  it('answers a viewer at once with the position, uncompressed and unbuffered', async () => {
     const a = await newPreset('Live Opening');
     const id = await newSetlist([{ presetId: a }]);
     const stream = await follow(viewer, id);
@@ -79,13 +85,22 @@ describe('the live stream', () => {
     expect(stream.headers['content-encoding']).toBeUndefined();
     const first = await stream.next();
     expect(first.type).toBe('position');
-    expect(JSON.parse(first.data)).toEqual({ position: 0, presetId: a, revision: 1, document: fifths('Live Opening') });
+    expect(JSON.parse(first.data)).toEqual({
+      position: 0,
+      presetId: a,
+      revision: 1,
+      document: fifths('Live Opening'),
+    });
     expect(first.id).toMatch(/^\d+$/);
     expect(stream.retry).toBeGreaterThanOrEqual(1000);
   });
 
   it('sends exactly one event per move, with rising ids; a viewer cannot move', async () => {
-    const [a, b, c] = [await newPreset('Move A'), await newPreset('Move B'), await newPreset('Move C')];
+    const [a, b, c] = [
+      await newPreset('Move A'),
+      await newPreset('Move B'),
+      await newPreset('Move C'),
+    ];
     const id = await newSetlist([{ presetId: a }, { presetId: b }, { presetId: c }]);
     const stream = await follow(viewer, id);
     await stream.next();
@@ -106,38 +121,69 @@ describe('the live stream', () => {
     expect(stream.events).toHaveLength(4);
   });
 
-  it('carries the pinned revision, or the latest one, and a new save of a followed entry reaches followers', async () => {
+  it('carries the pinned or the latest revision; a save of a followed entry is heard', async () => {
     const follows = await newPreset('Follows Latest');
     const pinned = await newPreset('Pinned Down');
-    await send(owner, 'post', `/api/presets/${pinned}/revisions`, { document: fifths('Pinned Down', 7) }).expect(201);
+    await send(owner, 'post', `/api/presets/${pinned}/revisions`, {
+      document: fifths('Pinned Down', 7),
+    }).expect(201);
     const id = await newSetlist([{ presetId: follows }, { presetId: pinned, revision: 1 }]);
     const stream = await follow(editor, id);
-    expect(JSON.parse((await stream.next()).data)).toMatchObject({ presetId: follows, revision: 1 });
+    expect(JSON.parse((await stream.next()).data)).toMatchObject({
+      presetId: follows,
+      revision: 1,
+    });
 
-    await send(editor, 'post', `/api/presets/${follows}/revisions`, { document: fifths('Follows Latest', 6) }).expect(201);
+    await send(editor, 'post', `/api/presets/${follows}/revisions`, {
+      document: fifths('Follows Latest', 6),
+    }).expect(201);
     const saved = JSON.parse((await stream.next()).data);
-    expect(saved).toEqual({ position: 0, presetId: follows, revision: 2, document: fifths('Follows Latest', 6) });
+    expect(saved).toEqual({
+      position: 0,
+      presetId: follows,
+      revision: 2,
+      document: fifths('Follows Latest', 6),
+    });
 
     await move(editor, id, 1).expect(200);
     const pinnedEvent = JSON.parse((await stream.next()).data);
-    expect(pinnedEvent).toEqual({ position: 1, presetId: pinned, revision: 1, document: fifths('Pinned Down') });
-    // A save of the pinned preset, or of an entry that is not current, tells no one: the next event is the move.
-    await send(owner, 'post', `/api/presets/${pinned}/revisions`, { document: fifths('Pinned Down', 8) }).expect(201);
-    await send(owner, 'post', `/api/presets/${follows}/revisions`, { document: fifths('Follows Latest', 9) }).expect(201);
+    expect(pinnedEvent).toEqual({
+      position: 1,
+      presetId: pinned,
+      revision: 1,
+      document: fifths('Pinned Down'),
+    });
+    // A save of the pinned preset, or of an entry that is not current, tells no one: the next event
+    // is the move.
+    await send(owner, 'post', `/api/presets/${pinned}/revisions`, {
+      document: fifths('Pinned Down', 8),
+    }).expect(201);
+    await send(owner, 'post', `/api/presets/${follows}/revisions`, {
+      document: fifths('Follows Latest', 9),
+    }).expect(201);
     await move(editor, id, 0).expect(200);
-    expect(JSON.parse((await stream.next()).data)).toMatchObject({ position: 0, presetId: follows, revision: 3 });
+    expect(JSON.parse((await stream.next()).data)).toMatchObject({
+      position: 0,
+      presetId: follows,
+      revision: 3,
+    });
     expect(stream.events).toHaveLength(4);
   });
 
-  it('resumes with Last-Event-ID: nothing when in step, the current state when something happened', async () => {
-    const [a, b, c] = [await newPreset('Resume A'), await newPreset('Resume B'), await newPreset('Resume C')];
+  it('resumes with Last-Event-ID: nothing when in step, else the state now', async () => {
+    const [a, b, c] = [
+      await newPreset('Resume A'),
+      await newPreset('Resume B'),
+      await newPreset('Resume C'),
+    ];
     const id = await newSetlist([{ presetId: a }, { presetId: b }, { presetId: c }]);
     await move(owner, id, 1).expect(200);
     const first = await follow(viewer, id);
     const seen = await first.next();
     first.close();
 
-    // In step: the first thing the resumed stream says is the next move, not the state it already had.
+    // In step: the first thing the resumed stream says is the next move, not the state it already
+    // had.
     const inStep = await follow(viewer, id, seen.id);
     await move(owner, id, 2).expect(200);
     const next = await inStep.next();
@@ -157,12 +203,15 @@ describe('the live stream', () => {
     expect(behind.events.map((event) => JSON.parse(event.data).position)).toEqual([1, 2]);
   });
 
-  it('follows a list changed under it, and ends the stream when the setlist is deleted', async () => {
+  it('follows a list changed under it, and ends when the setlist is deleted', async () => {
     const [a, b] = [await newPreset('Change A'), await newPreset('Change B')];
     const id = await newSetlist([{ presetId: a }]);
     const stream = await follow(viewer, id);
     await stream.next();
-    await send(owner, 'put', `/api/setlists/${id}`, { name: 'Live', entries: [{ presetId: b }, { presetId: a }] }).expect(200);
+    await send(owner, 'put', `/api/setlists/${id}`, {
+      name: 'Live',
+      entries: [{ presetId: b }, { presetId: a }],
+    }).expect(200);
     expect(JSON.parse((await stream.next()).data)).toMatchObject({ position: 0, presetId: b });
     await send(owner, 'delete', `/api/setlists/${id}`).expect(204);
     await stream.ended;

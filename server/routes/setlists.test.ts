@@ -25,7 +25,9 @@ const fifths = (name: string, up = 5) => ({
 });
 
 async function newPreset(name: string, band = bandId): Promise<string> {
-  return (await send(owner, 'post', '/api/presets', { document: fifths(name), bandId: band }).expect(201)).body.id;
+  return (
+    await send(owner, 'post', '/api/presets', { document: fifths(name), bandId: band }).expect(201)
+  ).body.id;
 }
 
 beforeAll(async () => {
@@ -35,7 +37,8 @@ beforeAll(async () => {
   viewer = await server.signIn('setlists-viewer');
   stranger = await server.signIn('setlists-stranger');
   bandId = (await send(owner, 'post', '/api/bands', { name: 'Setlist Band' }).expect(201)).body.id;
-  otherBandId = (await send(owner, 'post', '/api/bands', { name: 'Other Band' }).expect(201)).body.id;
+  otherBandId = (await send(owner, 'post', '/api/bands', { name: 'Other Band' }).expect(201)).body
+    .id;
   await server.db.insert(memberships).values([
     { bandId, userId: editor.user.id, role: 'editor' },
     { bandId, userId: viewer.user.id, role: 'viewer' },
@@ -44,11 +47,14 @@ beforeAll(async () => {
 afterAll(() => server.close());
 
 describe('setlists', () => {
-  it('are made, read, changed and deleted by editors, with the audit log recording each', async () => {
+  it('are made, read, changed and deleted by editors, each in the audit log', async () => {
     const [a, b] = [await newPreset('Opening Fifths'), await newPreset('Closing Fifths')];
     const created = await send(editor, 'post', `/api/bands/${bandId}/setlists`, {
       name: '  Friday  ',
-      entries: [{ presetId: a, trigger: 3 }, { presetId: b, revision: 1 }],
+      entries: [
+        { presetId: a, trigger: 3 },
+        { presetId: b, revision: 1 },
+      ],
     }).expect(201);
     const id = created.body.id;
     expect(created.body).toMatchObject({
@@ -57,8 +63,20 @@ describe('setlists', () => {
       position: 0,
       access: 'edit',
       entries: [
-        { presetId: a, revision: null, trigger: 3, presetName: 'Opening Fifths', latestRevision: 1 },
-        { presetId: b, revision: 1, trigger: null, presetName: 'Closing Fifths', latestRevision: 1 },
+        {
+          presetId: a,
+          revision: null,
+          trigger: 3,
+          presetName: 'Opening Fifths',
+          latestRevision: 1,
+        },
+        {
+          presetId: b,
+          revision: 1,
+          trigger: null,
+          presetName: 'Closing Fifths',
+          latestRevision: 1,
+        },
       ],
     });
     expect(Date.parse(created.body.createdAt)).not.toBeNaN();
@@ -66,7 +84,9 @@ describe('setlists', () => {
     const read = await viewer.agent.get(`/api/setlists/${id}`).expect(200);
     expect(read.body).toMatchObject({ id, name: 'Friday', access: 'read' });
     const listed = await viewer.agent.get(`/api/bands/${bandId}/setlists`).expect(200);
-    expect(listed.body.items.map((s: { id: string; entries: unknown[] }) => [s.id, s.entries.length])).toEqual([[id, 2]]);
+    expect(
+      listed.body.items.map((s: { id: string; entries: unknown[] }) => [s.id, s.entries.length]),
+    ).toEqual([[id, 2]]);
 
     const changed = await send(owner, 'put', `/api/setlists/${id}`, {
       name: 'Friday late',
@@ -91,10 +111,14 @@ describe('setlists', () => {
     ]);
   });
 
-  it('let viewers read but not change or move (403), and hide the band from non-members (404)', async () => {
+  it('let viewers read but not change or move (403); non-members get 404', async () => {
     const a = await newPreset('Viewer Test');
-    const id = (await send(owner, 'post', `/api/bands/${bandId}/setlists`, { name: 'Guarded', entries: [{ presetId: a }] }).expect(201))
-      .body.id;
+    const id = (
+      await send(owner, 'post', `/api/bands/${bandId}/setlists`, {
+        name: 'Guarded',
+        entries: [{ presetId: a }],
+      }).expect(201)
+    ).body.id;
     const body = { name: 'Taken over', entries: [] };
     for (const res of [
       await send(viewer, 'post', `/api/bands/${bandId}/setlists`, body),
@@ -122,26 +146,39 @@ describe('setlists', () => {
     expect((await viewer.agent.get(`/api/setlists/${id}`).expect(200)).body.name).toBe('Guarded');
   });
 
-  it('take only presets of the band\'s own library, and pinned revisions that exist, naming the entry', async () => {
+  it("take only the band's own presets and existing revisions, naming the entry", async () => {
     const mine = await newPreset('In The Band');
     const elsewhere = await newPreset('Other Library', otherBandId);
-    const personal = (await send(owner, 'post', '/api/presets', { document: fifths('Personal') }).expect(201)).body.id;
+    const personal = (
+      await send(owner, 'post', '/api/presets', { document: fifths('Personal') }).expect(201)
+    ).body.id;
     for (const [entries, field] of [
       [[{ presetId: mine }, { presetId: elsewhere }], 'entries[1].presetId'],
       [[{ presetId: personal }], 'entries[0].presetId'],
       [[{ presetId: mine }, { presetId: mine, revision: 2 }], 'entries[1].revision'],
       [[{ presetId: 'not-an-id' }], 'entries[0].presetId'],
     ] as const) {
-      const res = await send(owner, 'post', `/api/bands/${bandId}/setlists`, { name: 'Mixed', entries }).expect(400);
+      const res = await send(owner, 'post', `/api/bands/${bandId}/setlists`, {
+        name: 'Mixed',
+        entries,
+      }).expect(400);
       expect(res.body.error.field).toBe(field);
     }
   });
 
-  it('refuse a program-change trigger used twice in one list, naming the second entry', async () => {
-    const [a, b, c] = [await newPreset('Trigger A'), await newPreset('Trigger B'), await newPreset('Trigger C')];
+  it('refuse a program-change trigger used twice in one list, naming the entry', async () => {
+    const [a, b, c] = [
+      await newPreset('Trigger A'),
+      await newPreset('Trigger B'),
+      await newPreset('Trigger C'),
+    ];
     const res = await send(owner, 'post', `/api/bands/${bandId}/setlists`, {
       name: 'Footswitch',
-      entries: [{ presetId: a, trigger: 7 }, { presetId: b, trigger: 8 }, { presetId: c, trigger: 7 }],
+      entries: [
+        { presetId: a, trigger: 7 },
+        { presetId: b, trigger: 8 },
+        { presetId: c, trigger: 7 },
+      ],
     }).expect(400);
     expect(res.body.error.field).toBe('entries[2].trigger');
     expect(res.body.error.message).toMatch(/entry 1/);
@@ -152,31 +189,50 @@ describe('setlists', () => {
     expect(high.body.error.field).toBe('entries[0].trigger');
     // The same number in two different lists is fine.
     for (const name of ['Set one', 'Set two']) {
-      await send(owner, 'post', `/api/bands/${bandId}/setlists`, { name, entries: [{ presetId: a, trigger: 7 }] }).expect(201);
+      await send(owner, 'post', `/api/bands/${bandId}/setlists`, {
+        name,
+        entries: [{ presetId: a, trigger: 7 }],
+      }).expect(201);
     }
   });
 
-  it('move the position within the list only, naming position; a change keeps it within the new list', async () => {
-    const [a, b, c] = [await newPreset('Pos A'), await newPreset('Pos B'), await newPreset('Pos C')];
+  it('move within the list only; a change keeps the position within the new list', async () => {
+    const [a, b, c] = [
+      await newPreset('Pos A'),
+      await newPreset('Pos B'),
+      await newPreset('Pos C'),
+    ];
     const id = (
       await send(owner, 'post', `/api/bands/${bandId}/setlists`, {
         name: 'Positions',
         entries: [{ presetId: a }, { presetId: b }, { presetId: c }],
       }).expect(201)
     ).body.id;
-    expect((await send(editor, 'post', `/api/setlists/${id}/position`, { position: 2 }).expect(200)).body.position).toBe(2);
-    const beyond = await send(editor, 'post', `/api/setlists/${id}/position`, { position: 3 }).expect(400);
+    expect(
+      (await send(editor, 'post', `/api/setlists/${id}/position`, { position: 2 }).expect(200)).body
+        .position,
+    ).toBe(2);
+    const beyond = await send(editor, 'post', `/api/setlists/${id}/position`, {
+      position: 3,
+    }).expect(400);
     expect(beyond.body.error.field).toBe('position');
-    const negative = await send(editor, 'post', `/api/setlists/${id}/position`, { position: -1 }).expect(400);
+    const negative = await send(editor, 'post', `/api/setlists/${id}/position`, {
+      position: -1,
+    }).expect(400);
     expect(negative.body.error.field).toBe('position');
     const shorter = await send(owner, 'put', `/api/setlists/${id}`, {
       name: 'Positions',
       entries: [{ presetId: a }, { presetId: b }],
     }).expect(200);
     expect(shorter.body.position).toBe(1);
-    const empty = await send(owner, 'put', `/api/setlists/${id}`, { name: 'Positions', entries: [] }).expect(200);
+    const empty = await send(owner, 'put', `/api/setlists/${id}`, {
+      name: 'Positions',
+      entries: [],
+    }).expect(200);
     expect(empty.body.position).toBe(0);
-    const none = await send(editor, 'post', `/api/setlists/${id}/position`, { position: 0 }).expect(400);
+    const none = await send(editor, 'post', `/api/setlists/${id}/position`, { position: 0 }).expect(
+      400,
+    );
     expect(none.body.error.field).toBe('position');
   });
 });

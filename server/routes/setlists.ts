@@ -1,4 +1,5 @@
-// A band's setlists and the stage's live position: viewers read and follow, editors change and move.
+// A band's setlists and the stage's live position: viewers read and follow, editors change and
+// move.
 import { and, asc, count, eq, inArray } from 'drizzle-orm';
 import { type Response, Router } from 'express';
 import { parseRequest } from '../../shared/api/requests';
@@ -31,8 +32,15 @@ const keepAliveMs = 20_000;
 /** How long a browser waits before reconnecting a dropped stream. */
 const retryMs = 3_000;
 
-/** Every entry's preset must be in the band's library (and not in the trash); a pinned revision must exist. */
-async function checkEntries(writer: Writer, bandId: string, entries: SetlistBody['entries']): Promise<void> {
+/**
+ * Every entry's preset must be in the band's library (and not in the trash); a pinned revision must
+ * exist.
+ */
+async function checkEntries(
+  writer: Writer,
+  bandId: string,
+  entries: SetlistBody['entries'],
+): Promise<void> {
   const ids = [...new Set(entries.map((entry) => entry.presetId))];
   const rows = ids.length
     ? await writer
@@ -50,7 +58,9 @@ async function checkEntries(writer: Writer, bandId: string, entries: SetlistBody
   entries.forEach((entry, index) => {
     const preset = found.get(entry.presetId);
     if (!preset || preset.bandId !== bandId || preset.deletedAt) {
-      faults.push(fieldError(`entries[${index}].presetId`, "is not a preset in this band's library"));
+      faults.push(
+        fieldError(`entries[${index}].presetId`, "is not a preset in this band's library"),
+      );
     } else if (entry.revision !== null && entry.revision > preset.latest) {
       faults.push(
         fieldError(
@@ -76,7 +86,10 @@ async function writeEntries(writer: Writer, setlistId: string, entries: SetlistB
   );
 }
 
-/** The setlists as the API gives them, entries in order with their presets' names and latest revisions. */
+/**
+ * The setlists as the API gives them, entries in order with their presets' names and latest
+ * revisions.
+ */
 async function answer(
   db: Writer,
   rows: SetlistRow[],
@@ -124,7 +137,10 @@ function positionEvent({ eventId, stage }: StageState): string {
   return `event: position\nid: ${eventId}\ndata: ${JSON.stringify(stage)}\n\n`;
 }
 
-/** The Last-Event-ID a reconnecting browser sends; -1 (everything is news) when absent or not a number. */
+/**
+ * The Last-Event-ID a reconnecting browser sends; -1 (everything is news) when absent or not a
+ * number.
+ */
 function lastEventId(header: string | undefined): number {
   return header && /^\d{1,15}$/.test(header.trim()) ? Number(header.trim()) : -1;
 }
@@ -181,7 +197,9 @@ export function setlistsRouter(db: Database, stage: StageHub): Router {
       const [old] = await tx
         .select()
         .from(setlistEntries)
-        .where(and(eq(setlistEntries.setlistId, before.id), eq(setlistEntries.place, before.position)));
+        .where(
+          and(eq(setlistEntries.setlistId, before.id), eq(setlistEntries.place, before.position)),
+        );
       await tx.delete(setlistEntries).where(eq(setlistEntries.setlistId, before.id));
       await writeEntries(tx, before.id, body.entries);
       const position = Math.min(before.position, Math.max(body.entries.length - 1, 0));
@@ -237,7 +255,9 @@ export function setlistsRouter(db: Database, stage: StageHub): Router {
         .where(eq(setlistEntries.setlistId, setlist.id));
       if (position >= n) {
         const fault = n === 0 ? 'the setlist has no entries' : `the last entry is ${n - 1}`;
-        throw new ValidationError([fieldError('position', `is ${position}, beyond the list: ${fault}`)]);
+        throw new ValidationError([
+          fieldError('position', `is ${position}, beyond the list: ${fault}`),
+        ]);
       }
       const [row] = await tx
         .update(setlists)

@@ -1,7 +1,8 @@
-// One instance's ear on the stage: a dedicated PostgreSQL connection (not one of the pool's) that LISTENs for
-// stage notices from every instance, reads the setlist's stage once per notice and hands it to this instance's
-// followers of that setlist. The connection comes up with the first follower and comes back when it drops; after
-// each (re)connection every followed setlist is read again, so that a notice missed in between costs nothing.
+// One instance's ear on the stage: a dedicated PostgreSQL connection (not one of the pool's) that
+// LISTENs for stage notices from every instance, reads the setlist's stage once per notice and
+// hands it to this instance's followers of that setlist. The connection comes up with the first
+// follower and comes back when it drops; after each (re)connection every followed setlist is read
+// again, so that a notice missed in between costs nothing.
 import pg from 'pg';
 import type { Database } from '../db/client';
 import { readStage, readStageNotice, type StageState, stageChannel } from './stage-events';
@@ -63,7 +64,8 @@ export function createStageHub(
       const notice = channel === stageChannel ? readStageNotice(payload) : null;
       if (!notice) return;
       const those = followers.get(notice.setlistId);
-      if (those && [...those].some((f) => f.lastId < notice.eventId)) void refresh(notice.setlistId);
+      if (those && [...those].some((f) => f.lastId < notice.eventId))
+        void refresh(notice.setlistId);
     });
     candidate
       .connect()
@@ -96,7 +98,10 @@ export function createStageHub(
     retry.unref();
   }
 
-  /** Reads the setlist's stage and offers it to its followers; notices that arrive meanwhile cause one more read. */
+  /**
+   * Reads the setlist's stage and offers it to its followers; notices that arrive meanwhile cause
+   * one more read.
+   */
   async function refresh(setlistId: string): Promise<void> {
     const running = reading.get(setlistId);
     if (running) {
@@ -116,7 +121,8 @@ export function createStageHub(
         }
       }
     } catch (error) {
-      // Followers that cannot be told the truth are cut off; they reconnect with Last-Event-ID and catch up.
+      // Followers that cannot be told the truth are cut off; they reconnect with Last-Event-ID and
+      // catch up.
       log(`Stage read of setlist ${setlistId} failed: ${(error as Error).message}`);
       for (const follower of followers.get(setlistId) ?? []) follower.end();
     } finally {
