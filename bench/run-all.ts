@@ -10,6 +10,7 @@ const benches: [string, string][] = [
   ['server-load.bench.ts', 'preview and shared-preset throughput against a constant route; bundle generation'],
   ['designer-recompute.bench.ts', 'recomputing a 72-tone design in Chromium (target: under 16 ms)'],
   ['app-bundle.bench.ts', 'the initial JavaScript against a bare Material shell (builds twice: a few minutes)'],
+  ['stage-fanout.bench.ts', 'a stage move to 50 followers on two instances; 200 idle streams for 5 minutes'],
   ['long-load.bench.ts', '100 players for 60 s, then a SIGKILL mid-load (about three minutes)'],
 ];
 

@@ -28,11 +28,18 @@ import { benchFloorRouter } from './routes/bench-floor';
 import { uploadErrors } from './http/uploads';
 import { rateLimited } from './http/rate-limit';
 import type { Mailer } from './mail/mailer';
+import { setlistsRouter } from './routes/setlists';
+import { createStageHub, type StageHub } from './stage/stage-hub';
 
 export interface AppDependencies {
   db: Database;
   config: Config;
   mailer: Mailer;
+  /**
+   * This instance's listener for the stage's live streams; index.ts and the test server make one and close it.
+   * Without one, the app makes its own, which connects with the first follower.
+   */
+  stage?: StageHub;
 }
 
 export const sessionCookie = 'keyloom.sid';
@@ -80,7 +87,7 @@ function builtApp(staticDir: string): express.Router {
   return router;
 }
 
-export function createApp({ db, config, mailer }: AppDependencies): Express {
+export function createApp({ db, config, mailer, stage }: AppDependencies): Express {
   const app = express();
   app.disable('x-powered-by');
   // No ETag hashed over every answer: Express hashes the whole body on the event loop (a retuned song is megabytes).
@@ -124,6 +131,7 @@ export function createApp({ db, config, mailer }: AppDependencies): Express {
   app.use(invitesRouter(db, config, mailer, limit));
   app.use(exportsRouter(db));
   app.use(instrumentsRouter(db));
+  app.use(setlistsRouter(db, stage ?? createStageHub(config.databaseUrl, db)));
   if (config.benchRoutes) app.use(benchFloorRouter());
   app.use('/api', apiNotFound);
   app.use(builtApp(config.staticDir));

@@ -4,6 +4,7 @@ import { loadConfig } from './config';
 import { applyMigrations, createDatabase } from './db/client';
 import { createMailer } from './mail/mailer';
 import { purgeExpiredTrash } from './routes/presets';
+import { createStageHub } from './stage/stage-hub';
 import { stopWorkers } from './work/worker-pool';
 
 const config = loadConfig();
@@ -19,12 +20,16 @@ const purge = () =>
 void purge();
 setInterval(purge, 3600_000).unref();
 
-const server = createApp({ db, config, mailer }).listen(config.port, config.host, () => {
+// One listener per instance: the stage's live streams hear every instance's moves through PostgreSQL.
+const stage = createStageHub(config.databaseUrl, db);
+const server = createApp({ db, config, mailer, stage }).listen(config.port, config.host, () => {
   console.log(`Keyloom listening on ${config.publicUrl}`);
 });
 
 function shutDown(signal: string) {
   console.log(`${signal}: closing`);
+  // Open streams end now, so that their browsers reconnect to another instance.
+  void stage.close();
   server.close(() => void Promise.all([db.$client.end(), stopWorkers()]).then(() => process.exit(0)));
   server.closeAllConnections();
   setTimeout(() => process.exit(0), 5_000).unref();

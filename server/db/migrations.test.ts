@@ -12,21 +12,22 @@ beforeAll(async () => {
 afterAll(() => drop());
 
 describe('migrations', () => {
-  it('apply to an empty database, creating every table of schema version 1', async () => {
+  it('apply to an empty database, creating every table of the schema', async () => {
     await applyMigrations(db);
     const tables = await db.$client.query<{ table_name: string }>(
       `SELECT table_name FROM information_schema.tables WHERE table_schema = 'public' ORDER BY table_name`,
     );
     expect(tables.rows.map((r) => r.table_name)).toEqual([
-      'audit_log', 'bands', 'invites', 'memberships', 'preset_revisions', 'presets', 'sessions', 'share_links',
-      'uploads', 'users',
+      'audit_log', 'bands', 'instruments', 'invites', 'memberships', 'preset_revisions', 'presets', 'sessions',
+      'setlist_entries', 'setlists', 'share_links', 'stage_events', 'uploads', 'users',
     ]);
   });
 
   it('are a no-op the second time', async () => {
     await applyMigrations(db);
     const applied = await db.$client.query('SELECT count(*)::int AS n FROM drizzle.__drizzle_migrations');
-    expect(applied.rows[0].n).toBe(1);
+    // One row per migration file in drizzle/: 0000_initial and 0001_instruments_setlists_stage.
+    expect(applied.rows[0].n).toBe(2);
   });
 
   it('protect the data: a revision must belong to a preset, and revision numbers start at 1', async () => {

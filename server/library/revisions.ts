@@ -5,6 +5,7 @@ import type { Database } from '../db/client';
 import { presetRevisions, presets } from '../db/schema';
 import { largestRevision } from '../../shared/api/requests';
 import { notFound } from '../http/errors';
+import { recordFollowingEvents } from '../stage/stage-events';
 import { recordAudit, type Writer } from './audit';
 
 export interface NewPreset {
@@ -75,6 +76,8 @@ export async function appendRevision(
       presetId: input.presetId,
       detail: { revision: row.revision, ...(input.note ? { note: input.note } : {}) },
     });
+    // Setlists whose current entry follows this preset's latest revision: their followers hear the new one.
+    await recordFollowingEvents(tx, input.presetId);
     return row.revision;
   });
 }

@@ -3,7 +3,7 @@
 import { and, eq } from 'drizzle-orm';
 import type { SignedInUser } from '../auth/github';
 import type { Database } from '../db/client';
-import { bands, instruments, memberships, presets } from '../db/schema';
+import { bands, instruments, memberships, presets, setlists } from '../db/schema';
 import { HttpError, notFound } from '../http/errors';
 import { type BandRole, type PresetAccess, presetAccessLevels } from '../../shared/api/roles';
 
@@ -128,4 +128,52 @@ export async function authorizeInstrument(
     : undefined;
   if (!instrument) throw notFound('instrument');
   return instrument;
+}
+
+export type SetlistRow = typeof setlists.$inferSelect;
+
+/** What a user may do with a band's setlists: viewers read, editors and owners change; admins may do anything. */
+export function setlistAccess(user: SignedInUser | undefined, role: BandRole | null): 'none' | 'read' | 'edit' {
+  if (!user) return 'none';
+  if (user.siteRole === 'admin') return 'edit';
+  return role === 'owner' || role === 'editor' ? 'edit' : role === 'viewer' ? 'read' : 'none';
+}
+
+function setlistGate(access: 'none' | 'read' | 'edit', need: 'read' | 'edit', what: 'band' | 'setlist') {
+  if (access === 'none') throw notFound(what);
+  if (need === 'edit' && access !== 'edit') {
+    throw new HttpError(403, 'forbidden', 'Viewers can follow the band\'s setlists but not change them.');
+  }
+}
+
+/** The band whose setlists the user may read or change; a signed-out caller gets 401, a non-member 404. */
+export async function authorizeBandSetlists(
+  db: Database,
+  user: SignedInUser | undefined,
+  bandId: string,
+  need: 'read' | 'edit',
+): Promise<{ band: BandRow; access: 'read' | 'edit' }> {
+  const signedIn = requireUser(user);
+  const band = isId(bandId) ? await db.query.bands.findFirst({ where: eq(bands.id, bandId) }) : undefined;
+  if (!band) throw notFound('band');
+  const access = setlistAccess(signedIn, await bandRole(db, signedIn.id, band.id));
+  setlistGate(access, need, 'band');
+  return { band, access: access as 'read' | 'edit' };
+}
+
+/** The setlist, when the user may read or change it; a signed-out caller gets 401, a non-member 404. */
+export async function authorizeSetlist(
+  db: Database,
+  user: SignedInUser | undefined,
+  setlistId: string,
+  need: 'read' | 'edit',
+): Promise<{ setlist: SetlistRow; access: 'read' | 'edit' }> {
+  const signedIn = requireUser(user);
+  const setlist = isId(setlistId)
+    ? await db.query.setlists.findFirst({ where: eq(setlists.id, setlistId) })
+    : undefined;
+  if (!setlist) throw notFound('setlist');
+  const access = setlistAccess(signedIn, await bandRole(db, signedIn.id, setlist.bandId));
+  setlistGate(access, need, 'setlist');
+  return { setlist, access: access as 'read' | 'edit' };
 }

@@ -6,7 +6,16 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { listRoutes } from '../../tests/support/route-list';
 import { startTestServer } from '../../tests/support/test-server';
 import {
-  bands, instruments, invites, memberships, presetRevisions, presets, shareLinks, users,
+  bands,
+  instruments,
+  invites,
+  memberships,
+  presetRevisions,
+  presets,
+  setlistEntries,
+  setlists,
+  shareLinks,
+  users,
 } from '../db/schema';
 import { hashToken } from '../library/tokens';
 import { fifthsPreset } from '../../shared/preset/presets.testing';
@@ -30,12 +39,15 @@ interface Fixture {
   viewerId: string;
   /** An instrument of the owner's: private to them, admins included. */
   instrumentId: string;
+  setlistId: string;
 }
 
 interface Case {
   allowed: Actor[];
   path: (f: Fixture, actor: Actor) => string;
   body?: (f: Fixture) => object;
+  /** A Server-Sent Events stream: read up to its first event, then hung up. */
+  stream?: true;
 }
 
 const doc = fifthsPreset('Matrix Fifths');
@@ -111,6 +123,23 @@ const matrix: Record<string, Case> = {
   },
   'POST /api/retune': { allowed: everyone, path: () => '/api/retune' },
   'POST /api/import': { allowed: everyone, path: () => '/api/import' },
+  'POST /api/bands/:id/setlists': {
+    allowed: editors,
+    path: (f) => `/api/bands/${f.bandId}/setlists`,
+    body: (f) => ({ name: 'Matrix Set', entries: [{ presetId: f.presetId }] }),
+  },
+  'GET /api/bands/:id/setlists': { allowed: readers, path: (f) => `/api/bands/${f.bandId}/setlists` },
+  'GET /api/setlists/:id': { allowed: readers, path: (f) => `/api/setlists/${f.setlistId}` },
+  'PUT /api/setlists/:id': {
+    allowed: editors,
+    path: (f) => `/api/setlists/${f.setlistId}`,
+    body: (f) => ({ name: 'Matrix Set', entries: [{ presetId: f.presetId, revision: 1 }] }),
+  },
+  'DELETE /api/setlists/:id': { allowed: editors, path: (f) => `/api/setlists/${f.setlistId}` },
+  'POST /api/setlists/:id/position': {
+    allowed: editors, path: (f) => `/api/setlists/${f.setlistId}/position`, body: () => ({ position: 0 }),
+  },
+  'GET /api/setlists/:id/live': { allowed: readers, path: (f) => `/api/setlists/${f.setlistId}/live`, stream: true },
   'GET /{*splat}': { allowed: everyone, path: () => '/library' },
 };
 
@@ -158,6 +187,8 @@ async function freshFixture(): Promise<Fixture> {
       invitedBy: ids.get('owner'), expiresAt: new Date(Date.now() + 86_400_000),
     })
     .returning();
+  const [setlist] = await db.insert(setlists).values({ bandId: band.id, name: `Matrix Set ${n}` }).returning();
+  await db.insert(setlistEntries).values({ setlistId: setlist.id, place: 0, presetId: preset.id });
   const [instrument] = await db
     .insert(instruments)
     .values({
@@ -167,7 +198,7 @@ async function freshFixture(): Promise<Fixture> {
     .returning();
   return {
     bandId: band.id, presetId: preset.id, shareId: share.id, shareToken, inviteId: invite.id,
-    inviteToken, viewerId: ids.get('viewer')!, instrumentId: instrument.id,
+    inviteToken, viewerId: ids.get('viewer')!, instrumentId: instrument.id, setlistId: setlist.id,
   };
 }
 
@@ -179,10 +210,33 @@ async function send(actor: Actor, route: string, fixture: Fixture, withXsrf = tr
       : (agents.get(actor) ?? { agent: request.agent(server.app), xsrf: undefined });
   const [method] = route.split(' ');
   const c = matrix[route];
-  let req = agent[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](c.path(fixture, actor));
+  let req = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](c.path(fixture, actor));
   if (xsrf && withXsrf) req = req.set('X-XSRF-TOKEN', xsrf);
   if (c.body) req = req.send(c.body(fixture));
+  if (c.stream) req = req.buffer(true).parse(untilFirstEvent);
   return req;
+}
+
+/** Reads a stream's answer up to its first event and hangs up; any other answer to its end. */
+function untilFirstEvent(answer: request.Response, done: (error: Error | null, body: string) => void) {
+  // superagent hands its parsers Node's own message.
+  const res = answer as unknown as import('node:http').IncomingMessage;
+  let text = '';
+  let answered = false;
+  const finish = () => {
+    if (answered) return;
+    answered = true;
+    done(null, text);
+  };
+  res.on('data', (chunk: Buffer) => {
+    text += chunk.toString('utf8');
+    if (res.statusCode === 200 && /\n\n[^]*\n\n/.test(text)) {
+      finish();
+      res.destroy();
+    }
+  });
+  res.on('end', finish);
+  res.on('close', finish);
 }
 
 const denied = (status: number) => status === 401 || status === 403 || status === 404;

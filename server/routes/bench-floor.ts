@@ -2,7 +2,8 @@ import { Router } from 'express';
 
 /**
  * The floor that `npm run bench` measures routes against: the same server and middleware answering a JSON body
- * of a given size that costs nothing to make. Mounted only with KEYLOOM_BENCH_ROUTES=1.
+ * of a given size that costs nothing to make; and the server's own memory, which the stage benchmark samples while
+ * streams stay open. Mounted only with KEYLOOM_BENCH_ROUTES=1.
  */
 export function benchFloorRouter(): Router {
   const bodies = new Map<number, string>();
@@ -20,5 +21,8 @@ export function benchFloorRouter(): Router {
   };
   return Router()
     .get('/api/bench/constant/:bytes', (req, res) => send(req.params['bytes'], res))
-    .post('/api/bench/constant/:bytes', (req, res) => send(req.params['bytes'], res));
+    .post('/api/bench/constant/:bytes', (req, res) => send(req.params['bytes'], res))
+    .get('/api/bench/memory', (_req, res) => {
+      res.json(process.memoryUsage());
+    });
 }

@@ -53,7 +53,10 @@ export interface SetlistEntry {
   latestRevision: number;
 }
 
-/** `GET /api/setlists/:id`, rows of `GET /api/bands/:id/setlists`, `POST` (201) and `PUT`. */
+/**
+ * `GET /api/setlists/:id`, rows of `GET /api/bands/:id/setlists`, `POST` (201), `PUT`, and the answer to
+ * `POST /api/setlists/:id/position`.
+ */
 export interface Setlist {
   id: string;
   bandId: string;
@@ -69,7 +72,8 @@ export interface Setlist {
 
 /**
  * One event of `GET /api/setlists/:id/live` (Server-Sent Events, `event: position`, `id:` for Last-Event-ID): at once
- * on connect, on every move, and when the current entry follows the latest revision and a new one is saved.
+ * on connect, on every move, and when the current entry follows the latest revision and a new one is saved; none
+ * while the list is empty. A stream ends when its setlist is deleted or its server stops (the browser reconnects).
  */
 export interface StagePosition {
   position: number;

@@ -30,10 +30,11 @@ interface Ids {
   shareId: string;
   userId: string;
   instrumentId: string;
+  setlistId: string;
 }
 
 interface JsonRoute {
-  method: 'get' | 'post' | 'patch' | 'delete';
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   path: (ids: Ids) => string;
   body?: () => unknown;
   query?: () => Record<string, unknown>;
@@ -87,6 +88,19 @@ const jsonRoutes: Record<string, JsonRoute> = {
     method: 'post', path: (ids) => `/api/bands/${ids.bandId}/invites`, body: () => ({ email: 'fuzz@example.org', role: 'viewer' }),
   },
   'GET /api/bands/:id/audit': { method: 'get', path: (ids) => `/api/bands/${ids.bandId}/audit`, query: () => ({ page: 1 }) },
+  'POST /api/bands/:id/setlists': {
+    method: 'post',
+    path: (ids) => `/api/bands/${ids.bandId}/setlists`,
+    body: () => ({ name: 'Fuzz Set', entries: [{ presetId: ids.presetId, revision: 1, trigger: 5 }] }),
+  },
+  'PUT /api/setlists/:id': {
+    method: 'put',
+    path: (ids) => `/api/setlists/${ids.setlistId}`,
+    body: () => ({ name: 'Fuzz Set', entries: [{ presetId: ids.presetId }, { presetId: ids.presetId, trigger: 9 }] }),
+  },
+  'POST /api/setlists/:id/position': {
+    method: 'post', path: (ids) => `/api/setlists/${ids.setlistId}/position`, body: () => ({ position: 1 }),
+  },
 };
 
 /** Values that broke the server before: each one somewhere a valid value stood. */
@@ -133,7 +147,8 @@ beforeAll(async () => {
   const shareId = (await post(`/api/presets/${presetId}/shares`, {})).body.id;
   const keys = { name: 'Fuzz keys', receives: 'mts-bulk' };
   const instrumentId = (await post('/api/instruments', keys)).body.id;
-  ids = { presetId, bandId, shareId, userId: other.user.id, instrumentId };
+  const setlistId = (await post(`/api/bands/${bandId}/setlists`, { name: 'Fuzz', entries: [{ presetId }] })).body.id;
+  ids = { presetId, bandId, shareId, userId: other.user.id, instrumentId, setlistId };
 });
 afterAll(() => server.close());
 

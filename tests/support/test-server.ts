@@ -7,6 +7,7 @@ import { createApp } from '../../server/app';
 import { loadConfig } from '../../server/config';
 import { createDatabase, type Database } from '../../server/db/client';
 import { createMailer } from '../../server/mail/mailer';
+import { createStageHub } from '../../server/stage/stage-hub';
 import { stopWorkers } from '../../server/work/worker-pool';
 
 export async function startTestServer(env: Record<string, string> = {}) {
@@ -24,7 +25,8 @@ export async function startTestServer(env: Record<string, string> = {}) {
     ...env,
   });
   const db: Database = createDatabase(databaseUrl);
-  const app = createApp({ db, config, mailer: createMailer(config.smtp) });
+  const stage = createStageHub(databaseUrl, db);
+  const app = createApp({ db, config, mailer: createMailer(config.smtp), stage });
 
   /** A supertest agent signed in as `login` through the GitHub stand-in, sending the cross-site token on writes. */
   async function signIn(login: string) {
@@ -35,7 +37,10 @@ export async function startTestServer(env: Record<string, string> = {}) {
     await agent.get(callback.pathname + callback.search).expect(302);
     const me = await agent.get('/api/me');
     const xsrf = agent.jar.getCookie('XSRF-TOKEN', { domain: '127.0.0.1', path: '/', secure: false, script: false })!.value;
-    return { agent, user: me.body.user as { id: string; login: string }, xsrf };
+    /** The Cookie header a browser would send, for requests made without the agent (a raw event stream). */
+    const cookie = () =>
+      agent.jar.getCookies({ domain: '127.0.0.1', path: '/', secure: false, script: false }).toValueString();
+    return { agent, user: me.body.user as { id: string; login: string }, xsrf, cookie };
   }
 
   return {
@@ -48,6 +53,7 @@ export async function startTestServer(env: Record<string, string> = {}) {
     async close() {
       await github.close();
       await mailbox.close();
+      await stage.close();
       await db.$client.end();
       await stopWorkers();
     },
