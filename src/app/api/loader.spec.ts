@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { type WritableSignal, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { map } from 'rxjs';
-import { patientSpecMs, waitFor } from '../../testing/wait-for';
+import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { type Loaded, loader } from './loader';
 
 interface Band {

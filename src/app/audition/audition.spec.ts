@@ -1,5 +1,5 @@
 import { TestBed } from '@angular/core/testing';
-import { standInAccess, standInInput } from '../../testing/midi-stand-in';
+import { standInAccess, standInInput } from '../testing/midi-stand-in';
 import { DesignState } from '../design/design-state';
 import { MidiAccess } from '../hardware/midi-access';
 import { Audition } from './audition';

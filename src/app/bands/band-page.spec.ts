@@ -2,12 +2,12 @@ import { HttpTestingController } from '@angular/common/http/testing';
 import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { Router } from '@angular/router';
-import { patientSpecMs, waitFor } from '../../testing/wait-for';
+import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { Member } from '../auth/session';
 import { PresetRow } from '../library/library-api';
 import { BandPage } from './band-page';
 import { AuditEntry, BandDetail, PendingInvite } from './bands-api';
-import { PageTest } from '../../testing/page-test';
+import { PageTest } from '../testing/page-test';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 const tobias: Member = { ...mira, id: 'u-tobias', login: 'tobias-reed', name: 'Tobias Reed' };

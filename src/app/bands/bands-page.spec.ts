@@ -4,7 +4,7 @@ import { TestBed } from '@angular/core/testing';
 import { Router } from '@angular/router';
 import { Member } from '../auth/session';
 import { BandsPage } from './bands-page';
-import { PageTest } from '../../testing/page-test';
+import { PageTest } from '../testing/page-test';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 

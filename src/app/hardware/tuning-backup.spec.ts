@@ -3,8 +3,8 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { provideRouter } from '@angular/router';
-import { standInAccess, standInInput, standInOutput } from '../../testing/midi-stand-in';
-import { patientSpecMs, waitFor } from '../../testing/wait-for';
+import { standInAccess, standInInput, standInOutput } from '../testing/midi-stand-in';
+import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { Session } from '../auth/session';
 import { DesignState } from '../design/design-state';
 import { MidiAccess } from './midi-access';

@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { renderExport } from '@shared/export/export-catalogue';
-import { patientSpecMs, waitFor } from '../../testing/wait-for';
+import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { DesignState } from '../design/design-state';
 import { LiveFollow, followDebounceMs } from './live-follow';
 import { MidiAccess, midiAccessFaults } from './midi-access';
@@ -11,7 +11,7 @@ import {
   standInAccess,
   standInInput,
   standInOutput,
-} from '../../testing/midi-stand-in';
+} from '../testing/midi-stand-in';
 
 describe('TuningSender and LiveFollow', () => {
   let port: StandInOutput;

@@ -1,8 +1,8 @@
 import { HttpTestingController } from '@angular/common/http/testing';
-import { patientSpecMs, waitFor } from '../../testing/wait-for';
+import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { decodeDesign } from '../design/design-address';
 import { ImportPage } from './import-page';
-import { PageTest } from '../../testing/page-test';
+import { PageTest } from '../testing/page-test';
 
 /** What server/routes/imports.ts answers for a text list of Pythagorean intervals (shared/import/interval-list.ts). */
 const fenFifthsList = {

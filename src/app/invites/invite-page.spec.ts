@@ -5,7 +5,7 @@ import { Router } from '@angular/router';
 import { Member } from '../auth/session';
 import { InviteSummary } from './invite-api';
 import { InvitePage } from './invite-page';
-import { PageTest } from '../../testing/page-test';
+import { PageTest } from '../testing/page-test';
 
 const ada: Member = { id: 'u-ada', login: 'ada-quill', name: 'Ada Quill', email: null, avatarUrl: null, siteRole: 'member' };
 const invite: InviteSummary = {

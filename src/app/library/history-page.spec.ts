@@ -3,7 +3,7 @@ import { TestBed } from '@angular/core/testing';
 import { Member } from '../auth/session';
 import { HistoryPage } from './history-page';
 import { SavedPreset, RevisionEntry } from './library-api';
-import { PageTest } from '../../testing/page-test';
+import { PageTest } from '../testing/page-test';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 const preset: SavedPreset = {

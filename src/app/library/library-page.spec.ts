@@ -9,7 +9,7 @@ import { Member } from '../auth/session';
 import { BandSummary } from '../bands/bands-api';
 import { PresetRow } from './library-api';
 import { LibraryPage } from './library-page';
-import { PageTest } from '../../testing/page-test';
+import { PageTest } from '../testing/page-test';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 const bands: BandSummary[] = [

@@ -7,14 +7,14 @@ import { retuneSong } from '@shared/midi/song-retune';
 import { parsePresetDocument } from '@shared/preset/preset-document';
 import { fifthsPreset } from '@shared/preset/presets.testing';
 import { Midi } from '@tonejs/midi';
-import { patientSpecMs, waitFor } from '../../testing/wait-for';
+import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { Member } from '../auth/session';
 import { encodeDesign } from '../design/design-address';
 import { draftFrom } from '../design/draft-document';
 import { PresetRow } from '../library/library-api';
 import { SongReportHeader } from './retune-api';
 import { RetunePage } from './retune-page';
-import { PageTest } from '../../testing/page-test';
+import { PageTest } from '../testing/page-test';
 
 const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 const fenFifths: PresetRow = {

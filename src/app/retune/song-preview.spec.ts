@@ -1,6 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
-import { patientSpecMs, waitFor } from '../../testing/wait-for';
+import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { AuditionEngine, startingVolumeDb } from '../audition/audition-engine';
 import { SongPreview } from './song-preview';
 

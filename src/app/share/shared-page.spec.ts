@@ -4,7 +4,7 @@ import { fifthsPreset } from '@shared/preset/presets.testing';
 import { Member } from '../auth/session';
 import { SharedPreset } from './share-api';
 import { SharedPage } from './shared-page';
-import { PageTest } from '../../testing/page-test';
+import { PageTest } from '../testing/page-test';
 
 const tobias: Member = { id: 'u-tobias', login: 'tobias-reed', name: 'Tobias Reed', email: null, avatarUrl: null, siteRole: 'member' };
 const fenFifths = {

@@ -8,7 +8,7 @@ import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { MatSnackBarHarness } from '@angular/material/snack-bar/testing';
 import { Routes, provideRouter, withComponentInputBinding } from '@angular/router';
 import { RouterTestingHarness } from '@angular/router/testing';
-import { Member, Session } from '../app/auth/session';
+import { Member, Session } from '../auth/session';
 
 /**
  * The set-up every page spec shares: the page's routes bound to inputs as in app.config.ts, HttpClient
