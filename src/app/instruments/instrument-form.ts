@@ -143,8 +143,9 @@ export class InstrumentForm implements OnInit {
   ngOnInit(): void {
     const instrument = this.instrument();
     if (!instrument) return;
-    const { memberChannels: [firstChannel, lastChannel], port, ...rest } = instrument;
-    this.form.setValue({ ...rest, firstChannel, lastChannel, port: port ?? '' });
+    const { name, receives, deviceId, program, bank, bendRange, port } = instrument;
+    const [firstChannel, lastChannel] = instrument.memberChannels;
+    this.form.setValue({ name, receives, deviceId, program, bank, bendRange, firstChannel, lastChannel, port: port ?? '' });
   }
 
   protected fault(field: string): string {
