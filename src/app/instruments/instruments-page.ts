@@ -103,6 +103,10 @@ export class InstrumentsPage {
   protected readonly failure = signal<string | null>(null);
   protected readonly summary = instrumentSummary;
 
+  constructor() {
+    this.store.load();
+  }
+
   protected edit(instrument: MyInstrument | null): void {
     this.failure.set(null);
     this.editing.set(instrument?.id ?? 'new');

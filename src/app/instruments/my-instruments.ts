@@ -1,4 +1,4 @@
-import { Injectable, computed, inject, signal } from '@angular/core';
+import { Injectable, Injector, computed, inject, signal } from '@angular/core';
 import { toObservable } from '@angular/core/rxjs-interop';
 import {
   type InstrumentSettings,
@@ -82,12 +82,18 @@ export class MyInstruments {
     const member = this.session.member();
     return member === undefined ? undefined : member ? ('account' as const) : ('browser' as const);
   });
-  /** The instruments, or null while they load. */
+  /** The instruments, or null until `load()` has read them. */
   readonly list = signal<MyInstrument[] | null>(null);
   readonly failure = signal<string | null>(null);
 
-  constructor() {
-    toObservable(this.keptIn)
+  private readonly injector = inject(Injector);
+  private loading = false;
+
+  /** Starts reading the instruments (once), and again whenever sign-in changes. */
+  load(): void {
+    if (this.loading) return;
+    this.loading = true;
+    toObservable(this.keptIn, { injector: this.injector })
       .pipe(
         switchMap((kept) => {
           if (kept === undefined) return EMPTY;

@@ -1,12 +1,18 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
-import { Component, computed, inject, input, signal } from '@angular/core';
+import { HttpParams } from '@angular/common/http';
+import { Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { Router, RouterLink } from '@angular/router';
-import { EMPTY, catchError, switchMap } from 'rxjs';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatSelectModule } from '@angular/material/select';
+import { EMPTY, catchError, firstValueFrom, switchMap } from 'rxjs';
+import { InstrumentDialog } from '../instruments/instrument-dialog';
+import { type MyInstrument, MyInstruments, exportOfInstrument } from '../instruments/my-instruments';
 import { Session } from '../auth/session';
 import { apiErrorMessage, isNotFound } from '../library/api-error';
 import { LibraryApi } from '../library/library-api';
@@ -32,7 +38,7 @@ import { KeyboardStrip } from '../keys/keyboard-strip';
   selector: 'app-shared-page',
   imports: [
     DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, DegreeTable,
-    PlayPanel, KeyboardStrip, StripPlaying,
+    PlayPanel, KeyboardStrip, StripPlaying, MatFormFieldModule, MatSelectModule,
   ],
   providers: [DesignState, Audition, MidiAccess, ControllerInput],
   templateUrl: './shared-page.html',
@@ -44,6 +50,7 @@ export class SharedPage {
   private readonly router = inject(Router);
   private readonly snackBar = inject(MatSnackBar);
   private readonly design = inject(DesignState);
+  private readonly dialog = inject(MatDialog);
   protected readonly session = inject(Session);
 
   /** The link's token, from the address. */
@@ -73,8 +80,30 @@ export class SharedPage {
       .map((format) => ({ ...format, href: this.shareApi.exportUrl(this.token(), format.id), refused: refusals.get(format.id) ?? null }));
   });
   protected readonly bundleHref = computed(() => this.shareApi.bundleUrl(this.token()));
+  /** The player's instruments (a guest's are kept in this browser) and the one the file is for. */
+  protected readonly instruments = inject(MyInstruments);
+  protected readonly chosenId = linkedSignal<MyInstrument[] | null, string | null>({
+    source: this.instruments.list,
+    computation: (list, previous) =>
+      list?.find((instrument) => instrument.id === previous?.value)?.id ?? list?.[0]?.id ?? null,
+  });
+  /** The chosen instrument's own export, with its id (or a guest's settings) in the address. */
+  protected readonly instrumentDownload = computed(() => {
+    const instrument = this.instruments.list()?.find((candidate) => candidate.id === this.chosenId());
+    if (!instrument) return null;
+    const format = exportOfInstrument(instrument);
+    const query = new HttpParams({ fromObject: this.instruments.downloadQuery(instrument) });
+    const preset = this.preset();
+    return {
+      ...format,
+      instrument: instrument.name,
+      href: `${this.shareApi.exportUrl(this.token(), format.id)}?${query.toString()}`,
+      refused: (preset && exportRefusals(preset).get(format.id)) ?? null,
+    };
+  });
 
   constructor() {
+    this.instruments.load();
     toObservable(this.token)
       .pipe(
         switchMap((token) =>
@@ -97,6 +126,12 @@ export class SharedPage {
         // The tuning is heard through the designer's audition engine, read-only: nothing here can change it.
         this.design.open(draftFrom(shared.document as PresetDocument), { id: 'shared', revision: shared.revision, bandId: null, access: 'read' });
       });
+  }
+
+  protected async setUpInstrument(): Promise<void> {
+    const dialog = this.dialog.open<InstrumentDialog, void, MyInstrument>(InstrumentDialog, { maxWidth: '560px' });
+    const instrument = await firstValueFrom(dialog.afterClosed());
+    if (instrument) this.chosenId.set(instrument.id);
   }
 
   /**
