@@ -29,9 +29,11 @@ export class TuningSender {
   readonly form = signal<MessageFormId>('mts-bulk');
   // Device id, program and bank live in one place, the design's output settings: the warning, the hex preview and
   // the bytes sent all read them from there.
-  readonly deviceId = computed(() => this.output()?.deviceId ?? 127);
-  readonly program = computed(() => this.output()?.program ?? 0);
-  readonly bank = computed(() => this.output()?.bank ?? 0);
+  /** The player's instrument chosen "for my instrument": its target stands in for the output settings, unsaved. */
+  readonly instrumentTarget = signal<SendTarget | null>(null);
+  readonly deviceId = computed(() => this.instrumentTarget()?.deviceId ?? this.output()?.deviceId ?? 127);
+  readonly program = computed(() => this.instrumentTarget()?.program ?? this.output()?.program ?? 0);
+  readonly bank = computed(() => this.instrumentTarget()?.bank ?? this.output()?.bank ?? 0);
   readonly target = computed<SendTarget>(() => ({ deviceId: this.deviceId(), program: this.program(), bank: this.bank() }));
   /** The messages for the current design, or why the form cannot carry it. */
   readonly messages = computed(() => {
