@@ -9,6 +9,7 @@ import { Session } from '../auth/session';
 import { apiErrorMessage, isNotFound } from '../library/api-error';
 import { LibraryApi, PresetPage, PresetQuery } from '../library/library-api';
 import { SignInPrompt } from '../library/sign-in-prompt';
+import { BandSetlists } from '../setlists/band-setlists';
 import { BandAudit } from './band-audit';
 import { BandInvites } from './band-invites';
 import { BandMembers } from './band-members';
@@ -19,7 +20,7 @@ const noPresets: PresetPage = { items: [], total: 0, page: 1, pageSize: 100 };
 /** One band: members and roles, invites, its presets and (for owners) what happened in it. */
 @Component({
   selector: 'app-band-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, BandMembers, BandInvites, BandAudit],
+  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, BandMembers, BandInvites, BandAudit, BandSetlists],
   templateUrl: './band-page.html',
   styleUrl: './band-page.scss',
 })
