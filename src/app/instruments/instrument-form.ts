@@ -37,52 +37,52 @@ const numberControl = (value: number, validator: ValidatorFn) =>
   imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule],
   template: `
     <form class="instrument-form" [formGroup]="form" (ngSubmit)="submit()" [attr.aria-label]="label()">
-      <mat-form-field class="wide">
+      <mat-form-field class="wide" subscriptSizing="dynamic">
         <mat-label>Instrument name</mat-label>
         <input matInput formControlName="name" autocomplete="off">
         <mat-error>{{ fault('name') }}</mat-error>
       </mat-form-field>
-      <mat-form-field class="wide">
+      <mat-form-field class="wide" subscriptSizing="dynamic">
         <mat-label>Takes a tuning as</mat-label>
         <mat-select formControlName="receives">
           @for (form of forms; track form) { <mat-option [value]="form">{{ formLabels[form] }}</mat-option> }
         </mat-select>
         <mat-error>{{ fault('receives') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Device id</mat-label>
         <input matInput type="number" formControlName="deviceId" inputmode="numeric">
         <mat-hint>0-127; 127 reaches every device</mat-hint>
         <mat-error>{{ fault('deviceId') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Tuning program</mat-label>
         <input matInput type="number" formControlName="program" inputmode="numeric">
         <mat-error>{{ fault('program') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Tuning bank</mat-label>
         <input matInput type="number" formControlName="bank" inputmode="numeric">
         <mat-error>{{ fault('bank') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Bend range</mat-label>
         <input matInput type="number" formControlName="bendRange" inputmode="numeric">
         <span matTextSuffix>semitones</span>
         <mat-error>{{ fault('bendRange') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>First member channel</mat-label>
         <input matInput type="number" formControlName="firstChannel" inputmode="numeric">
         <mat-hint>For MPE and bend tables</mat-hint>
         <mat-error>{{ fault('firstChannel') }}</mat-error>
       </mat-form-field>
-      <mat-form-field>
+      <mat-form-field subscriptSizing="dynamic">
         <mat-label>Last member channel</mat-label>
         <input matInput type="number" formControlName="lastChannel" inputmode="numeric">
         <mat-error>{{ fault('lastChannel') }}</mat-error>
       </mat-form-field>
-      <mat-form-field class="wide">
+      <mat-form-field class="wide" subscriptSizing="dynamic">
         <mat-label>MIDI output port</mat-label>
         <input matInput formControlName="port" autocomplete="off">
         <mat-hint>Its name as the browser lists it, to send to it directly; may stay empty</mat-hint>
@@ -95,7 +95,7 @@ const numberControl = (value: number, validator: ValidatorFn) =>
     </form>
   `,
   styles: `
-    .instrument-form { display: grid; gap: 4px 12px; grid-template-columns: repeat(auto-fill, minmax(150px, 1fr)); }
+    .instrument-form { display: grid; gap: 12px; grid-template-columns: repeat(auto-fill, minmax(150px, 1fr)); }
     .wide, .actions { grid-column: 1 / -1; }
     .actions { display: flex; justify-content: flex-end; flex-wrap: wrap; gap: 8px; }
   `,

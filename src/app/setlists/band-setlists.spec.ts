@@ -162,7 +162,7 @@ describe('BandSetlists', () => {
       await settle();
     }
     await pick(0, 'Pinned to 2');
-    await pick(1, 'Follow the latest (2)');
+    await pick(1, 'Latest (2)');
     button('Remove Moss Sevens from the setlist').click();
     const name = element().querySelector<HTMLInputElement>('.name input')!;
     name.value = 'Friday late';

@@ -98,8 +98,9 @@ export class SetlistCard {
     this.update(index, { trigger: typedNumber(text) });
   }
 
-  protected setRevision(index: number, revision: number | null): void {
-    this.update(index, { revision });
+  /** A revision to pin to, or 'latest' to follow the newest. */
+  protected setRevision(index: number, revision: number | 'latest'): void {
+    this.update(index, { revision: revision === 'latest' ? null : revision });
   }
 
   protected add(preset: PresetRow | null): void {
