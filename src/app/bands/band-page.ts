@@ -20,7 +20,10 @@ const noPresets: PresetPage = { items: [], total: 0, page: 1, pageSize: 100 };
 /** One band: members and roles, invites, its presets and (for owners) what happened in it. */
 @Component({
   selector: 'app-band-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, BandMembers, BandInvites, BandAudit, BandSetlists],
+  imports: [
+    RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, BandMembers,
+    BandInvites, BandAudit, BandSetlists,
+  ],
   templateUrl: './band-page.html',
   styleUrl: './band-page.scss',
 })

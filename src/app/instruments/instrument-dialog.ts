@@ -20,13 +20,25 @@ import { type MyInstrument, MyInstruments } from './my-instruments';
           No account needed: it is kept in this browser only.
         }
       </p>
-      <app-instrument-form label="New instrument" [busy]="busy()" (saved)="add($event)" (cancelled)="ref.close()" />
-      @if (failure(); as message) { <p class="failure" role="alert">{{ message }}</p> }
+      <app-instrument-form
+        label="New instrument"
+        [busy]="busy()"
+        (saved)="add($event)"
+        (cancelled)="ref.close()"
+      />
+      @if (failure(); as message) {
+        <p class="failure" role="alert">{{ message }}</p>
+      }
     </mat-dialog-content>
   `,
   styles: `
-    .about { margin: 0 0 12px; color: var(--mat-sys-on-surface-variant); }
-    .failure { color: var(--mat-sys-error); }
+    .about {
+      margin: 0 0 12px;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .failure {
+      color: var(--mat-sys-error);
+    }
   `,
 })
 export class InstrumentDialog {

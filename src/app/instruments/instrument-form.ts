@@ -4,7 +4,12 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { type InstrumentSettings, type ReceiveForm, instrumentSettings, receiveForms } from '@shared/api/instruments';
+import {
+  type InstrumentSettings,
+  type ReceiveForm,
+  instrumentSettings,
+  receiveForms,
+} from '@shared/api/instruments';
 import { parseRequest } from '@shared/api/requests';
 import { requestFieldValidator } from '../bands/request-validator';
 import { receiveFormLabels } from './my-instruments';
@@ -18,12 +23,19 @@ function channelValidator(index: 0 | 1, subject: string): ValidatorFn {
     const group = control.parent as FormGroup | null;
     if (!group) return null;
     const channels = [group.get('firstChannel')!.value, group.get('lastChannel')!.value];
-    const result = parseRequest(instrumentSettings, { name: 'check', receives: 'mts-bulk', memberChannels: channels });
+    const result = parseRequest(instrumentSettings, {
+      name: 'check',
+      receives: 'mts-bulk',
+      memberChannels: channels,
+    });
     if (result.ok) return null;
     const own = result.errors.find((error) => error.path === `memberChannels[${index}]`);
     if (own) return { request: `${subject} ${own.message.slice(own.path.length + 2)}.` };
-    const order = index === 1 ? result.errors.find((error) => error.path === 'memberChannels') : undefined;
-    return order ? { request: `The channel range ${order.message.slice(order.path.length + 2)}.` } : null;
+    const order =
+      index === 1 ? result.errors.find((error) => error.path === 'memberChannels') : undefined;
+    return order
+      ? { request: `The channel range ${order.message.slice(order.path.length + 2)}.` }
+      : null;
   };
 }
 
@@ -34,58 +46,73 @@ const numberControl = (value: number, validator: ValidatorFn) =>
 @Component({
   selector: 'app-instrument-form',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+  ],
   template: `
-    <form class="instrument-form" [formGroup]="form" (ngSubmit)="submit()" [attr.aria-label]="label()">
+    <form
+      class="instrument-form"
+      [formGroup]="form"
+      (ngSubmit)="submit()"
+      [attr.aria-label]="label()"
+    >
       <mat-form-field class="wide" subscriptSizing="dynamic">
         <mat-label>Instrument name</mat-label>
-        <input matInput formControlName="name" autocomplete="off">
+        <input matInput formControlName="name" autocomplete="off" />
         <mat-error>{{ fault('name') }}</mat-error>
       </mat-form-field>
       <mat-form-field class="wide" subscriptSizing="dynamic">
         <mat-label>Takes a tuning as</mat-label>
         <mat-select formControlName="receives">
-          @for (form of forms; track form) { <mat-option [value]="form">{{ formLabels[form] }}</mat-option> }
+          @for (form of forms; track form) {
+            <mat-option [value]="form">{{ formLabels[form] }}</mat-option>
+          }
         </mat-select>
         <mat-error>{{ fault('receives') }}</mat-error>
       </mat-form-field>
       <mat-form-field subscriptSizing="dynamic">
         <mat-label>Device id</mat-label>
-        <input matInput type="number" formControlName="deviceId" inputmode="numeric">
+        <input matInput type="number" formControlName="deviceId" inputmode="numeric" />
         <mat-hint>0-127; 127 reaches every device</mat-hint>
         <mat-error>{{ fault('deviceId') }}</mat-error>
       </mat-form-field>
       <mat-form-field subscriptSizing="dynamic">
         <mat-label>Tuning program</mat-label>
-        <input matInput type="number" formControlName="program" inputmode="numeric">
+        <input matInput type="number" formControlName="program" inputmode="numeric" />
         <mat-error>{{ fault('program') }}</mat-error>
       </mat-form-field>
       <mat-form-field subscriptSizing="dynamic">
         <mat-label>Tuning bank</mat-label>
-        <input matInput type="number" formControlName="bank" inputmode="numeric">
+        <input matInput type="number" formControlName="bank" inputmode="numeric" />
         <mat-error>{{ fault('bank') }}</mat-error>
       </mat-form-field>
       <mat-form-field subscriptSizing="dynamic">
         <mat-label>Bend range</mat-label>
-        <input matInput type="number" formControlName="bendRange" inputmode="numeric">
+        <input matInput type="number" formControlName="bendRange" inputmode="numeric" />
         <span matTextSuffix>semitones</span>
         <mat-error>{{ fault('bendRange') }}</mat-error>
       </mat-form-field>
       <mat-form-field subscriptSizing="dynamic">
         <mat-label>First member channel</mat-label>
-        <input matInput type="number" formControlName="firstChannel" inputmode="numeric">
+        <input matInput type="number" formControlName="firstChannel" inputmode="numeric" />
         <mat-hint>For MPE and bend tables</mat-hint>
         <mat-error>{{ fault('firstChannel') }}</mat-error>
       </mat-form-field>
       <mat-form-field subscriptSizing="dynamic">
         <mat-label>Last member channel</mat-label>
-        <input matInput type="number" formControlName="lastChannel" inputmode="numeric">
+        <input matInput type="number" formControlName="lastChannel" inputmode="numeric" />
         <mat-error>{{ fault('lastChannel') }}</mat-error>
       </mat-form-field>
       <mat-form-field class="wide" subscriptSizing="dynamic">
         <mat-label>MIDI output port</mat-label>
-        <input matInput formControlName="port" autocomplete="off">
-        <mat-hint>Its name as the browser lists it, to send to it directly; may stay empty</mat-hint>
+        <input matInput formControlName="port" autocomplete="off" />
+        <mat-hint
+          >Its name as the browser lists it, to send to it directly; may stay empty</mat-hint
+        >
         <mat-error>{{ fault('port') }}</mat-error>
       </mat-form-field>
       <div class="actions">
@@ -95,9 +122,21 @@ const numberControl = (value: number, validator: ValidatorFn) =>
     </form>
   `,
   styles: `
-    .instrument-form { display: grid; gap: 12px; grid-template-columns: repeat(auto-fill, minmax(150px, 1fr)); }
-    .wide, .actions { grid-column: 1 / -1; }
-    .actions { display: flex; justify-content: flex-end; flex-wrap: wrap; gap: 8px; }
+    .instrument-form {
+      display: grid;
+      gap: 12px;
+      grid-template-columns: repeat(auto-fill, minmax(150px, 1fr));
+    }
+    .wide,
+    .actions {
+      grid-column: 1 / -1;
+    }
+    .actions {
+      display: flex;
+      justify-content: flex-end;
+      flex-wrap: wrap;
+      gap: 8px;
+    }
   `,
 })
 export class InstrumentForm implements OnInit {
@@ -121,10 +160,19 @@ export class InstrumentForm implements OnInit {
       nonNullable: true,
       validators: requestFieldValidator(instrumentSettings, 'receives', 'The tuning form'),
     }),
-    deviceId: numberControl(127, requestFieldValidator(instrumentSettings, 'deviceId', 'The device id')),
-    program: numberControl(0, requestFieldValidator(instrumentSettings, 'program', 'The tuning program')),
+    deviceId: numberControl(
+      127,
+      requestFieldValidator(instrumentSettings, 'deviceId', 'The device id'),
+    ),
+    program: numberControl(
+      0,
+      requestFieldValidator(instrumentSettings, 'program', 'The tuning program'),
+    ),
     bank: numberControl(0, requestFieldValidator(instrumentSettings, 'bank', 'The tuning bank')),
-    bendRange: numberControl(2, requestFieldValidator(instrumentSettings, 'bendRange', 'The bend range')),
+    bendRange: numberControl(
+      2,
+      requestFieldValidator(instrumentSettings, 'bendRange', 'The bend range'),
+    ),
     firstChannel: numberControl(2, channelValidator(0, 'The first member channel')),
     lastChannel: numberControl(16, channelValidator(1, 'The last member channel')),
     port: new FormControl('', {
@@ -145,7 +193,17 @@ export class InstrumentForm implements OnInit {
     if (!instrument) return;
     const { name, receives, deviceId, program, bank, bendRange, port } = instrument;
     const [firstChannel, lastChannel] = instrument.memberChannels;
-    this.form.setValue({ name, receives, deviceId, program, bank, bendRange, firstChannel, lastChannel, port: port ?? '' });
+    this.form.setValue({
+      name,
+      receives,
+      deviceId,
+      program,
+      bank,
+      bendRange,
+      firstChannel,
+      lastChannel,
+      port: port ?? '',
+    });
   }
 
   protected fault(field: string): string {
@@ -157,7 +215,11 @@ export class InstrumentForm implements OnInit {
     this.form.controls.lastChannel.updateValueAndValidity();
     if (this.form.invalid) return;
     const { firstChannel, lastChannel, port, ...rest } = this.form.getRawValue();
-    const parsed = instrumentSettings.safeParse({ ...rest, memberChannels: [firstChannel, lastChannel], port: port.trim() || null });
+    const parsed = instrumentSettings.safeParse({
+      ...rest,
+      memberChannels: [firstChannel, lastChannel],
+      port: port.trim() || null,
+    });
     if (parsed.success) this.saved.emit(parsed.data);
   }
 }

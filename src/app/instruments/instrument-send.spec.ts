@@ -14,14 +14,42 @@ import { TuningBackup } from '../hardware/tuning-backup';
 import { tuningMessages } from '../hardware/tuning-messages';
 import { TuningSender } from '../hardware/tuning-sender';
 
-const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
+const mira: Member = {
+  id: 'u-mira',
+  login: 'mira-vale',
+  name: 'Mira Vale',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member',
+};
 const times = { createdAt: '2026-11-01T10:00:00Z', updatedAt: '2026-11-01T10:00:00Z' };
 const ondes: Instrument = {
-  id: 'i-ondes', name: 'Ondes', receives: 'mts-bulk', deviceId: 16, program: 5, bank: 0, bendRange: 2,
-  memberChannels: [2, 16], port: 'Ondes MIDI 1', ...times,
+  id: 'i-ondes',
+  name: 'Ondes',
+  receives: 'mts-bulk',
+  deviceId: 16,
+  program: 5,
+  bank: 0,
+  bendRange: 2,
+  memberChannels: [2, 16],
+  port: 'Ondes MIDI 1',
+  ...times,
 };
-const octaves: Instrument = { ...ondes, id: 'i-oct', name: 'Octaves', receives: 'mts-octave-1', deviceId: 127, port: 'Board MIDI' };
-const lattice: Instrument = { ...ondes, id: 'i-lat', name: 'Lattice', receives: 'mpe', port: 'Board MIDI' };
+const octaves: Instrument = {
+  ...ondes,
+  id: 'i-oct',
+  name: 'Octaves',
+  receives: 'mts-octave-1',
+  deviceId: 127,
+  port: 'Board MIDI',
+};
+const lattice: Instrument = {
+  ...ondes,
+  id: 'i-lat',
+  name: 'Lattice',
+  receives: 'mpe',
+  port: 'Board MIDI',
+};
 const unplugged: Instrument = { ...ondes, id: 'i-off', name: 'Unplugged', port: 'Gone MIDI' };
 
 describe('InstrumentSend in the send panel', () => {
@@ -31,20 +59,36 @@ describe('InstrumentSend in the send panel', () => {
 
   beforeEach(async () => {
     received = { 'out-ondes': [], 'out-board': [], 'out-other': [] };
-    const port = (id: string, name: string) => ({ id, name, state: 'connected', send: (bytes: Uint8Array) => received[id].push([...bytes]) });
+    const port = (id: string, name: string) => ({
+      id,
+      name,
+      state: 'connected',
+      send: (bytes: Uint8Array) => received[id].push([...bytes]),
+    });
     const outputs = new Map([
       ['out-ondes', port('out-ondes', 'Ondes MIDI 1')],
       ['out-board', port('out-board', 'Board MIDI')],
       ['out-other', port('out-other', 'Other MIDI')],
     ]);
     spyOn(navigator, 'requestMIDIAccess').and.returnValue(
-      Promise.resolve({ inputs: new Map(), outputs, addEventListener: () => undefined } as unknown as MIDIAccess),
+      Promise.resolve({
+        inputs: new Map(),
+        outputs,
+        addEventListener: () => undefined,
+      } as unknown as MIDIAccess),
     );
     TestBed.configureTestingModule({
       imports: [SendPanel],
       providers: [
-        DesignState, MidiAccess, TuningSender, TuningBackup, LiveFollow, provideRouter([]), provideHttpClient(),
-        provideHttpClientTesting(), { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
+        DesignState,
+        MidiAccess,
+        TuningSender,
+        TuningBackup,
+        LiveFollow,
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
       ],
     });
     http = TestBed.inject(HttpTestingController);
@@ -53,7 +97,9 @@ describe('InstrumentSend in the send panel', () => {
     TestBed.inject(TuningSender).outputId.set('out-other');
     fixture = TestBed.createComponent(SendPanel);
     await fixture.whenStable();
-    http.expectOne({ method: 'GET', url: '/api/instruments' }).flush({ items: [ondes, octaves, lattice, unplugged] });
+    http
+      .expectOne({ method: 'GET', url: '/api/instruments' })
+      .flush({ items: [ondes, octaves, lattice, unplugged] });
     await fixture.whenStable();
   });
 
@@ -61,17 +107,25 @@ describe('InstrumentSend in the send panel', () => {
 
   const element = () => fixture.nativeElement as HTMLElement;
   const button = (within: ParentNode, label: string) =>
-    Array.from(within.querySelectorAll<HTMLButtonElement>('button')).find((b) => b.textContent!.includes(label))!;
+    Array.from(within.querySelectorAll<HTMLButtonElement>('button')).find((b) =>
+      b.textContent!.includes(label),
+    )!;
   const settle = () => fixture.whenStable();
 
   it('aims the send at a chosen instrument: its form, device, program and port, the design unchanged', async () => {
     const state = TestBed.inject(DesignState);
     const output = structuredClone(state.draft().output);
-    element().querySelector<HTMLElement>('app-instrument-send mat-select .mat-mdc-select-trigger')!.click();
+    element()
+      .querySelector<HTMLElement>('app-instrument-send mat-select .mat-mdc-select-trigger')!
+      .click();
     await settle();
     const options = Array.from(document.querySelectorAll<HTMLElement>('mat-option'));
     expect(options.map((o) => o.textContent!.trim())).toEqual([
-      'The design\'s output settings', 'Ondes', 'Octaves', 'Lattice (takes MPE: one note per channel with bends: download it)', 'Unplugged',
+      "The design's output settings",
+      'Ondes',
+      'Octaves',
+      'Lattice (takes MPE: one note per channel with bends: download it)',
+      'Unplugged',
     ]);
     options[1].click();
     await settle();
@@ -81,56 +135,80 @@ describe('InstrumentSend in the send panel', () => {
     // MTS bulk dump (REFERENCE.md, MIDI Tuning specification): F0 7E dev 08 01 tt ..., here device 16, program 5.
     const hex = element().querySelector('pre.hex')!.textContent!.split(' ').slice(0, 6);
     expect(hex).toEqual(['F0', '7E', '10', '08', '01', '05']);
-    expect(element().querySelector('.target')!.textContent).toContain('To device 16, tuning program 5.');
-    expect(element().querySelector('.target')!.textContent).toContain('From your instrument\'s settings');
+    expect(element().querySelector('.target')!.textContent).toContain(
+      'To device 16, tuning program 5.',
+    );
+    expect(element().querySelector('.target')!.textContent).toContain(
+      "From your instrument's settings",
+    );
     expect(state.draft().output).toEqual(output);
   });
 
-  it('sends to every connected instrument in its own form after one confirmation listing each', async () => {
-    button(element(), 'Send to all my connected instruments').click();
-    await settle();
-    const dialog = document.querySelector('mat-dialog-container')!;
-    expect(dialog.querySelector('h2')!.textContent).toContain('Replace the tuning on 2 instruments?');
-    const sends = Array.from(dialog.querySelectorAll('.sends li')).map((li) => li.textContent!.replace(/\s+/g, ' ').trim());
-    // Sizes from the MIDI Tuning specification (REFERENCE.md): bulk dump 408 bytes, scale/octave 1-byte 21 bytes.
-    expect(sends).toEqual([
-      'Ondes on Ondes MIDI 1: replaces tuning program 5 (408 bytes)',
-      'Octaves on Board MIDI: replaces the scale/octave tuning of all 16 channels (21 bytes)',
-    ]);
-    const skipped = Array.from(dialog.querySelectorAll('.skipped li')).map((li) => li.textContent!.replace(/\s+/g, ' ').trim());
-    expect(skipped).toEqual([
-      'Lattice takes MPE: one note per channel with bends, which is a file rather than a MIDI message: download it instead.',
-      'Unplugged is not connected: no MIDI output is called Gone MIDI.',
-    ]);
-    expect(received['out-ondes'].length + received['out-board'].length).toBe(0);
+  it(
+    'sends to every connected instrument in its own form after one confirmation listing each',
+    async () => {
+      button(element(), 'Send to all my connected instruments').click();
+      await settle();
+      const dialog = document.querySelector('mat-dialog-container')!;
+      expect(dialog.querySelector('h2')!.textContent).toContain(
+        'Replace the tuning on 2 instruments?',
+      );
+      const sends = Array.from(dialog.querySelectorAll('.sends li')).map((li) =>
+        li.textContent!.replace(/\s+/g, ' ').trim(),
+      );
+      // Sizes from the MIDI Tuning specification (REFERENCE.md): bulk dump 408 bytes, scale/octave 1-byte 21 bytes.
+      expect(sends).toEqual([
+        'Ondes on Ondes MIDI 1: replaces tuning program 5 (408 bytes)',
+        'Octaves on Board MIDI: replaces the scale/octave tuning of all 16 channels (21 bytes)',
+      ]);
+      const skipped = Array.from(dialog.querySelectorAll('.skipped li')).map((li) =>
+        li.textContent!.replace(/\s+/g, ' ').trim(),
+      );
+      expect(skipped).toEqual([
+        'Lattice takes MPE: one note per channel with bends, which is a file rather than a MIDI message: download it instead.',
+        'Unplugged is not connected: no MIDI output is called Gone MIDI.',
+      ]);
+      expect(received['out-ondes'].length + received['out-board'].length).toBe(0);
 
-    button(dialog, 'Send and replace').click();
-    const outcomes = await waitFor('both sends to finish', () => {
-      const lines = element().querySelectorAll('.outcomes li');
-      return lines.length === 2 ? Array.from(lines, (li) => li.textContent!.trim()) : null;
-    }, settle);
-    expect(outcomes).toEqual([
-      'Ondes: sent 1 message (408 bytes) to Ondes MIDI 1.',
-      'Octaves: sent 1 message (21 bytes) to Board MIDI.',
-    ]);
-    const preset = TestBed.inject(DesignState).shown()!.preset;
-    const expected = (form: 'mts-bulk' | 'mts-octave-1', deviceId: number) => {
-      const built = tuningMessages(preset, form, { deviceId, program: 5, bank: 0 });
-      return built.ok ? built.value.map((message) => [...message]) : [];
-    };
-    expect(received['out-ondes']).toEqual(expected('mts-bulk', 16));
-    expect(received['out-board']).toEqual(expected('mts-octave-1', 127));
-    // Scale/octave 1-byte (REFERENCE.md): F0 7F dev 08 08 ff gg hh in its real-time form, the bitmap 03 7F 7F
-    // naming all 16 channels.
-    expect(received['out-board'][0].slice(0, 8)).toEqual([0xf0, 0x7f, 0x7f, 0x08, 0x08, 0x03, 0x7f, 0x7f]);
-    expect(received['out-other']).toEqual([]);
-  }, patientSpecMs);
+      button(dialog, 'Send and replace').click();
+      const outcomes = await waitFor(
+        'both sends to finish',
+        () => {
+          const lines = element().querySelectorAll('.outcomes li');
+          return lines.length === 2 ? Array.from(lines, (li) => li.textContent!.trim()) : null;
+        },
+        settle,
+      );
+      expect(outcomes).toEqual([
+        'Ondes: sent 1 message (408 bytes) to Ondes MIDI 1.',
+        'Octaves: sent 1 message (21 bytes) to Board MIDI.',
+      ]);
+      const preset = TestBed.inject(DesignState).shown()!.preset;
+      const expected = (form: 'mts-bulk' | 'mts-octave-1', deviceId: number) => {
+        const built = tuningMessages(preset, form, { deviceId, program: 5, bank: 0 });
+        return built.ok ? built.value.map((message) => [...message]) : [];
+      };
+      expect(received['out-ondes']).toEqual(expected('mts-bulk', 16));
+      expect(received['out-board']).toEqual(expected('mts-octave-1', 127));
+      // Scale/octave 1-byte (REFERENCE.md): F0 7F dev 08 08 ff gg hh in its real-time form, the bitmap 03 7F 7F
+      // naming all 16 channels.
+      expect(received['out-board'][0].slice(0, 8)).toEqual([
+        0xf0, 0x7f, 0x7f, 0x08, 0x08, 0x03, 0x7f, 0x7f,
+      ]);
+      expect(received['out-other']).toEqual([]);
+    },
+    patientSpecMs,
+  );
 
   it('sends nothing when the confirmation is cancelled', async () => {
     button(element(), 'Send to all my connected instruments').click();
     await settle();
     button(document.querySelector('mat-dialog-container')!, 'Cancel').click();
-    await waitFor('the dialog to close', () => !document.querySelector('mat-dialog-container'), settle);
+    await waitFor(
+      'the dialog to close',
+      () => !document.querySelector('mat-dialog-container'),
+      settle,
+    );
     expect(element().querySelector('.outcomes')).toBeNull();
     expect(Object.values(received).flat()).toEqual([]);
   });

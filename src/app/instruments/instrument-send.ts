@@ -7,7 +7,7 @@ import { firstValueFrom } from 'rxjs';
 import { DesignState } from '../design/design-state';
 import { MidiAccess } from '../hardware/midi-access';
 import { TuningSender } from '../hardware/tuning-sender';
-import { MyInstruments, receiveFormLabels } from './my-instruments';
+import { type MyInstrument, MyInstruments, receiveFormLabels } from './my-instruments';
 import { SendAllDialog } from './send-all-dialog';
 import { type SendPlan, isMessageForm, planSends, sendAll } from './send-to-all';
 
@@ -28,18 +28,28 @@ import { type SendPlan, isMessageForm, planSends, sendAll } from './send-to-all'
           @for (instrument of store.list() ?? []; track instrument.id) {
             @let sendable = isMessageForm(instrument.receives);
             <mat-option [value]="instrument.id" [disabled]="!sendable">
-              {{ instrument.name }}@if (!sendable) { (takes {{ formLabels[instrument.receives] }}: download it) }
+              {{ sendable ? instrument.name : optionOf(instrument) }}
             </mat-option>
           }
         </mat-select>
-        <mat-hint>Its message form, device id, program, bank and port for this send; the design stays as it is</mat-hint>
+        <mat-hint
+          >Its message form, device id, program, bank and port for this send; the design stays as it
+          is</mat-hint
+        >
       </mat-form-field>
-      <button mat-stroked-button type="button" class="send-all" (click)="sendToAll()"
-              [disabled]="sending() || !store.list()?.length">
+      <button
+        mat-stroked-button
+        type="button"
+        class="send-all"
+        (click)="sendToAll()"
+        [disabled]="sending() || !store.list()?.length"
+      >
         Send to all my connected instruments
       </button>
     </div>
-    @if (note(); as note) { <p class="note" role="status">{{ note }}</p> }
+    @if (note(); as note) {
+      <p class="note" role="status">{{ note }}</p>
+    }
     @if (outcomes().length) {
       <ul class="outcomes" role="status" aria-label="Sent to my instruments">
         @for (outcome of outcomes(); track $index) {
@@ -49,13 +59,36 @@ import { type SendPlan, isMessageForm, planSends, sendAll } from './send-to-all'
     }
   `,
   styles: `
-    :host { display: block; margin: 0 0 12px; }
-    .instrument-send { display: flex; flex-wrap: wrap; align-items: center; gap: 8px 16px; }
-    .chooser { flex: 1 1 260px; min-width: 0; }
-    .send-all { white-space: normal; height: auto; min-height: 40px; }
-    .note, .outcomes { font: var(--mat-sys-body-small); margin: 8px 0 0; }
-    .outcomes { padding-left: 20px; }
-    .failed { color: var(--mat-sys-error); }
+    :host {
+      display: block;
+      margin: 0 0 12px;
+    }
+    .instrument-send {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      gap: 8px 16px;
+    }
+    .chooser {
+      flex: 1 1 260px;
+      min-width: 0;
+    }
+    .send-all {
+      white-space: normal;
+      height: auto;
+      min-height: 40px;
+    }
+    .note,
+    .outcomes {
+      font: var(--mat-sys-body-small);
+      margin: 8px 0 0;
+    }
+    .outcomes {
+      padding-left: 20px;
+    }
+    .failed {
+      color: var(--mat-sys-error);
+    }
   `,
 })
 export class InstrumentSend {
@@ -64,8 +97,12 @@ export class InstrumentSend {
   private readonly midi = inject(MidiAccess);
   private readonly state = inject(DesignState);
   private readonly dialog = inject(MatDialog);
-  protected readonly formLabels = receiveFormLabels;
   protected readonly isMessageForm = isMessageForm;
+
+  /** An instrument the panel cannot send to, named with what it takes instead. */
+  protected optionOf(instrument: MyInstrument): string {
+    return `${instrument.name} (takes ${receiveFormLabels[instrument.receives]}: download it)`;
+  }
 
   protected readonly chosenId = signal<string | null>(null);
   protected readonly note = signal<string | null>(null);
@@ -87,9 +124,14 @@ export class InstrumentSend {
     const { deviceId, program, bank, port } = instrument;
     this.sender.form.set(instrument.receives);
     this.sender.instrumentTarget.set({ deviceId, program, bank });
-    const output = port ? this.midi.outputs().find((candidate) => candidate.name === port) : undefined;
+    const output = port
+      ? this.midi.outputs().find((candidate) => candidate.name === port)
+      : undefined;
     if (output) this.sender.outputId.set(output.id);
-    else if (port) this.note.set(`${instrument.name}'s port, ${port}, is not connected: choose the MIDI output above.`);
+    else if (port)
+      this.note.set(
+        `${instrument.name}'s port, ${port}, is not connected: choose the MIDI output above.`,
+      );
   }
 
   protected async sendToAll(): Promise<void> {
@@ -99,7 +141,10 @@ export class InstrumentSend {
       return;
     }
     const plan: SendPlan = planSends(this.store.list() ?? [], this.midi.outputs(), preset);
-    const dialog = this.dialog.open<SendAllDialog, SendPlan, boolean>(SendAllDialog, { data: plan, maxWidth: '560px' });
+    const dialog = this.dialog.open<SendAllDialog, SendPlan, boolean>(SendAllDialog, {
+      data: plan,
+      maxWidth: '560px',
+    });
     if ((await firstValueFrom(dialog.afterClosed())) !== true) return;
     this.sending.set(true);
     this.outcomes.set([]);

@@ -12,7 +12,9 @@ export class InstrumentsApi {
   private readonly http = inject(HttpClient);
 
   instruments(): Observable<Instrument[]> {
-    return this.http.get<ItemList<Instrument>>('/api/instruments').pipe(map((answer) => answer.items));
+    return this.http
+      .get<ItemList<Instrument>>('/api/instruments')
+      .pipe(map((answer) => answer.items));
   }
 
   create(settings: InstrumentSettings): Observable<Instrument> {

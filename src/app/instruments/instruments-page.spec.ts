@@ -9,10 +9,26 @@ import { type Member, Session } from '../auth/session';
 import { InstrumentsPage } from './instruments-page';
 import { browserInstrumentsKey } from './my-instruments';
 
-const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
+const mira: Member = {
+  id: 'u-mira',
+  login: 'mira-vale',
+  name: 'Mira Vale',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member',
+};
 const ondes: Instrument = {
-  id: 'i-ondes', name: 'Ondes', receives: 'mts-bulk', deviceId: 16, program: 5, bank: 0, bendRange: 2,
-  memberChannels: [2, 16], port: 'Ondes MIDI 1', createdAt: '2026-11-01T10:00:00Z', updatedAt: '2026-11-01T10:00:00Z',
+  id: 'i-ondes',
+  name: 'Ondes',
+  receives: 'mts-bulk',
+  deviceId: 16,
+  program: 5,
+  bank: 0,
+  bendRange: 2,
+  memberChannels: [2, 16],
+  port: 'Ondes MIDI 1',
+  createdAt: '2026-11-01T10:00:00Z',
+  updatedAt: '2026-11-01T10:00:00Z',
 };
 
 describe('InstrumentsPage', () => {
@@ -23,7 +39,9 @@ describe('InstrumentsPage', () => {
     localStorage.removeItem(browserInstrumentsKey);
     TestBed.configureTestingModule({
       providers: [
-        provideRouter([]), provideHttpClient(), provideHttpClientTesting(),
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
         { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
       ],
     });
@@ -72,19 +90,26 @@ describe('InstrumentsPage', () => {
   async function chooseForm(label: string) {
     page().querySelector<HTMLElement>('mat-select .mat-mdc-select-trigger')!.click();
     await settle();
-    Array.from(document.querySelectorAll<HTMLElement>('mat-option')).find((o) => o.textContent!.includes(label))!.click();
+    Array.from(document.querySelectorAll<HTMLElement>('mat-option'))
+      .find((o) => o.textContent!.includes(label))!
+      .click();
     await settle();
   }
 
-  const errors = () => Array.from(page().querySelectorAll('mat-error')).map((e) => e.textContent!.trim()).filter(Boolean);
+  const errors = () =>
+    Array.from(page().querySelectorAll('mat-error'))
+      .map((e) => e.textContent!.trim())
+      .filter(Boolean);
 
-  it('lists a member\'s instruments and refuses faults by field name before anything is sent', async () => {
+  it("lists a member's instruments and refuses faults by field name before anything is sent", async () => {
     await open(mira);
     http.expectOne({ method: 'GET', url: '/api/instruments' }).flush({ items: [ondes] });
     await settle();
     const row = page().querySelector('.instruments li')!;
     expect(row.querySelector('.name')!.textContent).toBe('Ondes');
-    expect(row.querySelector('.summary')!.textContent).toBe('MTS bulk dump · device 16 · program 5 · port Ondes MIDI 1');
+    expect(row.querySelector('.summary')!.textContent).toBe(
+      'MTS bulk dump · device 16 · program 5 · port Ondes MIDI 1',
+    );
     expect(row.querySelector('button[aria-label="Delete Ondes"]')).not.toBeNull();
 
     button('Add an instrument').click();
@@ -113,17 +138,30 @@ describe('InstrumentsPage', () => {
     await settle();
     const post = http.expectOne({ method: 'POST', url: '/api/instruments' });
     expect(post.request.body).toEqual({
-      name: 'Lattice board', receives: 'mpe', deviceId: 3, program: 0, bank: 0, bendRange: 48, memberChannels: [9, 15], port: null,
+      name: 'Lattice board',
+      receives: 'mpe',
+      deviceId: 3,
+      program: 0,
+      bank: 0,
+      bendRange: 48,
+      memberChannels: [9, 15],
+      port: null,
     });
     post.flush({ ...ondes, ...post.request.body, id: 'i-board' });
-    await waitFor('the new instrument', () => page().querySelectorAll('.instruments li').length === 2, settle);
-    expect(Array.from(page().querySelectorAll('.instruments .name')).map((n) => n.textContent)).toEqual(['Ondes', 'Lattice board']);
-    expect(page().querySelectorAll('.instruments li')[1].querySelector('.summary')!.textContent).toBe(
-      'MPE: one note per channel with bends · device 3 · channels 9-15 · bend range 48',
+    await waitFor(
+      'the new instrument',
+      () => page().querySelectorAll('.instruments li').length === 2,
+      settle,
     );
+    expect(
+      Array.from(page().querySelectorAll('.instruments .name')).map((n) => n.textContent),
+    ).toEqual(['Ondes', 'Lattice board']);
+    expect(
+      page().querySelectorAll('.instruments li')[1].querySelector('.summary')!.textContent,
+    ).toBe('MPE: one note per channel with bends · device 3 · channels 9-15 · bend range 48');
   });
 
-  it('changes and deletes a member\'s instrument through its own address', async () => {
+  it("changes and deletes a member's instrument through its own address", async () => {
     await open(mira);
     http.expectOne('/api/instruments').flush({ items: [ondes] });
     await settle();
@@ -134,9 +172,15 @@ describe('InstrumentsPage', () => {
     button('Save changes').click();
     await settle();
     const patch = http.expectOne({ method: 'PATCH', url: '/api/instruments/i-ondes' });
-    expect(patch.request.body).toEqual(jasmine.objectContaining({ program: 6, deviceId: 16, port: 'Ondes MIDI 1' }));
+    expect(patch.request.body).toEqual(
+      jasmine.objectContaining({ program: 6, deviceId: 16, port: 'Ondes MIDI 1' }),
+    );
     patch.flush({ ...ondes, program: 6 });
-    const summary = await waitFor('the changed instrument', () => page().querySelector('.summary'), settle);
+    const summary = await waitFor(
+      'the changed instrument',
+      () => page().querySelector('.summary'),
+      settle,
+    );
     expect(summary.textContent).toContain('program 6');
 
     button('Delete Ondes').click();
@@ -149,7 +193,7 @@ describe('InstrumentsPage', () => {
     expect(empty.textContent).toContain('No instruments yet');
   });
 
-  it('keeps a guest\'s instruments in this browser, without a request', async () => {
+  it("keeps a guest's instruments in this browser, without a request", async () => {
     await open(null);
     expect(page().querySelector('.note')!.textContent).toContain('kept in this browser only');
     button('Add an instrument').click();
@@ -160,14 +204,27 @@ describe('InstrumentsPage', () => {
     type('MIDI output port', 'USB MIDI');
     button('Add instrument').click();
     await waitFor('the kept instrument', () => localStorage.getItem(browserInstrumentsKey), settle);
-    const kept = JSON.parse(localStorage.getItem(browserInstrumentsKey)!) as Record<string, unknown>[];
-    expect(kept).toEqual([jasmine.objectContaining({ name: 'Borrowed synth', receives: 'mts-bulk', deviceId: 16, program: 5, port: 'USB MIDI' })]);
+    const kept = JSON.parse(localStorage.getItem(browserInstrumentsKey)!) as Record<
+      string,
+      unknown
+    >[];
+    expect(kept).toEqual([
+      jasmine.objectContaining({
+        name: 'Borrowed synth',
+        receives: 'mts-bulk',
+        deviceId: 16,
+        program: 5,
+        port: 'USB MIDI',
+      }),
+    ]);
     expect(String(kept[0]['id'])).toMatch(/^browser-/);
 
     // A new visit finds it again.
     fixture.destroy();
     TestBed.resetTestingModule();
-    TestBed.configureTestingModule({ providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()] });
+    TestBed.configureTestingModule({
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()],
+    });
     http = TestBed.inject(HttpTestingController);
     await open(null);
     expect(page().querySelector('.instruments .name')!.textContent).toBe('Borrowed synth');

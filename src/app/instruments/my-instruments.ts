@@ -41,7 +41,8 @@ export function exportOfInstrument(instrument: InstrumentSettings): ExportFormat
 /** One line on what an instrument takes: "MTS bulk dump · device 16 · program 5 · port Ondes". */
 export function instrumentSummary(instrument: InstrumentSettings): string {
   const parts = [receiveFormLabels[instrument.receives], `device ${instrument.deviceId}`];
-  if (instrument.receives === 'mts-bulk-bank') parts.push(`bank ${instrument.bank}`, `program ${instrument.program}`);
+  if (instrument.receives === 'mts-bulk-bank')
+    parts.push(`bank ${instrument.bank}`, `program ${instrument.program}`);
   else if (instrument.receives === 'mts-bulk' || instrument.receives === 'mts-notes') {
     parts.push(`program ${instrument.program}`);
   } else if (instrument.receives === 'mpe' || instrument.receives === 'bend-table') {
@@ -111,18 +112,22 @@ export class MyInstruments {
   }
 
   async add(settings: InstrumentSettings): Promise<MyInstrument> {
-    const added = this.keptIn() === 'account'
-      ? this.trimmed(await firstValueFrom(this.api.create(settings)))
-      : { id: `browser-${crypto.randomUUID()}`, ...settings };
+    const added =
+      this.keptIn() === 'account'
+        ? this.trimmed(await firstValueFrom(this.api.create(settings)))
+        : { id: `browser-${crypto.randomUUID()}`, ...settings };
     this.keep([...(this.list() ?? []), added]);
     return added;
   }
 
   async update(id: string, settings: InstrumentSettings): Promise<MyInstrument> {
-    const changed = this.keptIn() === 'account'
-      ? this.trimmed(await firstValueFrom(this.api.update(id, settings)))
-      : { id, ...settings };
-    this.keep((this.list() ?? []).map((instrument) => (instrument.id === id ? changed : instrument)));
+    const changed =
+      this.keptIn() === 'account'
+        ? this.trimmed(await firstValueFrom(this.api.update(id, settings)))
+        : { id, ...settings };
+    this.keep(
+      (this.list() ?? []).map((instrument) => (instrument.id === id ? changed : instrument)),
+    );
     return changed;
   }
 
@@ -148,12 +153,17 @@ export class MyInstruments {
     };
   }
 
-  private trimmed({ createdAt: _, updatedAt: __, ...instrument }: MyInstrument & { createdAt?: string; updatedAt?: string }) {
+  private trimmed({
+    createdAt: _,
+    updatedAt: __,
+    ...instrument
+  }: MyInstrument & { createdAt?: string; updatedAt?: string }) {
     return instrument;
   }
 
   private keep(items: MyInstrument[]): void {
     this.list.set(items);
-    if (this.keptIn() === 'browser') localStorage.setItem(browserInstrumentsKey, JSON.stringify(items));
+    if (this.keptIn() === 'browser')
+      localStorage.setItem(browserInstrumentsKey, JSON.stringify(items));
   }
 }

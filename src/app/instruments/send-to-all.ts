@@ -1,6 +1,11 @@
 import type { ResolvedPreset } from '@shared/preset/preset-document';
 import type { MidiAccess, MidiPort } from '../hardware/midi-access';
-import { type MessageFormId, cableMs, messageForms, tuningMessages } from '../hardware/tuning-messages';
+import {
+  type MessageFormId,
+  cableMs,
+  messageForms,
+  tuningMessages,
+} from '../hardware/tuning-messages';
 import { type MyInstrument, receiveFormLabels } from './my-instruments';
 
 /** One instrument's send: where it goes, what it replaces there, and the messages in its own form. */
@@ -32,8 +37,10 @@ export function isMessageForm(form: string): form is MessageFormId {
 
 /** What a send in `form` to `program` and `bank` replaces on the instrument. */
 export function replacedBy(form: MessageFormId, program: number, bank: number): string {
-  if (form === 'mts-octave-1' || form === 'mts-octave-2') return 'the scale/octave tuning of all 16 channels';
-  const inBank = form === 'mts-bulk-bank' || (form === 'mts-notes' && bank !== 0) ? ` in bank ${bank}` : '';
+  if (form === 'mts-octave-1' || form === 'mts-octave-2')
+    return 'the scale/octave tuning of all 16 channels';
+  const inBank =
+    form === 'mts-bulk-bank' || (form === 'mts-notes' && bank !== 0) ? ` in bank ${bank}` : '';
   return `tuning program ${program}${inBank}`;
 }
 
@@ -41,13 +48,19 @@ export function replacedBy(form: MessageFormId, program: number, bank: number): 
  * The sends "to all my connected instruments": each instrument whose port names a connected output, in its own form
  * and with its own device id, program and bank; the others are listed with the reason they are left out.
  */
-export function planSends(instruments: readonly MyInstrument[], outputs: readonly MidiPort[], preset: ResolvedPreset): SendPlan {
+export function planSends(
+  instruments: readonly MyInstrument[],
+  outputs: readonly MidiPort[],
+  preset: ResolvedPreset,
+): SendPlan {
   const plan: SendPlan = { sends: [], skipped: [] };
   for (const instrument of instruments) {
     const skip = (reason: string) => plan.skipped.push({ instrument: instrument.name, reason });
     const form = instrument.receives;
     if (!isMessageForm(form)) {
-      skip(`takes ${receiveFormLabels[form]}, which is a file rather than a MIDI message: download it instead.`);
+      skip(
+        `takes ${receiveFormLabels[form]}, which is a file rather than a MIDI message: download it instead.`,
+      );
       continue;
     }
     if (!instrument.port) {
@@ -85,7 +98,10 @@ function wait(ms: number): Promise<void> {
  * Sends each planned instrument its messages in turn, paced as the send panel paces a send: after each message, the
  * time a 31,250-baud cable needs for the longest one. Resolves to one line per instrument on how it went.
  */
-export async function sendAll(plan: readonly PlannedSend[], midi: MidiAccess): Promise<{ instrument: string; sent: boolean; text: string }[]> {
+export async function sendAll(
+  plan: readonly PlannedSend[],
+  midi: MidiAccess,
+): Promise<{ instrument: string; sent: boolean; text: string }[]> {
   const outcomes = [];
   for (const send of plan) {
     const pause = cableMs(Math.max(0, ...send.messages.map((message) => message.length)));

@@ -8,7 +8,11 @@ import { MatDialog } from '@angular/material/dialog';
 import { firstValueFrom } from 'rxjs';
 import { apiFaultMessage } from '../design/api-fault';
 import { InstrumentDialog } from '../instruments/instrument-dialog';
-import { type MyInstrument, MyInstruments, exportOfInstrument } from '../instruments/my-instruments';
+import {
+  type MyInstrument,
+  MyInstruments,
+  exportOfInstrument,
+} from '../instruments/my-instruments';
 import { DesignState } from '../design/design-state';
 import type { ExportSource } from './downloads';
 import { Downloads } from './downloads';
@@ -42,26 +46,29 @@ import { exportRefusals } from './export-refusals';
         </button>
       }
     </mat-menu>
-    <button mat-stroked-button class="for-instrument" type="button" [matMenuTriggerFor]="instrumentMenu"
-            [disabled]="blocked() !== null || busy()" (menuOpened)="openInstruments()"
-            [attr.aria-label]="'Download for my instrument' + (blocked() ? ' (' + blocked() + ')' : '')">
+    <button mat-stroked-button class="for-instrument" type="button"
+            [matMenuTriggerFor]="instrumentMenu" [disabled]="blocked() !== null || busy()"
+            (menuOpened)="openInstruments()" [attr.aria-label]="instrumentLabel()">
       <mat-icon aria-hidden="true">piano</mat-icon>
       <span class="label">For my instrument</span>
     </button>
-    <mat-menu #instrumentMenu="matMenu" class="instrument-downloads" xPosition="before" (closed)="menuOpen.set(false)">
+    <mat-menu #instrumentMenu="matMenu" class="instrument-downloads" xPosition="before"
+              (closed)="menuOpen.set(false)">
       @if (instruments.list() === null) {
         <span mat-menu-item disabled>Loading your instruments…</span>
       }
       @for (instrument of instruments.list() ?? []; track instrument.id) {
         @let format = exportOf(instrument);
         @let refused = refusals().get(format.id);
-        <button mat-menu-item class="format" (click)="downloadFor(instrument)" [disabled]="!!refused"
-                [attr.aria-label]="'For ' + instrument.name + ': ' + format.label + ' (.' + format.extension + ')' + (refused ? ', not for this design: ' + refused : '')">
+        <button mat-menu-item class="format" (click)="downloadFor(instrument)"
+                [disabled]="!!refused" [attr.aria-label]="forLabel(instrument, format, refused)">
           <span class="format-name">For {{ instrument.name }}</span>
           @if (refused) {
             <span class="format-use refused">Not for this design: {{ refused }}</span>
           } @else {
-            <span class="format-use">{{ format.label }} .{{ format.extension }}, with its own settings</span>
+            <span class="format-use">
+              {{ format.label }} .{{ format.extension }}, with its own settings
+            </span>
           }
         </button>
       }
@@ -107,23 +114,39 @@ export class DownloadMenu {
     return origin && !this.state.dirty() ? { presetId: origin.id } : { document: this.state.draft() };
   });
 
+  protected readonly instrumentLabel = computed(() => {
+    const blocked = this.blocked();
+    return `Download for my instrument${blocked ? ` (${blocked})` : ''}`;
+  });
+
+  protected forLabel(instrument: MyInstrument, format: ExportFormat, refused?: string): string {
+    const file = `For ${instrument.name}: ${format.label} (.${format.extension})`;
+    return refused ? `${file}, not for this design: ${refused}` : file;
+  }
+
   protected openInstruments(): void {
     this.instruments.load();
     this.menuOpen.set(true);
   }
 
-  /** The instrument's own export, made with its settings in place of the design's output settings. */
+  /** The instrument's own export, made with its settings in place of the design's output ones. */
   protected downloadFor(instrument: MyInstrument): Promise<void> {
-    return this.downloadFormat(exportOfInstrument(instrument), this.instruments.downloadQuery(instrument));
+    const query = this.instruments.downloadQuery(instrument);
+    return this.downloadFormat(exportOfInstrument(instrument), query);
   }
 
   protected async setUpInstrument(): Promise<void> {
-    const dialog = this.dialog.open<InstrumentDialog, void, MyInstrument>(InstrumentDialog, { maxWidth: '560px' });
+    const dialog = this.dialog.open<InstrumentDialog, void, MyInstrument>(InstrumentDialog, {
+      maxWidth: '560px',
+    });
     const instrument = await firstValueFrom(dialog.afterClosed());
     if (instrument) await this.downloadFor(instrument);
   }
 
-  protected async downloadFormat(format: ExportFormat, query: Record<string, string> = {}): Promise<void> {
+  protected async downloadFormat(
+    format: ExportFormat,
+    query: Record<string, string> = {},
+  ): Promise<void> {
     this.busy.set(true);
     try {
       const { name, warnings } = await this.downloads.download(format, this.source(), query);

@@ -18,15 +18,34 @@ import { type Setlist, SetlistsApi } from './setlists-api';
 @Component({
   selector: 'app-band-setlists',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, SetlistCard],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    SetlistCard,
+  ],
   template: `
-    @if (failure(); as message) { <p class="fault" role="alert">{{ message }}</p> }
+    @if (failure(); as message) {
+      <p class="fault" role="alert">{{ message }}</p>
+    }
     @if (setlists(); as setlists) {
       @for (setlist of setlists; track setlist.id) {
-        <app-setlist-card class="setlist" [setlist]="setlist" [presets]="presets()"
-                          (saved)="replace($event)" (deleted)="drop($event)" />
+        <app-setlist-card
+          class="setlist"
+          [setlist]="setlist"
+          [presets]="presets()"
+          (saved)="replace($event)"
+          (deleted)="drop($event)"
+        />
       } @empty {
-        <p class="empty">No setlists yet.@if (canEdit()) { Start one for the next gig below. }</p>
+        <p class="empty">
+          No setlists yet.
+          @if (canEdit()) {
+            Start one for the next gig below.
+          }
+        </p>
       }
     } @else {
       <mat-progress-bar mode="indeterminate" aria-label="Loading the setlists" />
@@ -35,7 +54,7 @@ import { type Setlist, SetlistsApi } from './setlists-api';
       <form class="create" [formGroup]="form" (ngSubmit)="create()">
         <mat-form-field>
           <mat-label>New setlist name</mat-label>
-          <input matInput formControlName="name" autocomplete="off">
+          <input matInput formControlName="name" autocomplete="off" />
           <mat-error>{{ name.errors?.['request'] }}</mat-error>
         </mat-form-field>
         <button mat-flat-button type="submit" [disabled]="busy()">Start setlist</button>
@@ -43,12 +62,29 @@ import { type Setlist, SetlistsApi } from './setlists-api';
     }
   `,
   styles: `
-    :host { display: block; }
-    .fault { color: var(--mat-sys-error); }
-    .empty { color: var(--mat-sys-on-surface-variant); }
-    .setlist { padding: 12px 0; border-bottom: 1px solid var(--mat-sys-outline-variant); }
-    .create { display: flex; flex-wrap: wrap; align-items: baseline; gap: 0 12px; margin-top: 12px; }
-    .create mat-form-field { flex: 1 1 200px; }
+    :host {
+      display: block;
+    }
+    .fault {
+      color: var(--mat-sys-error);
+    }
+    .empty {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .setlist {
+      padding: 12px 0;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+    .create {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: baseline;
+      gap: 0 12px;
+      margin-top: 12px;
+    }
+    .create mat-form-field {
+      flex: 1 1 200px;
+    }
   `,
 })
 export class BandSetlists {
@@ -61,7 +97,9 @@ export class BandSetlists {
   protected readonly setlists = signal<Setlist[] | null>(null);
   protected readonly failure = signal<string | null>(null);
   protected readonly busy = signal(false);
-  protected readonly canEdit = computed(() => this.band().role === 'owner' || this.band().role === 'editor');
+  protected readonly canEdit = computed(
+    () => this.band().role === 'owner' || this.band().role === 'editor',
+  );
   protected readonly name = new FormControl('', {
     nonNullable: true,
     validators: requestFieldValidator(setlistRequest, 'name', 'The setlist name'),
@@ -90,7 +128,9 @@ export class BandSetlists {
     this.busy.set(true);
     this.failure.set(null);
     try {
-      const created = await firstValueFrom(this.api.create(this.band().id, { name: this.name.value.trim(), entries: [] }));
+      const created = await firstValueFrom(
+        this.api.create(this.band().id, { name: this.name.value.trim(), entries: [] }),
+      );
       this.setlists.update((setlists) => [...(setlists ?? []), created]);
       this.name.reset();
     } catch (error) {
@@ -101,7 +141,9 @@ export class BandSetlists {
   }
 
   protected replace(setlist: Setlist): void {
-    this.setlists.update((setlists) => (setlists ?? []).map((candidate) => (candidate.id === setlist.id ? setlist : candidate)));
+    this.setlists.update((setlists) =>
+      (setlists ?? []).map((candidate) => (candidate.id === setlist.id ? setlist : candidate)),
+    );
   }
 
   protected drop(id: string): void {

@@ -1,7 +1,22 @@
-import { CdkDrag, CdkDragDrop, CdkDragHandle, CdkDropList, moveItemInArray } from '@angular/cdk/drag-drop';
 import {
-  ChangeDetectionStrategy, Component, ElementRef, afterNextRender, computed, inject, Injector, input, linkedSignal,
-  output, signal,
+  CdkDrag,
+  CdkDragDrop,
+  CdkDragHandle,
+  CdkDropList,
+  moveItemInArray,
+} from '@angular/cdk/drag-drop';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  ElementRef,
+  afterNextRender,
+  computed,
+  inject,
+  Injector,
+  input,
+  linkedSignal,
+  output,
+  signal,
 } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
@@ -36,7 +51,13 @@ function typedNumber(text: string): number | null {
   selector: 'app-setlist-card',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    CdkDropList, CdkDrag, CdkDragHandle, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule,
+    CdkDropList,
+    CdkDrag,
+    CdkDragHandle,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
     MatSelectModule,
   ],
   templateUrl: './setlist-card.html',
@@ -65,7 +86,11 @@ export class SetlistCard {
 
   protected readonly body = computed<SetlistBody>(() => ({
     name: this.name(),
-    entries: this.entries().map(({ presetId, revision, trigger }) => ({ presetId, revision, trigger })),
+    entries: this.entries().map(({ presetId, revision, trigger }) => ({
+      presetId,
+      revision,
+      trigger,
+    })),
   }));
   /** The schema's faults by field path, as sentences naming the field. */
   protected readonly faults = computed(() => {
@@ -77,21 +102,32 @@ export class SetlistCard {
       const entry = /^entries\[(\d+)\]\.(\w+)$/.exec(error.path);
       const subject = entry
         ? `Entry ${Number(entry[1]) + 1}'s ${entry[2] === 'trigger' ? 'program change' : entry[2]}`
-        : error.path === 'name' ? 'The setlist name' : error.path;
+        : error.path === 'name'
+          ? 'The setlist name'
+          : error.path;
       faults.set(error.path, `${subject} ${fault}.`);
     }
     return faults;
   });
   /** Faults that belong to no field shown here (the length of the list, say). */
   protected readonly otherFaults = computed(() =>
-    [...this.faults()].filter(([path]) => path !== 'name' && !path.endsWith('.trigger')).map(([, fault]) => fault),
+    [...this.faults()]
+      .filter(([path]) => path !== 'name' && !path.endsWith('.trigger'))
+      .map(([, fault]) => fault),
   );
   protected readonly changed = computed(() => {
     const saved = this.setlist();
-    return JSON.stringify(this.body()) !== JSON.stringify({
-      name: saved.name,
-      entries: saved.entries.map(({ presetId, revision, trigger }) => ({ presetId, revision, trigger })),
-    });
+    return (
+      JSON.stringify(this.body()) !==
+      JSON.stringify({
+        name: saved.name,
+        entries: saved.entries.map(({ presetId, revision, trigger }) => ({
+          presetId,
+          revision,
+          trigger,
+        })),
+      })
+    );
   });
 
   protected setTrigger(index: number, text: string): void {
@@ -106,7 +142,11 @@ export class SetlistCard {
   protected add(preset: PresetRow | null): void {
     if (!preset) return;
     const entry: SetlistEntry = {
-      presetId: preset.id, revision: null, trigger: null, presetName: preset.name, latestRevision: preset.revision,
+      presetId: preset.id,
+      revision: null,
+      trigger: null,
+      presetName: preset.name,
+      latestRevision: preset.revision,
     };
     this.entries.update((entries) => [...entries, entry]);
   }
@@ -156,7 +196,9 @@ export class SetlistCard {
       message: 'The band loses this setlist and its order. The presets in it stay in the library.',
       confirm: 'Delete setlist',
     };
-    const dialog = this.dialog.open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, { data });
+    const dialog = this.dialog.open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, {
+      data,
+    });
     if ((await firstValueFrom(dialog.afterClosed())) !== true) return;
     try {
       await firstValueFrom(this.api.remove(setlist.id));
@@ -167,7 +209,9 @@ export class SetlistCard {
   }
 
   private update(index: number, change: Partial<SetlistEntry>): void {
-    this.entries.update((entries) => entries.map((entry, at) => (at === index ? { ...entry, ...change } : entry)));
+    this.entries.update((entries) =>
+      entries.map((entry, at) => (at === index ? { ...entry, ...change } : entry)),
+    );
   }
 
   private move(from: number, to: number, focus: 'row' | 'up' | 'down' | false | null): void {
@@ -175,12 +219,17 @@ export class SetlistCard {
     if (to < 0 || to >= entries.length || from === to) return;
     moveItemInArray(entries, from, to);
     this.entries.set(entries);
-    this.announcement.set(`${entries[to].presetName} moved to position ${to + 1} of ${entries.length}.`);
+    this.announcement.set(
+      `${entries[to].presetName} moved to position ${to + 1} of ${entries.length}.`,
+    );
     if (!focus) return;
     afterNextRender(
       () => {
         const row = this.host.nativeElement.querySelectorAll<HTMLElement>('.entry')[to];
-        const target = focus === 'row' ? row : row?.querySelector<HTMLElement>(`button.move-${focus}:not([disabled])`);
+        const target =
+          focus === 'row'
+            ? row
+            : row?.querySelector<HTMLElement>(`button.move-${focus}:not([disabled])`);
         (target ?? row)?.focus();
       },
       { injector: this.injector },

@@ -12,7 +12,9 @@ export class SetlistsApi {
   private readonly http = inject(HttpClient);
 
   setlists(bandId: string): Observable<Setlist[]> {
-    return this.http.get<ItemList<Setlist>>(this.bandPath(bandId)).pipe(map((answer) => answer.items));
+    return this.http
+      .get<ItemList<Setlist>>(this.bandPath(bandId))
+      .pipe(map((answer) => answer.items));
   }
 
   create(bandId: string, body: SetlistBody): Observable<Setlist> {

@@ -12,7 +12,11 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatSelectModule } from '@angular/material/select';
 import { EMPTY, catchError, firstValueFrom, switchMap } from 'rxjs';
 import { InstrumentDialog } from '../instruments/instrument-dialog';
-import { type MyInstrument, MyInstruments, exportOfInstrument } from '../instruments/my-instruments';
+import {
+  type MyInstrument,
+  MyInstruments,
+  exportOfInstrument,
+} from '../instruments/my-instruments';
 import { Session } from '../auth/session';
 import { apiErrorMessage, isNotFound } from '../library/api-error';
 import { LibraryApi } from '../library/library-api';
@@ -89,7 +93,8 @@ export class SharedPage {
   });
   /** The chosen instrument's own export, with its id (or a guest's settings) in the address. */
   protected readonly instrumentDownload = computed(() => {
-    const instrument = this.instruments.list()?.find((candidate) => candidate.id === this.chosenId());
+    const id = this.chosenId();
+    const instrument = this.instruments.list()?.find((candidate) => candidate.id === id);
     if (!instrument) return null;
     const format = exportOfInstrument(instrument);
     const query = new HttpParams({ fromObject: this.instruments.downloadQuery(instrument) });
@@ -129,7 +134,9 @@ export class SharedPage {
   }
 
   protected async setUpInstrument(): Promise<void> {
-    const dialog = this.dialog.open<InstrumentDialog, void, MyInstrument>(InstrumentDialog, { maxWidth: '560px' });
+    const dialog = this.dialog.open<InstrumentDialog, void, MyInstrument>(InstrumentDialog, {
+      maxWidth: '560px',
+    });
     const instrument = await firstValueFrom(dialog.afterClosed());
     if (instrument) this.chosenId.set(instrument.id);
   }
