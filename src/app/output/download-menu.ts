@@ -60,8 +60,7 @@ import { exportRefusals } from './export-refusals';
       @for (instrument of instruments.list() ?? []; track instrument.id) {
         @let format = exportOf(instrument);
         @let refused = refusals().get(format.id);
-        <button mat-menu-item class="format" (click)="downloadFor(instrument)"
-                [disabled]="!!refused" [attr.aria-label]="forLabel(instrument, format, refused)">
+        <button mat-menu-item class="format" (click)="downloadFor(instrument)" [disabled]="!!refused">
           <span class="format-name">For {{ instrument.name }}</span>
           @if (refused) {
             <span class="format-use refused">Not for this design: {{ refused }}</span>
@@ -118,11 +117,6 @@ export class DownloadMenu {
     const blocked = this.blocked();
     return `Download for my instrument${blocked ? ` (${blocked})` : ''}`;
   });
-
-  protected forLabel(instrument: MyInstrument, format: ExportFormat, refused?: string): string {
-    const file = `For ${instrument.name}: ${format.label} (.${format.extension})`;
-    return refused ? `${file}, not for this design: ${refused}` : file;
-  }
 
   protected openInstruments(): void {
     this.instruments.load();
