@@ -16,6 +16,11 @@ export const routes: Routes = [
   { path: 'import', title: 'Import · Keyloom', loadComponent: () => import('./import/import-page').then((m) => m.ImportPage) },
   { path: 'bands', title: 'Bands · Keyloom', loadComponent: () => import('./bands/bands-page').then((m) => m.BandsPage) },
   { path: 'bands/:id', title: 'Band · Keyloom', loadComponent: () => import('./bands/band-page').then((m) => m.BandPage) },
+  {
+    path: 'instruments',
+    title: 'My instruments · Keyloom',
+    loadComponent: () => import('./instruments/instruments-page').then((m) => m.InstrumentsPage),
+  },
   { path: 'invites/:token', title: 'Invite · Keyloom', loadComponent: () => import('./invites/invite-page').then((m) => m.InvitePage) },
   { path: 's/:token', title: 'Shared preset · Keyloom', loadComponent: () => import('./share/shared-page').then((m) => m.SharedPage) },
   { path: '**', title: 'Not found · Keyloom', loadComponent: () => import('./not-found/not-found-page').then((m) => m.NotFoundPage) },

@@ -81,6 +81,7 @@ describe('accessibility of every page and tab (axe-core)', () => {
     ['/retune', 'Retune a song'],
     ['/bands', 'Bands'],
     ['/import', 'Import a tuning'],
+    ['/instruments', 'My instruments'],
     ['/no/such/page', 'Nothing plays on this key'],
   ]) {
     it(`finds no serious or critical violation on ${path}`, async () => {

@@ -65,6 +65,8 @@ describe('BandPage', () => {
       read.flush({ items: trash ? [] : [fenFifths], total: trash ? 0 : 1, page: 1, pageSize: 100 });
     }
     await settle();
+    // The setlists are read once, when the band first shows (setlists/band-setlists.spec.ts).
+    if (firstLoad) http.expectOne('/api/bands/b-fen/setlists').flush({ items: [] });
     if (band.canManage) {
       if (firstLoad) http.expectOne('/api/bands/b-fen/invites').flush({ items: pending });
       http.expectOne('/api/bands/b-fen/audit').flush({ items: audit });

@@ -8,6 +8,7 @@ import { loader } from '../api/loader';
 import { Session } from '../auth/session';
 import { LibraryApi, PresetPage, PresetQuery } from '../library/library-api';
 import { SignInPrompt } from '../library/sign-in-prompt';
+import { BandSetlists } from '../setlists/band-setlists';
 import { BandAudit } from './band-audit';
 import { BandInvites } from './band-invites';
 import { BandMembers } from './band-members';
@@ -19,7 +20,10 @@ const noPresets: PresetPage = { items: [], total: 0, page: 1, pageSize: 100 };
 @Component({
   selector: 'app-band-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, BandMembers, BandInvites, BandAudit],
+  imports: [
+    RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, BandMembers,
+    BandInvites, BandAudit, BandSetlists,
+  ],
   templateUrl: './band-page.html',
   styleUrl: './band-page.scss',
 })

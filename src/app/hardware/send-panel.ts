@@ -8,6 +8,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { firstValueFrom } from 'rxjs';
+import { InstrumentSend } from '../instruments/instrument-send';
 import { LiveFollow } from './live-follow';
 import { MidiAccess, midiAccessFaults } from './midi-access';
 import { OverwriteDialog, type OverwriteQuestion } from './overwrite-dialog';
@@ -26,7 +27,7 @@ function hexLines(messages: Uint8Array[]): string {
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, MatSelectModule,
-    MatSlideToggleModule,
+    MatSlideToggleModule, InstrumentSend,
   ],
   templateUrl: './send-panel.html',
   styleUrl: './send-panel.scss',

@@ -27,11 +27,14 @@ export class TuningSender {
 
   readonly outputId = signal<string | null>(null);
   readonly form = signal<MessageFormId>('mts-bulk');
-  // Device id, program and bank live in one place, the design's output settings: the warning, the hex preview and
-  // the bytes sent all read them from there.
-  readonly deviceId = computed(() => this.output()?.deviceId ?? 127);
-  readonly program = computed(() => this.output()?.program ?? 0);
-  readonly bank = computed(() => this.output()?.bank ?? 0);
+  // Device id, program and bank live in one place, the design's output settings (or the instrument chosen for the
+  // send): the warning, the hex preview and the bytes sent all read them from there.
+  /** The instrument chosen "for my instrument": its target stands in for the output settings. */
+  readonly instrumentTarget = signal<SendTarget | null>(null);
+  private readonly aim = computed(() => this.instrumentTarget() ?? this.output());
+  readonly deviceId = computed(() => this.aim()?.deviceId ?? 127);
+  readonly program = computed(() => this.aim()?.program ?? 0);
+  readonly bank = computed(() => this.aim()?.bank ?? 0);
   readonly target = computed<SendTarget>(() => ({ deviceId: this.deviceId(), program: this.program(), bank: this.bank() }));
   /** The messages for the current design, or why the form cannot carry it. */
   readonly messages = computed(() => {

@@ -6,6 +6,11 @@ import { TestBed } from '@angular/core/testing';
 import { DesignState } from '../design/design-state';
 import { newDraft } from '../design/draft-document';
 import { DownloadMenu } from './download-menu';
+import type { Instrument } from '@shared/api/instruments';
+import { type Member, Session } from '../auth/session';
+import { browserInstrumentsKey } from '../instruments/my-instruments';
+
+const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
 
 /** Lets the download's promise chain finish before the test moves on. */
 async function settled(fixture: { whenStable(): Promise<unknown> }) {
@@ -86,5 +91,67 @@ describe('DownloadMenu', () => {
     await fixture.whenStable();
     expect(button.disabled).toBeTrue();
     expect(button.getAttribute('aria-label')).toBe('Download (fix the faults in the design first)');
+  });
+
+  const ondes: Instrument = {
+    id: 'i-ondes', name: 'Ondes', receives: 'mts-bulk', deviceId: 16, program: 5, bank: 0, bendRange: 2,
+    memberChannels: [2, 16], port: null, createdAt: '2026-11-01T10:00:00Z', updatedAt: '2026-11-01T10:00:00Z',
+  };
+  const board: Instrument = { ...ondes, id: 'i-board', name: 'Lattice board', receives: 'mpe', bendRange: 48, memberChannels: [2, 9] };
+
+  async function openInstrumentMenu(fixture: { whenStable(): Promise<unknown> }, element: HTMLElement) {
+    element.querySelector<HTMLButtonElement>('button.for-instrument')!.click();
+    await fixture.whenStable();
+    return () => Array.from(document.querySelectorAll<HTMLButtonElement>('.instrument-downloads button[mat-menu-item]'));
+  }
+
+  it('downloads a saved preset in each member instrument\'s own form, by its id, leaving the preset as it is', async () => {
+    const { fixture, element, state } = await render();
+    TestBed.inject(Session).member.set(mira);
+    state.open(newDraft(), { id: 'p-3', revision: 2, bandId: null, access: 'own' });
+    const output = structuredClone(state.draft().output);
+    let items = await openInstrumentMenu(fixture, element);
+    http.expectOne({ method: 'GET', url: '/api/instruments' }).flush({ items: [ondes, board] });
+    await fixture.whenStable();
+    expect(items().map((item) => item.textContent!.replace(/\s+/g, ' ').trim())).toEqual([
+      'For Ondes MTS bulk dump .syx, with its own settings',
+      'For Lattice board MPE MIDI file .mid, with its own settings',
+      'add Set up an instrument…',
+    ]);
+    items()[0].click();
+    const bulk = http.expectOne((r) => r.url === '/api/presets/p-3/export/mts-bulk');
+    expect(bulk.request.params.keys()).toEqual(['instrument']);
+    expect(bulk.request.params.get('instrument')).toBe('i-ondes');
+    bulk.flush(new Blob(['x']));
+    await settled(fixture);
+
+    items = await openInstrumentMenu(fixture, element);
+    items()[1].click();
+    const mpe = http.expectOne((r) => r.url === '/api/presets/p-3/export/mpe-smf');
+    expect(mpe.request.urlWithParams).toBe('/api/presets/p-3/export/mpe-smf?instrument=i-board');
+    mpe.flush(new Blob(['MThd']));
+    await settled(fixture);
+    expect(state.draft().output).toEqual(output);
+    expect(state.dirty()).toBeFalse();
+  });
+
+  it('sends a guest instrument\'s settings with a design that is not saved', async () => {
+    const { createdAt: _, updatedAt: __, ...settings } = { ...board, id: 'browser-1', receives: 'mts-bulk-bank', bank: 3 };
+    localStorage.setItem(browserInstrumentsKey, JSON.stringify([settings]));
+    const { fixture, element, state } = await render();
+    TestBed.inject(Session).member.set(null);
+    state.rename('Fen draft');
+    const items = await openInstrumentMenu(fixture, element);
+    expect(items()[0].textContent).toContain('MTS bulk dump with bank .syx');
+    items()[0].click();
+    const request = http.expectOne((r) => r.url === '/api/preview/export/mts-bulk-bank');
+    expect(request.request.method).toBe('POST');
+    expect(request.request.urlWithParams).toBe(
+      '/api/preview/export/mts-bulk-bank?receives=mts-bulk-bank&deviceId=16&program=5&bank=3&bendRange=48&memberChannels=2-9',
+    );
+    expect(request.request.body).toEqual(jasmine.objectContaining({ name: 'Fen draft' }));
+    request.flush(new Blob(['x']));
+    await settled(fixture);
+    localStorage.removeItem(browserInstrumentsKey);
   });
 });

@@ -5,6 +5,14 @@ import { MatMenuModule } from '@angular/material/menu';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
 import { apiErrorMessage } from '../api/api-error';
+import { MatDialog } from '@angular/material/dialog';
+import { firstValueFrom } from 'rxjs';
+import { InstrumentDialog } from '../instruments/instrument-dialog';
+import {
+  type MyInstrument,
+  MyInstruments,
+  exportOfInstrument,
+} from '../instruments/my-instruments';
 import { DesignState } from '../design/design-state';
 import type { ExportSource } from './downloads';
 import { Downloads } from './downloads';
@@ -39,21 +47,57 @@ import { exportRefusals } from './export-refusals';
         </button>
       }
     </mat-menu>
+    <button mat-stroked-button class="for-instrument" type="button"
+            [matMenuTriggerFor]="instrumentMenu" [disabled]="blocked() !== null || busy()"
+            (menuOpened)="openInstruments()" [attr.aria-label]="instrumentLabel()">
+      <mat-icon aria-hidden="true">piano</mat-icon>
+      <span class="label">For my instrument</span>
+    </button>
+    <mat-menu #instrumentMenu="matMenu" class="instrument-downloads" xPosition="before"
+              (closed)="menuOpen.set(false)">
+      @if (instruments.list() === null) {
+        <span mat-menu-item disabled>Loading your instruments…</span>
+      }
+      @for (instrument of instruments.list() ?? []; track instrument.id) {
+        @let format = exportOf(instrument);
+        @let refused = refusals().get(format.id);
+        <button mat-menu-item class="format" (click)="downloadFor(instrument)" [disabled]="!!refused">
+          <span class="format-name">For {{ instrument.name }}</span>
+          @if (refused) {
+            <span class="format-use refused">Not for this design: {{ refused }}</span>
+          } @else {
+            <span class="format-use">
+              {{ format.label }} .{{ format.extension }}, with its own settings
+            </span>
+          }
+        </button>
+      }
+      <button mat-menu-item class="set-up" (click)="setUpInstrument()">
+        <mat-icon aria-hidden="true">add</mat-icon>
+        Set up an instrument…
+      </button>
+    </mat-menu>
   `,
   styles: `
-    :host { display: inline-block; }
+    :host { display: inline-flex; flex-wrap: wrap; gap: 8px; }
     .format { padding-block: 6px; line-height: 1.35; }
     .format-name { display: block; font: var(--mat-sys-label-large); }
     .extension { color: var(--mat-sys-on-surface-variant); }
     .format-use { display: block; white-space: normal; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
     .format-use.refused { font-style: italic; }
-    @media (max-width: 720px) { .download .label { display: none; } .download mat-icon { margin: 0; } }
+    @media (max-width: 720px) {
+      .download .label, .for-instrument .label { display: none; }
+      .download mat-icon, .for-instrument mat-icon { margin: 0; }
+    }
   `,
 })
 export class DownloadMenu {
   private readonly state = inject(DesignState);
   private readonly downloads = inject(Downloads);
   private readonly snackBar = inject(MatSnackBar);
+  private readonly dialog = inject(MatDialog);
+  protected readonly instruments = inject(MyInstruments);
+  protected readonly exportOf = exportOfInstrument;
   protected readonly formats = exportFormats;
   protected readonly busy = signal(false);
   protected readonly menuOpen = signal(false);
@@ -70,10 +114,37 @@ export class DownloadMenu {
     return origin && !this.state.dirty() ? { presetId: origin.id } : { document: this.state.draft() };
   });
 
-  protected async downloadFormat(format: ExportFormat): Promise<void> {
+  protected readonly instrumentLabel = computed(() => {
+    const blocked = this.blocked();
+    return `Download for my instrument${blocked ? ` (${blocked})` : ''}`;
+  });
+
+  protected openInstruments(): void {
+    this.instruments.load();
+    this.menuOpen.set(true);
+  }
+
+  /** The instrument's own export, made with its settings in place of the design's output ones. */
+  protected downloadFor(instrument: MyInstrument): Promise<void> {
+    const query = this.instruments.downloadQuery(instrument);
+    return this.downloadFormat(exportOfInstrument(instrument), query);
+  }
+
+  protected async setUpInstrument(): Promise<void> {
+    const dialog = this.dialog.open<InstrumentDialog, void, MyInstrument>(InstrumentDialog, {
+      maxWidth: '560px',
+    });
+    const instrument = await firstValueFrom(dialog.afterClosed());
+    if (instrument) await this.downloadFor(instrument);
+  }
+
+  protected async downloadFormat(
+    format: ExportFormat,
+    query: Record<string, string> = {},
+  ): Promise<void> {
     this.busy.set(true);
     try {
-      const { name, warnings } = await this.downloads.download(format, this.source());
+      const { name, warnings } = await this.downloads.download(format, this.source(), query);
       if (warnings.length > 0) this.snackBar.open(`Downloaded ${name}. ${warnings.join(' ')}`, 'Dismiss');
       else this.snackBar.open(`Downloaded ${name}.`, undefined, { duration: 4000 });
     } catch (error) {

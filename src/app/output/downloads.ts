@@ -47,16 +47,27 @@ function warningsFrom(header: string | null): string[] {
 export class Downloads {
   private readonly http = inject(HttpClient);
 
-  /** Downloads one format; resolves to the saved file, rejects with the server's refusal. */
-  async download(format: ExportFormat, source: ExportSource): Promise<DeliveredFile> {
-    const response = await firstValueFrom(this.request(format.id, source));
+  /**
+   * Downloads one format; resolves to the saved file, rejects with the server's refusal. `query`
+   * aims the file at an instrument (`instrument=ID`, or a guest's settings).
+   */
+  async download(
+    format: ExportFormat,
+    source: ExportSource,
+    query: Record<string, string> = {},
+  ): Promise<DeliveredFile> {
+    const response = await firstValueFrom(this.request(format.id, source, query));
     const name = fileNameFrom(response.headers.get('Content-Disposition')) ?? `keyloom-${format.id}.${format.extension}`;
     this.deliver(response.body ?? new Blob([]), name);
     return { name, warnings: warningsFrom(response.headers.get('Keyloom-Warnings')) };
   }
 
-  private request(format: string, source: ExportSource): Observable<HttpResponse<Blob>> {
-    const options = { observe: 'response' as const, responseType: 'blob' as const };
+  private request(
+    format: string,
+    source: ExportSource,
+    params: Record<string, string>,
+  ): Observable<HttpResponse<Blob>> {
+    const options = { observe: 'response' as const, responseType: 'blob' as const, params };
     if ('document' in source) {
       return this.http.post(`/api/preview/export/${format}`, source.document, options);
     }

@@ -5,6 +5,9 @@ import { Member } from '../auth/session';
 import { SharedPreset } from './share-api';
 import { SharedPage } from './shared-page';
 import { PageTest } from '../testing/page-test';
+import type { Instrument } from '@shared/api/instruments';
+import { browserInstrumentsKey } from '../instruments/my-instruments';
+import { waitFor } from '../testing/wait-for';
 
 const tobias: Member = { id: 'u-tobias', login: 'tobias-reed', name: 'Tobias Reed', email: null, avatarUrl: null, siteRole: 'member' };
 const fenFifths = {
@@ -23,15 +26,19 @@ describe('SharedPage', () => {
     http = pages.http;
   });
 
-  afterEach(() => pages.verify());
+  afterEach(() => {
+    pages.verify();
+    localStorage.removeItem(browserInstrumentsKey);
+  });
 
   const page = () => pages.page();
 
   const settle = () => pages.settle();
 
-  async function open(member: Member | null, answer: SharedPreset = shared) {
+  async function open(member: Member | null, answer: SharedPreset = shared, instruments: Instrument[] = []) {
     await pages.open('/s/tok-123', member);
     http.expectOne('/api/shared/tok-123').flush(answer);
+    if (member) http.expectOne('/api/instruments').flush({ items: instruments });
     await settle();
   }
 
@@ -119,5 +126,50 @@ describe('SharedPage', () => {
     await open(null, { ...shared, document: { ...fenFifths, version: 2 } });
     expect(page().querySelector('.faults')!.textContent).toContain('version');
     expect(page().querySelector('app-degree-table')).toBeNull();
+  });
+
+  const ondes: Instrument = {
+    id: 'i-ondes', name: 'Ondes', receives: 'mts-bulk', deviceId: 16, program: 5, bank: 0, bendRange: 2,
+    memberChannels: [2, 16], port: null, createdAt: '2026-11-01T10:00:00Z', updatedAt: '2026-11-01T10:00:00Z',
+  };
+  const board: Instrument = { ...ondes, id: 'i-board', name: 'Lattice board', receives: 'mpe', bendRange: 48, memberChannels: [2, 9] };
+
+  it('gives a member the file each of their instruments takes, by the instrument\'s id', async () => {
+    await open(tobias, shared, [ondes, board]);
+    const link = () => page().querySelector<HTMLAnchorElement>('.for-instrument a.instrument-file')!;
+    expect(link().getAttribute('href')).toBe('/api/shared/tok-123/export/mts-bulk?instrument=i-ondes');
+    expect(link().textContent).toContain('MTS bulk dump (.syx) for Ondes');
+    page().querySelector<HTMLElement>('.for-instrument mat-select .mat-mdc-select-trigger')!.click();
+    await settle();
+    Array.from(document.querySelectorAll<HTMLElement>('mat-option')).find((o) => o.textContent!.includes('Lattice board'))!.click();
+    await settle();
+    expect(link().getAttribute('href')).toBe('/api/shared/tok-123/export/mpe-smf?instrument=i-board');
+    expect(link().textContent).toContain('MPE MIDI file (.mid) for Lattice board');
+  });
+
+  it('lets a guest set up an instrument in this browser and download the dump for it, with its settings', async () => {
+    await open(null);
+    expect(page().querySelector('.for-instrument a.instrument-file')).toBeNull();
+    page().querySelector<HTMLButtonElement>('.for-instrument button.set-up')!.click();
+    await settle();
+    const dialog = document.querySelector('mat-dialog-container')!;
+    expect(dialog.textContent).toContain('kept in this browser only');
+    const type = (label: string, value: string) => {
+      const field = Array.from(dialog.querySelectorAll('mat-form-field')).find((f) => f.querySelector('mat-label')!.textContent!.trim() === label)!;
+      const input = field.querySelector('input')!;
+      input.value = value;
+      input.dispatchEvent(new Event('input'));
+    };
+    type('Instrument name', 'Borrowed synth');
+    type('Device id', '16');
+    type('Tuning program', '5');
+    type('Last member channel', '9');
+    Array.from(dialog.querySelectorAll('button')).find((b) => b.textContent!.includes('Add instrument'))!.click();
+    const link = await waitFor('the file for the new instrument', () => page().querySelector<HTMLAnchorElement>('a.instrument-file'), settle);
+    expect(link.getAttribute('href')).toBe(
+      '/api/shared/tok-123/export/mts-bulk?receives=mts-bulk&deviceId=16&program=5&bank=0&bendRange=2&memberChannels=2-9',
+    );
+    const kept = JSON.parse(localStorage.getItem(browserInstrumentsKey)!) as { name: string }[];
+    expect(kept.map((instrument) => instrument.name)).toEqual(['Borrowed synth']);
   });
 });

@@ -1,5 +1,6 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { HttpParams } from '@angular/common/http';
+import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -8,6 +9,16 @@ import { Router, RouterLink } from '@angular/router';
 import { tap } from 'rxjs';
 import { apiErrorMessage } from '../api/api-error';
 import { loader } from '../api/loader';
+import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatSelectModule } from '@angular/material/select';
+import { firstValueFrom } from 'rxjs';
+import { InstrumentDialog } from '../instruments/instrument-dialog';
+import {
+  type MyInstrument,
+  MyInstruments,
+  exportOfInstrument,
+} from '../instruments/my-instruments';
 import { Session } from '../auth/session';
 import { LibraryApi } from '../library/library-api';
 import { SignInPrompt } from '../library/sign-in-prompt';
@@ -33,7 +44,7 @@ import { KeyboardStrip } from '../keys/keyboard-strip';
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, DegreeTable,
-    PlayPanel, KeyboardStrip, StripPlaying,
+    PlayPanel, KeyboardStrip, StripPlaying, MatFormFieldModule, MatSelectModule,
   ],
   providers: [DesignState, Audition, MidiAccess, ControllerInput],
   templateUrl: './shared-page.html',
@@ -45,6 +56,7 @@ export class SharedPage {
   private readonly router = inject(Router);
   private readonly snackBar = inject(MatSnackBar);
   private readonly design = inject(DesignState);
+  private readonly dialog = inject(MatDialog);
   protected readonly session = inject(Session);
 
   /** The link's token, from the address. */
@@ -83,12 +95,46 @@ export class SharedPage {
       .map((format) => ({ ...format, href: this.shareApi.exportUrl(this.token(), format.id), refused: refusals.get(format.id) ?? null }));
   });
   protected readonly bundleHref = computed(() => this.shareApi.bundleUrl(this.token()));
+  /** The player's instruments (a guest's are kept in this browser) and the one the file is for. */
+  protected readonly instruments = inject(MyInstruments);
+  protected readonly chosenId = linkedSignal<MyInstrument[] | null, string | null>({
+    source: this.instruments.list,
+    computation: (list, previous) =>
+      list?.find((instrument) => instrument.id === previous?.value)?.id ?? list?.[0]?.id ?? null,
+  });
+  /** The chosen instrument's own export, with its id (or a guest's settings) in the address. */
+  protected readonly instrumentDownload = computed(() => {
+    const id = this.chosenId();
+    const instrument = this.instruments.list()?.find((candidate) => candidate.id === id);
+    if (!instrument) return null;
+    const format = exportOfInstrument(instrument);
+    const query = new HttpParams({ fromObject: this.instruments.downloadQuery(instrument) });
+    const preset = this.preset();
+    return {
+      ...format,
+      instrument: instrument.name,
+      href: `${this.shareApi.exportUrl(this.token(), format.id)}?${query.toString()}`,
+      refused: (preset && exportRefusals(preset).get(format.id)) ?? null,
+    };
+  });
 
   /** The tuning is heard through the designer's audition engine, read-only: nothing changes it. */
   private openReadOnly(shared: SharedPreset): void {
     const { revision, document } = shared;
     const origin = { id: 'shared', revision, bandId: null, access: 'read' as const };
     this.design.open(draftFrom(document as PresetDocument), origin);
+  }
+
+  constructor() {
+    this.instruments.load();
+  }
+
+  protected async setUpInstrument(): Promise<void> {
+    const dialog = this.dialog.open<InstrumentDialog, void, MyInstrument>(InstrumentDialog, {
+      maxWidth: '560px',
+    });
+    const instrument = await firstValueFrom(dialog.afterClosed());
+    if (instrument) this.chosenId.set(instrument.id);
   }
 
   /**
