@@ -17,6 +17,7 @@ export const routes: Routes = [
   { path: 'bands', title: 'Bands · Keyloom', loadComponent: () => import('./bands/bands-page').then((m) => m.BandsPage) },
   { path: 'bands/:id', title: 'Band · Keyloom', loadComponent: () => import('./bands/band-page').then((m) => m.BandPage) },
   { path: 'invites/:token', title: 'Invite · Keyloom', loadComponent: () => import('./invites/invite-page').then((m) => m.InvitePage) },
+  { path: 'stage/:setlistId', title: 'Stage · Keyloom', loadComponent: () => import('./stage/stage-page').then((m) => m.StagePage) },
   { path: 's/:token', title: 'Shared preset · Keyloom', loadComponent: () => import('./share/shared-page').then((m) => m.SharedPage) },
   { path: '**', title: 'Not found · Keyloom', loadComponent: () => import('./not-found/not-found-page').then((m) => m.NotFoundPage) },
 ];
