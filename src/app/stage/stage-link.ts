@@ -46,7 +46,8 @@ export class StageLink implements OnDestroy {
   readonly state = signal<LinkState>('off');
   readonly latest = signal<StagePosition | null>(null);
 
-  start(url: string): void {
+  /** Follows the stream at `url`; `told` hears each position as it comes, before any effect runs. */
+  start(url: string, told: (position: StagePosition) => void = () => undefined): void {
     this.stop();
     const stream = this.open(url);
     this.stream = stream;
@@ -58,8 +59,10 @@ export class StageLink implements OnDestroy {
     };
     stream.addEventListener('position', (event) => {
       try {
-        this.latest.set(JSON.parse(event.data) as StagePosition);
+        const position = JSON.parse(event.data) as StagePosition;
+        this.latest.set(position);
         this.inStep();
+        told(position);
       } catch {
         // A malformed event is left out; the next one carries the whole position again.
       }

@@ -24,7 +24,7 @@ import { loader } from '../api/loader';
 import { Session } from '../auth/session';
 import { MidiAccess, midiAccessFaults } from '../hardware/midi-access';
 import { SignInPrompt } from '../library/sign-in-prompt';
-import { type Setlist, StageApi } from './stage-api';
+import { type Setlist, type SetlistEntry, StageApi, type StagePosition } from './stage-api';
 import { stageFacts } from './stage-facts';
 import { StageLink, linkWords } from './stage-link';
 import { StageSender } from './stage-sender';
@@ -89,26 +89,34 @@ export class StagePage implements OnDestroy {
   protected readonly editor = computed(() => this.setlist()?.access === 'edit');
 
   protected readonly entries = computed(() => this.setlist()?.entries ?? []);
-  protected readonly current = computed(() => this.entries()[this.position()] ?? null);
-  protected readonly next = computed(() => this.entries()[this.position() + 1] ?? null);
+  protected readonly current = computed<SetlistEntry | null>(() => this.entries()[this.position()] ?? null);
+  protected readonly next = computed<SetlistEntry | null>(() => this.entries()[this.position() + 1] ?? null);
 
   /** The document of the current entry: from the live stream when it told it, else loaded. */
-  private readonly told = computed(() => {
+  private readonly tellsNow = computed(() => {
     const latest = this.link.latest();
     const current = this.current();
     const fits = this.following() && latest?.position === this.position();
     return fits && latest.presetId === current?.presetId ? latest : null;
   });
-  private readonly documentLoaded = loader(
+  /** Which revision's document to load; the same one twice is loaded once. */
+  private readonly wanted = computed(
     () => {
       const entry = this.current();
-      if (!entry || this.told()) return null;
-      return this.api.revision(entry.presetId, entry.revision ?? entry.latestRevision);
+      if (!entry || this.tellsNow()) return null;
+      return { presetId: entry.presetId, revision: entry.revision ?? entry.latestRevision };
+    },
+    { equal: (a, b) => a?.presetId === b?.presetId && a?.revision === b?.revision },
+  );
+  private readonly documentLoaded = loader(
+    () => {
+      const wanted = this.wanted();
+      return wanted && this.api.revision(wanted.presetId, wanted.revision);
     },
     { fallback: 'The tuning of this entry could not be loaded.' },
   );
   protected readonly facts = computed(() => {
-    const document = this.told()?.document ?? this.documentLoaded.value();
+    const document = this.tellsNow()?.document ?? this.documentLoaded.value();
     return document === undefined ? null : stageFacts(document);
   });
 
@@ -130,18 +138,16 @@ export class StagePage implements OnDestroy {
       const instruments = this.instrumentsLoaded.value();
       if (instruments) untracked(() => this.sender.instruments.set(instruments));
     });
-    // Each position the live stream tells moves the page, and its tuning goes to the instruments.
-    effect(() => {
-      const latest = this.link.latest();
-      if (!latest || !untracked(this.following)) return;
-      untracked(() => {
-        const entry = this.entries()[latest.position];
-        if (entry?.presetId !== latest.presetId) this.loaded.reload();
-        this.position.set(latest.position);
-        const facts = stageFacts(latest.document);
-        if (facts) void this.sender.offer(facts.preset);
-      });
-    });
+  }
+
+  /** Each position the live stream tells moves the page, and its tuning goes to the instruments. */
+  private told(latest: StagePosition): void {
+    if (!this.following()) return;
+    const entry = this.entries()[latest.position];
+    if (entry?.presetId !== latest.presetId) this.loaded.reload();
+    this.position.set(latest.position);
+    const facts = stageFacts(latest.document);
+    if (facts) void this.sender.offer(facts.preset);
   }
 
   ngOnDestroy(): void {
@@ -150,7 +156,7 @@ export class StagePage implements OnDestroy {
 
   protected setFollowing(on: boolean): void {
     this.following.set(on);
-    if (on) this.link.start(this.api.livePath(this.setlistId()));
+    if (on) this.link.start(this.api.livePath(this.setlistId()), (latest) => this.told(latest));
     else this.link.stop();
   }
 
@@ -160,7 +166,7 @@ export class StagePage implements OnDestroy {
 
   protected async connectMidi(): Promise<void> {
     if (!(await this.midi.open())) return;
-    const facts = this.following() && this.told() ? this.facts() : null;
+    const facts = this.following() && this.tellsNow() ? this.facts() : null;
     if (facts) void this.sender.offer(facts.preset);
   }
 
@@ -174,8 +180,8 @@ export class StagePage implements OnDestroy {
 
   protected onKey(event: KeyboardEvent): void {
     if (!this.editor() || event.altKey || event.ctrlKey || event.metaKey) return;
-    const target = event.target as HTMLElement | null;
-    if (target?.closest('input, textarea, select, [role="combobox"], [role="listbox"]')) return;
+    const target = event.target;
+    if (target instanceof Element && target.closest('input, textarea, select, [role="combobox"], [role="listbox"]')) return;
     if (backKeys.has(event.key)) this.previous();
     else if (onKeys.has(event.key)) this.forward();
     else return;
