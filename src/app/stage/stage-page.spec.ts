@@ -1,5 +1,6 @@
 import { TestBed } from '@angular/core/testing';
 import { MatDialog } from '@angular/material/dialog';
+import { MatSelectHarness } from '@angular/material/select/testing';
 import type { Instrument } from '@shared/api/instruments';
 import { presetForInstrument } from '@shared/api/preset-for-instrument';
 import type { Setlist, StagePosition } from '@shared/api/setlists';
@@ -7,7 +8,7 @@ import { parsePresetDocument } from '@shared/preset/preset-document';
 import { of } from 'rxjs';
 import type { Member } from '../auth/session';
 import { tuningMessages } from '../hardware/tuning-messages';
-import { standInAccess, standInOutput } from '../testing/midi-stand-in';
+import { plug, standInAccess, standInInput, standInOutput } from '../testing/midi-stand-in';
 import { PageTest } from '../testing/page-test';
 import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { STAGE_EVENT_SOURCE, type StageStream } from './stage-link';
@@ -289,6 +290,81 @@ describe('StagePage', () => {
       expect(questions.length).toBe(1);
       expect(test.text('.current')).toBe('Fen Fifths');
       expect(other.sent).toEqual([]);
+    },
+    patientSpecMs,
+  );
+
+  it(
+    'says in red when an instrument\'s port is gone, and sends again when it returns',
+    async () => {
+      const synth = standInOutput('out-1', 'Stage synth');
+      const access = standInAccess({ outputs: [synth] });
+      spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(access));
+      const bank = instrument('Keys', {
+        receives: 'mts-bulk-bank',
+        deviceId: 3,
+        program: 9,
+        bank: 2,
+        port: 'Stage synth',
+      });
+      await openStage(setlist('read'), [bank]);
+      buttonNamed('Connect MIDI')!.click();
+      await waitFor('MIDI to open', () => !buttonNamed('Connect MIDI'), () => test.settle());
+      (test.page().querySelector('.follow button') as HTMLButtonElement).click();
+      await test.settle();
+      plug(access, synth, 'disconnected');
+      streams[0].tell({ position: 1, presetId: 'p2', revision: 1, document: nineteen });
+      const missed = () => test.page().querySelector('.instruments .waiting');
+      await waitFor('the port to be missed', missed, () => test.settle());
+      expect(test.text('.instruments .waiting')).toContain('"Stage synth" is not connected');
+      expect(questions[0]).toEqual([
+        { name: 'Keys', port: 'Stage synth', replaces: 'tuning program 9 in bank 2' },
+      ]);
+      expect(synth.sent).toEqual([]);
+
+      plug(access, synth, 'connected');
+      await waitFor('the resend', () => synth.sent.length > 0, () => test.settle());
+      // MIDI Tuning specification, key-based dump with bank: F0 7E <device> 08 04 <bank> <program>.
+      expect(synth.sent[0].slice(0, 7)).toEqual([0xf0, 0x7e, 3, 0x08, 0x04, 2, 9]);
+      const sent = () => test.page().querySelector('.instruments .sent');
+      await waitFor('the sent word', sent, () => test.settle());
+    },
+    patientSpecMs,
+  );
+
+  it(
+    'moves for an editor on a program change that is an entry\'s trigger, and on the footswitch',
+    async () => {
+      const pedal = standInInput('in-1', 'Foot controller');
+      spyOn(navigator, 'requestMIDIAccess').and.returnValue(
+        Promise.resolve(standInAccess({ inputs: [pedal] })),
+      );
+      await openStage(setlist('edit'));
+      buttonNamed('Connect MIDI')!.click();
+      await waitFor('MIDI to open', () => !buttonNamed('Connect MIDI'), () => test.settle());
+      const select = await test.loader.getHarness(
+        MatSelectHarness.with({ selector: '.pedal mat-select' }),
+      );
+      await select.clickOptions({ text: 'Foot controller' });
+      await test.settle();
+      // MIDI 1.0 Detailed Specification: program change Cn pp; entry 2 has trigger 7.
+      pedal.receive([0xc0, 7]);
+      await test.settle();
+      const picked = test.http.expectOne('/api/setlists/s1/position');
+      expect(picked.request.body).toEqual({ position: 1 });
+      picked.flush(setlist('edit', 1));
+      await test.settle();
+      test.http.expectOne('/api/presets/p2/revisions/1').flush({ document: nineteen });
+      // Controller 64 at 127 (pressed): Next.
+      pedal.receive([0xb0, 64, 127]);
+      await test.settle();
+      const next = test.http.expectOne('/api/setlists/s1/position');
+      expect(next.request.body).toEqual({ position: 2 });
+      next.flush(setlist('edit', 2));
+      await test.settle();
+      test.http.expectOne('/api/presets/p3/revisions/1').flush({ document: pythagorean });
+      await test.settle();
+      expect(test.text('.place')).toBe('3 of 3');
     },
     patientSpecMs,
   );
