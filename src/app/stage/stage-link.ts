@@ -46,7 +46,7 @@ export class StageLink implements OnDestroy {
   readonly state = signal<LinkState>('off');
   readonly latest = signal<StagePosition | null>(null);
 
-  /** Follows the stream at `url`; `told` hears each position as it comes, before any effect runs. */
+  /** Follows the stream at `url`; `told` hears each position as it comes, before effects run. */
   start(url: string, told: (position: StagePosition) => void = () => undefined): void {
     this.stop();
     const stream = this.open(url);

@@ -28,7 +28,11 @@ const pythagorean = {
   format: 'keyloom.preset',
   version: 1,
   name: 'Fen Fifths',
-  scale: { kind: 'list', degrees: ['9/8', '81/64', '4/3', '3/2', '27/16', '243/128'], period: '2/1' },
+  scale: {
+    kind: 'list',
+    degrees: ['9/8', '81/64', '4/3', '3/2', '27/16', '243/128'],
+    period: '2/1',
+  },
   mapping: { rootKey: 60 },
 };
 const nineteen = {
@@ -162,7 +166,7 @@ describe('StagePage', () => {
   const facts = () =>
     Array.from(test.page().querySelectorAll('.facts dd')).map((dd) => dd.textContent?.trim());
 
-  it('shows the current tuning with its facts, the next one and the place in the list', async () => {
+  it('shows the current tuning with its facts, the next one and its place', async () => {
     await openStage(setlist('read'));
     expect(test.text('.current')).toBe('Fen Fifths');
     expect(test.text('.place')).toBe('1 of 3');

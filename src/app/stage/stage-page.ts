@@ -89,8 +89,12 @@ export class StagePage implements OnDestroy {
   protected readonly editor = computed(() => this.setlist()?.access === 'edit');
 
   protected readonly entries = computed(() => this.setlist()?.entries ?? []);
-  protected readonly current = computed<SetlistEntry | null>(() => this.entries()[this.position()] ?? null);
-  protected readonly next = computed<SetlistEntry | null>(() => this.entries()[this.position() + 1] ?? null);
+  protected readonly current = computed<SetlistEntry | null>(
+    () => this.entries()[this.position()] ?? null,
+  );
+  protected readonly next = computed<SetlistEntry | null>(
+    () => this.entries()[this.position() + 1] ?? null,
+  );
 
   /** The document of the current entry: from the live stream when it told it, else loaded. */
   private readonly tellsNow = computed(() => {
@@ -181,7 +185,8 @@ export class StagePage implements OnDestroy {
   protected onKey(event: KeyboardEvent): void {
     if (!this.editor() || event.altKey || event.ctrlKey || event.metaKey) return;
     const target = event.target;
-    if (target instanceof Element && target.closest('input, textarea, select, [role="combobox"], [role="listbox"]')) return;
+    const fields = 'input, textarea, select, [role="combobox"], [role="listbox"]';
+    if (target instanceof Element && target.closest(fields)) return;
     if (backKeys.has(event.key)) this.previous();
     else if (onKeys.has(event.key)) this.forward();
     else return;

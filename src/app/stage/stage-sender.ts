@@ -140,7 +140,8 @@ export class StageSender {
     const port = this.midi.outputs().find((candidate) => candidate.name === instrument.port);
     const output = port ? this.midi.output(port.id) : null;
     if (!output) {
-      const message = `Its port "${instrument.port}" is not connected: the tuning goes out when it returns.`;
+      const message =
+        `Its port "${instrument.port}" is not connected: the tuning goes out when it returns.`;
       return this.record(instrument, { kind: 'waiting', message });
     }
     const { deviceId, program, bank } = instrument;
@@ -148,15 +149,18 @@ export class StageSender {
     const messages = tuningMessages(aimed, instrument.receives, { deviceId, program, bank });
     if (!messages.ok) {
       const why = messages.errors.map((error) => error.message).join('; ');
-      return this.record(instrument, { kind: 'failed', message: `Could not build the tuning: ${why}` });
+      const message = `Could not build the tuning: ${why}`;
+      return this.record(instrument, { kind: 'failed', message });
     }
     try {
       for (const message of messages.value) output.send(message);
     } catch {
-      const message = `Sending to "${instrument.port}" failed: it goes out again when the port returns.`;
+      const message =
+        `Sending to "${instrument.port}" failed: it goes out again when the port returns.`;
       return this.record(instrument, { kind: 'failed', message });
     }
-    this.record(instrument, { kind: 'sent', message: `Sent "${preset.name}" to "${instrument.port}".` });
+    const message = `Sent "${preset.name}" to "${instrument.port}".`;
+    this.record(instrument, { kind: 'sent', message });
   }
 
   private record(instrument: Instrument, outcome: Outcome): void {
