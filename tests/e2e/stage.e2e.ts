@@ -62,7 +62,11 @@ async function member(login: string): Promise<Page> {
 }
 
 async function post<T>(page: Page, path: string, data: unknown): Promise<T> {
-  const answer = await page.request.post(`${inject('appUrl')}${path}`, { data });
+  // The server asks every write for the XSRF-TOKEN cookie back in a header, as Angular sends it.
+  const cookies = await page.context().cookies();
+  const token = cookies.find((cookie) => cookie.name === 'XSRF-TOKEN')?.value ?? '';
+  const headers = { 'X-XSRF-TOKEN': token };
+  const answer = await page.request.post(`${inject('appUrl')}${path}`, { data, headers });
   expect(answer.status(), await answer.text()).toBe(201);
   return (await answer.json()) as T;
 }
