@@ -22,6 +22,7 @@ export const routes: Routes = [
     loadComponent: () => import('./instruments/instruments-page').then((m) => m.InstrumentsPage),
   },
   { path: 'invites/:token', title: 'Invite · Keyloom', loadComponent: () => import('./invites/invite-page').then((m) => m.InvitePage) },
+  { path: 'stage/:setlistId', title: 'Stage · Keyloom', loadComponent: () => import('./stage/stage-page').then((m) => m.StagePage) },
   { path: 's/:token', title: 'Shared preset · Keyloom', loadComponent: () => import('./share/shared-page').then((m) => m.SharedPage) },
   { path: '**', title: 'Not found · Keyloom', loadComponent: () => import('./not-found/not-found-page').then((m) => m.NotFoundPage) },
 ];
