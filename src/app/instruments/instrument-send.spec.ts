@@ -121,7 +121,7 @@ describe('InstrumentSend in the send panel', () => {
     const sender = TestBed.inject(TuningSender);
     expect(sender.form()).toBe('mts-bulk');
     expect(sender.outputId()).toBe('out-ondes');
-    // MTS bulk dump (REFERENCE.md, MIDI Tuning specification): F0 7E dev 08 01 tt ..., here device 16, program 5.
+    // MTS bulk dump (MIDI Tuning specification): F0 7E dev 08 01 tt ..., here device 16, program 5.
     const hex = element().querySelector('pre.hex')!.textContent!.split(' ').slice(0, 6);
     expect(hex).toEqual(['F0', '7E', '10', '08', '01', '05']);
     expect(element().querySelector('.target')!.textContent).toContain(
@@ -145,7 +145,7 @@ describe('InstrumentSend in the send panel', () => {
       const sends = Array.from(dialog.querySelectorAll('.sends li')).map((li) =>
         li.textContent!.replace(/\s+/g, ' ').trim(),
       );
-      // Sizes from the MIDI Tuning specification (REFERENCE.md): bulk dump 408 bytes, scale/octave 1-byte 21 bytes.
+      // Sizes from the MIDI Tuning specification: bulk dump 408 bytes, scale/octave 1-byte 21 bytes.
       expect(sends).toEqual([
         'Ondes on Ondes MIDI 1: replaces tuning program 5 (408 bytes)',
         'Octaves on Board MIDI: replaces the scale/octave tuning of all 16 channels (21 bytes)',
@@ -179,7 +179,7 @@ describe('InstrumentSend in the send panel', () => {
       };
       expect(received['out-ondes']).toEqual(expected('mts-bulk', 16));
       expect(received['out-board']).toEqual(expected('mts-octave-1', 127));
-      // Scale/octave 1-byte (REFERENCE.md): F0 7F dev 08 08 ff gg hh in its real-time form, the bitmap 03 7F 7F
+      // Scale/octave 1-byte (MIDI Tuning specification): F0 7F dev 08 08 ff gg hh in its real-time form, the bitmap 03 7F 7F
       // naming all 16 channels.
       expect(received['out-board'][0].slice(0, 8)).toEqual([
         0xf0, 0x7f, 0x7f, 0x08, 0x08, 0x03, 0x7f, 0x7f,
