@@ -7,7 +7,15 @@
 // and menus, and esbuild keeps in the first load whatever any route uses of a module the first
 // load needs. Run: npx tsx bench/app-bundle.bench.ts
 import { execFileSync } from 'node:child_process';
-import { cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, symlinkSync, writeFileSync } from 'node:fs';
+import {
+  cpSync,
+  mkdirSync,
+  mkdtempSync,
+  readFileSync,
+  rmSync,
+  symlinkSync,
+  writeFileSync,
+} from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
@@ -59,7 +67,8 @@ const shellTsconfig = {
 /** A copy of the workspace's build setup with a minimal shell in place of the app. */
 function bareShellWorkspace(withMenu: boolean): string {
   const workspace = mkdtempSync(join(tmpdir(), 'keyloom-bare-shell-'));
-  for (const file of ['angular.json', 'tsconfig.json', 'package.json']) cpSync(join(repo, file), join(workspace, file));
+  for (const file of ['angular.json', 'tsconfig.json', 'package.json'])
+    cpSync(join(repo, file), join(workspace, file));
   for (const file of ['index.html', 'styles.scss', '_theme-colors.scss']) {
     mkdirSync(join(workspace, 'src'), { recursive: true });
     cpSync(join(repo, 'src', file), join(workspace, 'src', file));
@@ -72,11 +81,15 @@ function bareShellWorkspace(withMenu: boolean): string {
 }
 
 function build(workspace: string, outputPath: string): void {
-  execFileSync('npx', ['ng', 'build', '--configuration', 'production', '--output-path', outputPath], {
-    cwd: workspace,
-    stdio: ['ignore', 'ignore', 'inherit'],
-    env: { ...process.env, NG_CLI_ANALYTICS: 'false' },
-  });
+  execFileSync(
+    'npx',
+    ['ng', 'build', '--configuration', 'production', '--output-path', outputPath],
+    {
+      cwd: workspace,
+      stdio: ['ignore', 'ignore', 'inherit'],
+      env: { ...process.env, NG_CLI_ANALYTICS: 'false' },
+    },
+  );
 }
 
 interface InitialScripts {
@@ -89,9 +102,11 @@ interface InitialScripts {
 function initialScripts(outputPath: string): InitialScripts {
   const browser = join(outputPath, 'browser');
   const html = readFileSync(join(browser, 'index.html'), 'utf8');
-  const files = [...html.matchAll(/<(?:script[^>]*\ssrc|link[^>]*rel="modulepreload"[^>]*\shref)="([^"]+\.js)"/g)].map(
-    (match) => match[1],
-  );
+  const files = [
+    ...html.matchAll(
+      /<(?:script[^>]*\ssrc|link[^>]*rel="modulepreload"[^>]*\shref)="([^"]+\.js)"/g,
+    ),
+  ].map((match) => match[1]);
   let rawBytes = 0;
   let gzipBytes = 0;
   for (const file of files) {
@@ -121,12 +136,16 @@ try {
   const shell = initialScripts(join(scratch, 'shell'));
   const smallShell = initialScripts(join(scratch, 'small-shell'));
   describe('Keyloom app', app);
-  describe('shell with Keyloom\'s Material pieces', shell);
+  describe("shell with Keyloom's Material pieces", shell);
   describe('shell without the menu', smallShell);
   const ratio = app.rawBytes / shell.rawBytes;
   const gzipRatio = app.gzipBytes / shell.gzipBytes;
-  console.log(`ratio ${ratio.toFixed(2)} raw, ${gzipRatio.toFixed(2)} gzip (target at most ${target})`);
-  console.log(`ratio to the shell without the menu ${(app.rawBytes / smallShell.rawBytes).toFixed(2)} raw`);
+  console.log(
+    `ratio ${ratio.toFixed(2)} raw, ${gzipRatio.toFixed(2)} gzip (target at most ${target})`,
+  );
+  console.log(
+    `ratio to the shell without the menu ${(app.rawBytes / smallShell.rawBytes).toFixed(2)} raw`,
+  );
   if (ratio > target) process.exitCode = 1;
 } finally {
   rmSync(scratch, { recursive: true, force: true });

@@ -21,7 +21,11 @@ const computeRuns = { runs: 300, warmUp: 100 };
 /** Edits wait for the page to settle between them, as keystrokes do. */
 const editRuns = { runs: 60, warmUp: 10 };
 const contentTypes: Record<string, string> = {
-  '.html': 'text/html', '.js': 'text/javascript', '.css': 'text/css', '.svg': 'image/svg+xml', '.woff2': 'font/woff2',
+  '.html': 'text/html',
+  '.js': 'text/javascript',
+  '.css': 'text/css',
+  '.svg': 'image/svg+xml',
+  '.woff2': 'font/woff2',
 };
 
 function serve(root: string) {
@@ -29,12 +33,17 @@ function serve(root: string) {
     const path = decodeURIComponent(new URL(request.url ?? '/', 'http://bench').pathname);
     if (path.startsWith('/api/')) {
       response.setHeader('content-type', 'application/json');
-      response.end(path === '/api/me' ? '{"user":null}' : '{"error":{"code":"not_found","message":"none"}}');
+      response.end(
+        path === '/api/me' ? '{"user":null}' : '{"error":{"code":"not_found","message":"none"}}',
+      );
       return;
     }
     const file = join(root, normalize(path));
     const body = await readFile(file).catch(() => null);
-    response.setHeader('content-type', body ? (contentTypes[extname(file)] ?? 'application/octet-stream') : 'text/html');
+    response.setHeader(
+      'content-type',
+      body ? (contentTypes[extname(file)] ?? 'application/octet-stream') : 'text/html',
+    );
     response.end(body ?? (await readFile(join(root, 'index.html'))));
   }).listen(0, '127.0.0.1');
 }
@@ -68,8 +77,15 @@ const output = mkdtempSync(join(tmpdir(), 'keyloom-recompute-'));
 const browser = await chromium.launch({
   executablePath: '/usr/bin/chromium',
   args: [
-    '--no-sandbox', '--headless', '--disable-gpu', '--disable-background-networking', '--disable-component-update',
-    '--disable-sync', '--no-first-run', '--disable-quic', '--disable-dev-shm-usage',
+    '--no-sandbox',
+    '--headless',
+    '--disable-gpu',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+    '--no-first-run',
+    '--disable-quic',
+    '--disable-dev-shm-usage',
   ],
 });
 const server = serve(join(output, 'browser'));
@@ -89,56 +105,64 @@ try {
   await page.locator('app-degree-table tbody tr').nth(71).waitFor();
 
   await page.addScriptTag({ content: await sharedScript() });
-  const computeTimes = await page.evaluate(
-    ({ runs, warmUp }) => {
-      type Preview = { parsePresetDocument: (input: unknown) => { ok: boolean; value?: unknown }; previewTable: (preset: unknown) => unknown };
-      const { parsePresetDocument, previewTable } = (window as unknown as { keyloomPreview: Preview }).keyloomPreview;
-      const times: number[] = [];
-      for (let run = 0; run < warmUp + runs; run++) {
-        const generator = run % 2 === 0 ? '3/2' : '701.9c';
-        const document = {
-          format: 'keyloom.preset', version: 1, name: '72 fifths', mapping: { rootKey: 60 },
-          scale: { kind: 'generated', generator, period: '2/1', up: 40, down: 31 },
-        };
-        const start = performance.now();
-        const parsed = parsePresetDocument(document);
-        if (parsed.ok) previewTable(parsed.value);
-        if (run >= warmUp) times.push(performance.now() - start);
-      }
-      return times;
-    },
-    computeRuns,
-  );
+  const computeTimes = await page.evaluate(({ runs, warmUp }) => {
+    type Preview = {
+      parsePresetDocument: (input: unknown) => { ok: boolean; value?: unknown };
+      previewTable: (preset: unknown) => unknown;
+    };
+    const { parsePresetDocument, previewTable } = (window as unknown as { keyloomPreview: Preview })
+      .keyloomPreview;
+    const times: number[] = [];
+    for (let run = 0; run < warmUp + runs; run++) {
+      const generator = run % 2 === 0 ? '3/2' : '701.9c';
+      const document = {
+        format: 'keyloom.preset',
+        version: 1,
+        name: '72 fifths',
+        mapping: { rootKey: 60 },
+        scale: { kind: 'generated', generator, period: '2/1', up: 40, down: 31 },
+      };
+      const start = performance.now();
+      const parsed = parsePresetDocument(document);
+      if (parsed.ok) previewTable(parsed.value);
+      if (run >= warmUp) times.push(performance.now() - start);
+    }
+    return times;
+  }, computeRuns);
 
-  const editTimes = await page.evaluate(
-    async ({ runs, warmUp }) => {
-      const input = [...document.querySelectorAll('mat-form-field')]
-        .find((field) => field.querySelector('mat-label')?.textContent?.trim() === 'Generator')!
-        .querySelector('input')!;
-      const cell = () => document.querySelector('app-degree-table tbody tr:nth-child(2) td:nth-child(3)')!;
-      const times: number[] = [];
-      for (let run = 0; run < warmUp + runs; run++) {
-        const before = cell().textContent;
-        const start = performance.now();
-        input.value = run % 2 === 0 ? '701.9c' : '3/2';
-        input.dispatchEvent(new Event('input', { bubbles: true }));
-        await new Promise<void>((resolve) => {
-          const observer = new MutationObserver(() => {
-            if (cell().textContent === before) return;
-            observer.disconnect();
-            resolve();
-          });
-          observer.observe(document.querySelector('app-degree-table')!, { subtree: true, characterData: true, childList: true });
+  const editTimes = await page.evaluate(async ({ runs, warmUp }) => {
+    const input = [...document.querySelectorAll('mat-form-field')]
+      .find((field) => field.querySelector('mat-label')?.textContent?.trim() === 'Generator')!
+      .querySelector('input')!;
+    const cell = () =>
+      document.querySelector('app-degree-table tbody tr:nth-child(2) td:nth-child(3)')!;
+    const times: number[] = [];
+    for (let run = 0; run < warmUp + runs; run++) {
+      const before = cell().textContent;
+      const start = performance.now();
+      input.value = run % 2 === 0 ? '701.9c' : '3/2';
+      input.dispatchEvent(new Event('input', { bubbles: true }));
+      await new Promise<void>((resolve) => {
+        const observer = new MutationObserver(() => {
+          if (cell().textContent === before) return;
+          observer.disconnect();
+          resolve();
         });
-        if (run >= warmUp) times.push(performance.now() - start);
-        await new Promise((resolve) => setTimeout(resolve, 20));
-      }
-      return times;
-    },
-    editRuns,
-  );
+        observer.observe(document.querySelector('app-degree-table')!, {
+          subtree: true,
+          characterData: true,
+          childList: true,
+        });
+      });
+      if (run >= warmUp) times.push(performance.now() - start);
+      await new Promise((resolve) => setTimeout(resolve, 20));
+    }
+    return times;
+  }, editRuns);
 
-  console.log(`72-tone recompute in Chromium (shared code)   ${summary(computeTimes)}; target under 16 ms`);
+  console.log(
+    `72-tone recompute in Chromium (shared code)   ${summary(computeTimes)}; target under 16 ms`,
+  );
   console.log(`72-tone edit to updated page (whole designer) ${summary(editTimes)}`);
 } finally {
   server.close();

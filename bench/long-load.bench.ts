@@ -14,16 +14,29 @@ const stack = await startBenchStack('longload');
 try {
   let server = stack.server;
   const started = Date.now();
-  const steady = await runMixedLoad({ appUrl: () => server.url, clients, seconds, loginPrefix: 'steady' });
+  const steady = await runMixedLoad({
+    appUrl: () => server.url,
+    clients,
+    seconds,
+    loginPrefix: 'steady',
+  });
   const lost = await missingSaves(server.url, 'steady', steady.acknowledged);
-  console.log(`Steady load: ${clients} players for ${seconds} s: ${steady.requests} requests ` +
-    `(${(steady.requests / ((Date.now() - started) / 1000)).toFixed(0)} a second), ${steady.failures.length} errors, ` +
-    `${steady.acknowledged.length} saves acknowledged, ${lost.length} of them lost`);
+  console.log(
+    `Steady load: ${clients} players for ${seconds} s: ${steady.requests} requests ` +
+      `(${(steady.requests / ((Date.now() - started) / 1000)).toFixed(0)} a second), ${steady.failures.length} errors, ` +
+      `${steady.acknowledged.length} saves acknowledged, ${lost.length} of them lost`,
+  );
   failed ||= steady.failures.length > 0 || lost.length > 0;
 
   let down = false;
   let restartedAt = 0;
-  const load = runMixedLoad({ appUrl: () => server.url, clients, seconds, loginPrefix: 'crash', outage: () => down });
+  const load = runMixedLoad({
+    appUrl: () => server.url,
+    clients,
+    seconds,
+    loginPrefix: 'crash',
+    outage: () => down,
+  });
   await new Promise((r) => setTimeout(r, Math.min(20, seconds / 3) * 1000));
   down = true;
   const port = server.port;
@@ -34,10 +47,14 @@ try {
   down = false;
   const crash = await load;
   const crashLost = await missingSaves(server.url, 'crash', crash.acknowledged);
-  const carriedOn = new Set(crash.acknowledged.filter((a) => a.at > restartedAt).map((a) => a.note.split(' ')[1])).size;
-  console.log(`Killed with SIGKILL mid-load and restarted: ${crash.requests} requests, ${crash.failuresDuringOutage} failed ` +
-    `while it was down, ${crash.failures.length} errors otherwise, ${crash.acknowledged.length} saves acknowledged, ` +
-    `${crashLost.length} lost; ${carriedOn} of ${clients} players saved again after the restart`);
+  const carriedOn = new Set(
+    crash.acknowledged.filter((a) => a.at > restartedAt).map((a) => a.note.split(' ')[1]),
+  ).size;
+  console.log(
+    `Killed with SIGKILL mid-load and restarted: ${crash.requests} requests, ${crash.failuresDuringOutage} failed ` +
+      `while it was down, ${crash.failures.length} errors otherwise, ${crash.acknowledged.length} saves acknowledged, ` +
+      `${crashLost.length} lost; ${carriedOn} of ${clients} players saved again after the restart`,
+  );
   failed ||= crash.failures.length > 0 || crashLost.length > 0 || carriedOn < clients;
   stack.server = server;
 } finally {

@@ -21,7 +21,11 @@ const document = {
   mapping: { rootKey: 60 },
 };
 
-async function requestsPerSecond(url: string, method: 'GET' | 'POST', body?: string): Promise<number> {
+async function requestsPerSecond(
+  url: string,
+  method: 'GET' | 'POST',
+  body?: string,
+): Promise<number> {
   const result = await autocannon({
     url,
     method,
@@ -30,7 +34,8 @@ async function requestsPerSecond(url: string, method: 'GET' | 'POST', body?: str
     headers: body ? { 'content-type': 'application/json' } : {},
     body,
   });
-  if (result.non2xx > 0 || result.errors > 0) throw new Error(`${url}: ${result.non2xx} answers not 2xx, ${result.errors} errors`);
+  if (result.non2xx > 0 || result.errors > 0)
+    throw new Error(`${url}: ${result.non2xx} answers not 2xx, ${result.errors} errors`);
   return result.requests.average;
 }
 
@@ -38,21 +43,51 @@ const stack = await startBenchStack('load');
 try {
   const base = stack.server.url;
   const body = JSON.stringify(document);
-  const tableBytes = (await (await fetch(`${base}/api/preview/table`, { method: 'POST', body, headers: { 'content-type': 'application/json' } })).text()).length;
+  const tableBytes = (
+    await (
+      await fetch(`${base}/api/preview/table`, {
+        method: 'POST',
+        body,
+        headers: { 'content-type': 'application/json' },
+      })
+    ).text()
+  ).length;
 
   const jar = new CookieJar();
   await jar.signIn(base, 'bench-owner');
-  const created = await (await jar.fetch(`${base}/api/presets`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ document }) })).json();
-  const share = await (await jar.fetch(`${base}/api/presets/${created.id}/shares`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' })).json();
+  const created = await (
+    await jar.fetch(`${base}/api/presets`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ document }),
+    })
+  ).json();
+  const share = await (
+    await jar.fetch(`${base}/api/presets/${created.id}/shares`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: '{}',
+    })
+  ).json();
   const sharedBytes = (await (await fetch(`${base}/api/shared/${share.token}`)).text()).length;
 
-  console.log(`Throughput with ${connections} concurrent connections for ${seconds} s each, against a constant route of the same size`);
+  console.log(
+    `Throughput with ${connections} concurrent connections for ${seconds} s each, against a constant route of the same size`,
+  );
   const table = await requestsPerSecond(`${base}/api/preview/table`, 'POST', body);
-  const tableFloor = await requestsPerSecond(`${base}/api/bench/constant/${tableBytes}`, 'POST', body);
-  console.log(`  POST /api/preview/table  ${table.toFixed(0)} req/s, floor ${tableFloor.toFixed(0)} req/s (${tableBytes} bytes): ratio ${(tableFloor / table).toFixed(2)} (time per request against the floor)`);
+  const tableFloor = await requestsPerSecond(
+    `${base}/api/bench/constant/${tableBytes}`,
+    'POST',
+    body,
+  );
+  console.log(
+    `  POST /api/preview/table  ${table.toFixed(0)} req/s, floor ${tableFloor.toFixed(0)} req/s (${tableBytes} bytes): ratio ${(tableFloor / table).toFixed(2)} (time per request against the floor)`,
+  );
   const shared = await requestsPerSecond(`${base}/api/shared/${share.token}`, 'GET');
   const sharedFloor = await requestsPerSecond(`${base}/api/bench/constant/${sharedBytes}`, 'GET');
-  console.log(`  GET /api/shared/:token   ${shared.toFixed(0)} req/s, floor ${sharedFloor.toFixed(0)} req/s (${sharedBytes} bytes): ratio ${(sharedFloor / shared).toFixed(2)}`);
+  console.log(
+    `  GET /api/shared/:token   ${shared.toFixed(0)} req/s, floor ${sharedFloor.toFixed(0)} req/s (${sharedBytes} bytes): ratio ${(sharedFloor / shared).toFixed(2)}`,
+  );
 } finally {
   await stack.stop();
 }
@@ -72,4 +107,6 @@ for (let i = 0; i < runs; i++) {
   await streamBundle(parsed.value, at, sink());
   bundleMs += performance.now() - t;
 }
-console.log(`Bundle generation: ${(bundleMs / runs).toFixed(1)} ms, floor (rendering its files without the zip) ${(filesMs / runs).toFixed(1)} ms: ratio ${(bundleMs / filesMs).toFixed(2)}`);
+console.log(
+  `Bundle generation: ${(bundleMs / runs).toFixed(1)} ms, floor (rendering its files without the zip) ${(filesMs / runs).toFixed(1)} ms: ratio ${(bundleMs / filesMs).toFixed(2)}`,
+);

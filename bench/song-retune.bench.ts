@@ -70,7 +70,11 @@ function writeBack(data: MidiData): Uint8Array {
           break;
         }
         case 'trackName':
-          track.meta(tick, 0x03, Array.from(event.text, (character) => character.charCodeAt(0)));
+          track.meta(
+            tick,
+            0x03,
+            Array.from(event.text, (character) => character.charCodeAt(0)),
+          );
           break;
         case 'setTempo': {
           const tempo = event.microsecondsPerBeat;

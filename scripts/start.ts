@@ -31,7 +31,9 @@ function stopEverything(code: number): Promise<void> {
   stopping ??= (async () => {
     await group?.stopAll();
     if (cluster.startedHere) {
-      await cluster.stop().catch((error: Error) => log(`stopping PostgreSQL: ${error.message.split('\n')[0]}`));
+      await cluster
+        .stop()
+        .catch((error: Error) => log(`stopping PostgreSQL: ${error.message.split('\n')[0]}`));
     } else {
       log('PostgreSQL was already running before this start; left running');
     }
@@ -67,7 +69,11 @@ try {
   await waitForHttp(`http://127.0.0.1:${ports.github}/health`);
   await waitForHttp(`http://127.0.0.1:${ports.mailbox}/health`);
 
-  group.start('server', 'server/index.ts', { ...fakeEnv, DATABASE_URL: databaseUrl, PORT: String(ports.app) });
+  group.start('server', 'server/index.ts', {
+    ...fakeEnv,
+    DATABASE_URL: databaseUrl,
+    PORT: String(ports.app),
+  });
   const appUrl = env['PUBLIC_URL'] ?? `http://127.0.0.1:${ports.app}`;
   await waitForHttp(`http://127.0.0.1:${ports.app}/api/health`);
 

@@ -6,8 +6,16 @@ import { join } from 'node:path';
 import { ensureBuild } from './stack/build';
 import { ensureCluster, repoRoot } from './stack/postgres';
 
-interface Counts { passed: number; failed: number; skipped: number }
-interface Suite { name: string; counts: Counts; ok: boolean }
+interface Counts {
+  passed: number;
+  failed: number;
+  skipped: number;
+}
+interface Suite {
+  name: string;
+  counts: Counts;
+  ok: boolean;
+}
 
 const log = (line: string) => console.log(`keyloom: ${line}`);
 const resultsDir = join(repoRoot, '.keyloom/results');
@@ -17,7 +25,11 @@ const bin = (name: string) => join(repoRoot, 'node_modules/.bin', name);
 const suites: Suite[] = [];
 
 function run(command: string, args: string[], env: Record<string, string> = {}): boolean {
-  const result = spawnSync(command, args, { cwd: repoRoot, stdio: 'inherit', env: { ...process.env, ...env } });
+  const result = spawnSync(command, args, {
+    cwd: repoRoot,
+    stdio: 'inherit',
+    env: { ...process.env, ...env },
+  });
   return result.status === 0;
 }
 
@@ -26,7 +38,11 @@ function vitestCounts(file: string): Counts | undefined {
   const report = JSON.parse(readFileSync(file, 'utf8'));
   return {
     passed: report.numPassedTests,
-    failed: report.numFailedTests + (report.numTotalTestSuites > 0 && report.success === false && report.numFailedTests === 0 ? 1 : 0),
+    failed:
+      report.numFailedTests +
+      (report.numTotalTestSuites > 0 && report.success === false && report.numFailedTests === 0
+        ? 1
+        : 0),
     skipped: report.numPendingTests + report.numTodoTests,
   };
 }
@@ -38,7 +54,14 @@ function check(name: string, ok: boolean): void {
 
 function vitest(name: string, config: string): void {
   const output = join(resultsDir, `${name}.json`);
-  const ok = run(bin('vitest'), ['run', '--config', config, '--reporter=default', '--reporter=json', `--outputFile.json=${output}`]);
+  const ok = run(bin('vitest'), [
+    'run',
+    '--config',
+    config,
+    '--reporter=default',
+    '--reporter=json',
+    `--outputFile.json=${output}`,
+  ]);
   const counts = vitestCounts(output) ?? { passed: 0, failed: 1, skipped: 0 };
   suites.push({ name, ok: ok && counts.failed === 0, counts });
 }
@@ -48,6 +71,9 @@ const cluster = await ensureCluster(log, { portIfTaken: 'pick-free' });
 try {
   log('type-checking the server, shared code, fakes, scripts and tests');
   check('type check', run(bin('tsc'), ['-p', 'server/tsconfig.json', '--noEmit']));
+
+  log('prettier: every file in the style .prettierrc sets');
+  check('code style', run(bin('prettier'), ['--check', '.']));
 
   log('vitest: shared, server and fakes');
   vitest('vitest', 'tests/vitest.config.ts');
@@ -80,17 +106,28 @@ try {
   }
 } finally {
   // A failure to stop is said, and the summary below still printed.
-  if (cluster.startedHere) await cluster.stop().catch((error: Error) => log(`stopping PostgreSQL: ${error.message.split('\n')[0]}`));
+  if (cluster.startedHere)
+    await cluster
+      .stop()
+      .catch((error: Error) => log(`stopping PostgreSQL: ${error.message.split('\n')[0]}`));
 }
 
 const total = suites.reduce(
-  (sum, s) => ({ passed: sum.passed + s.counts.passed, failed: sum.failed + s.counts.failed, skipped: sum.skipped + s.counts.skipped }),
+  (sum, s) => ({
+    passed: sum.passed + s.counts.passed,
+    failed: sum.failed + s.counts.failed,
+    skipped: sum.skipped + s.counts.skipped,
+  }),
   { passed: 0, failed: 0, skipped: 0 },
 );
 console.log('');
 for (const s of suites) {
-  console.log(`  ${s.ok ? 'ok  ' : 'FAIL'} ${s.name}: ${s.counts.passed} passed, ${s.counts.failed} failed`);
+  console.log(
+    `  ${s.ok ? 'ok  ' : 'FAIL'} ${s.name}: ${s.counts.passed} passed, ${s.counts.failed} failed`,
+  );
 }
 console.log('');
-console.log(`${total.passed} passed, ${total.failed} failed${total.skipped ? `, ${total.skipped} skipped` : ''}`);
+console.log(
+  `${total.passed} passed, ${total.failed} failed${total.skipped ? `, ${total.skipped} skipped` : ''}`,
+);
 process.exit(suites.every((s) => s.ok) ? 0 : 1);

@@ -54,7 +54,12 @@ function securityHeaders(config: Config) {
         // Angular writes component styles into <style> elements.
         'style-src': ["'self'", "'unsafe-inline'"],
         'font-src': ["'self'", 'data:'],
-        'img-src': ["'self'", 'data:', 'https://avatars.githubusercontent.com', origin(config.github.apiUrl)],
+        'img-src': [
+          "'self'",
+          'data:',
+          'https://avatars.githubusercontent.com',
+          origin(config.github.apiUrl),
+        ],
         'connect-src': ["'self'"],
         'upgrade-insecure-requests': config.secureCookies ? [] : null,
       },
@@ -78,7 +83,10 @@ function builtApp(staticDir: string): express.Router {
   );
   router.get('/{*splat}', (_req, res) => {
     if (!existsSync(indexHtml)) {
-      res.status(503).type('text/plain').send('The app is not built yet: run `npm start`, which builds it.');
+      res
+        .status(503)
+        .type('text/plain')
+        .send('The app is not built yet: run `npm start`, which builds it.');
       return;
     }
     res.setHeader('Cache-Control', 'no-cache');
@@ -95,7 +103,8 @@ export function createApp({ db, config, mailer, stage }: AppDependencies): Expre
   app.set('etag', false);
   app.set('trust proxy', config.trustProxy);
   app.use(securityHeaders(config));
-  if (config.logRequests) app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
+  if (config.logRequests)
+    app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
 
   app.use(healthRouter(db));
 
@@ -108,13 +117,22 @@ export function createApp({ db, config, mailer, stage }: AppDependencies): Expre
       store: new PgStore({ pool: db.$client, tableName: 'sessions', createTableIfMissing: false }),
       resave: false,
       saveUninitialized: false,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: 30 * 24 * 3600 * 1000 },
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: config.secureCookies,
+        maxAge: 30 * 24 * 3600 * 1000,
+      },
     }),
   );
   const passport = createPassport(db, config);
   app.use(passport.initialize());
   app.use(passport.session());
-  const xsrf = xsrfTokens({ sessionCookie, secure: config.secureCookies, secret: config.sessionSecret });
+  const xsrf = xsrfTokens({
+    sessionCookie,
+    secure: config.secureCookies,
+    secret: config.sessionSecret,
+  });
   app.use(xsrf.protection);
 
   const limit = rateLimited(config.rateLimitPerMinute);

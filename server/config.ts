@@ -20,7 +20,14 @@ export interface Config {
     /** Where profiles are read: https://api.github.com for the real service, the local fake otherwise. */
     apiUrl: string;
   };
-  smtp: { host: string; port: number; user?: string; password?: string; secure: boolean; from: string };
+  smtp: {
+    host: string;
+    port: number;
+    user?: string;
+    password?: string;
+    secure: boolean;
+    from: string;
+  };
   /** Requests per minute per address on sign-in and invite endpoints. */
   rateLimitPerMinute: number;
   /**
@@ -38,11 +45,14 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const port = Number(env['PORT'] ?? 3000);
   const host = env['HOST'] ?? '127.0.0.1';
   const publicUrl = (env['PUBLIC_URL'] ?? `http://${host}:${port}`).replace(/\/$/, '');
-  const fakeGitHub = env['FAKE_GITHUB_URL'] ?? `http://127.0.0.1:${env['FAKE_GITHUB_PORT'] ?? 3101}`;
+  const fakeGitHub =
+    env['FAKE_GITHUB_URL'] ?? `http://127.0.0.1:${env['FAKE_GITHUB_PORT'] ?? 3101}`;
   const databaseUrl = env['DATABASE_URL'];
-  if (!databaseUrl) throw new Error('DATABASE_URL is not set: start Keyloom with `npm start`, which sets it.');
+  if (!databaseUrl)
+    throw new Error('DATABASE_URL is not set: start Keyloom with `npm start`, which sets it.');
   const production = env['NODE_ENV'] === 'production';
-  const sessionSecret = env['SESSION_SECRET'] ?? (production ? '' : 'keyloom-local-development-only');
+  const sessionSecret =
+    env['SESSION_SECRET'] ?? (production ? '' : 'keyloom-local-development-only');
   if (!sessionSecret) throw new Error('SESSION_SECRET must be set when NODE_ENV=production.');
   return {
     host,
@@ -68,7 +78,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       from: env['MAIL_FROM'] ?? 'Keyloom <keyloom@localhost>',
     },
     rateLimitPerMinute: Number(env['RATE_LIMIT_PER_MINUTE'] ?? 30),
-    trustProxy: env['TRUST_PROXY'] ? (/^\d+$/.test(env['TRUST_PROXY']) ? Number(env['TRUST_PROXY']) : env['TRUST_PROXY']) : false,
+    trustProxy: env['TRUST_PROXY']
+      ? /^\d+$/.test(env['TRUST_PROXY'])
+        ? Number(env['TRUST_PROXY'])
+        : env['TRUST_PROXY']
+      : false,
     benchRoutes: env['KEYLOOM_BENCH_ROUTES'] === '1' && !production,
   };
 }

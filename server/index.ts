@@ -30,7 +30,9 @@ function shutDown(signal: string) {
   console.log(`${signal}: closing`);
   // Open streams end now, so that their browsers reconnect to another instance.
   void stage.close();
-  server.close(() => void Promise.all([db.$client.end(), stopWorkers()]).then(() => process.exit(0)));
+  server.close(
+    () => void Promise.all([db.$client.end(), stopWorkers()]).then(() => process.exit(0)),
+  );
   server.closeAllConnections();
   setTimeout(() => process.exit(0), 5_000).unref();
 }

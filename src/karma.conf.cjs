@@ -39,8 +39,14 @@ module.exports = function (config) {
       ChromeHeadlessKeyloom: {
         base: 'ChromeHeadless',
         flags: [
-          '--no-sandbox', '--headless', '--disable-gpu', '--disable-background-networking',
-          '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic',
+          '--no-sandbox',
+          '--headless',
+          '--disable-gpu',
+          '--disable-background-networking',
+          '--disable-component-update',
+          '--disable-sync',
+          '--no-first-run',
+          '--disable-quic',
           '--disable-dev-shm-usage',
           // A click in a spec is not a person's gesture: let audio contexts run, as they do after a real click.
           '--autoplay-policy=no-user-gesture-required',

@@ -13,7 +13,9 @@ declare module 'vitest' {
 export default async function setup(project: TestProject): Promise<(() => Promise<void>) | void> {
   if (process.env['KEYLOOM_NO_DB'] === '1') return;
   // Started here only when no run started it before: then on a free port if another checkout's cluster holds ours.
-  const cluster = await ensureCluster((line) => console.log(`keyloom: ${line}`), { portIfTaken: 'pick-free' });
+  const cluster = await ensureCluster((line) => console.log(`keyloom: ${line}`), {
+    portIfTaken: 'pick-free',
+  });
   const name = `keyloom_test_${process.pid}_${Date.now().toString(36)}`;
   await cluster.createDatabase(name, { fastCommits: true });
   const db = createDatabase(cluster.url(name));

@@ -9,7 +9,13 @@ export default defineConfig({
   root,
   resolve: { alias: { '@shared': `${root}shared` } },
   test: {
-    include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'fakes/**/*.test.ts', 'scripts/**/*.test.ts', 'tests/**/*.test.ts'],
+    include: [
+      'shared/**/*.test.ts',
+      'server/**/*.test.ts',
+      'fakes/**/*.test.ts',
+      'scripts/**/*.test.ts',
+      'tests/**/*.test.ts',
+    ],
     exclude: ['tests/e2e/**', 'tests/faults/**', 'node_modules/**'],
     globalSetup: ['tests/global-setup.ts'],
     setupFiles: ['tests/fast-check-setup.ts'],

@@ -6,7 +6,9 @@ import { ensureCluster } from '../../scripts/stack/postgres';
 import { startServerProcess } from '../../tests/support/server-process';
 
 export async function startBenchStack(name: string, env: Record<string, string> = {}) {
-  const cluster = await ensureCluster((line) => console.log(`keyloom: ${line}`), { portIfTaken: 'pick-free' });
+  const cluster = await ensureCluster((line) => console.log(`keyloom: ${line}`), {
+    portIfTaken: 'pick-free',
+  });
   const database = `keyloom_bench_${name}_${process.pid}`;
   await cluster.createDatabase(database);
   const db = createDatabase(cluster.url(database));

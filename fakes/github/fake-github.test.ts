@@ -27,7 +27,9 @@ function authorizeUrl(params: Record<string, string>): string {
 
 /** Signs in as `login` without the page and returns the redirect the browser would follow. */
 async function signIn(login: string, state = 'state-123'): Promise<URL> {
-  const response = await fetch(authorizeUrl({ login, state, scope: 'user:email' }), { redirect: 'manual' });
+  const response = await fetch(authorizeUrl({ login, state, scope: 'user:email' }), {
+    redirect: 'manual',
+  });
   expect(response.status).toBe(302);
   return new URL(response.headers.get('location') ?? '');
 }
@@ -70,14 +72,18 @@ describe('fake GitHub OAuth round trip', () => {
       redirect_uri: redirectUri,
     });
     expect(tokenResponse.status).toBe(200);
-    expect(tokenResponse.headers.get('content-type')).toMatch(/^application\/x-www-form-urlencoded/);
+    expect(tokenResponse.headers.get('content-type')).toMatch(
+      /^application\/x-www-form-urlencoded/,
+    );
     const answer = new URLSearchParams(await tokenResponse.text());
     expect(answer.get('token_type')).toBe('bearer');
     expect(answer.get('scope')).toBe('user:email');
     const accessToken = answer.get('access_token')!;
     expect(accessToken).toMatch(/^gho_/);
 
-    const userResponse = await fetch(`${github.url}/user`, { headers: { authorization: `token ${accessToken}` } });
+    const userResponse = await fetch(`${github.url}/user`, {
+      headers: { authorization: `token ${accessToken}` },
+    });
     expect(userResponse.status).toBe(200);
     expect(await userResponse.json()).toMatchObject({
       id: 91001,
@@ -108,7 +114,9 @@ describe('fake GitHub OAuth round trip', () => {
     expect(answer).toMatchObject({ token_type: 'bearer', scope: 'user:email' });
 
     const user = (await (
-      await fetch(`${github.url}/user`, { headers: { authorization: `Bearer ${answer['access_token']}` } })
+      await fetch(`${github.url}/user`, {
+        headers: { authorization: `Bearer ${answer['access_token']}` },
+      })
     ).json()) as { id: number; login: string };
     expect(user).toMatchObject({ id: 91002, login: 'tobias-reed' });
   });
@@ -141,11 +149,14 @@ describe('fake GitHub OAuth round trip', () => {
       internals._oauth2.getOAuthAccessToken(
         code,
         { grant_type: 'authorization_code', redirect_uri: redirectUri },
-        (error, token) => (error || !token ? reject(error ?? new Error('no token')) : resolve(token)),
+        (error, token) =>
+          error || !token ? reject(error ?? new Error('no token')) : resolve(token),
       );
     });
     const profile = await new Promise<Profile>((resolve, reject) => {
-      strategy.userProfile(accessToken, (error, user) => (error || !user ? reject(error) : resolve(user as Profile)));
+      strategy.userProfile(accessToken, (error, user) =>
+        error || !user ? reject(error) : resolve(user as Profile),
+      );
     });
     expect(profile.id).toBe('91003');
     expect(profile.username).toBe('ada-quill');
@@ -156,15 +167,23 @@ describe('fake GitHub OAuth round trip', () => {
 
   it('gives a typed login a stable generated identity', async () => {
     const first = (await (
-      await fetch(`${github.url}/user`, { headers: { authorization: `token ${await tokenFor('new-player')}` } })
+      await fetch(`${github.url}/user`, {
+        headers: { authorization: `token ${await tokenFor('new-player')}` },
+      })
     ).json()) as { id: number; login: string; name: string; email: string };
     const second = (await (
-      await fetch(`${github.url}/user`, { headers: { authorization: `token ${await tokenFor('new-player')}` } })
+      await fetch(`${github.url}/user`, {
+        headers: { authorization: `token ${await tokenFor('new-player')}` },
+      })
     ).json()) as { id: number };
     expect(first.id).toBe(second.id);
     expect(first.id).toBeGreaterThanOrEqual(200_000);
     expect(first.id).toBeLessThanOrEqual(999_999);
-    expect(first).toMatchObject({ login: 'new-player', name: 'new-player', email: 'new-player@users.keyloom.example' });
+    expect(first).toMatchObject({
+      login: 'new-player',
+      name: 'new-player',
+      email: 'new-player@users.keyloom.example',
+    });
   });
 });
 
@@ -198,9 +217,12 @@ describe('fake GitHub sign-in page', () => {
     expect(unknownClient.status).toBe(400);
     expect(await unknownClient.text()).toContain('someone-else');
 
-    const noRedirect = await fetch(`${github.url}/login/oauth/authorize?client_id=${clientId}&login=mira-vale`, {
-      redirect: 'manual',
-    });
+    const noRedirect = await fetch(
+      `${github.url}/login/oauth/authorize?client_id=${clientId}&login=mira-vale`,
+      {
+        redirect: 'manual',
+      },
+    );
     expect(noRedirect.status).toBe(400);
     expect(await noRedirect.text()).toContain('redirect_uri');
   });
@@ -238,8 +260,13 @@ describe('fake GitHub refusals', () => {
     const code = await codeFor('mira-vale');
     vi.useFakeTimers({ toFake: ['Date'] });
     vi.setSystemTime(Date.now() + 10 * 60 * 1000 + 1);
-    const response = await exchangeForm({ client_id: clientId, client_secret: clientSecret, code }, 'application/json');
-    expect(((await response.json()) as Record<string, string>)['error']).toBe('bad_verification_code');
+    const response = await exchangeForm(
+      { client_id: clientId, client_secret: clientSecret, code },
+      'application/json',
+    );
+    expect(((await response.json()) as Record<string, string>)['error']).toBe(
+      'bad_verification_code',
+    );
   });
 
   it('refuses /user and /user/emails without a valid token', async () => {
@@ -248,7 +275,9 @@ describe('fake GitHub refusals', () => {
       expect(missing.status).toBe(401);
       expect(await missing.json()).toEqual({ message: 'Bad credentials' });
 
-      const wrong = await fetch(`${github.url}${path}`, { headers: { authorization: 'token gho_made_up' } });
+      const wrong = await fetch(`${github.url}${path}`, {
+        headers: { authorization: 'token gho_made_up' },
+      });
       expect(wrong.status).toBe(401);
     }
   });

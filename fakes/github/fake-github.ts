@@ -51,7 +51,10 @@ export async function startFakeGitHub(options: FakeGitHubOptions = {}): Promise<
   };
 }
 
-function createFakeGitHubApp(client: { id: string; secret: string }, baseUrl: () => string): express.Express {
+function createFakeGitHubApp(
+  client: { id: string; secret: string },
+  baseUrl: () => string,
+): express.Express {
   const grants = new OAuthGrants();
   const app = express();
   app.disable('x-powered-by');
@@ -68,17 +71,32 @@ function createFakeGitHubApp(client: { id: string; secret: string }, baseUrl: ()
     res.set('Cache-Control', 'no-store');
     const clientId = firstString(req.query['client_id']);
     if (clientId !== client.id) {
-      sendErrorPage(res, 400, 'Unknown application', `No application is registered here with client_id "${clientId ?? ''}".`);
+      sendErrorPage(
+        res,
+        400,
+        'Unknown application',
+        `No application is registered here with client_id "${clientId ?? ''}".`,
+      );
       return;
     }
     const redirectUri = firstString(req.query['redirect_uri']);
     if (!redirectUri) {
-      sendErrorPage(res, 400, 'Missing redirect_uri', 'The authorize request must name a redirect_uri to return to.');
+      sendErrorPage(
+        res,
+        400,
+        'Missing redirect_uri',
+        'The authorize request must name a redirect_uri to return to.',
+      );
       return;
     }
     const redirectTarget = parseHttpUrl(redirectUri);
     if (!redirectTarget) {
-      sendErrorPage(res, 400, 'Invalid redirect_uri', 'The redirect_uri must be an absolute http or https address.');
+      sendErrorPage(
+        res,
+        400,
+        'Invalid redirect_uri',
+        'The redirect_uri must be an absolute http or https address.',
+      );
       return;
     }
 
@@ -137,7 +155,10 @@ function createFakeGitHubApp(client: { id: string; secret: string }, baseUrl: ()
       }
       const result = grants.redeemCode(params['code'] ?? '', clientId, params['redirect_uri']);
       if (!result.ok) {
-        sendTokenAnswer(res, wantsJson, { error: result.error, error_description: result.description });
+        sendTokenAnswer(res, wantsJson, {
+          error: result.error,
+          error_description: result.description,
+        });
         return;
       }
       sendTokenAnswer(res, wantsJson, {
@@ -204,7 +225,9 @@ function createFakeGitHubApp(client: { id: string; secret: string }, baseUrl: ()
 
   app.use((error: unknown, _req: Request, res: Response, _next: NextFunction) => {
     const status = httpStatusOf(error);
-    res.status(status).json({ message: status === 400 ? 'Problems parsing the request body' : 'Server Error' });
+    res
+      .status(status)
+      .json({ message: status === 400 ? 'Problems parsing the request body' : 'Server Error' });
   });
 
   return app;

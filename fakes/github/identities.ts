@@ -75,7 +75,9 @@ function parseIdentities(json: string): GitHubIdentity[] {
       typeof name !== 'string' ||
       typeof email !== 'string'
     ) {
-      throw new Error(`identities.json entry ${index} needs an integer id, a valid login, a name and an email`);
+      throw new Error(
+        `identities.json entry ${index} needs an integer id, a valid login, a name and an email`,
+      );
     }
     return { id, login, name, email, note: typeof note === 'string' ? note : '' };
   });

@@ -25,7 +25,12 @@ export class OAuthGrants {
   private readonly codes = new Map<string, PendingCode>();
   private readonly tokens = new Map<string, string>();
 
-  issueCode(grant: { login: string; clientId: string; redirectUri: string; scope: string }): string {
+  issueCode(grant: {
+    login: string;
+    clientId: string;
+    redirectUri: string;
+    scope: string;
+  }): string {
     this.forgetExpiredCodes();
     const code = randomBytes(10).toString('hex');
     this.codes.set(code, { ...grant, expiresAt: Date.now() + codeLifetimeMs });
@@ -53,7 +58,8 @@ export class OAuthGrants {
       return {
         ok: false,
         error: 'redirect_uri_mismatch',
-        description: 'The redirect_uri MUST match the registered callback URL for this application.',
+        description:
+          'The redirect_uri MUST match the registered callback URL for this application.',
       };
     }
     this.codes.delete(code);

@@ -13,7 +13,10 @@ export interface AuthorizeRequest {
 export const signInPageTitle = 'Fake GitHub sign-in';
 const standIn = 'GitHub sign-in';
 
-export function signInPage(request: AuthorizeRequest, identities: readonly GitHubIdentity[]): string {
+export function signInPage(
+  request: AuthorizeRequest,
+  identities: readonly GitHubIdentity[],
+): string {
   const hiddenFields = [
     hiddenField('client_id', request.clientId),
     hiddenField('redirect_uri', request.redirectUri),
@@ -33,7 +36,9 @@ export function signInPage(request: AuthorizeRequest, identities: readonly GitHu
     )
     .join('');
 
-  const scopeText = request.scope ? `<p class="muted">Requested scope: <code>${escapeHtml(request.scope)}</code></p>` : '';
+  const scopeText = request.scope
+    ? `<p class="muted">Requested scope: <code>${escapeHtml(request.scope)}</code></p>`
+    : '';
 
   return htmlPage(
     signInPageTitle,

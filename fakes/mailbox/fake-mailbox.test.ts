@@ -49,13 +49,20 @@ describe('fake mailbox', () => {
 
   it('lists messages newest first over the JSON API, filtered by recipient', async () => {
     await sendInvite('first');
-    await transport.sendMail({ from: 'a@keyloom.example', to: 'mira.vale@copperfen.example', subject: 'second', text: 'hi' });
+    await transport.sendMail({
+      from: 'a@keyloom.example',
+      to: 'mira.vale@copperfen.example',
+      subject: 'second',
+      text: 'hi',
+    });
 
     const all = (await (await fetch(`${mailbox.webUrl}/api/messages`)).json()) as MailMessage[];
     expect(all.map((message) => message.subject)).toEqual(['second', 'first']);
 
     const forMira = (await (
-      await fetch(`${mailbox.webUrl}/api/messages?to=${encodeURIComponent('Mira.Vale@copperfen.example')}`)
+      await fetch(
+        `${mailbox.webUrl}/api/messages?to=${encodeURIComponent('Mira.Vale@copperfen.example')}`,
+      )
     ).json()) as MailMessage[];
     expect(forMira.map((message) => message.subject)).toEqual(['second']);
 

@@ -28,7 +28,9 @@ export class MessageStore {
       return [...this.items];
     }
     const wanted = recipient.trim().toLowerCase();
-    return this.items.filter((message) => message.to.some((address) => address.toLowerCase() === wanted));
+    return this.items.filter((message) =>
+      message.to.some((address) => address.toLowerCase() === wanted),
+    );
   }
 
   get(id: string): MailMessage | undefined {

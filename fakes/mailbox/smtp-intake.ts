@@ -57,10 +57,15 @@ export async function startSmtpIntake(options: {
   };
 }
 
-async function receiveMessage(stream: SMTPServerDataStream, session: SMTPServerSession): Promise<MailMessage> {
+async function receiveMessage(
+  stream: SMTPServerDataStream,
+  session: SMTPServerSession,
+): Promise<MailMessage> {
   const raw = await readUpToLimit(stream);
   if (raw === undefined) {
-    throw Object.assign(new Error('Message exceeds the 5 MB limit of this mailbox'), { responseCode: 552 });
+    throw Object.assign(new Error('Message exceeds the 5 MB limit of this mailbox'), {
+      responseCode: 552,
+    });
   }
   const parsed = await simpleParser(raw);
   const envelopeFrom = session.envelope.mailFrom === false ? '' : session.envelope.mailFrom.address;

@@ -29,11 +29,18 @@ export function sourcesHash(): string {
 
 export function ensureBuild(log: (line: string) => void): void {
   const want = sourcesHash();
-  if (existsSync(join(outputDir, 'browser/index.html')) && existsSync(stampFile) && readFileSync(stampFile, 'utf8') === want) {
+  if (
+    existsSync(join(outputDir, 'browser/index.html')) &&
+    existsSync(stampFile) &&
+    readFileSync(stampFile, 'utf8') === want
+  ) {
     return;
   }
   log('building the app (ng build)');
-  const result = spawnSync(join(repoRoot, 'node_modules/.bin/ng'), ['build'], { cwd: repoRoot, stdio: 'inherit' });
+  const result = spawnSync(join(repoRoot, 'node_modules/.bin/ng'), ['build'], {
+    cwd: repoRoot,
+    stdio: 'inherit',
+  });
   if (result.status !== 0) throw new Error('ng build failed; its messages are above.');
   writeFileSync(stampFile, want);
 }

@@ -44,7 +44,10 @@ describe('demo data', () => {
 
   it('includes a stacked-fifths preset whose latest revision is the newest document', async () => {
     const fifths = demoPresets.find((p) => p.revisions.at(-1)!.document['name'] === 'Fen Fifths')!;
-    expect(fifths.revisions.at(-1)!.document['scale']).toMatchObject({ kind: 'generated', generator: '3/2' });
+    expect(fifths.revisions.at(-1)!.document['scale']).toMatchObject({
+      kind: 'generated',
+      generator: '3/2',
+    });
     const row = await db.query.presets.findFirst({ where: eq(presets.name, 'Fen Fifths') });
     expect(row?.latestRevision).toBe(fifths.revisions.length);
   });
@@ -61,7 +64,9 @@ describe('demo data after a demo member signed in first', () => {
       .values({ githubId: '91002', login: 'tobias-reed', name: 'Tobias Reed' })
       .returning({ id: users.id });
     await seedDemoData(db);
-    const tobias = await db.query.memberships.findFirst({ where: eq(memberships.userId, early.id) });
+    const tobias = await db.query.memberships.findFirst({
+      where: eq(memberships.userId, early.id),
+    });
     expect(tobias?.role).toBe('editor');
   });
 });

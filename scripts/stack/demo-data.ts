@@ -7,7 +7,12 @@ import type { Database } from '../../server/db/client';
 import { bands, memberships, presetRevisions, presets, users } from '../../server/db/schema';
 import { repoRoot } from './postgres';
 
-interface Identity { id: number; login: string; name: string; email: string }
+interface Identity {
+  id: number;
+  login: string;
+  name: string;
+  email: string;
+}
 
 export const demoIdentities: Identity[] = JSON.parse(
   readFileSync(join(repoRoot, 'fakes/github/identities.json'), 'utf8'),
@@ -79,7 +84,14 @@ export const demoPresets: DemoPreset[] = [
         note: 'Quarter-comma fifths for the reed organ set',
         document: presetDocument(
           'Reed Organ Meantone',
-          { kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3, temper: { comma: '81/80', fraction: '1/4' } },
+          {
+            kind: 'generated',
+            generator: '3/2',
+            period: '2/1',
+            up: 8,
+            down: 3,
+            temper: { comma: '81/80', fraction: '1/4' },
+          },
           { rootKey: 60, concertA: 440 },
         ),
       },
@@ -92,7 +104,11 @@ export const demoPresets: DemoPreset[] = [
     revisions: [
       {
         note: 'Thirty-one equal steps, one per key',
-        document: presetDocument('Thirty-One Lanes', { kind: 'equal', divisions: 31, period: '2/1' }, { rootKey: 48, concertA: 440 }),
+        document: presetDocument(
+          'Thirty-One Lanes',
+          { kind: 'equal', divisions: 31, period: '2/1' },
+          { rootKey: 48, concertA: 440 },
+        ),
       },
     ],
   },
@@ -118,7 +134,11 @@ export const demoPresets: DemoPreset[] = [
     revisions: [
       {
         note: 'Harmonics eight to sixteen over low C',
-        document: presetDocument('Lantern Harmonics', { kind: 'harmonic', from: 8, to: 16 }, { rootKey: 36, concertA: 440 }),
+        document: presetDocument(
+          'Lantern Harmonics',
+          { kind: 'harmonic', from: 8, to: 16 },
+          { rootKey: 36, concertA: 440 },
+        ),
       },
     ],
   },
@@ -139,11 +159,17 @@ export async function seedDemoData(db: Database): Promise<void> {
         .insert(users)
         .values({ id: member.id, githubId: String(id), login: member.login, name, email })
         .onConflictDoNothing();
-      const [row] = await tx.select({ id: users.id }).from(users).where(eq(users.githubId, String(id)));
+      const [row] = await tx
+        .select({ id: users.id })
+        .from(users)
+        .where(eq(users.githubId, String(id)));
       userIds.set(member.id, row.id);
     }
     const userId = (fixedId: string) => userIds.get(fixedId)!;
-    await tx.insert(bands).values({ ...demoBand, createdBy: userId(ids.mira) }).onConflictDoNothing();
+    await tx
+      .insert(bands)
+      .values({ ...demoBand, createdBy: userId(ids.mira) })
+      .onConflictDoNothing();
     for (const member of demoMembers) {
       await tx
         .insert(memberships)

@@ -37,11 +37,17 @@ describe('the cluster when its port is taken', () => {
   it('takes a free port for a test run, says which, and a second call finds the running cluster on it', async () => {
     const lines: string[] = [];
     const envPort = process.env['KEYLOOM_PG_PORT'];
-    cluster = await ensureCluster((line) => lines.push(line), { stateDir, port: heldPort, portIfTaken: 'pick-free' });
+    cluster = await ensureCluster((line) => lines.push(line), {
+      stateDir,
+      port: heldPort,
+      portIfTaken: 'pick-free',
+    });
     expect(cluster.startedHere).toBe(true);
     expect(cluster.port).not.toBe(heldPort);
     const holder = `another process (node, pid ${process.pid})`;
-    expect(lines).toContain(`port ${heldPort} is held by ${holder}; the test cluster uses port ${cluster.port}`);
+    expect(lines).toContain(
+      `port ${heldPort} is held by ${holder}; the test cluster uses port ${cluster.port}`,
+    );
 
     const client = new pg.Client({ connectionString: cluster.url('postgres') });
     await client.connect();
@@ -52,7 +58,11 @@ describe('the cluster when its port is taken', () => {
     }
 
     // A child process of the run asks for the usual port again: it gets the one the cluster runs on.
-    const again = await ensureCluster(() => {}, { stateDir, port: heldPort, portIfTaken: 'pick-free' });
+    const again = await ensureCluster(() => {}, {
+      stateDir,
+      port: heldPort,
+      portIfTaken: 'pick-free',
+    });
     expect(again.startedHere).toBe(false);
     expect(again.port).toBe(cluster.port);
     // A cluster in a folder of its own leaves the run's variable alone.

@@ -1,7 +1,15 @@
 // The project's own PostgreSQL cluster: Debian's server binaries, a data folder of our own, listening on 127.0.0.1.
 import { execFile } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
-import { chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import {
+  chownSync,
+  existsSync,
+  mkdirSync,
+  readdirSync,
+  readFileSync,
+  rmSync,
+  writeFileSync,
+} from 'node:fs';
 import { createServer } from 'node:net';
 import { join, resolve } from 'node:path';
 import { promisify } from 'node:util';
@@ -33,10 +41,14 @@ function postgresBinDir(): string {
   if (process.env['KEYLOOM_PG_BIN']) return process.env['KEYLOOM_PG_BIN'];
   const base = '/usr/lib/postgresql';
   const versions = existsSync(base)
-    ? readdirSync(base).filter((v) => existsSync(join(base, v, 'bin', 'postgres'))).sort((a, b) => Number(b) - Number(a))
+    ? readdirSync(base)
+        .filter((v) => existsSync(join(base, v, 'bin', 'postgres')))
+        .sort((a, b) => Number(b) - Number(a))
     : [];
   if (versions.length === 0) {
-    throw new Error('PostgreSQL server binaries not found under /usr/lib/postgresql: run `apt-get install postgresql`.');
+    throw new Error(
+      'PostgreSQL server binaries not found under /usr/lib/postgresql: run `apt-get install postgresql`.',
+    );
   }
   return join(base, versions[0], 'bin');
 }
@@ -45,7 +57,9 @@ const isRoot = () => process.getuid?.() === 0;
 
 /** initdb and postgres refuse to run as root: as root, run them as the `postgres` user. */
 async function asServerUser(command: string, args: string[]): Promise<string> {
-  const [file, argv] = isRoot() ? ['runuser', ['-u', 'postgres', '--', command, ...args]] : [command, args];
+  const [file, argv] = isRoot()
+    ? ['runuser', ['-u', 'postgres', '--', command, ...args]]
+    : [command, args];
   const { stdout } = await run(file, argv, { cwd: '/' });
   return stdout;
 }
@@ -74,9 +88,14 @@ function shortHash(text: string): string {
 
 function chownToServerUser(path: string): void {
   if (!isRoot()) return;
-  const uid = Number(readFileSync('/etc/passwd', 'utf8').match(/^postgres:[^:]*:(\d+):(\d+):/m)?.[1]);
-  const gid = Number(readFileSync('/etc/passwd', 'utf8').match(/^postgres:[^:]*:(\d+):(\d+):/m)?.[2]);
-  if (Number.isNaN(uid)) throw new Error('The postgres system user is missing: reinstall Debian\'s postgresql package.');
+  const uid = Number(
+    readFileSync('/etc/passwd', 'utf8').match(/^postgres:[^:]*:(\d+):(\d+):/m)?.[1],
+  );
+  const gid = Number(
+    readFileSync('/etc/passwd', 'utf8').match(/^postgres:[^:]*:(\d+):(\d+):/m)?.[2],
+  );
+  if (Number.isNaN(uid))
+    throw new Error("The postgres system user is missing: reinstall Debian's postgresql package.");
   chownSync(path, uid, gid);
 }
 
@@ -138,7 +157,12 @@ async function portHolder(port: number): Promise<string> {
     // No ss, or no right to see the process: ask the port itself below.
   }
   const probe = new pg.Client({
-    host: '127.0.0.1', port, user: superuser, password: 'probe', database: 'postgres', connectionTimeoutMillis: 3000,
+    host: '127.0.0.1',
+    port,
+    user: superuser,
+    password: 'probe',
+    database: 'postgres',
+    connectionTimeoutMillis: 3000,
   });
   try {
     await probe.connect();
@@ -153,7 +177,8 @@ async function portHolder(port: number): Promise<string> {
 }
 
 async function nearbyFreePort(port: number): Promise<number | undefined> {
-  for (let next = port + 1; next <= Math.min(port + 20, 65535); next++) if (await portIsFree(next)) return next;
+  for (let next = port + 1; next <= Math.min(port + 20, 65535); next++)
+    if (await portIsFree(next)) return next;
   return undefined;
 }
 
@@ -168,7 +193,10 @@ export interface ClusterOptions {
   portIfTaken?: 'fail' | 'pick-free';
 }
 
-export async function ensureCluster(log: (line: string) => void = () => {}, options: ClusterOptions = {}): Promise<Cluster> {
+export async function ensureCluster(
+  log: (line: string) => void = () => {},
+  options: ClusterOptions = {},
+): Promise<Cluster> {
   const binDir = postgresBinDir();
   const wantedPort = options.port ?? Number(process.env['KEYLOOM_PG_PORT'] ?? 55432);
   let port = wantedPort;
@@ -193,8 +221,16 @@ export async function ensureCluster(log: (line: string) => void = () => {}, opti
     chownToServerUser(initPasswordFile);
     try {
       await asServerUser(join(binDir, 'initdb'), [
-        '-D', dataDir, '-U', superuser, `--pwfile=${initPasswordFile}`, '--auth=scram-sha-256', '-E', 'UTF8',
-        '--no-locale', '--no-instructions',
+        '-D',
+        dataDir,
+        '-U',
+        superuser,
+        `--pwfile=${initPasswordFile}`,
+        '--auth=scram-sha-256',
+        '-E',
+        'UTF8',
+        '--no-locale',
+        '--no-instructions',
       ]);
     } finally {
       rmSync(initPasswordFile, { force: true });
@@ -209,14 +245,27 @@ export async function ensureCluster(log: (line: string) => void = () => {}, opti
     const serverOptions = `-c listen_addresses=127.0.0.1 -c port=${port} -c unix_socket_directories=${socketDir}`;
     try {
       await asServerUser(join(binDir, 'pg_ctl'), [
-        'start', '-w', '-t', '60', '-D', dataDir, '-l', join(dataDir, 'keyloom-server.log'), '-o', serverOptions,
+        'start',
+        '-w',
+        '-t',
+        '60',
+        '-D',
+        dataDir,
+        '-l',
+        join(dataDir, 'keyloom-server.log'),
+        '-o',
+        serverOptions,
       ]);
     } catch (error) {
       const tail = existsSync(join(dataDir, 'keyloom-server.log'))
-        ? (await asServerUser('tail', ['-n', '15', join(dataDir, 'keyloom-server.log')]))
+        ? await asServerUser('tail', ['-n', '15', join(dataDir, 'keyloom-server.log')])
         : '';
-      const held = (await portIsFree(port)) ? '' : `; port ${port} is held by ${await portHolder(port)}`;
-      throw new Error(`PostgreSQL did not start on 127.0.0.1:${port}${held}:\n${tail}`, { cause: error });
+      const held = (await portIsFree(port))
+        ? ''
+        : `; port ${port} is held by ${await portHolder(port)}`;
+      throw new Error(`PostgreSQL did not start on 127.0.0.1:${port}${held}:\n${tail}`, {
+        cause: error,
+      });
     }
   };
 
@@ -248,7 +297,8 @@ export async function ensureCluster(log: (line: string) => void = () => {}, opti
         startedHere = true;
       } catch (error) {
         // Between the check and the start, another program can take a free port: pick again, a few times.
-        if (options.portIfTaken !== 'pick-free' || attempt === 3 || (await portIsFree(port))) throw error;
+        if (options.portIfTaken !== 'pick-free' || attempt === 3 || (await portIsFree(port)))
+          throw error;
       }
     }
   }
@@ -274,16 +324,23 @@ export async function ensureCluster(log: (line: string) => void = () => {}, opti
     url,
     async createDatabase(database, options = {}) {
       await admin(async (client) => {
-        const found = await client.query('SELECT 1 FROM pg_database WHERE datname = $1', [database]);
-        if (found.rowCount === 0) await client.query(`CREATE DATABASE ${pg.escapeIdentifier(database)}`);
+        const found = await client.query('SELECT 1 FROM pg_database WHERE datname = $1', [
+          database,
+        ]);
+        if (found.rowCount === 0)
+          await client.query(`CREATE DATABASE ${pg.escapeIdentifier(database)}`);
         if (options.fastCommits) {
           // Losing the last commits of a crashed test run is harmless; corruption is not possible with this setting.
-          await client.query(`ALTER DATABASE ${pg.escapeIdentifier(database)} SET synchronous_commit = off`);
+          await client.query(
+            `ALTER DATABASE ${pg.escapeIdentifier(database)} SET synchronous_commit = off`,
+          );
         }
       });
     },
     async dropDatabase(database) {
-      await admin((client) => client.query(`DROP DATABASE IF EXISTS ${pg.escapeIdentifier(database)} WITH (FORCE)`));
+      await admin((client) =>
+        client.query(`DROP DATABASE IF EXISTS ${pg.escapeIdentifier(database)} WITH (FORCE)`),
+      );
     },
     async stop() {
       // Stopped already (by whoever else held it last): nothing to do, and no reason to fail the run's summary.

@@ -10,7 +10,12 @@ export class ProcessGroup {
   constructor(private readonly onUnexpectedExit: (name: string, code: number | null) => void) {}
 
   /** Runs a TypeScript entry point of the project under Node with tsx. */
-  start(name: string, entry: string, env: Record<string, string>, options: { quiet?: boolean } = {}): ChildProcess {
+  start(
+    name: string,
+    entry: string,
+    env: Record<string, string>,
+    options: { quiet?: boolean } = {},
+  ): ChildProcess {
     const child = spawn(process.execPath, ['--import', 'tsx', entry], {
       cwd: repoRoot,
       env: { ...process.env, ...env },

@@ -19,7 +19,8 @@ async function authorizeAtProvider(authorizeUrl: string): Promise<string> {
 }
 
 function cookieValue(agent: request.Agent, name: string): string | undefined {
-  return agent.jar.getCookie(name, { domain: '127.0.0.1', path: '/', secure: false, script: false })?.value;
+  return agent.jar.getCookie(name, { domain: '127.0.0.1', path: '/', secure: false, script: false })
+    ?.value;
 }
 
 describe('sign-in through the GitHub provider', () => {
@@ -41,14 +42,20 @@ describe('sign-in through the GitHub provider', () => {
 
     const me = await agent.get('/api/me');
     // The profile the fake serves for its demo identity (fakes/github/identities.json).
-    expect(me.body.user).toMatchObject({ login: 'tobias-reed', name: 'Tobias Reed', email: 'tobias.reed@copperfen.example' });
+    expect(me.body.user).toMatchObject({
+      login: 'tobias-reed',
+      name: 'Tobias Reed',
+      email: 'tobias.reed@copperfen.example',
+    });
     expect(me.body.user.avatarUrl).toMatch(/\/avatars\/tobias-reed\.svg$/);
 
     const refused = await agent.post('/auth/logout');
     expect(refused.status).toBe(403);
     expect(refused.body.error.code).toBe('xsrf');
 
-    const out = await agent.post('/auth/logout').set('X-XSRF-TOKEN', cookieValue(agent, 'XSRF-TOKEN')!);
+    const out = await agent
+      .post('/auth/logout')
+      .set('X-XSRF-TOKEN', cookieValue(agent, 'XSRF-TOKEN')!);
     expect(out.status).toBe(204);
     expect((await agent.get('/api/me')).body).toEqual({ user: null });
   });
@@ -60,7 +67,9 @@ describe('sign-in through the GitHub provider', () => {
       await agent.get(await authorizeAtProvider(start.headers['location']));
       expect((await agent.get('/api/me')).body.user.login).toBe('new-player-7');
     }
-    const rows = await server.db.query.users.findMany({ where: (u, { eq }) => eq(u.login, 'new-player-7') });
+    const rows = await server.db.query.users.findMany({
+      where: (u, { eq }) => eq(u.login, 'new-player-7'),
+    });
     expect(rows).toHaveLength(1);
     expect(rows[0].lastSignInAt).toBeInstanceOf(Date);
   });
@@ -73,7 +82,9 @@ describe('sign-in through the GitHub provider', () => {
 
     for (const elsewhere of ['https://example.org/', '//example.org/x', '/\\example.org']) {
       const other = request.agent(server.app);
-      const again = await other.get(`/auth/github?login=ada-quill&next=${encodeURIComponent(elsewhere)}`);
+      const again = await other.get(
+        `/auth/github?login=ada-quill&next=${encodeURIComponent(elsewhere)}`,
+      );
       const home = await other.get(await authorizeAtProvider(again.headers['location']));
       expect(home.headers['location']).toBe('/');
     }
@@ -82,7 +93,10 @@ describe('sign-in through the GitHub provider', () => {
   it('refuses a callback whose state does not match the one it issued', async () => {
     const agent = request.agent(server.app);
     const start = await agent.get('/auth/github?login=mira-vale');
-    const callback = new URL(await authorizeAtProvider(start.headers['location']), 'http://127.0.0.1');
+    const callback = new URL(
+      await authorizeAtProvider(start.headers['location']),
+      'http://127.0.0.1',
+    );
     callback.searchParams.set('state', 'forged');
     const back = await agent.get(callback.pathname + callback.search);
     expect(back.status).toBe(302);

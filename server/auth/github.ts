@@ -49,16 +49,24 @@ export function createPassport(db: Database, config: Config): Passport {
       scope: ['user:email'],
       state: true as unknown as string,
     },
-    (_accessToken: string, _refreshToken: string, profile: Profile, done: (e: unknown, u?: SignedInUser) => void) => {
+    (
+      _accessToken: string,
+      _refreshToken: string,
+      profile: Profile,
+      done: (e: unknown, u?: SignedInUser) => void,
+    ) => {
       upsertGitHubUser(db, profile).then((user) => done(null, user), done);
     },
   );
   // GitHub's authorize endpoint takes `login` to suggest an account; the local fake signs in as it directly.
-  strategy.authorizationParams = (options: { login?: string }) => (options.login ? { login: options.login } : {});
+  strategy.authorizationParams = (options: { login?: string }) =>
+    options.login ? { login: options.login } : {};
   passport.use(strategy);
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser((id: string, done) => {
-    db.query.users.findFirst({ where: eq(users.id, id) }).then((user) => done(null, user ?? false), done);
+    db.query.users
+      .findFirst({ where: eq(users.id, id) })
+      .then((user) => done(null, user ?? false), done);
   });
   return passport;
 }
@@ -94,7 +102,10 @@ export function authRouter(passport: Passport, limit: RequestHandler, xsrf: Xsrf
     res.redirect(failedSignIn);
   };
   router.get('/auth/github', limit, (req, res, next) => {
-    const login = typeof req.query['login'] === 'string' && loginPattern.test(req.query['login']) ? req.query['login'] : undefined;
+    const login =
+      typeof req.query['login'] === 'string' && loginPattern.test(req.query['login'])
+        ? req.query['login']
+        : undefined;
     const returnTo = returnPath(req.query['next']);
     if (returnTo) req.session.returnTo = returnTo;
     passport.authenticate('github', { login } as object)(req, res, next);

@@ -50,12 +50,19 @@ export const bands = pgTable('bands', {
 export const memberships = pgTable(
   'memberships',
   {
-    bandId: uuid('band_id').notNull().references(() => bands.id, { onDelete: 'cascade' }),
-    userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    bandId: uuid('band_id')
+      .notNull()
+      .references(() => bands.id, { onDelete: 'cascade' }),
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
     role: bandRole('role').notNull(),
     createdAt: createdAt(),
   },
-  (t) => [primaryKey({ columns: [t.bandId, t.userId] }), index('memberships_user_idx').on(t.userId)],
+  (t) => [
+    primaryKey({ columns: [t.bandId, t.userId] }),
+    index('memberships_user_idx').on(t.userId),
+  ],
 );
 
 /** An e-mail invitation into a band; only a hash of the single-use token is kept. */
@@ -63,7 +70,9 @@ export const invites = pgTable(
   'invites',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    bandId: uuid('band_id').notNull().references(() => bands.id, { onDelete: 'cascade' }),
+    bandId: uuid('band_id')
+      .notNull()
+      .references(() => bands.id, { onDelete: 'cascade' }),
     email: text('email').notNull(),
     role: bandRole('role').notNull(),
     tokenHash: text('token_hash').notNull().unique(),
@@ -85,11 +94,15 @@ export const presets = pgTable(
   'presets',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    ownerId: uuid('owner_id').notNull().references(() => users.id, { onDelete: 'restrict' }),
+    ownerId: uuid('owner_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'restrict' }),
     bandId: uuid('band_id').references(() => bands.id, { onDelete: 'restrict' }),
     name: text('name').notNull(),
     latestRevision: integer('latest_revision').notNull().default(1),
-    forkedFromId: uuid('forked_from_id').references((): AnyPgColumn => presets.id, { onDelete: 'set null' }),
+    forkedFromId: uuid('forked_from_id').references((): AnyPgColumn => presets.id, {
+      onDelete: 'set null',
+    }),
     forkedFromRevision: integer('forked_from_revision'),
     createdAt: createdAt(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
@@ -107,7 +120,9 @@ export const presets = pgTable(
 export const presetRevisions = pgTable(
   'preset_revisions',
   {
-    presetId: uuid('preset_id').notNull().references(() => presets.id, { onDelete: 'cascade' }),
+    presetId: uuid('preset_id')
+      .notNull()
+      .references(() => presets.id, { onDelete: 'cascade' }),
     revision: integer('revision').notNull(),
     document: jsonb('document').notNull(),
     note: text('note'),
@@ -125,7 +140,9 @@ export const shareLinks = pgTable(
   'share_links',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    presetId: uuid('preset_id').notNull().references(() => presets.id, { onDelete: 'cascade' }),
+    presetId: uuid('preset_id')
+      .notNull()
+      .references(() => presets.id, { onDelete: 'cascade' }),
     revision: integer('revision'),
     tokenHash: text('token_hash').notNull().unique(),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
@@ -140,7 +157,9 @@ export const uploads = pgTable(
   'uploads',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
     purpose: text('purpose').notNull(),
     fileName: text('file_name').notNull(),
     byteSize: integer('byte_size').notNull(),
@@ -173,16 +192,20 @@ export const auditLog = pgTable(
     detail: jsonb('detail').$type<Record<string, unknown>>(),
     createdAt: createdAt(),
   },
-  (t) => [index('audit_log_band_idx').on(t.bandId, t.createdAt), index('audit_log_preset_idx').on(t.presetId)],
+  (t) => [
+    index('audit_log_band_idx').on(t.bandId, t.createdAt),
+    index('audit_log_preset_idx').on(t.presetId),
+  ],
 );
-
 
 /** A member's instrument: how their gear takes a tuning. Private to its owner. */
 export const instruments = pgTable(
   'instruments',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    ownerId: uuid('owner_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    ownerId: uuid('owner_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
     receives: text('receives').$type<ReceiveForm>().notNull(),
     deviceId: integer('device_id').notNull(),
@@ -203,23 +226,32 @@ export const setlists = pgTable(
   'setlists',
   {
     id: uuid('id').primaryKey().defaultRandom(),
-    bandId: uuid('band_id').notNull().references(() => bands.id, { onDelete: 'cascade' }),
+    bandId: uuid('band_id')
+      .notNull()
+      .references(() => bands.id, { onDelete: 'cascade' }),
     name: text('name').notNull(),
     position: integer('position').notNull().default(0),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: createdAt(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index('setlists_band_idx').on(t.bandId), check('setlists_position_not_negative', sql`${t.position} >= 0`)],
+  (t) => [
+    index('setlists_band_idx').on(t.bandId),
+    check('setlists_position_not_negative', sql`${t.position} >= 0`),
+  ],
 );
 
 /** The entries of a setlist in order; a null revision follows the preset's latest. */
 export const setlistEntries = pgTable(
   'setlist_entries',
   {
-    setlistId: uuid('setlist_id').notNull().references(() => setlists.id, { onDelete: 'cascade' }),
+    setlistId: uuid('setlist_id')
+      .notNull()
+      .references(() => setlists.id, { onDelete: 'cascade' }),
     place: integer('place').notNull(),
-    presetId: uuid('preset_id').notNull().references(() => presets.id, { onDelete: 'cascade' }),
+    presetId: uuid('preset_id')
+      .notNull()
+      .references(() => presets.id, { onDelete: 'cascade' }),
     revision: integer('revision'),
     trigger: integer('trigger'),
   },
@@ -238,7 +270,9 @@ export const stageEvents = pgTable(
   'stage_events',
   {
     id: bigserial('id', { mode: 'number' }).primaryKey(),
-    setlistId: uuid('setlist_id').notNull().references(() => setlists.id, { onDelete: 'cascade' }),
+    setlistId: uuid('setlist_id')
+      .notNull()
+      .references(() => setlists.id, { onDelete: 'cascade' }),
     position: integer('position').notNull(),
     createdAt: createdAt(),
   },

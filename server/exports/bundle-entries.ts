@@ -10,7 +10,8 @@ import { singleLine } from '../../shared/text/plain-text';
 const takenBy: Record<string, string> = {
   'mts-bulk': 'hardware and software synths that receive MTS bulk dumps',
   'mts-bulk-bank': 'synths that keep tuning programs in banks',
-  'mts-notes': 'synths that retune sounding notes in real time (also software synths that ignore bulk dumps)',
+  'mts-notes':
+    'synths that retune sounding notes in real time (also software synths that ignore bulk dumps)',
   'mts-octave-1': 'synths with a 12-note-per-octave tuning table, coarse form (1 cent steps)',
   'mts-octave-2': 'synths with a 12-note-per-octave tuning table, fine form',
   smf: 'any sequencer or player: the tuning messages at the start, then a short phrase to check it by ear',
@@ -28,7 +29,10 @@ export interface BundleEntry {
 }
 
 /** The files of the bundle, in order; formats that do not apply to this preset are listed in the read-me. */
-export async function bundleEntries(preset: ResolvedPreset, at: SheetRevision): Promise<BundleEntry[]> {
+export async function bundleEntries(
+  preset: ResolvedPreset,
+  at: SheetRevision,
+): Promise<BundleEntry[]> {
   const base = exportFileName(preset.name, '');
   const entries: BundleEntry[] = [];
   const lines = [
@@ -44,15 +48,30 @@ export async function bundleEntries(preset: ResolvedPreset, at: SheetRevision): 
     }
     const name = file.value.fileName;
     entries.push({ name, bytes: Buffer.from(file.value.bytes) });
-    lines.push(`${name}`, `    ${format.description}`, `    For ${takenBy[format.id] ?? 'any program that reads this format'}.`);
+    lines.push(
+      `${name}`,
+      `    ${format.description}`,
+      `    For ${takenBy[format.id] ?? 'any program that reads this format'}.`,
+    );
     for (const warning of file.value.warnings) lines.push(`    Note: ${warning.message}`);
     lines.push('');
   }
   const sheetName = `${base}-tuner-sheet.pdf`;
   entries.push({ name: sheetName, bytes: await renderTunerSheet(preset, at) });
-  lines.push(sheetName, '    A printable sheet: the degrees, and what to dial into a chromatic tuner for each key.', '');
-  if (skipped.length > 0) lines.push('Not included, because they do not apply to this preset:', ...skipped.map((s) => `    ${s}`), '');
-  lines.push('Sending a tuning to an instrument overwrites the tuning program it is sent to: back that program up first.');
+  lines.push(
+    sheetName,
+    '    A printable sheet: the degrees, and what to dial into a chromatic tuner for each key.',
+    '',
+  );
+  if (skipped.length > 0)
+    lines.push(
+      'Not included, because they do not apply to this preset:',
+      ...skipped.map((s) => `    ${s}`),
+      '',
+    );
+  lines.push(
+    'Sending a tuning to an instrument overwrites the tuning program it is sent to: back that program up first.',
+  );
   entries.unshift({ name: 'READ-ME.txt', bytes: Buffer.from(lines.join('\r\n') + '\r\n', 'utf8') });
   return entries;
 }

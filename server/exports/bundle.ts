@@ -7,7 +7,11 @@ import { bundleEntriesOffThread } from '../work/worker-pool';
 import type { SheetRevision } from './tuner-sheet';
 
 /** Streams the bundle's zip into `out` (an HTTP response or a file). */
-export async function streamBundle(preset: ResolvedPreset, at: SheetRevision, out: Writable): Promise<void> {
+export async function streamBundle(
+  preset: ResolvedPreset,
+  at: SheetRevision,
+  out: Writable,
+): Promise<void> {
   const entries = await bundleEntriesOffThread({ preset, at });
   const archive = new ZipArchive({ zlib: { level: 9 } });
   const finished = new Promise<void>((resolve, reject) => {

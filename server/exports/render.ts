@@ -18,13 +18,27 @@ export interface ExportedFile {
 
 const allFormatIds = [...exportFormats.map((f) => f.id), 'tuner-sheet', 'bundle'];
 
-export async function renderFile(preset: ResolvedPreset, format: string, at: SheetRevision): Promise<ExportedFile> {
+export async function renderFile(
+  preset: ResolvedPreset,
+  format: string,
+  at: SheetRevision,
+): Promise<ExportedFile> {
   if (format === 'tuner-sheet') {
     const bytes = await tunerSheetOffThread({ preset, at });
-    return { fileName: `${exportFileName(preset.name, '')}-tuner-sheet.pdf`, contentType: 'application/pdf', bytes, warnings: [] };
+    return {
+      fileName: `${exportFileName(preset.name, '')}-tuner-sheet.pdf`,
+      contentType: 'application/pdf',
+      bytes,
+      warnings: [],
+    };
   }
   if (!allFormatIds.includes(format)) {
-    throw new HttpError(400, 'unknown_format', `format: "${format}" is not an export; choose one of ${allFormatIds.join(', ')}.`, 'format');
+    throw new HttpError(
+      400,
+      'unknown_format',
+      `format: "${format}" is not an export; choose one of ${allFormatIds.join(', ')}.`,
+      'format',
+    );
   }
   const file = renderExport(preset, format);
   if (!file.ok) throw new ValidationError(file.errors);

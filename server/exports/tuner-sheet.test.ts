@@ -11,7 +11,11 @@ function preset(document: object) {
 
 /** The text of every page, read back with pdf.js, an independent PDF reader. */
 async function pdfText(bytes: Buffer): Promise<string> {
-  const pdf = await getDocument({ data: new Uint8Array(bytes), useSystemFonts: false, isEvalSupported: false }).promise;
+  const pdf = await getDocument({
+    data: new Uint8Array(bytes),
+    useSystemFonts: false,
+    isEvalSupported: false,
+  }).promise;
   const pages: string[] = [];
   for (let n = 1; n <= pdf.numPages; n++) {
     const content = await (await pdf.getPage(n)).getTextContent();
@@ -30,7 +34,20 @@ const saved = { revision: 4, savedAt: new Date('2026-11-30T10:00:00Z') };
 describe('the tuner sheet', () => {
   it('says what to dial into a tuner for each key: pure fifths from C against equal temperament', () => {
     const rows = tunerRows(fifths);
-    expect(rows.map((r) => r.tunerNote)).toEqual(['C4', 'C#4', 'D4', 'D#4', 'E4', 'F4', 'F#4', 'G4', 'G#4', 'A4', 'A#4', 'B4']);
+    expect(rows.map((r) => r.tunerNote)).toEqual([
+      'C4',
+      'C#4',
+      'D4',
+      'D#4',
+      'E4',
+      'F4',
+      'F#4',
+      'G4',
+      'G#4',
+      'A4',
+      'A#4',
+      'B4',
+    ]);
     // arithmetic: pure fifths from equal-tempered C4: D 294.3288, E 331.1199, F 348.8341,
     // G 392.4383, A 441.4931, B 496.6798 Hz.
     const hz = Object.fromEntries(rows.map((r) => [r.tunerNote, r.hz]));
@@ -57,7 +74,14 @@ describe('the tuner sheet', () => {
 
   it('writes "about" for an approximate ratio, and the exact ratio a tempered degree equals', async () => {
     const meantone = preset({
-      name: 'Quarter-comma', scale: { kind: 'generated', generator: '3/2', up: 8, down: 3, temper: { comma: '81/80', fraction: '1/4' } },
+      name: 'Quarter-comma',
+      scale: {
+        kind: 'generated',
+        generator: '3/2',
+        up: 8,
+        down: 3,
+        temper: { comma: '81/80', fraction: '1/4' },
+      },
       mapping: { rootKey: 60 },
     });
     const text = await pdfText(await renderTunerSheet(meantone, saved));
@@ -70,7 +94,14 @@ describe('the tuner sheet', () => {
 
   it('follows the anchor: the tuned key and the root it gives', async () => {
     const anchored = preset({
-      name: 'Quarter-comma at 415', scale: { kind: 'generated', generator: '3/2', up: 8, down: 3, temper: { comma: '81/80', fraction: '1/4' } },
+      name: 'Quarter-comma at 415',
+      scale: {
+        kind: 'generated',
+        generator: '3/2',
+        up: 8,
+        down: 3,
+        temper: { comma: '81/80', fraction: '1/4' },
+      },
       mapping: { rootKey: 60, anchor: { key: 69, hz: 415 } },
     });
     const text = await pdfText(await renderTunerSheet(anchored, saved));
@@ -82,15 +113,22 @@ describe('the tuner sheet', () => {
   });
 
   it('gives the same bytes for the same revision', async () => {
-    const [a, b] = await Promise.all([renderTunerSheet(fifths, saved), renderTunerSheet(fifths, saved)]);
+    const [a, b] = await Promise.all([
+      renderTunerSheet(fifths, saved),
+      renderTunerSheet(fifths, saved),
+    ]);
     expect(a.equals(b)).toBe(true);
     expect(a.subarray(0, 5).toString()).toBe('%PDF-');
   });
 
   it('runs onto more pages for a 72-tone scale without losing rows', async () => {
-    const many = preset({ name: 'Seventy-Two', scale: { kind: 'equal', divisions: 72, period: '2/1' }, mapping: { rootKey: 24 } });
+    const many = preset({
+      name: 'Seventy-Two',
+      scale: { kind: 'equal', divisions: 72, period: '2/1' },
+      mapping: { rootKey: 24 },
+    });
     const text = await pdfText(await renderTunerSheet(many, { revision: null, savedAt: null }));
     expect(text).toContain('Unsaved design');
-    for (const degree of [0, 35, 71]) expect(text).toContain((degree * 1200 / 72).toFixed(3));
+    for (const degree of [0, 35, 71]) expect(text).toContain(((degree * 1200) / 72).toFixed(3));
   });
 });

@@ -33,22 +33,31 @@ export function tunerRows(preset: ResolvedPreset): TunerRow[] {
     const entry = keys[key];
     if (entry.degree === null || entry.hz === null) continue;
     const nearest = nearestEqualTemperedNote(entry.hz, concertA);
-    rows.push({ key: `${noteName(key)} (${key})`, degree: entry.degree, hz: entry.hz, tunerNote: nearest.name, offsetCents: nearest.offsetCents });
+    rows.push({
+      key: `${noteName(key)} (${key})`,
+      degree: entry.degree,
+      hz: entry.hz,
+      tunerNote: nearest.name,
+      offsetCents: nearest.offsetCents,
+    });
   }
   return rows;
 }
 
-const signed = (cents: number, digits = 1) => `${cents >= 0 ? '+' : '−'}${Math.abs(cents).toFixed(digits)}`;
+const signed = (cents: number, digits = 1) =>
+  `${cents >= 0 ? '+' : '−'}${Math.abs(cents).toFixed(digits)}`;
 
 function describeScale(scale: ResolvedPreset['scale']): string {
   switch (scale.kind) {
     case 'generated':
-      return `Generator ${scale.generator} in period ${scale.period}, ${scale.up} up and ${scale.down} down` +
+      return (
+        `Generator ${scale.generator} in period ${scale.period}, ${scale.up} up and ${scale.down} down` +
         (Array.isArray(scale.temper)
           ? `, ${scale.temper.filter((link) => link !== null).length} of its ${scale.temper.length} links tempered one by one`
           : scale.temper
             ? `, narrowed by ${scale.temper.fraction} of ${scale.temper.comma}`
-            : '');
+            : '')
+      );
     case 'equal':
       return `${scale.divisions} equal divisions of ${scale.period}`;
     case 'list':
@@ -72,7 +81,14 @@ export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Pro
   const doc = new PDFDocument({
     size: 'A4',
     margin: 48,
-    info: { Title: `${preset.name} — tuner sheet`, Author: 'Keyloom', Creator: 'Keyloom', Producer: 'Keyloom', CreationDate: created, ModDate: created },
+    info: {
+      Title: `${preset.name} — tuner sheet`,
+      Author: 'Keyloom',
+      Creator: 'Keyloom',
+      Producer: 'Keyloom',
+      CreationDate: created,
+      ModDate: created,
+    },
   });
   doc.registerFont('regular', regular);
   doc.registerFont('bold', bold);
@@ -88,11 +104,19 @@ export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Pro
 
   doc.font('bold').fontSize(20).text(preset.name);
   doc.font('regular').fontSize(10).fillColor('#444');
-  doc.text(at.revision ? `Revision ${at.revision}, saved ${created.toISOString().slice(0, 10)}` : 'Unsaved design');
+  doc.text(
+    at.revision
+      ? `Revision ${at.revision}, saved ${created.toISOString().slice(0, 10)}`
+      : 'Unsaved design',
+  );
   doc.text(describeScale(preset.scale));
   const { rootKey, rootHz, concertA, anchor } = preset.mapping;
-  const tunedKey = anchor ? `Key ${noteName(anchor.key)} (${anchor.key}) sounds ${anchor.hz} Hz; ` : '';
-  doc.text(`${tunedKey}Root key ${noteName(rootKey)} (${rootKey}) = ${rootHz.toFixed(4)} Hz; tuner reference A4 = ${concertA} Hz`);
+  const tunedKey = anchor
+    ? `Key ${noteName(anchor.key)} (${anchor.key}) sounds ${anchor.hz} Hz; `
+    : '';
+  doc.text(
+    `${tunedKey}Root key ${noteName(rootKey)} (${rootKey}) = ${rootHz.toFixed(4)} Hz; tuner reference A4 = ${concertA} Hz`,
+  );
   doc.fillColor('black').moveDown();
 
   function drawTable(title: string, columns: Column[], cells: string[][]) {
@@ -106,7 +130,11 @@ export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Pro
         x += c.width;
       }
       doc.y = y + 13;
-      doc.moveTo(left, doc.y).lineTo(left + columns.reduce((s, c) => s + c.width, 0), doc.y).strokeColor('#999').stroke();
+      doc
+        .moveTo(left, doc.y)
+        .lineTo(left + columns.reduce((s, c) => s + c.width, 0), doc.y)
+        .strokeColor('#999')
+        .stroke();
       doc.y += 3;
     };
     doc.font('bold').fontSize(13).text(title, left);
@@ -122,7 +150,11 @@ export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Pro
       const y = doc.y;
       let x = left;
       row.forEach((cell, i) => {
-        doc.text(cell, x, y, { width: columns[i].width - 6, align: columns[i].align ?? 'left', lineBreak: false });
+        doc.text(cell, x, y, {
+          width: columns[i].width - 6,
+          align: columns[i].align ?? 'left',
+          lineBreak: false,
+        });
         x += columns[i].width;
       });
       doc.y = y + rowHeight;
@@ -143,7 +175,10 @@ export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Pro
     table.degrees.map((d) => [
       String(d.degree),
       // Written as a word: the font's Latin subset has no glyph for the approximately-equal sign.
-      d.ratio ?? (d.approximation ? `about ${d.approximation.ratio} (${d.approximation.errorCents >= 0 ? '+' : '−'}${Math.abs(d.approximation.errorCents).toFixed(1)}c)` : '—'),
+      d.ratio ??
+        (d.approximation
+          ? `about ${d.approximation.ratio} (${d.approximation.errorCents >= 0 ? '+' : '−'}${Math.abs(d.approximation.errorCents).toFixed(1)}c)`
+          : '—'),
       d.cents.toFixed(3),
       d.step.cents.toFixed(3),
       (rootHz * 2 ** (d.cents / 1200)).toFixed(3),
@@ -168,19 +203,32 @@ export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Pro
 }
 
 /** Bars of each key's offset from the tuner's note, up for sharp and down for flat. */
-function drawOffsetChart(doc: PDFKit.PDFDocument, rows: TunerRow[], left: number, bottom: () => number) {
+function drawOffsetChart(
+  doc: PDFKit.PDFDocument,
+  rows: TunerRow[],
+  left: number,
+  bottom: () => number,
+) {
   const height = 120;
   if (doc.y + height + 40 > bottom()) doc.addPage();
   doc.font('bold').fontSize(13).text('Offsets from equal temperament', left);
   const top = doc.y + 8;
   const width = doc.page.width - 2 * left;
-  const limit = Math.max(10, Math.ceil(Math.max(...rows.map((r) => Math.abs(r.offsetCents)), 0) / 10) * 10);
+  const limit = Math.max(
+    10,
+    Math.ceil(Math.max(...rows.map((r) => Math.abs(r.offsetCents)), 0) / 10) * 10,
+  );
   const mid = top + height / 2;
   const scale = height / 2 / limit;
   doc.font('regular').fontSize(7).fillColor('#666');
   for (const mark of [limit, limit / 2, 0, -limit / 2, -limit]) {
     const y = mid - mark * scale;
-    doc.moveTo(left + 30, y).lineTo(left + width, y).strokeColor(mark === 0 ? '#333' : '#ddd').lineWidth(0.5).stroke();
+    doc
+      .moveTo(left + 30, y)
+      .lineTo(left + width, y)
+      .strokeColor(mark === 0 ? '#333' : '#ddd')
+      .lineWidth(0.5)
+      .stroke();
     doc.text(signed(mark, 0), left, y - 3, { width: 26, align: 'right', lineBreak: false });
   }
   const slot = (width - 34) / Math.max(rows.length, 1);
@@ -188,9 +236,16 @@ function drawOffsetChart(doc: PDFKit.PDFDocument, rows: TunerRow[], left: number
     const x = left + 34 + i * slot + slot * 0.15;
     const barHeight = Math.abs(row.offsetCents) * scale;
     const y = row.offsetCents >= 0 ? mid - barHeight : mid;
-    doc.rect(x, y, slot * 0.7, Math.max(barHeight, 0.5)).fillColor(row.offsetCents >= 0 ? '#b8612d' : '#146871').fill();
+    doc
+      .rect(x, y, slot * 0.7, Math.max(barHeight, 0.5))
+      .fillColor(row.offsetCents >= 0 ? '#b8612d' : '#146871')
+      .fill();
     if (rows.length <= 36) {
-      doc.fillColor('#333').text(row.tunerNote, x - 4, top + height + 4, { width: slot * 0.7 + 8, align: 'center', lineBreak: false });
+      doc.fillColor('#333').text(row.tunerNote, x - 4, top + height + 4, {
+        width: slot * 0.7 + 8,
+        align: 'center',
+        lineBreak: false,
+      });
     }
   });
   doc.fillColor('black');

@@ -9,4 +9,3 @@ export function documentOrThrow(input: unknown, field = 'document'): ResolvedPre
     parsed.errors.map((e) => ({ path: `${field}.${e.path}`, message: `${field}.${e.message}` })),
   );
 }
-

@@ -11,7 +11,8 @@ let server: Awaited<ReturnType<typeof startTestServer>>;
 let owner: Awaited<ReturnType<typeof server.signIn>>;
 
 const doc = (name = 'Hardened Fifths', extra: object = {}) => ({ ...fifthsPreset(name), ...extra });
-const post = (path: string, body?: object) => owner.agent.post(path).set('X-XSRF-TOKEN', owner.xsrf).send(body);
+const post = (path: string, body?: object) =>
+  owner.agent.post(path).set('X-XSRF-TOKEN', owner.xsrf).send(body);
 
 beforeAll(async () => {
   server = await startTestServer();
@@ -31,7 +32,9 @@ describe('an interval list upload', () => {
     const text = Buffer.from('3/2\n'.repeat(1_280_000));
     const answer = await request(server.app).post('/api/import').attach('file', text, 'fifths.txt');
     expectJsonError(answer, 413, 'file');
-    expect(answer.body.error.message).toBe('file: a preset or a list of intervals is at most 256 kB; this file is 4.9 MB.');
+    expect(answer.body.error.message).toBe(
+      'file: a preset or a list of intervals is at most 256 kB; this file is 4.9 MB.',
+    );
   });
 
   it('is refused at the first line past the largest scale', async () => {
@@ -40,13 +43,17 @@ describe('an interval list upload', () => {
     // The refusal names the line where reading stopped: the 257th entry (room is kept for a leading 1/1), on line
     // 258 after the comment.
     expectJsonError(answer, 400, 'line 258');
-    expect(answer.body.error.message).toBe('line 258: more than 255 degrees: a scale holds at most 256 with its tonic');
+    expect(answer.body.error.message).toBe(
+      'line 258: more than 255 degrees: a scale holds at most 256 with its tonic',
+    );
     expect(answer.body.error.details).toHaveLength(1);
   });
 
   it('stops reading after 20 lines at fault', async () => {
     const text = Buffer.from('1.5\n'.repeat(100));
-    const answer = await request(server.app).post('/api/import').attach('file', text, 'decimals.txt');
+    const answer = await request(server.app)
+      .post('/api/import')
+      .attach('file', text, 'decimals.txt');
     expectJsonError(answer, 400, 'line 1');
     expect(answer.body.error.details).toHaveLength(20);
     expect(answer.body.error.details[19].path).toBe('line 20');
@@ -65,7 +72,9 @@ describe('a huge list in a preset document', () => {
 
   it('caps the faults of many bad entries at 20, with the count of the rest', async () => {
     const degrees = Array.from({ length: 200 }, () => 1.5);
-    const answer = await request(server.app).post('/api/preview/table').send(doc('Many', { scale: { kind: 'list', degrees } }));
+    const answer = await request(server.app)
+      .post('/api/preview/table')
+      .send(doc('Many', { scale: { kind: 'list', degrees } }));
     expectJsonError(answer, 400, 'scale.degrees[0]');
     expect(answer.body.error.details).toHaveLength(20);
     expect(answer.body.error.more).toBe(180);
@@ -74,23 +83,52 @@ describe('a huge list in a preset document', () => {
 
 describe('a comma fraction too large to mean anything', () => {
   const huge = doc('Huge', {
-    scale: { kind: 'generated', generator: '3/2', up: 11, temper: { comma: '81/80', fraction: '9'.repeat(400) } },
+    scale: {
+      kind: 'generated',
+      generator: '3/2',
+      up: 11,
+      temper: { comma: '81/80', fraction: '9'.repeat(400) },
+    },
   });
 
   it('is refused on scale.temper.fraction by preview, save and every download', async () => {
-    expectJsonError(await request(server.app).post('/api/preview/table').send(huge), 400, 'scale.temper.fraction');
-    expectJsonError(await post('/api/presets', { document: huge }), 400, 'document.scale.temper.fraction');
+    expectJsonError(
+      await request(server.app).post('/api/preview/table').send(huge),
+      400,
+      'scale.temper.fraction',
+    );
+    expectJsonError(
+      await post('/api/presets', { document: huge }),
+      400,
+      'document.scale.temper.fraction',
+    );
     for (const format of ['sfz', 'bend-csv', 'mts-bulk', 'tuner-sheet', 'bundle']) {
-      expectJsonError(await request(server.app).post(`/api/preview/export/${format}`).send(huge), 400, 'scale.temper.fraction');
+      expectJsonError(
+        await request(server.app).post(`/api/preview/export/${format}`).send(huge),
+        400,
+        'scale.temper.fraction',
+      );
     }
   });
 });
 
 describe('NUL characters and lone surrogates', () => {
   it('are refused with 400 naming the field, in names, notes, band names and queries', async () => {
-    expectJsonError(await post('/api/presets', { document: doc('a\u0000b') }), 400, 'document.name');
-    expectJsonError(await post('/api/presets', { document: doc('a\ud800b') }), 400, 'document.name');
-    expectJsonError(await post('/api/presets', { document: doc('ok', { notes: 'x\u0000y' }) }), 400, 'document.notes');
+    expectJsonError(
+      await post('/api/presets', { document: doc('a\u0000b') }),
+      400,
+      'document.name',
+    );
+    expectJsonError(
+      await post('/api/presets', { document: doc('a\ud800b') }),
+      400,
+      'document.name',
+    );
+    expectJsonError(
+      await post('/api/presets', { document: doc('ok', { notes: 'x\u0000y' }) }),
+      400,
+      'document.notes',
+    );
     expectJsonError(await post('/api/bands', { name: 'Band\u0000' }), 400, 'name');
     expectJsonError(await owner.agent.get('/api/presets?q=%00'), 400, 'q');
     const saved = await post('/api/presets', { document: doc('fine'), note: 'n\u0000' });
@@ -121,10 +159,24 @@ describe('integers past what the database holds', () => {
   it('answer 404 or 400, never 500', async () => {
     const { id } = (await post('/api/presets', { document: doc() }).expect(201)).body;
     expectJsonError(await owner.agent.get(`/api/presets/${id}/revisions/2147483648`), 404);
-    expectJsonError(await owner.agent.get(`/api/presets/${id}/export/preset?revision=3000000000`), 404);
-    expectJsonError(await owner.agent.get(`/api/presets/${id}/revisions/1/changes?from=3000000000`), 404);
-    expectJsonError(await post(`/api/presets/${id}/restore`, { revision: 3_000_000_000 }), 400, 'revision');
-    expectJsonError(await post(`/api/presets/${id}/shares`, { revision: 3_000_000_000 }), 400, 'revision');
+    expectJsonError(
+      await owner.agent.get(`/api/presets/${id}/export/preset?revision=3000000000`),
+      404,
+    );
+    expectJsonError(
+      await owner.agent.get(`/api/presets/${id}/revisions/1/changes?from=3000000000`),
+      404,
+    );
+    expectJsonError(
+      await post(`/api/presets/${id}/restore`, { revision: 3_000_000_000 }),
+      400,
+      'revision',
+    );
+    expectJsonError(
+      await post(`/api/presets/${id}/shares`, { revision: 3_000_000_000 }),
+      400,
+      'revision',
+    );
   });
 });
 
@@ -134,11 +186,22 @@ describe('malformed requests', () => {
     expectJsonError(await app.get('/api/presets/%ZZ'), 400);
     expect((await app.get('/%ZZ')).status).toBe(400);
     expect((await app.get('/s/%ZZ')).status).toBe(400);
-    const bogus = await app.post('/api/preview/table').set('Content-Type', 'application/json; charset=bogus').send('{}');
+    const bogus = await app
+      .post('/api/preview/table')
+      .set('Content-Type', 'application/json; charset=bogus')
+      .send('{}');
     expectJsonError(bogus, 415);
-    const plain = await app.post('/api/preview/table').set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').send('{}');
+    const plain = await app
+      .post('/api/preview/table')
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', 'gzip')
+      .send('{}');
     expectJsonError(plain, 400);
-    const unknown = await app.post('/api/preview/table').set('Content-Type', 'application/json').set('Content-Encoding', 'bogus').send('{}');
+    const unknown = await app
+      .post('/api/preview/table')
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', 'bogus')
+      .send('{}');
     expectJsonError(unknown, 415);
     // A body that really is gzip still reads (sent through fetch, which leaves the bytes as they are).
     const listening = server.app.listen(0, '127.0.0.1');
@@ -156,7 +219,10 @@ describe('malformed requests', () => {
 
   it('answer 400 for truncated or boundary-less multipart', async () => {
     const app = request(server.app);
-    const noBoundary = await app.post('/api/retune').set('Content-Type', 'multipart/form-data').send('--x\r\n');
+    const noBoundary = await app
+      .post('/api/retune')
+      .set('Content-Type', 'multipart/form-data')
+      .send('--x\r\n');
     expectJsonError(noBoundary, 400, 'file');
     const truncated = await app
       .post('/api/retune')
@@ -178,20 +244,35 @@ describe('malformed requests', () => {
 describe('the cross-site token', () => {
   it("is bound to the session: a token of the attacker's choosing is refused", async () => {
     const victim = await server.signIn('hardening-victim');
-    const sid = victim.agent.jar.getCookie('keyloom.sid', { domain: '127.0.0.1', path: '/', secure: false, script: false })!.value;
+    const sid = victim.agent.jar.getCookie('keyloom.sid', {
+      domain: '127.0.0.1',
+      path: '/',
+      secure: false,
+      script: false,
+    })!.value;
     const forged = await request(server.app)
       .post('/api/bands')
       .set('Cookie', `keyloom.sid=${sid}; XSRF-TOKEN=chosen`)
       .set('X-XSRF-TOKEN', 'chosen')
       .send({ name: 'Forged' });
     expectJsonError(forged, 403);
-    await victim.agent.post('/api/bands').set('X-XSRF-TOKEN', victim.xsrf).send({ name: 'Real' }).expect(201);
+    await victim.agent
+      .post('/api/bands')
+      .set('X-XSRF-TOKEN', victim.xsrf)
+      .send({ name: 'Real' })
+      .expect(201);
   });
 
   it('is new after sign-in and after sign-out', async () => {
     const agent = request.agent(server.app);
     await agent.get('/api/me');
-    const read = () => agent.jar.getCookie('XSRF-TOKEN', { domain: '127.0.0.1', path: '/', secure: false, script: false })?.value;
+    const read = () =>
+      agent.jar.getCookie('XSRF-TOKEN', {
+        domain: '127.0.0.1',
+        path: '/',
+        secure: false,
+        script: false,
+      })?.value;
     const before = read();
     expect(before).toBeTruthy();
     const start = await agent.get('/auth/github?login=hardening-token');
@@ -217,7 +298,11 @@ describe('a pinned share link', () => {
 
 describe('names written into text files and mail', () => {
   it('lose their line breaks and control characters in the bundle read-me', async () => {
-    const answer = await asBytes(request(server.app).post('/api/preview/export/bundle').send(doc('Evil\r\nInjected line\tTab'))).expect(200);
+    const answer = await asBytes(
+      request(server.app)
+        .post('/api/preview/export/bundle')
+        .send(doc('Evil\r\nInjected line\tTab')),
+    ).expect(200);
     const files = await readZip(answer.body as Buffer);
     const readMe = files.get('READ-ME.txt')!.toString('utf8');
     expect(readMe.split('\r\n')[0]).toBe('Evil Injected line Tab: files made by Keyloom');
@@ -225,7 +310,10 @@ describe('names written into text files and mail', () => {
 
   it('lose their line breaks in invite mails', async () => {
     const band = (await post('/api/bands', { name: 'Line\nBreak Band' }).expect(201)).body;
-    await post(`/api/bands/${band.id}/invites`, { email: 'newline@example.test', role: 'viewer' }).expect(201);
+    await post(`/api/bands/${band.id}/invites`, {
+      email: 'newline@example.test',
+      role: 'viewer',
+    }).expect(201);
     const mail = server.mailbox.messages().find((m) => m.to.includes('newline@example.test'))!;
     expect(mail.text).toContain('the band Line Break Band on Keyloom');
     expect(mail.subject).not.toMatch(/[\r\n]/);
@@ -235,10 +323,21 @@ describe('names written into text files and mail', () => {
 describe('share ids', () => {
   it("answer the same 404 for another preset's share and an unknown one", async () => {
     const other = await server.signIn('hardening-other');
-    const { id } = (await other.agent.post('/api/presets').set('X-XSRF-TOKEN', other.xsrf).send({ document: doc() })).body;
-    const share = (await other.agent.post(`/api/presets/${id}/shares`).set('X-XSRF-TOKEN', other.xsrf).send({})).body;
-    const probed = await owner.agent.delete(`/api/shares/${share.id}`).set('X-XSRF-TOKEN', owner.xsrf);
-    const unknown = await owner.agent.delete('/api/shares/00000000-0000-4000-8000-000000000000').set('X-XSRF-TOKEN', owner.xsrf);
+    const { id } = (
+      await other.agent
+        .post('/api/presets')
+        .set('X-XSRF-TOKEN', other.xsrf)
+        .send({ document: doc() })
+    ).body;
+    const share = (
+      await other.agent.post(`/api/presets/${id}/shares`).set('X-XSRF-TOKEN', other.xsrf).send({})
+    ).body;
+    const probed = await owner.agent
+      .delete(`/api/shares/${share.id}`)
+      .set('X-XSRF-TOKEN', owner.xsrf);
+    const unknown = await owner.agent
+      .delete('/api/shares/00000000-0000-4000-8000-000000000000')
+      .set('X-XSRF-TOKEN', owner.xsrf);
     expect(probed.status).toBe(404);
     expect(probed.body).toEqual(unknown.body);
   });
@@ -252,7 +351,10 @@ describe('messages name the fault of the value sent', () => {
     expect(fractional.body.error.message).toBe('revision: must be a whole number (got 1.5)');
 
     const band = (await post('/api/bands', { name: 'Roles' }).expect(201)).body;
-    const role = await post(`/api/bands/${band.id}/invites`, { email: 'a@example.test', role: 'admin' });
+    const role = await post(`/api/bands/${band.id}/invites`, {
+      email: 'a@example.test',
+      role: 'admin',
+    });
     expect(role.body.error.message).toBe('role: must be owner, editor or viewer (got "admin")');
 
     const page = await owner.agent.get('/api/presets?page=1e308');
@@ -268,7 +370,10 @@ describe('messages name the fault of the value sent', () => {
   });
 
   it('for a truncated song, says the fault once', async () => {
-    const song = Buffer.from('MThd\x00\x00\x00\x06\x00\x00\x00\x01\x00\x60MTrk\x00\x00\x00\x20\x00\x90', 'latin1');
+    const song = Buffer.from(
+      'MThd\x00\x00\x00\x06\x00\x00\x00\x01\x00\x60MTrk\x00\x00\x00\x20\x00\x90',
+      'latin1',
+    );
     const answer = await request(server.app)
       .post('/api/retune')
       .field('preset', JSON.stringify(doc()))

@@ -9,6 +9,12 @@ export function rateLimited(perMinute: number) {
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     handler: (_req, _res, next) =>
-      next(new HttpError(429, 'rate_limited', `Too many attempts: at most ${perMinute} a minute. Wait a minute and try again.`)),
+      next(
+        new HttpError(
+          429,
+          'rate_limited',
+          `Too many attempts: at most ${perMinute} a minute. Wait a minute and try again.`,
+        ),
+      ),
   });
 }

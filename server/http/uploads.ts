@@ -25,9 +25,22 @@ export function singleUpload(field: string): RequestHandler[] {
         return next(error);
       }
       const why = (error as Error).message ?? 'it could not be read';
-      next(new HttpError(400, 'bad_upload', `${field}: the multipart body could not be read (${why}).`, field));
+      next(
+        new HttpError(
+          400,
+          'bad_upload',
+          `${field}: the multipart body could not be read (${why}).`,
+          field,
+        ),
+      );
     });
-  return [onlyBodiesOf('multipart/form-data', `a multipart/form-data body with the file in the field "${field}"`), readOrRefuse];
+  return [
+    onlyBodiesOf(
+      'multipart/form-data',
+      `a multipart/form-data body with the file in the field "${field}"`,
+    ),
+    readOrRefuse,
+  ];
 }
 
 /** Multer's faults as the JSON error shape: the limit is said in the message. */
@@ -36,22 +49,46 @@ export const uploadErrors: ErrorRequestHandler = (error, _req, _res, next) => {
   if (error.code === 'LIMIT_FILE_SIZE') {
     return next(new HttpError(413, 'too_large', uploadTooLarge, 'file'));
   }
-  next(new HttpError(400, 'bad_upload', `${error.field ?? 'upload'}: ${error.message}.`, error.field ?? 'file'));
+  next(
+    new HttpError(
+      400,
+      'bad_upload',
+      `${error.field ?? 'upload'}: ${error.message}.`,
+      error.field ?? 'file',
+    ),
+  );
 };
 
 export function requireFile(file: Express.Multer.File | undefined): Express.Multer.File {
-  if (!file) throw new HttpError(400, 'invalid', 'file: is required: send the file as multipart form data in the field "file".', 'file');
+  if (!file)
+    throw new HttpError(
+      400,
+      'invalid',
+      'file: is required: send the file as multipart form data in the field "file".',
+      'file',
+    );
   if (file.size === 0) throw new HttpError(400, 'invalid', 'file: is empty.', 'file');
   return file;
 }
 
 /** Keeps a signed-in user's upload in their history, with its checksum. */
-export async function recordUpload(db: Database, userId: string | undefined, purpose: string, file: Express.Multer.File): Promise<string> {
+export async function recordUpload(
+  db: Database,
+  userId: string | undefined,
+  purpose: string,
+  file: Express.Multer.File,
+): Promise<string> {
   // Web Crypto hashes on the thread pool, so a 5 MB upload does not hold the event loop while it is hashed.
   const digest = await webcrypto.subtle.digest('SHA-256', file.buffer as Uint8Array<ArrayBuffer>);
   const sha256 = Buffer.from(digest).toString('hex');
   if (userId) {
-    await db.insert(uploads).values({ userId, purpose, fileName: file.originalname.slice(0, 200), byteSize: file.size, sha256 });
+    await db.insert(uploads).values({
+      userId,
+      purpose,
+      fileName: file.originalname.slice(0, 200),
+      byteSize: file.size,
+      sha256,
+    });
   }
   return sha256;
 }

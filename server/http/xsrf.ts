@@ -28,11 +28,21 @@ export interface XsrfTokens {
  * a write that carries the session cookie must echo it in the `X-XSRF-TOKEN` header, which another site's page
  * cannot read or set. Angular's HttpClient does this on its own. Visitors without a session get a random token.
  */
-export function xsrfTokens(options: { sessionCookie: string; secure: boolean; secret: string }): XsrfTokens {
-  const boundTo = (sessionId: string) => createHmac('sha256', options.secret).update(`xsrf:${sessionId}`).digest('base64url');
+export function xsrfTokens(options: {
+  sessionCookie: string;
+  secure: boolean;
+  secret: string;
+}): XsrfTokens {
+  const boundTo = (sessionId: string) =>
+    createHmac('sha256', options.secret).update(`xsrf:${sessionId}`).digest('base64url');
   const expected = (req: Request) => (req.user ? boundTo(req.sessionID) : undefined);
   const give = (res: Response, token: string) =>
-    res.cookie(xsrfCookie, token, { sameSite: 'lax', secure: options.secure, httpOnly: false, path: '/' });
+    res.cookie(xsrfCookie, token, {
+      sameSite: 'lax',
+      secure: options.secure,
+      httpOnly: false,
+      path: '/',
+    });
 
   const protection: RequestHandler = (req, res, next) => {
     const bound = expected(req);
@@ -42,7 +52,13 @@ export function xsrfTokens(options: { sessionCookie: string; secure: boolean; se
     const wanted = bound ?? held;
     const sent = req.get(xsrfHeader);
     if (!sent || !wanted || !same(sent, wanted)) {
-      return next(new HttpError(403, 'xsrf', `This write needs the ${xsrfHeader} header equal to the ${xsrfCookie} cookie.`));
+      return next(
+        new HttpError(
+          403,
+          'xsrf',
+          `This write needs the ${xsrfHeader} header equal to the ${xsrfCookie} cookie.`,
+        ),
+      );
     }
     next();
   };

@@ -17,7 +17,11 @@ export interface NewPreset {
   forkedFrom?: { id: string; revision: number };
 }
 
-export async function createPreset(db: Database, input: NewPreset, action: AuditAction = 'preset.create'): Promise<string> {
+export async function createPreset(
+  db: Database,
+  input: NewPreset,
+  action: AuditAction = 'preset.create',
+): Promise<string> {
   return db.transaction(async (tx) => {
     const [preset] = await tx
       .insert(presets)
@@ -54,12 +58,24 @@ export async function createPreset(db: Database, input: NewPreset, action: Audit
  */
 export async function appendRevision(
   db: Database,
-  input: { presetId: string; authorId: string; name: string; document: unknown; note: string | null; action: AuditAction; bandId: string | null },
+  input: {
+    presetId: string;
+    authorId: string;
+    name: string;
+    document: unknown;
+    note: string | null;
+    action: AuditAction;
+    bandId: string | null;
+  },
 ): Promise<number> {
   return db.transaction(async (tx) => {
     const [row] = await tx
       .update(presets)
-      .set({ latestRevision: sql`${presets.latestRevision} + 1`, name: input.name, updatedAt: new Date() })
+      .set({
+        latestRevision: sql`${presets.latestRevision} + 1`,
+        name: input.name,
+        updatedAt: new Date(),
+      })
       .where(eq(presets.id, input.presetId))
       .returning({ revision: presets.latestRevision });
     await tx.insert(presetRevisions).values({
@@ -84,7 +100,8 @@ export async function appendRevision(
 
 /** One revision of a preset, or 404 when there is none by that number (a number no revision can have included). */
 export async function readRevision(writer: Writer, presetId: string, revision: number) {
-  if (!Number.isInteger(revision) || revision < 1 || revision > largestRevision) throw notFound('revision');
+  if (!Number.isInteger(revision) || revision < 1 || revision > largestRevision)
+    throw notFound('revision');
   const [row] = await writer
     .select()
     .from(presetRevisions)

@@ -29,7 +29,11 @@ export function requireUser(user: SignedInUser | undefined): SignedInUser {
   return user;
 }
 
-export async function bandRole(db: Database, userId: string, bandId: string): Promise<BandRole | null> {
+export async function bandRole(
+  db: Database,
+  userId: string,
+  bandId: string,
+): Promise<BandRole | null> {
   const [row] = await db
     .select({ role: memberships.role })
     .from(memberships)
@@ -46,7 +50,13 @@ export function presetAccess(
   if (!user) return 'none';
   if (user.siteRole === 'admin') return 'own';
   if (preset.bandId === null) return preset.ownerId === user.id ? 'own' : 'none';
-  return role === 'owner' ? 'own' : role === 'editor' ? 'edit' : role === 'viewer' ? 'read' : 'none';
+  return role === 'owner'
+    ? 'own'
+    : role === 'editor'
+      ? 'edit'
+      : role === 'viewer'
+        ? 'read'
+        : 'none';
 }
 
 /** The access shown on a row of the caller's own list (their presets and their bands'), where it is never none. */
@@ -65,7 +75,13 @@ function bandAccess(user: SignedInUser | undefined, role: BandRole | null): Band
   return role ? 'member' : 'none';
 }
 
-const roleWords: Record<string, string> = { read: 'see', edit: 'change', own: 'manage', member: 'see', owner: 'manage' };
+const roleWords: Record<string, string> = {
+  read: 'see',
+  edit: 'change',
+  own: 'manage',
+  member: 'see',
+  owner: 'manage',
+};
 
 /** The preset, when the user may do `need` with it; otherwise 404 (cannot see it) or 403 (cannot change it). */
 export async function authorizePreset(
@@ -74,13 +90,19 @@ export async function authorizePreset(
   presetId: string,
   need: PresetAccess,
 ): Promise<{ preset: PresetRow; access: PresetAccess }> {
-  const preset = isId(presetId) ? await db.query.presets.findFirst({ where: eq(presets.id, presetId) }) : undefined;
+  const preset = isId(presetId)
+    ? await db.query.presets.findFirst({ where: eq(presets.id, presetId) })
+    : undefined;
   if (!preset) throw notFound('preset');
   const role = user && preset.bandId ? await bandRole(db, user.id, preset.bandId) : null;
   const access = presetAccess(user, preset, role);
   if (access === 'none') throw notFound('preset');
   if (presetOrder.indexOf(access) < presetOrder.indexOf(need)) {
-    throw new HttpError(403, 'forbidden', `Your role lets you see this preset but not ${roleWords[need]} it.`);
+    throw new HttpError(
+      403,
+      'forbidden',
+      `Your role lets you see this preset but not ${roleWords[need]} it.`,
+    );
   }
   return { preset, access };
 }
@@ -92,22 +114,33 @@ export async function authorizeBand(
   bandId: string,
   need: Exclude<BandAccess, 'none'>,
 ): Promise<{ band: BandRow; role: BandRole | null; access: BandAccess }> {
-  const band = isId(bandId) ? await db.query.bands.findFirst({ where: eq(bands.id, bandId) }) : undefined;
+  const band = isId(bandId)
+    ? await db.query.bands.findFirst({ where: eq(bands.id, bandId) })
+    : undefined;
   if (!band) throw notFound('band');
   const role = user ? await bandRole(db, user.id, band.id) : null;
   const access = bandAccess(user, role);
   if (access === 'none') throw notFound('band');
   if (bandOrder.indexOf(access) < bandOrder.indexOf(need)) {
-    throw new HttpError(403, 'forbidden', 'Only the band\'s owners can do this.');
+    throw new HttpError(403, 'forbidden', "Only the band's owners can do this.");
   }
   return { band, role, access };
 }
 
 /** Saving into a band's library takes an editor's or owner's role there. */
-export async function authorizeBandLibrary(db: Database, user: SignedInUser, bandId: string): Promise<void> {
+export async function authorizeBandLibrary(
+  db: Database,
+  user: SignedInUser,
+  bandId: string,
+): Promise<void> {
   const { role, access } = await authorizeBand(db, user, bandId, 'member');
   if (access !== 'owner' && role !== 'editor') {
-    throw new HttpError(403, 'forbidden', 'Viewers cannot add presets to the band\'s library.', 'bandId');
+    throw new HttpError(
+      403,
+      'forbidden',
+      "Viewers cannot add presets to the band's library.",
+      'bandId',
+    );
   }
 }
 
@@ -133,16 +166,27 @@ export async function authorizeInstrument(
 export type SetlistRow = typeof setlists.$inferSelect;
 
 /** What a user may do with a band's setlists: viewers read, editors and owners change; admins may do anything. */
-export function setlistAccess(user: SignedInUser | undefined, role: BandRole | null): 'none' | 'read' | 'edit' {
+export function setlistAccess(
+  user: SignedInUser | undefined,
+  role: BandRole | null,
+): 'none' | 'read' | 'edit' {
   if (!user) return 'none';
   if (user.siteRole === 'admin') return 'edit';
   return role === 'owner' || role === 'editor' ? 'edit' : role === 'viewer' ? 'read' : 'none';
 }
 
-function setlistGate(access: 'none' | 'read' | 'edit', need: 'read' | 'edit', what: 'band' | 'setlist') {
+function setlistGate(
+  access: 'none' | 'read' | 'edit',
+  need: 'read' | 'edit',
+  what: 'band' | 'setlist',
+) {
   if (access === 'none') throw notFound(what);
   if (need === 'edit' && access !== 'edit') {
-    throw new HttpError(403, 'forbidden', 'Viewers can follow the band\'s setlists but not change them.');
+    throw new HttpError(
+      403,
+      'forbidden',
+      "Viewers can follow the band's setlists but not change them.",
+    );
   }
 }
 
@@ -154,7 +198,9 @@ export async function authorizeBandSetlists(
   need: 'read' | 'edit',
 ): Promise<{ band: BandRow; access: 'read' | 'edit' }> {
   const signedIn = requireUser(user);
-  const band = isId(bandId) ? await db.query.bands.findFirst({ where: eq(bands.id, bandId) }) : undefined;
+  const band = isId(bandId)
+    ? await db.query.bands.findFirst({ where: eq(bands.id, bandId) })
+    : undefined;
   if (!band) throw notFound('band');
   const access = setlistAccess(signedIn, await bandRole(db, signedIn.id, band.id));
   setlistGate(access, need, 'band');

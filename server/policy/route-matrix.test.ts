@@ -21,7 +21,15 @@ import { hashToken } from '../library/tokens';
 import { fifthsPreset } from '../../shared/preset/presets.testing';
 
 type Actor = 'anonymous' | 'stranger' | 'viewer' | 'editor' | 'owner' | 'admin' | 'linkHolder';
-const actors: Actor[] = ['anonymous', 'stranger', 'viewer', 'editor', 'owner', 'admin', 'linkHolder'];
+const actors: Actor[] = [
+  'anonymous',
+  'stranger',
+  'viewer',
+  'editor',
+  'owner',
+  'admin',
+  'linkHolder',
+];
 
 const everyone = actors;
 const signedIn: Actor[] = ['stranger', 'viewer', 'editor', 'owner', 'admin'];
@@ -58,54 +66,130 @@ const matrix: Record<string, Case> = {
   'GET /auth/github/callback': { allowed: everyone, path: () => '/auth/github/callback' },
   'POST /auth/logout': { allowed: everyone, path: () => '/auth/logout' },
   'GET /api/me': { allowed: everyone, path: () => '/api/me' },
-  'POST /api/preview/table': { allowed: everyone, path: () => '/api/preview/table', body: () => doc },
-  'POST /api/presets': { allowed: editors, path: () => '/api/presets', body: (f) => ({ document: doc, bandId: f.bandId }) },
+  'POST /api/preview/table': {
+    allowed: everyone,
+    path: () => '/api/preview/table',
+    body: () => doc,
+  },
+  'POST /api/presets': {
+    allowed: editors,
+    path: () => '/api/presets',
+    body: (f) => ({ document: doc, bandId: f.bandId }),
+  },
   'GET /api/presets': { allowed: signedIn, path: () => '/api/presets' },
   'GET /api/presets/:id': { allowed: readers, path: (f) => `/api/presets/${f.presetId}` },
   'POST /api/presets/:id/revisions': {
-    allowed: editors, path: (f) => `/api/presets/${f.presetId}/revisions`, body: () => ({ document: doc, note: 'matrix' }),
+    allowed: editors,
+    path: (f) => `/api/presets/${f.presetId}/revisions`,
+    body: () => ({ document: doc, note: 'matrix' }),
   },
-  'GET /api/presets/:id/revisions': { allowed: readers, path: (f) => `/api/presets/${f.presetId}/revisions` },
-  'GET /api/presets/:id/revisions/:n': { allowed: readers, path: (f) => `/api/presets/${f.presetId}/revisions/1` },
-  'GET /api/presets/:id/revisions/:n/changes': { allowed: readers, path: (f) => `/api/presets/${f.presetId}/revisions/2/changes` },
-  'POST /api/presets/:id/restore': { allowed: editors, path: (f) => `/api/presets/${f.presetId}/restore`, body: () => ({ revision: 1 }) },
-  'POST /api/presets/:id/fork': { allowed: readers, path: (f) => `/api/presets/${f.presetId}/fork`, body: () => ({}) },
+  'GET /api/presets/:id/revisions': {
+    allowed: readers,
+    path: (f) => `/api/presets/${f.presetId}/revisions`,
+  },
+  'GET /api/presets/:id/revisions/:n': {
+    allowed: readers,
+    path: (f) => `/api/presets/${f.presetId}/revisions/1`,
+  },
+  'GET /api/presets/:id/revisions/:n/changes': {
+    allowed: readers,
+    path: (f) => `/api/presets/${f.presetId}/revisions/2/changes`,
+  },
+  'POST /api/presets/:id/restore': {
+    allowed: editors,
+    path: (f) => `/api/presets/${f.presetId}/restore`,
+    body: () => ({ revision: 1 }),
+  },
+  'POST /api/presets/:id/fork': {
+    allowed: readers,
+    path: (f) => `/api/presets/${f.presetId}/fork`,
+    body: () => ({}),
+  },
   'DELETE /api/presets/:id': { allowed: editors, path: (f) => `/api/presets/${f.presetId}` },
-  'POST /api/presets/:id/untrash': { allowed: editors, path: (f) => `/api/presets/${f.presetId}/untrash` },
-  'POST /api/presets/:id/shares': { allowed: editors, path: (f) => `/api/presets/${f.presetId}/shares`, body: () => ({}) },
-  'GET /api/presets/:id/shares': { allowed: editors, path: (f) => `/api/presets/${f.presetId}/shares` },
+  'POST /api/presets/:id/untrash': {
+    allowed: editors,
+    path: (f) => `/api/presets/${f.presetId}/untrash`,
+  },
+  'POST /api/presets/:id/shares': {
+    allowed: editors,
+    path: (f) => `/api/presets/${f.presetId}/shares`,
+    body: () => ({}),
+  },
+  'GET /api/presets/:id/shares': {
+    allowed: editors,
+    path: (f) => `/api/presets/${f.presetId}/shares`,
+  },
   'DELETE /api/shares/:id': { allowed: editors, path: (f) => `/api/shares/${f.shareId}` },
   // Only the holder of the link's token gets in; everyone else tries a token of their own making.
   'GET /api/shared/:token': {
-    allowed: ['linkHolder'], path: (f, actor) => `/api/shared/${actor === 'linkHolder' ? f.shareToken : 'guessed-token'}`,
+    allowed: ['linkHolder'],
+    path: (f, actor) => `/api/shared/${actor === 'linkHolder' ? f.shareToken : 'guessed-token'}`,
   },
-  'POST /api/bands': { allowed: signedIn, path: () => '/api/bands', body: () => ({ name: 'Matrix Band' }) },
+  'POST /api/bands': {
+    allowed: signedIn,
+    path: () => '/api/bands',
+    body: () => ({ name: 'Matrix Band' }),
+  },
   'GET /api/bands': { allowed: signedIn, path: () => '/api/bands' },
   'GET /api/bands/:id': { allowed: readers, path: (f) => `/api/bands/${f.bandId}` },
-  'PATCH /api/bands/:id': { allowed: owners, path: (f) => `/api/bands/${f.bandId}`, body: () => ({ name: 'Renamed' }) },
+  'PATCH /api/bands/:id': {
+    allowed: owners,
+    path: (f) => `/api/bands/${f.bandId}`,
+    body: () => ({ name: 'Renamed' }),
+  },
   'PATCH /api/bands/:id/members/:userId': {
-    allowed: owners, path: (f) => `/api/bands/${f.bandId}/members/${f.viewerId}`, body: () => ({ role: 'editor' }),
+    allowed: owners,
+    path: (f) => `/api/bands/${f.bandId}/members/${f.viewerId}`,
+    body: () => ({ role: 'editor' }),
   },
   // The viewer may remove themself: that is leaving the band.
-  'DELETE /api/bands/:id/members/:userId': { allowed: [...owners, 'viewer'], path: (f) => `/api/bands/${f.bandId}/members/${f.viewerId}` },
+  'DELETE /api/bands/:id/members/:userId': {
+    allowed: [...owners, 'viewer'],
+    path: (f) => `/api/bands/${f.bandId}/members/${f.viewerId}`,
+  },
   'GET /api/bands/:id/audit': { allowed: owners, path: (f) => `/api/bands/${f.bandId}/audit` },
   'GET /api/bands/:id/invites': { allowed: owners, path: (f) => `/api/bands/${f.bandId}/invites` },
   'POST /api/bands/:id/invites': {
-    allowed: owners, path: (f) => `/api/bands/${f.bandId}/invites`, body: () => ({ email: 'new.player@example.org', role: 'viewer' }),
+    allowed: owners,
+    path: (f) => `/api/bands/${f.bandId}/invites`,
+    body: () => ({ email: 'new.player@example.org', role: 'viewer' }),
   },
-  'POST /api/bands/:id/invites/:inviteId/resend': { allowed: owners, path: (f) => `/api/bands/${f.bandId}/invites/${f.inviteId}/resend` },
-  'DELETE /api/bands/:id/invites/:inviteId': { allowed: owners, path: (f) => `/api/bands/${f.bandId}/invites/${f.inviteId}` },
+  'POST /api/bands/:id/invites/:inviteId/resend': {
+    allowed: owners,
+    path: (f) => `/api/bands/${f.bandId}/invites/${f.inviteId}/resend`,
+  },
+  'DELETE /api/bands/:id/invites/:inviteId': {
+    allowed: owners,
+    path: (f) => `/api/bands/${f.bandId}/invites/${f.inviteId}`,
+  },
   // An invite link is for whoever the mail reached: reading it needs the token, accepting it a signed-in member.
   'GET /api/invites/:token': { allowed: everyone, path: (f) => `/api/invites/${f.inviteToken}` },
-  'POST /api/invites/:token/accept': { allowed: signedIn, path: (f) => `/api/invites/${f.inviteToken}/accept` },
-  'POST /api/preview/export/:format': { allowed: everyone, path: () => '/api/preview/export/mts-bulk', body: () => doc },
-  'GET /api/presets/:id/export/:format': { allowed: readers, path: (f) => `/api/presets/${f.presetId}/export/mts-bulk` },
-  'GET /api/presets/:id/bundle': { allowed: readers, path: (f) => `/api/presets/${f.presetId}/bundle` },
+  'POST /api/invites/:token/accept': {
+    allowed: signedIn,
+    path: (f) => `/api/invites/${f.inviteToken}/accept`,
+  },
+  'POST /api/preview/export/:format': {
+    allowed: everyone,
+    path: () => '/api/preview/export/mts-bulk',
+    body: () => doc,
+  },
+  'GET /api/presets/:id/export/:format': {
+    allowed: readers,
+    path: (f) => `/api/presets/${f.presetId}/export/mts-bulk`,
+  },
+  'GET /api/presets/:id/bundle': {
+    allowed: readers,
+    path: (f) => `/api/presets/${f.presetId}/bundle`,
+  },
   'GET /api/shared/:token/export/:format': {
-    allowed: ['linkHolder'], path: (f, actor) => `/api/shared/${actor === 'linkHolder' ? f.shareToken : 'guessed-token'}/export/sfz`,
+    allowed: ['linkHolder'],
+    path: (f, actor) =>
+      `/api/shared/${actor === 'linkHolder' ? f.shareToken : 'guessed-token'}/export/sfz`,
   },
   'GET /api/shared/:token/bundle': {
-    allowed: ['linkHolder'], path: (f, actor) => `/api/shared/${actor === 'linkHolder' ? f.shareToken : 'guessed-token'}/bundle`,
+    allowed: ['linkHolder'],
+    path: (f, actor) =>
+      `/api/shared/${actor === 'linkHolder' ? f.shareToken : 'guessed-token'}/bundle`,
   },
   'GET /api/instruments': { allowed: signedIn, path: () => '/api/instruments' },
   'POST /api/instruments': {
@@ -119,7 +203,8 @@ const matrix: Record<string, Case> = {
     body: () => ({ program: 9 }),
   },
   'DELETE /api/instruments/:id': {
-    allowed: ['owner'], path: (f) => `/api/instruments/${f.instrumentId}`,
+    allowed: ['owner'],
+    path: (f) => `/api/instruments/${f.instrumentId}`,
   },
   'POST /api/retune': { allowed: everyone, path: () => '/api/retune' },
   'POST /api/import': { allowed: everyone, path: () => '/api/import' },
@@ -128,7 +213,10 @@ const matrix: Record<string, Case> = {
     path: (f) => `/api/bands/${f.bandId}/setlists`,
     body: (f) => ({ name: 'Matrix Set', entries: [{ presetId: f.presetId }] }),
   },
-  'GET /api/bands/:id/setlists': { allowed: readers, path: (f) => `/api/bands/${f.bandId}/setlists` },
+  'GET /api/bands/:id/setlists': {
+    allowed: readers,
+    path: (f) => `/api/bands/${f.bandId}/setlists`,
+  },
   'GET /api/setlists/:id': { allowed: readers, path: (f) => `/api/setlists/${f.setlistId}` },
   'PUT /api/setlists/:id': {
     allowed: editors,
@@ -137,9 +225,15 @@ const matrix: Record<string, Case> = {
   },
   'DELETE /api/setlists/:id': { allowed: editors, path: (f) => `/api/setlists/${f.setlistId}` },
   'POST /api/setlists/:id/position': {
-    allowed: editors, path: (f) => `/api/setlists/${f.setlistId}/position`, body: () => ({ position: 0 }),
+    allowed: editors,
+    path: (f) => `/api/setlists/${f.setlistId}/position`,
+    body: () => ({ position: 0 }),
   },
-  'GET /api/setlists/:id/live': { allowed: readers, path: (f) => `/api/setlists/${f.setlistId}/live`, stream: true },
+  'GET /api/setlists/:id/live': {
+    allowed: readers,
+    path: (f) => `/api/setlists/${f.setlistId}/live`,
+    stream: true,
+  },
   'GET /{*splat}': { allowed: everyone, path: () => '/library' },
 };
 
@@ -155,7 +249,10 @@ beforeAll(async () => {
     agents.set(actor, { agent, xsrf });
     ids.set(actor, user.id);
   }
-  await server.db.update(users).set({ siteRole: 'admin' }).where(eq(users.id, ids.get('admin')!));
+  await server.db
+    .update(users)
+    .set({ siteRole: 'admin' })
+    .where(eq(users.id, ids.get('admin')!));
 });
 afterAll(() => server.close());
 
@@ -163,7 +260,10 @@ afterAll(() => server.close());
 async function freshFixture(): Promise<Fixture> {
   const n = ++serial;
   const { db } = server;
-  const [band] = await db.insert(bands).values({ name: `Matrix ${n}`, createdBy: ids.get('owner') }).returning();
+  const [band] = await db
+    .insert(bands)
+    .values({ name: `Matrix ${n}`, createdBy: ids.get('owner') })
+    .returning();
   await db.insert(memberships).values([
     { bandId: band.id, userId: ids.get('owner')!, role: 'owner' },
     { bandId: band.id, userId: ids.get('editor')!, role: 'editor' },
@@ -175,30 +275,59 @@ async function freshFixture(): Promise<Fixture> {
     .returning();
   await db.insert(presetRevisions).values([
     { presetId: preset.id, revision: 1, document: doc, authorId: ids.get('owner') },
-    { presetId: preset.id, revision: 2, document: { ...doc, mapping: { rootKey: 62 } }, authorId: ids.get('owner') },
+    {
+      presetId: preset.id,
+      revision: 2,
+      document: { ...doc, mapping: { rootKey: 62 } },
+      authorId: ids.get('owner'),
+    },
   ]);
   const shareToken = `share-token-${n}-${Math.random()}`;
-  const [share] = await db.insert(shareLinks).values({ presetId: preset.id, tokenHash: hashToken(shareToken) }).returning();
+  const [share] = await db
+    .insert(shareLinks)
+    .values({ presetId: preset.id, tokenHash: hashToken(shareToken) })
+    .returning();
   const inviteToken = `invite-token-${n}-${Math.random()}`;
   const [invite] = await db
     .insert(invites)
     .values({
-      bandId: band.id, email: 'someone@example.org', role: 'viewer', tokenHash: hashToken(inviteToken),
-      invitedBy: ids.get('owner'), expiresAt: new Date(Date.now() + 86_400_000),
+      bandId: band.id,
+      email: 'someone@example.org',
+      role: 'viewer',
+      tokenHash: hashToken(inviteToken),
+      invitedBy: ids.get('owner'),
+      expiresAt: new Date(Date.now() + 86_400_000),
     })
     .returning();
-  const [setlist] = await db.insert(setlists).values({ bandId: band.id, name: `Matrix Set ${n}` }).returning();
+  const [setlist] = await db
+    .insert(setlists)
+    .values({ bandId: band.id, name: `Matrix Set ${n}` })
+    .returning();
   await db.insert(setlistEntries).values({ setlistId: setlist.id, place: 0, presetId: preset.id });
   const [instrument] = await db
     .insert(instruments)
     .values({
-      ownerId: ids.get('owner')!, name: `Matrix synth ${n}`, receives: 'mts-bulk', deviceId: 16,
-      program: 5, bank: 0, bendRange: 2, firstMemberChannel: 2, lastMemberChannel: 16,
+      ownerId: ids.get('owner')!,
+      name: `Matrix synth ${n}`,
+      receives: 'mts-bulk',
+      deviceId: 16,
+      program: 5,
+      bank: 0,
+      bendRange: 2,
+      firstMemberChannel: 2,
+      lastMemberChannel: 16,
     })
     .returning();
   return {
-    bandId: band.id, presetId: preset.id, shareId: share.id, shareToken, inviteId: invite.id,
-    inviteToken, viewerId: ids.get('viewer')!, instrumentId: instrument.id, setlistId: setlist.id,
+    bandId: band.id,
+    presetId: preset.id,
+    shareId: share.id,
+    shareToken,
+    inviteId: invite.id,
+    inviteToken,
+    viewerId: ids.get('viewer')!,
+    instrumentId: instrument.id,
+    setlistId: setlist.id,
   };
 }
 
@@ -210,7 +339,9 @@ async function send(actor: Actor, route: string, fixture: Fixture, withXsrf = tr
       : (agents.get(actor) ?? { agent: request.agent(server.app), xsrf: undefined });
   const [method] = route.split(' ');
   const c = matrix[route];
-  let req = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](c.path(fixture, actor));
+  let req = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete'](
+    c.path(fixture, actor),
+  );
   if (xsrf && withXsrf) req = req.set('X-XSRF-TOKEN', xsrf);
   if (c.body) req = req.send(c.body(fixture));
   if (c.stream) req = req.buffer(true).parse(untilFirstEvent);
@@ -218,7 +349,10 @@ async function send(actor: Actor, route: string, fixture: Fixture, withXsrf = tr
 }
 
 /** Reads a stream's answer up to its first event and hangs up; any other answer to its end. */
-function untilFirstEvent(answer: request.Response, done: (error: Error | null, body: string) => void) {
+function untilFirstEvent(
+  answer: request.Response,
+  done: (error: Error | null, body: string) => void,
+) {
   // superagent hands its parsers Node's own message.
   const res = answer as unknown as import('node:http').IncomingMessage;
   let text = '';
@@ -252,7 +386,7 @@ describe('the role matrix', () => {
       const expected: Record<string, string> = {};
       for (const actor of actors) {
         const res = await send(actor, route, await freshFixture());
-        expect(res.status, `${actor}: ${String(res.text ?? "").slice(0, 200)}`).toBeLessThan(500);
+        expect(res.status, `${actor}: ${String(res.text ?? '').slice(0, 200)}`).toBeLessThan(500);
         outcome[actor] = denied(res.status) ? 'denied' : 'allowed';
         expected[actor] = matrix[route].allowed.includes(actor) ? 'allowed' : 'denied';
       }

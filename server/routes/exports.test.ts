@@ -18,7 +18,11 @@ beforeAll(async () => {
 afterAll(() => server.close());
 
 const fifths = fifthsPreset('Fen Fifths!', 8, 3);
-const bp = { ...fifths, name: 'Tritave Thirteen', scale: { kind: 'equal', divisions: 13, period: '3/1' } };
+const bp = {
+  ...fifths,
+  name: 'Tritave Thirteen',
+  scale: { kind: 'equal', divisions: 13, period: '3/1' },
+};
 
 const exportOf = (format: string, document: object = fifths) =>
   asBytes(request(server.app).post(`/api/preview/export/${format}`).send(document));
@@ -41,9 +45,12 @@ async function readIndependently(name: string, bytes: Buffer): Promise<string> {
     return `syx ${bytes.length} bytes`;
   }
   if (name.endsWith('.csv')) return `csv ${parseCsv(bytes, { columns: true }).length} rows`;
-  if (name.endsWith('.json')) return `json ${Object.keys(JSON.parse(bytes.toString('utf8'))).length} fields`;
-  if (name.endsWith('.sfz')) return `sfz ${(bytes.toString('utf8').match(/<region>/g) ?? []).length} regions`;
-  if (name.endsWith('.pdf')) return `pdf ${(await pdfText(bytes)).includes('Fen Fifths') ? 'names the preset' : 'says nothing'}`;
+  if (name.endsWith('.json'))
+    return `json ${Object.keys(JSON.parse(bytes.toString('utf8'))).length} fields`;
+  if (name.endsWith('.sfz'))
+    return `sfz ${(bytes.toString('utf8').match(/<region>/g) ?? []).length} regions`;
+  if (name.endsWith('.pdf'))
+    return `pdf ${(await pdfText(bytes)).includes('Fen Fifths') ? 'names the preset' : 'says nothing'}`;
   return 'unknown';
 }
 
@@ -75,21 +82,28 @@ describe('downloads of an unsaved design', () => {
     expect(JSON.parse(octave.body.toString()).error.message).toMatch(/12/);
     const unknown = await exportOf('wav');
     expect(unknown.status).toBe(400);
-    expect(JSON.parse(unknown.body.toString()).error).toMatchObject({ code: 'unknown_format', field: 'format' });
+    expect(JSON.parse(unknown.body.toString()).error).toMatchObject({
+      code: 'unknown_format',
+      field: 'format',
+    });
   });
 
   it('gives back the same 128-key table when its own .syx and preset exports are imported', async () => {
     const before = previewTable(valid(fifths)).keys;
     for (const format of ['mts-bulk', 'mts-notes', 'preset']) {
       const file = await exportOf(format);
-      const imported = await request(server.app).post('/api/import').attach('file', file.body, `fen-fifths.${format === 'preset' ? 'json' : 'syx'}`);
+      const imported = await request(server.app)
+        .post('/api/import')
+        .attach('file', file.body, `fen-fifths.${format === 'preset' ? 'json' : 'syx'}`);
       expect([format, imported.status]).toEqual([format, 200]);
       const after = previewTable(valid(imported.body.document)).keys;
       // MIDI Tuning specification: the nearest frequency word is at most 0.0030517578125 cents
       // away.
       const tolerance = format === 'preset' ? 1e-9 : 0.0030517578125 + 1e-9;
       for (let key = 0; key < 128; key++) {
-        expect(Math.abs(1200 * Math.log2(after[key].hz! / before[key].hz!))).toBeLessThanOrEqual(tolerance);
+        expect(Math.abs(1200 * Math.log2(after[key].hz! / before[key].hz!))).toBeLessThanOrEqual(
+          tolerance,
+        );
       }
     }
   });
@@ -104,7 +118,11 @@ function valid(document: unknown) {
 describe('downloads of saved and shared presets, and the bundle', () => {
   it('bundles every export that applies with a read-me, the same bytes each time, readable by an independent zip reader', async () => {
     const owner = await server.signIn('exports-owner');
-    const created = await owner.agent.post('/api/presets').set('X-XSRF-TOKEN', owner.xsrf).send({ document: fifths }).expect(201);
+    const created = await owner.agent
+      .post('/api/presets')
+      .set('X-XSRF-TOKEN', owner.xsrf)
+      .send({ document: fifths })
+      .expect(201);
     const first = await asBytes(owner.agent.get(`/api/presets/${created.body.id}/bundle`));
     expect(first.status).toBe(200);
     expect(first.headers['content-type']).toBe('application/zip');
@@ -125,8 +143,14 @@ describe('downloads of saved and shared presets, and the bundle', () => {
 
     const outsider = await server.signIn('exports-outsider');
     await outsider.agent.get(`/api/presets/${created.body.id}/export/smf`).expect(404);
-    const share = await owner.agent.post(`/api/presets/${created.body.id}/shares`).set('X-XSRF-TOKEN', owner.xsrf).send({}).expect(201);
-    const shared = await asBytes(request(server.app).get(`/api/shared/${share.body.token}/export/sfz`));
+    const share = await owner.agent
+      .post(`/api/presets/${created.body.id}/shares`)
+      .set('X-XSRF-TOKEN', owner.xsrf)
+      .send({})
+      .expect(201);
+    const shared = await asBytes(
+      request(server.app).get(`/api/shared/${share.body.token}/export/sfz`),
+    );
     expect(shared.status).toBe(200);
     expect(await readIndependently('x.sfz', shared.body)).toMatch(/^sfz \d+ regions$/);
   });

@@ -19,7 +19,10 @@ import { resolveShareToken } from './shares';
 
 /** Content-Disposition with a plain ASCII file name (made safe from the preset's name). */
 function attachment(res: Response, fileName: string): void {
-  res.setHeader('Content-Disposition', `attachment; filename="${fileName.replace(/[^\w.-]/g, '_')}"`);
+  res.setHeader(
+    'Content-Disposition',
+    `attachment; filename="${fileName.replace(/[^\w.-]/g, '_')}"`,
+  );
 }
 
 /** The pseudo-format that picks the export of the instrument's own form (exportOfReceiveForm). */
@@ -55,7 +58,11 @@ async function sendExport(
   res.type(file.contentType);
   attachment(res, file.fileName);
   // Keys clamped into range and similar notes travel with the file, never silently.
-  if (file.warnings.length > 0) res.setHeader('Keyloom-Warnings', encodeURIComponent(JSON.stringify(file.warnings.map((w) => w.message))));
+  if (file.warnings.length > 0)
+    res.setHeader(
+      'Keyloom-Warnings',
+      encodeURIComponent(JSON.stringify(file.warnings.map((w) => w.message))),
+    );
   res.send(file.bytes);
 }
 
@@ -94,7 +101,11 @@ export function exportsRouter(db: Database): Router {
     await sendExport(res, preset, req.params['format'], at, instrument);
   });
 
-  async function savedRevision(presetId: string, user: Express.User | undefined, revisionQuery: unknown) {
+  async function savedRevision(
+    presetId: string,
+    user: Express.User | undefined,
+    revisionQuery: unknown,
+  ) {
     const { preset } = await authorizePreset(db, user, presetId, 'read');
     const wanted = revisionQuery === undefined ? preset.latestRevision : Number(revisionQuery);
     const revision = await readRevision(db, preset.id, wanted);
@@ -102,13 +113,21 @@ export function exportsRouter(db: Database): Router {
   }
 
   router.get('/api/presets/:id/export/:format', async (req, res) => {
-    const { revision, resolved } = await savedRevision(req.params['id'], req.user, req.query['revision']);
+    const { revision, resolved } = await savedRevision(
+      req.params['id'],
+      req.user,
+      req.query['revision'],
+    );
     const at = { revision: revision.revision, savedAt: revision.createdAt };
     await sendExport(res, resolved, req.params['format'], at, await instrumentOf(db, req));
   });
 
   router.get('/api/presets/:id/bundle', async (req, res) => {
-    const { revision, resolved } = await savedRevision(req.params['id'], req.user, req.query['revision']);
+    const { revision, resolved } = await savedRevision(
+      req.params['id'],
+      req.user,
+      req.query['revision'],
+    );
     const at = { revision: revision.revision, savedAt: revision.createdAt };
     await sendExport(res, resolved, 'bundle', at, await instrumentOf(db, req));
   });

@@ -20,13 +20,20 @@ describe('GET /api/health', () => {
 
   it('answers 503 and says so when the database is down', async () => {
     // Port 9 on loopback: nothing listens there, so every connection is refused at once.
-    const config = loadConfig({ DATABASE_URL: 'postgres://nobody:x@127.0.0.1:9/none', LOG_REQUESTS: '0' });
+    const config = loadConfig({
+      DATABASE_URL: 'postgres://nobody:x@127.0.0.1:9/none',
+      LOG_REQUESTS: '0',
+    });
     const db = createDatabase(config.databaseUrl);
     const mailer = { send: async () => {} };
     const res = await request(createApp({ db, config, mailer })).get('/api/health');
     await db.$client.end();
     expect(res.status).toBe(503);
-    expect(res.body).toMatchObject({ ok: false, db: false, error: { code: 'database_unavailable' } });
+    expect(res.body).toMatchObject({
+      ok: false,
+      db: false,
+      error: { code: 'database_unavailable' },
+    });
   });
 });
 
@@ -34,11 +41,16 @@ describe('errors and headers', () => {
   it('answers an unknown API path with the JSON error shape', async () => {
     const res = await request(server.app).get('/api/no-such-thing');
     expect(res.status).toBe(404);
-    expect(res.body).toEqual({ error: { code: 'not_found', message: 'No API route GET /api/no-such-thing.' } });
+    expect(res.body).toEqual({
+      error: { code: 'not_found', message: 'No API route GET /api/no-such-thing.' },
+    });
   });
 
   it('answers a body that is not JSON with 400, not a crash', async () => {
-    const res = await request(server.app).post('/api/no-such-thing').set('Content-Type', 'application/json').send('{"a":');
+    const res = await request(server.app)
+      .post('/api/no-such-thing')
+      .set('Content-Type', 'application/json')
+      .send('{"a":');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('bad_json');
   });
@@ -47,7 +59,9 @@ describe('errors and headers', () => {
     const res = await request(server.app).get('/api/health');
     expect(res.headers['x-content-type-options']).toBe('nosniff');
     expect(res.headers['x-powered-by']).toBeUndefined();
-    const scriptSrc = res.headers['content-security-policy'].split(';').find((d: string) => d.startsWith('script-src'));
+    const scriptSrc = res.headers['content-security-policy']
+      .split(';')
+      .find((d: string) => d.startsWith('script-src'));
     expect(scriptSrc).toBe("script-src 'self'");
   });
 
@@ -59,8 +73,14 @@ describe('errors and headers', () => {
   });
 
   it('says the app is not built when the build folder is missing, instead of a bare 404', async () => {
-    const config = loadConfig({ DATABASE_URL: inject('databaseUrl'), STATIC_DIR: 'no/such/folder', LOG_REQUESTS: '0' });
-    const res = await request(createApp({ db: server.db, config, mailer: { send: async () => {} } })).get('/design');
+    const config = loadConfig({
+      DATABASE_URL: inject('databaseUrl'),
+      STATIC_DIR: 'no/such/folder',
+      LOG_REQUESTS: '0',
+    });
+    const res = await request(
+      createApp({ db: server.db, config, mailer: { send: async () => {} } }),
+    ).get('/design');
     expect(res.status).toBe(503);
     expect(res.text).toContain('not built');
   });

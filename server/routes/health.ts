@@ -11,7 +11,10 @@ export function healthRouter(db: Database): Router {
       res.status(503).json({
         ok: false,
         db: false,
-        error: { code: 'database_unavailable', message: 'The server is up but its database is not answering.' },
+        error: {
+          code: 'database_unavailable',
+          message: 'The server is up but its database is not answering.',
+        },
       });
     }
   });

@@ -14,18 +14,34 @@ import { syxImportOffThread } from '../work/worker-pool';
 const largestTextBytes = 256 * 1024;
 
 function nameFrom(fileName: string): string {
-  return fileName.replace(/\.[^.]*$/, '').replace(/[_-]+/g, ' ').trim().slice(0, 80) || 'Imported tuning';
+  return (
+    fileName
+      .replace(/\.[^.]*$/, '')
+      .replace(/[_-]+/g, ' ')
+      .trim()
+      .slice(0, 80) || 'Imported tuning'
+  );
 }
 
 /** Reads text only when it is UTF-8 without control bytes: a binary file posted as text is refused. */
 function asText(bytes: Buffer): string {
   if (bytes.length > largestTextBytes) {
     const size = `${(bytes.length / 1024 / 1024).toFixed(1)} MB`;
-    throw new HttpError(413, 'too_large', `file: a preset or a list of intervals is at most ${largestTextBytes / 1024} kB; this file is ${size}.`, 'file');
+    throw new HttpError(
+      413,
+      'too_large',
+      `file: a preset or a list of intervals is at most ${largestTextBytes / 1024} kB; this file is ${size}.`,
+      'file',
+    );
   }
   const text = new TextDecoder('utf-8', { fatal: false }).decode(bytes);
   if (text.includes('\uFFFD') || /[\x00-\x08\x0e-\x1f]/.test(text)) {
-    throw new HttpError(400, 'unreadable', 'file: is neither an .syx file of MTS messages, a preset .json, nor a text list of intervals.', 'file');
+    throw new HttpError(
+      400,
+      'unreadable',
+      'file: is neither an .syx file of MTS messages, a preset .json, nor a text list of intervals.',
+      'file',
+    );
   }
   return text;
 }
@@ -51,7 +67,12 @@ export function importsRouter(db: Database): Router {
         try {
           json = JSON.parse(text);
         } catch (error) {
-          throw new HttpError(400, 'bad_json', `file: is not valid JSON (${(error as Error).message}).`, 'file');
+          throw new HttpError(
+            400,
+            'bad_json',
+            `file: is not valid JSON (${(error as Error).message}).`,
+            'file',
+          );
         }
         document = parsePresetDocument(json);
       } else {
@@ -62,7 +83,10 @@ export function importsRouter(db: Database): Router {
     const value = valueOrThrow(document);
     // Whatever came in must stand as a preset of its own before it is handed back.
     const checked = valueOrThrow(parsePresetDocument(value));
-    res.json({ kind, document: (kind === 'preset' ? checked : value) as PresetDocument } satisfies ImportedTuning);
+    res.json({
+      kind,
+      document: (kind === 'preset' ? checked : value) as PresetDocument,
+    } satisfies ImportedTuning);
   });
   return router;
 }

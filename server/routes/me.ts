@@ -7,7 +7,14 @@ export function meRouter(): Router {
     const user = req.user;
     res.json({
       user: user
-        ? { id: user.id, login: user.login, name: user.name, email: user.email, avatarUrl: user.avatarUrl, siteRole: user.siteRole }
+        ? {
+            id: user.id,
+            login: user.login,
+            name: user.name,
+            email: user.email,
+            avatarUrl: user.avatarUrl,
+            siteRole: user.siteRole,
+          }
         : null,
     } satisfies MeAnswer);
   });

@@ -29,7 +29,12 @@ import { valueOrThrow } from '../http/validation';
 import { iso } from '../http/wire';
 import { recordAudit } from '../library/audit';
 import { appendRevision, createPreset, readRevision } from '../library/revisions';
-import { authorizeBandLibrary, authorizePreset, listedPresetAccess, requireUser } from '../policy/policy';
+import {
+  authorizeBandLibrary,
+  authorizePreset,
+  listedPresetAccess,
+  requireUser,
+} from '../policy/policy';
 
 /** How long a deleted preset waits in the trash before it is gone for good. */
 const trashDays = 30;
@@ -70,9 +75,15 @@ export function presetsRouter(db: Database): Router {
   router.get('/api/presets', async (req, res) => {
     const user = requireUser(req.user);
     const query = valueOrThrow(parseRequest(presetListQuery, req.query));
-    const myBands = db.select({ id: memberships.bandId }).from(memberships).where(eq(memberships.userId, user.id));
+    const myBands = db
+      .select({ id: memberships.bandId })
+      .from(memberships)
+      .where(eq(memberships.userId, user.id));
     const where = and(
-      or(and(eq(presets.ownerId, user.id), isNull(presets.bandId)), inArray(presets.bandId, myBands)),
+      or(
+        and(eq(presets.ownerId, user.id), isNull(presets.bandId)),
+        inArray(presets.bandId, myBands),
+      ),
       query.bandId ? eq(presets.bandId, query.bandId) : undefined,
       query.q ? ilike(presets.name, `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`) : undefined,
       query.trash === '1' ? isNotNull(presets.deletedAt) : isNull(presets.deletedAt),
@@ -99,7 +110,10 @@ export function presetsRouter(db: Database): Router {
       })
       .from(presets)
       .leftJoin(bands, eq(bands.id, presets.bandId))
-      .leftJoin(memberships, and(eq(memberships.bandId, presets.bandId), eq(memberships.userId, user.id)))
+      .leftJoin(
+        memberships,
+        and(eq(memberships.bandId, presets.bandId), eq(memberships.userId, user.id)),
+      )
       .innerJoin(users, eq(users.id, presets.ownerId))
       .where(where)
       .orderBy(...order)
@@ -115,7 +129,10 @@ export function presetsRouter(db: Database): Router {
     res.json({ items, total, page: query.page, pageSize: query.pageSize } satisfies PresetPage);
 
     async function countVisible(): Promise<number> {
-      const [row] = await db.select({ n: sql<number>`count(*)`.mapWith(Number) }).from(presets).where(where);
+      const [row] = await db
+        .select({ n: sql<number>`count(*)`.mapWith(Number) })
+        .from(presets)
+        .where(where);
       return row.n;
     }
   });
@@ -134,7 +151,9 @@ export function presetsRouter(db: Database): Router {
       createdAt: iso(preset.createdAt),
       updatedAt: iso(preset.updatedAt),
       deletedAt: iso(preset.deletedAt),
-      forkedFrom: preset.forkedFromId ? { id: preset.forkedFromId, revision: preset.forkedFromRevision } : null,
+      forkedFrom: preset.forkedFromId
+        ? { id: preset.forkedFromId, revision: preset.forkedFromRevision }
+        : null,
       access,
     } satisfies SavedPreset);
   });
@@ -172,7 +191,9 @@ export function presetsRouter(db: Database): Router {
       .leftJoin(users, eq(users.id, presetRevisions.authorId))
       .where(eq(presetRevisions.presetId, preset.id))
       .orderBy(desc(presetRevisions.revision));
-    res.json({ items: rows.map((row) => ({ ...row, createdAt: iso(row.createdAt) })) } satisfies ItemList<RevisionEntry>);
+    res.json({
+      items: rows.map((row) => ({ ...row, createdAt: iso(row.createdAt) })),
+    } satisfies ItemList<RevisionEntry>);
   });
 
   router.get('/api/presets/:id/revisions/:n', async (req, res) => {
@@ -193,11 +214,20 @@ export function presetsRouter(db: Database): Router {
     const after = await readRevision(db, preset.id, revisionNumber(req.params['n']));
     const to = after.revision;
     if (req.query['from'] === undefined && to === 1) {
-      throw new HttpError(400, 'invalid', 'from: revision 1 has nothing before it to compare with.', 'from');
+      throw new HttpError(
+        400,
+        'invalid',
+        'from: revision 1 has nothing before it to compare with.',
+        'from',
+      );
     }
-    const from = req.query['from'] === undefined ? to - 1 : revisionNumber(String(req.query['from']));
+    const from =
+      req.query['from'] === undefined ? to - 1 : revisionNumber(String(req.query['from']));
     const before = await readRevision(db, preset.id, from);
-    const changes = summarizeChanges(documentOrThrow(before.document), documentOrThrow(after.document));
+    const changes = summarizeChanges(
+      documentOrThrow(before.document),
+      documentOrThrow(after.document),
+    );
     res.json({ from, to, ...changes } satisfies RevisionChanges);
   });
 
@@ -245,7 +275,12 @@ export function presetsRouter(db: Database): Router {
     if (!preset.deletedAt) {
       await db.transaction(async (tx) => {
         await tx.update(presets).set({ deletedAt: new Date() }).where(eq(presets.id, preset.id));
-        await recordAudit(tx, { actorId: user.id, action: 'preset.delete', bandId: preset.bandId, presetId: preset.id });
+        await recordAudit(tx, {
+          actorId: user.id,
+          action: 'preset.delete',
+          bandId: preset.bandId,
+          presetId: preset.id,
+        });
       });
     }
     res.status(204).end();
@@ -255,12 +290,21 @@ export function presetsRouter(db: Database): Router {
     const user = requireUser(req.user);
     const { preset } = await authorizePreset(db, user, req.params['id'], 'edit');
     if (preset.deletedAt && Date.now() - preset.deletedAt.getTime() > trashMs) {
-      throw new HttpError(410, 'expired', `This preset was deleted more than ${trashDays} days ago and cannot come back.`);
+      throw new HttpError(
+        410,
+        'expired',
+        `This preset was deleted more than ${trashDays} days ago and cannot come back.`,
+      );
     }
     if (preset.deletedAt) {
       await db.transaction(async (tx) => {
         await tx.update(presets).set({ deletedAt: null }).where(eq(presets.id, preset.id));
-        await recordAudit(tx, { actorId: user.id, action: 'preset.untrash', bandId: preset.bandId, presetId: preset.id });
+        await recordAudit(tx, {
+          actorId: user.id,
+          action: 'preset.untrash',
+          bandId: preset.bandId,
+          presetId: preset.id,
+        });
       });
     }
     res.json({ id: preset.id, deletedAt: null } satisfies UntrashedPreset);

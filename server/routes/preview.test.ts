@@ -16,7 +16,13 @@ describe('POST /api/preview/table', () => {
     const res = await request(server.app).post('/api/preview/table').send(fifths(5, 1));
     expect(res.status).toBe(200);
     expect(res.body.degrees.map((d: { ratio: string }) => d.ratio)).toEqual([
-      '1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128',
+      '1/1',
+      '9/8',
+      '81/64',
+      '4/3',
+      '3/2',
+      '27/16',
+      '243/128',
     ]);
     expect(res.body.analysis.stepPattern.pattern).toBe('LLsLLLs');
     expect(res.body.keys).toHaveLength(128);
@@ -48,7 +54,9 @@ describe('POST /api/preview/table', () => {
   });
 
   it('refuses a document of an unknown version instead of guessing', async () => {
-    const res = await request(server.app).post('/api/preview/table').send({ ...fifths(5, 1), version: 2 });
+    const res = await request(server.app)
+      .post('/api/preview/table')
+      .send({ ...fifths(5, 1), version: 2 });
     expect(res.status).toBe(400);
     expect(res.body.error.field).toBe('version');
   });

@@ -28,23 +28,39 @@ function whatItIs(bytes: Buffer): string {
 export function retuneRouter(db: Database): Router {
   const router = Router();
 
-  async function presetFor(fields: Record<string, unknown>, user: Express.User | undefined): Promise<ResolvedPreset> {
+  async function presetFor(
+    fields: Record<string, unknown>,
+    user: Express.User | undefined,
+  ): Promise<ResolvedPreset> {
     if (typeof fields['presetId'] === 'string' && fields['presetId'] !== '') {
       const { preset } = await authorizePreset(db, user, fields['presetId'], 'read');
       const latest = await readRevision(db, preset.id, preset.latestRevision);
       return documentOrThrow(latest.document, 'preset');
     }
     if (typeof fields['preset'] !== 'string' || fields['preset'] === '') {
-      throw new HttpError(400, 'invalid', 'preset: is required: send the preset document as JSON, or presetId.', 'preset');
+      throw new HttpError(
+        400,
+        'invalid',
+        'preset: is required: send the preset document as JSON, or presetId.',
+        'preset',
+      );
     }
     let json: unknown;
     try {
       json = JSON.parse(fields['preset']);
     } catch (error) {
-      throw new HttpError(400, 'bad_json', `preset: is not valid JSON (${(error as Error).message}).`, 'preset');
+      throw new HttpError(
+        400,
+        'bad_json',
+        `preset: is not valid JSON (${(error as Error).message}).`,
+        'preset',
+      );
     }
     const parsed = parsePresetDocument(json);
-    if (!parsed.ok) throw new ValidationError(parsed.errors.map((e) => ({ path: `preset.${e.path}`, message: `preset.${e.message}` })));
+    if (!parsed.ok)
+      throw new ValidationError(
+        parsed.errors.map((e) => ({ path: `preset.${e.path}`, message: `preset.${e.message}` })),
+      );
     return parsed.value;
   }
 
@@ -53,16 +69,28 @@ export function retuneRouter(db: Database): Router {
     const fields = (req.body ?? {}) as Record<string, unknown>;
     const mode = fields['mode'] ?? 'mts';
     if (mode !== 'mts' && mode !== 'mpe') {
-      throw new HttpError(400, 'invalid', `mode: must be mts or mpe (got ${JSON.stringify(mode)}).`, 'mode');
+      throw new HttpError(
+        400,
+        'invalid',
+        `mode: must be mts or mpe (got ${JSON.stringify(mode)}).`,
+        'mode',
+      );
     }
     const leadInText = fields['leadInMs'];
-    const leadInMs = leadInText === undefined || leadInText === '' ? defaultLeadInMs : Number(leadInText);
-    const leadInFaultText = typeof leadInText === 'object' ? 'must be one number of milliseconds' : leadInFault(leadInMs);
+    const leadInMs =
+      leadInText === undefined || leadInText === '' ? defaultLeadInMs : Number(leadInText);
+    const leadInFaultText =
+      typeof leadInText === 'object' ? 'must be one number of milliseconds' : leadInFault(leadInMs);
     if (leadInFaultText) {
       throw new HttpError(400, 'invalid', `leadInMs: ${leadInFaultText}.`, 'leadInMs');
     }
     if (file.buffer.subarray(0, 4).toString('latin1') !== 'MThd') {
-      throw new HttpError(400, 'not_midi', `file: is not a Standard MIDI File; it looks like ${whatItIs(file.buffer)}.`, 'file');
+      throw new HttpError(
+        400,
+        'not_midi',
+        `file: is not a Standard MIDI File; it looks like ${whatItIs(file.buffer)}.`,
+        'file',
+      );
     }
     const preset = await presetFor(fields, req.user);
     const tuning = valueOrThrow(tuningOfPreset(preset));

@@ -7,7 +7,8 @@ let server: Awaited<ReturnType<typeof startTestServer>>;
 let owner: Awaited<ReturnType<typeof server.signIn>>;
 
 const doc = (up: number) => fifthsPreset('Guest Fifths', up, 0);
-const post = (path: string, body?: object) => owner.agent.post(path).set('X-XSRF-TOKEN', owner.xsrf).send(body);
+const post = (path: string, body?: object) =>
+  owner.agent.post(path).set('X-XSRF-TOKEN', owner.xsrf).send(body);
 
 beforeAll(async () => {
   server = await startTestServer();
@@ -25,12 +26,20 @@ describe('share links', () => {
 
     const guest = request(server.app);
     const first = await guest.get(`/api/shared/${link.body.token}`).expect(200);
-    expect(first.body).toMatchObject({ name: 'Guest Fifths', revision: 1, pinned: false, document: doc(5) });
+    expect(first.body).toMatchObject({
+      name: 'Guest Fifths',
+      revision: 1,
+      pinned: false,
+      document: doc(5),
+    });
 
     await post(`/api/presets/${id}/revisions`, { document: doc(6) }).expect(201);
     expect((await guest.get(`/api/shared/${link.body.token}`).expect(200)).body.revision).toBe(2);
 
-    await owner.agent.delete(`/api/shares/${link.body.id}`).set('X-XSRF-TOKEN', owner.xsrf).expect(204);
+    await owner.agent
+      .delete(`/api/shares/${link.body.id}`)
+      .set('X-XSRF-TOKEN', owner.xsrf)
+      .expect(204);
     await guest.get(`/api/shared/${link.body.token}`).expect(404);
     const listed = await owner.agent.get(`/api/presets/${id}/shares`).expect(200);
     expect(listed.body.items[0].revokedAt).not.toBeNull();

@@ -20,7 +20,8 @@ export async function resolveShareToken(db: Database, token: string) {
     .select()
     .from(shareLinks)
     .where(and(eq(shareLinks.tokenHash, hashToken(token)), isNull(shareLinks.revokedAt)));
-  const preset = share && (await db.query.presets.findFirst({ where: eq(presets.id, share.presetId) }));
+  const preset =
+    share && (await db.query.presets.findFirst({ where: eq(presets.id, share.presetId) }));
   if (!share || !preset || preset.deletedAt) throw notFound('shared preset');
   const revision = await readRevision(db, preset.id, share.revision ?? preset.latestRevision);
   return { share, preset, revision };
@@ -34,22 +35,37 @@ export function sharesRouter(db: Database, config: Config): Router {
     const { preset } = await authorizePreset(db, user, req.params['id'], 'edit');
     const body = valueOrThrow(parseRequest(createShareRequest, req.body));
     if (body.revision !== undefined && body.revision > preset.latestRevision) {
-      throw new HttpError(400, 'invalid', `revision: this preset has revisions 1 to ${preset.latestRevision}.`, 'revision');
+      throw new HttpError(
+        400,
+        'invalid',
+        `revision: this preset has revisions 1 to ${preset.latestRevision}.`,
+        'revision',
+      );
     }
     const { token, hash } = newToken();
     const share = await db.transaction(async (tx) => {
       const [row] = await tx
         .insert(shareLinks)
-        .values({ presetId: preset.id, revision: body.revision ?? null, tokenHash: hash, createdBy: user.id })
+        .values({
+          presetId: preset.id,
+          revision: body.revision ?? null,
+          tokenHash: hash,
+          createdBy: user.id,
+        })
         .returning({ id: shareLinks.id });
       await recordAudit(tx, {
-        actorId: user.id, action: 'share.create', bandId: preset.bandId, presetId: preset.id,
+        actorId: user.id,
+        action: 'share.create',
+        bandId: preset.bandId,
+        presetId: preset.id,
         detail: { shareId: row.id, revision: body.revision ?? null },
       });
       return row;
     });
     const url = `${config.publicUrl}/s/${token}`;
-    res.status(201).json({ id: share.id, token, url, revision: body.revision ?? null } satisfies NewShareLink);
+    res
+      .status(201)
+      .json({ id: share.id, token, url, revision: body.revision ?? null } satisfies NewShareLink);
   });
 
   router.get('/api/presets/:id/shares', async (req, res) => {
@@ -65,24 +81,39 @@ export function sharesRouter(db: Database, config: Config): Router {
       .from(shareLinks)
       .where(eq(shareLinks.presetId, preset.id))
       .orderBy(desc(shareLinks.createdAt));
-    const items = rows.map((row) => ({ ...row, createdAt: iso(row.createdAt), revokedAt: iso(row.revokedAt) }));
+    const items = rows.map((row) => ({
+      ...row,
+      createdAt: iso(row.createdAt),
+      revokedAt: iso(row.revokedAt),
+    }));
     res.json({ items } satisfies ItemList<ShareLink>);
   });
 
   router.delete('/api/shares/:id', async (req, res) => {
     const user = requireUser(req.user);
     const id = req.params['id'];
-    const share = isId(id) ? await db.query.shareLinks.findFirst({ where: eq(shareLinks.id, id) }) : undefined;
+    const share = isId(id)
+      ? await db.query.shareLinks.findFirst({ where: eq(shareLinks.id, id) })
+      : undefined;
     if (!share) throw notFound('share link');
     // Another preset's link answers as an unknown one does, so that share ids cannot be probed.
-    const { preset } = await authorizePreset(db, user, share.presetId, 'edit').catch((error: unknown) => {
-      throw error instanceof HttpError && error.status === 404 ? notFound('share link') : error;
-    });
+    const { preset } = await authorizePreset(db, user, share.presetId, 'edit').catch(
+      (error: unknown) => {
+        throw error instanceof HttpError && error.status === 404 ? notFound('share link') : error;
+      },
+    );
     if (!share.revokedAt) {
       await db.transaction(async (tx) => {
-        await tx.update(shareLinks).set({ revokedAt: new Date() }).where(eq(shareLinks.id, share.id));
+        await tx
+          .update(shareLinks)
+          .set({ revokedAt: new Date() })
+          .where(eq(shareLinks.id, share.id));
         await recordAudit(tx, {
-          actorId: user.id, action: 'share.revoke', bandId: preset.bandId, presetId: preset.id, detail: { shareId: share.id },
+          actorId: user.id,
+          action: 'share.revoke',
+          bandId: preset.bandId,
+          presetId: preset.id,
+          detail: { shareId: share.id },
         });
       });
     }

@@ -11,7 +11,15 @@ import { bundleEntries } from '../exports/bundle-entries';
 import { type SheetRevision, renderTunerSheet } from '../exports/tuner-sheet';
 
 export type HeavyTask =
-  | { kind: 'retune'; song: Uint8Array; keys: KeyTable; output: ResolvedPreset['output']; keysPerPeriod: number; mode: RetuneMode; leadInMs: number }
+  | {
+      kind: 'retune';
+      song: Uint8Array;
+      keys: KeyTable;
+      output: ResolvedPreset['output'];
+      keysPerPeriod: number;
+      mode: RetuneMode;
+      leadInMs: number;
+    }
   | { kind: 'tuner-sheet'; preset: ResolvedPreset; at: SheetRevision }
   | { kind: 'bundle-entries'; preset: ResolvedPreset; at: SheetRevision }
   | { kind: 'syx-import'; bytes: Uint8Array; name: string };
@@ -21,10 +29,19 @@ export const listedStolenNotes = 100;
 
 /** A retuned song as the route sends it: the bytes moved back without a copy, the report's lists cut short. */
 export function retune(task: Extract<HeavyTask, { kind: 'retune' }>) {
-  const retuned = retuneSong(task.song, { keys: task.keys, output: task.output, keysPerPeriod: task.keysPerPeriod }, task.mode, task.leadInMs);
+  const retuned = retuneSong(
+    task.song,
+    { keys: task.keys, output: task.output, keysPerPeriod: task.keysPerPeriod },
+    task.mode,
+    task.leadInMs,
+  );
   if (!retuned.ok) return retuned;
   const { bytes, report } = retuned.value;
-  const listed = { ...report, notesStolen: report.notesStolen.slice(0, listedStolenNotes), notesStolenCount: report.notesStolen.length };
+  const listed = {
+    ...report,
+    notesStolen: report.notesStolen.slice(0, listedStolenNotes),
+    notesStolenCount: report.notesStolen.length,
+  };
   return { ok: true as const, value: { song: bytes, report: listed } };
 }
 
@@ -44,6 +61,9 @@ export default async function heavyWork(task: HeavyTask) {
     case 'tuner-sheet':
       return new Uint8Array(await renderTunerSheet(task.preset, task.at));
     case 'bundle-entries':
-      return (await bundleEntries(task.preset, task.at)).map((entry) => ({ name: entry.name, bytes: new Uint8Array(entry.bytes) }));
+      return (await bundleEntries(task.preset, task.at)).map((entry) => ({
+        name: entry.name,
+        bytes: new Uint8Array(entry.bytes),
+      }));
   }
 }

@@ -4,7 +4,11 @@ import { availableParallelism } from 'node:os';
 import Piscina from 'piscina';
 import { HttpError } from '../http/errors';
 import type { BundleEntry } from '../exports/bundle-entries';
-import type { HeavyTask, retune as retuneOnThread, syxImport as syxImportOnThread } from './heavy-work';
+import type {
+  HeavyTask,
+  retune as retuneOnThread,
+  syxImport as syxImportOnThread,
+} from './heavy-work';
 
 /** Tasks waiting for a thread at most; past that the server says it is busy rather than queueing without end. */
 const longestQueue = 64;
@@ -30,7 +34,11 @@ async function offThread(task: HeavyTask): Promise<unknown> {
     return await workers().run(task);
   } catch (error) {
     if (/queue is at limit/i.test((error as Error).message ?? '')) {
-      throw new HttpError(503, 'busy', 'The server is busy with other long work; try again in a moment.');
+      throw new HttpError(
+        503,
+        'busy',
+        'The server is busy with other long work; try again in a moment.',
+      );
     }
     throw error;
   }
@@ -39,13 +47,19 @@ async function offThread(task: HeavyTask): Promise<unknown> {
 type TaskOf<K extends HeavyTask['kind']> = Omit<Extract<HeavyTask, { kind: K }>, 'kind'>;
 
 /** A song retuned on a worker thread. */
-export function retuneOffThread(task: TaskOf<'retune'>): Promise<ReturnType<typeof retuneOnThread>> {
+export function retuneOffThread(
+  task: TaskOf<'retune'>,
+): Promise<ReturnType<typeof retuneOnThread>> {
   return offThread({ kind: 'retune', ...task }) as Promise<ReturnType<typeof retuneOnThread>>;
 }
 
 /** A preset document decoded from an .syx on a worker thread. */
-export function syxImportOffThread(task: TaskOf<'syx-import'>): Promise<ReturnType<typeof syxImportOnThread>> {
-  return offThread({ kind: 'syx-import', ...task }) as Promise<ReturnType<typeof syxImportOnThread>>;
+export function syxImportOffThread(
+  task: TaskOf<'syx-import'>,
+): Promise<ReturnType<typeof syxImportOnThread>> {
+  return offThread({ kind: 'syx-import', ...task }) as Promise<
+    ReturnType<typeof syxImportOnThread>
+  >;
 }
 
 /** The tuner sheet PDF drawn on a worker thread. */
@@ -55,9 +69,17 @@ export async function tunerSheetOffThread(task: TaskOf<'tuner-sheet'>): Promise<
 }
 
 /** The files of a bundle rendered on a worker thread. */
-export async function bundleEntriesOffThread(task: TaskOf<'bundle-entries'>): Promise<BundleEntry[]> {
-  const entries = (await offThread({ kind: 'bundle-entries', ...task })) as { name: string; bytes: Uint8Array }[];
-  return entries.map(({ name, bytes }) => ({ name, bytes: Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength) }));
+export async function bundleEntriesOffThread(
+  task: TaskOf<'bundle-entries'>,
+): Promise<BundleEntry[]> {
+  const entries = (await offThread({ kind: 'bundle-entries', ...task })) as {
+    name: string;
+    bytes: Uint8Array;
+  }[];
+  return entries.map(({ name, bytes }) => ({
+    name,
+    bytes: Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength),
+  }));
 }
 
 /** Ends the worker threads (tests and shutdown); the next task starts them again. */

@@ -43,10 +43,18 @@ export const instrumentSettings = z
     deviceId: sevenBit.default(127),
     program: sevenBit.default(0),
     bank: sevenBit.default(0),
-    bendRange: z.int({ error: 'must be a whole number of semitones from 1 to 96' }).min(1).max(96).default(2),
+    bendRange: z
+      .int({ error: 'must be a whole number of semitones from 1 to 96' })
+      .min(1)
+      .max(96)
+      .default(2),
     memberChannels: z.tuple([channel, channel]).default([2, 16]),
     /** The MIDI output's name to pick in the browser when it is present. */
-    port: storableString().trim().max(100, { error: 'must be at most 100 characters' }).nullable().default(null),
+    port: storableString()
+      .trim()
+      .max(100, { error: 'must be at most 100 characters' })
+      .nullable()
+      .default(null),
   })
   .superRefine(({ memberChannels: [first, last] }, context) => {
     if (first > last) {

@@ -16,13 +16,20 @@ const revision = z.int().min(1).max(largestRevision);
 /** Far past any library's last page, and small enough that the offset stays a safe integer. */
 const lastPage = 100_000;
 
-export const createPresetRequest = z.strictObject({ document: z.unknown(), bandId: id.optional(), note: note.optional() });
+export const createPresetRequest = z.strictObject({
+  document: z.unknown(),
+  bandId: id.optional(),
+  note: note.optional(),
+});
 export const saveRevisionRequest = z.strictObject({ document: z.unknown(), note: note.optional() });
 export const restoreRevisionRequest = z.strictObject({ revision });
 export const forkPresetRequest = z.strictObject({ bandId: id.optional() });
 export const createShareRequest = z.strictObject({ revision: revision.optional() });
 export const bandNameRequest = z.strictObject({
-  name: storableString().trim().min(1, { error: 'must not be empty' }).max(80, { error: 'must be at most 80 characters' }),
+  name: storableString()
+    .trim()
+    .min(1, { error: 'must not be empty' })
+    .max(80, { error: 'must be at most 80 characters' }),
 });
 export const memberRoleRequest = z.strictObject({ role: bandRole });
 export const inviteRequest = z.strictObject({

@@ -11,7 +11,12 @@ const entry = z.strictObject({
   /** Pinned to this revision; absent or null: follows the latest. */
   revision: z.int().min(1).max(2_147_483_647).nullable().default(null),
   /** A MIDI program-change number that selects this entry from a foot controller. */
-  trigger: z.int({ error: 'must be a program number from 0 to 127' }).min(0).max(127).nullable().default(null),
+  trigger: z
+    .int({ error: 'must be a program number from 0 to 127' })
+    .min(0)
+    .max(127)
+    .nullable()
+    .default(null),
 });
 
 /** `POST /api/bands/:id/setlists` and `PUT /api/setlists/:id`: the whole list, in order. */
@@ -21,7 +26,9 @@ export const setlistRequest = z
       .trim()
       .min(1, { error: 'must not be empty' })
       .max(80, { error: 'must be at most 80 characters' }),
-    entries: z.array(entry).max(longestSetlist, { error: `must hold at most ${longestSetlist} entries` }),
+    entries: z
+      .array(entry)
+      .max(longestSetlist, { error: `must hold at most ${longestSetlist} entries` }),
   })
   .superRefine(({ entries }, context) => {
     const seen = new Map<number, number>();

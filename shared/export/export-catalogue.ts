@@ -82,7 +82,8 @@ export const exportFormats = [
     extension: 'csv',
     fileSuffix: '-keys',
     contentType: 'text/csv; charset=utf-8',
-    description: 'Key table as CSV: every one of the 128 keys with its note, degree, Hz and cents from 12-TET',
+    description:
+      'Key table as CSV: every one of the 128 keys with its note, degree, Hz and cents from 12-TET',
   },
   {
     id: 'sfz',

@@ -4,7 +4,12 @@ import { parsePresetDocument } from '../preset/preset-document';
 import { renderExport } from './export-catalogue';
 
 function csvOf(document: object): string[][] {
-  const parsed = parsePresetDocument({ format: 'keyloom.preset', version: 1, name: 'Keys', ...document });
+  const parsed = parsePresetDocument({
+    format: 'keyloom.preset',
+    version: 1,
+    name: 'Keys',
+    ...document,
+  });
   if (!parsed.ok) throw new Error(parsed.errors[0].message);
   const file = renderExport(parsed.value, 'key-csv');
   if (!file.ok) throw new Error(file.errors[0].message);

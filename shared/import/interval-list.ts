@@ -36,7 +36,8 @@ export function presetFromIntervalList(text: string, name: string): Result<Prese
   for (const raw of linesOf(text)) {
     number += 1;
     const where = `line ${number}`;
-    if (number > mostLines) return fail([fieldError(where, `the list is longer than ${mostLines} lines`)]);
+    if (number > mostLines)
+      return fail([fieldError(where, `the list is longer than ${mostLines} lines`)]);
     const line = raw.replace(/#.*/, '').trim();
     if (line === '') continue;
     const periodLine = /^period\s*[:=]?\s*(.+)$/i.exec(line);
@@ -51,7 +52,12 @@ export function presetFromIntervalList(text: string, name: string): Result<Prese
         period = written;
       } else if (degrees.length === largestScale) {
         // One more than a scale holds above its tonic: room for a leading 1/1 that is dropped below.
-        return fail([fieldError(where, `more than ${largestScale - 1} degrees: a scale holds at most ${largestScale} with its tonic`)]);
+        return fail([
+          fieldError(
+            where,
+            `more than ${largestScale - 1} degrees: a scale holds at most ${largestScale} with its tonic`,
+          ),
+        ]);
       } else {
         degrees.push(written);
       }
@@ -60,7 +66,9 @@ export function presetFromIntervalList(text: string, name: string): Result<Prese
   if (faults.length > 0) return fail(faults);
   const reading = withoutTonicAndPeriod(degrees, period);
   if (reading.degrees.length === 0) {
-    return fail([fieldError('file', 'no intervals found: write one interval a line, such as 9/8 or 203.9c')]);
+    return fail([
+      fieldError('file', 'no intervals found: write one interval a line, such as 9/8 or 203.9c'),
+    ]);
   }
   return succeed({
     format: 'keyloom.preset',

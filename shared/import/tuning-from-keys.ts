@@ -22,7 +22,10 @@ export interface KeyImport {
 }
 
 function rootOf(mapped: number[]): number {
-  return mapped.reduce((best, key) => (Math.abs(key - 60) < Math.abs(best - 60) ? key : best), mapped[0]);
+  return mapped.reduce(
+    (best, key) => (Math.abs(key - 60) < Math.abs(best - 60) ? key : best),
+    mapped[0],
+  );
 }
 
 interface Repetition {
@@ -44,7 +47,9 @@ function repetition(cents: (number | null)[], block: number): Repetition | null 
     if (step <= 0 || Math.abs(step - size) > mtsAgreementCents) return null;
     pairs++;
   }
-  return size !== null && pairs >= block && size <= widestSpanCents ? { keys: block, cents: size } : null;
+  return size !== null && pairs >= block && size <= widestSpanCents
+    ? { keys: block, cents: size }
+    : null;
 }
 
 /** The lowest and highest pitches MTS can send, in cents above key 0: exports clamp what lies beyond to these. */
@@ -64,7 +69,12 @@ function findPeriod(cents: (number | null)[]): Repetition | null {
     if (r) found.push(r);
   }
   const tritave = 1200 * Math.log2(3);
-  return found.find((r) => closeTo(r.cents, 1200)) ?? found.find((r) => closeTo(r.cents, tritave)) ?? found[0] ?? null;
+  return (
+    found.find((r) => closeTo(r.cents, 1200)) ??
+    found.find((r) => closeTo(r.cents, tritave)) ??
+    found[0] ??
+    null
+  );
 }
 
 /**
@@ -72,7 +82,8 @@ function findPeriod(cents: (number | null)[]): Repetition | null {
  * become the degrees, sorted, and the layout says which key plays which.
  */
 function layOut(offsets: (number | null)[], periodCents: number | null) {
-  const reduce = (c: number) => (periodCents === null ? c : ((c % periodCents) + periodCents) % periodCents);
+  const reduce = (c: number) =>
+    periodCents === null ? c : ((c % periodCents) + periodCents) % periodCents;
   const distinct: number[] = [];
   for (const offset of offsets) {
     if (offset === null) continue;
@@ -81,7 +92,9 @@ function layOut(offsets: (number | null)[], periodCents: number | null) {
   }
   distinct.sort((a, b) => a - b);
   const layout = offsets.map((offset) =>
-    offset === null ? null : distinct.findIndex((d) => Math.abs(d - reduce(offset)) <= mtsAgreementCents),
+    offset === null
+      ? null
+      : distinct.findIndex((d) => Math.abs(d - reduce(offset)) <= mtsAgreementCents),
   );
   return { degrees: distinct.slice(1), layout };
 }
@@ -101,7 +114,11 @@ export function presetFromKeys(keys: KeyPitch[], name: string): Result<KeyImport
     });
     const { degrees, layout } = layOut(block, period.cents);
     const identity = layout.every((d, i) => d === i);
-    const periodText = closeTo(period.cents, 1200) ? '2/1' : closeTo(period.cents, 1200 * Math.log2(3)) ? '3/1' : writeCents(period.cents);
+    const periodText = closeTo(period.cents, 1200)
+      ? '2/1'
+      : closeTo(period.cents, 1200 * Math.log2(3))
+        ? '3/1'
+        : writeCents(period.cents);
     return succeed({
       repeats: true,
       document: {
@@ -123,10 +140,15 @@ export function presetFromKeys(keys: KeyPitch[], name: string): Result<KeyImport
   const span = cents[mapped[mapped.length - 1]]! - cents[lowest]!;
   if (span >= widestSpanCents) {
     return fail([
-      fieldError('file', `the tuning does not repeat and spans ${(span / 1200).toFixed(1)} octaves; Keyloom takes at most 8 octaves of keys that do not repeat`),
+      fieldError(
+        'file',
+        `the tuning does not repeat and spans ${(span / 1200).toFixed(1)} octaves; Keyloom takes at most 8 octaves of keys that do not repeat`,
+      ),
     ]);
   }
-  const offsets = Array.from({ length: 128 }, (_, i) => (lowest + i < 128 && cents[lowest + i] !== null ? cents[lowest + i]! - cents[lowest]! : null));
+  const offsets = Array.from({ length: 128 }, (_, i) =>
+    lowest + i < 128 && cents[lowest + i] !== null ? cents[lowest + i]! - cents[lowest]! : null,
+  );
   const { degrees, layout } = layOut(offsets, null);
   const periodCents = Math.min(widestSpanCents, Math.max(1200, Math.ceil(span) + 100));
   return succeed({

@@ -2,8 +2,19 @@ import { describe, expect, it } from 'vitest';
 import { parsePresetDocument, type ResolvedPreset } from '../preset/preset-document';
 import { summarizeChanges } from './revision-changes';
 
-function preset(scale: object, mapping: object = { rootKey: 60 }, output: object = {}): ResolvedPreset {
-  const parsed = parsePresetDocument({ format: 'keyloom.preset', version: 1, name: 'Test', scale, mapping, output });
+function preset(
+  scale: object,
+  mapping: object = { rootKey: 60 },
+  output: object = {},
+): ResolvedPreset {
+  const parsed = parsePresetDocument({
+    format: 'keyloom.preset',
+    version: 1,
+    name: 'Test',
+    scale,
+    mapping,
+    output,
+  });
   if (!parsed.ok) throw new Error(parsed.errors[0].message);
   return parsed.value;
 }
@@ -31,9 +42,17 @@ describe('summarizeChanges', () => {
 
   it('lists mapping and output changes and says when nothing changed', () => {
     const a = preset({ kind: 'equal', divisions: 19, period: '2/1' });
-    const b = preset({ kind: 'equal', divisions: 19, period: '2/1' }, { rootKey: 62 }, { program: 5 });
+    const b = preset(
+      { kind: 'equal', divisions: 19, period: '2/1' },
+      { rootKey: 62 },
+      { program: 5 },
+    );
     const changes = summarizeChanges(a, b);
-    expect(changes.settings.map((s) => s.field)).toEqual(['mapping.rootKey', 'mapping.rootHz', 'output.program']);
+    expect(changes.settings.map((s) => s.field)).toEqual([
+      'mapping.rootKey',
+      'mapping.rootHz',
+      'output.program',
+    ]);
     expect(changes.lines).toContain('output.program changed from 0 to 5.');
     expect(summarizeChanges(a, a).lines).toEqual(['No changes.']);
   });

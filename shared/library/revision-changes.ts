@@ -31,10 +31,14 @@ const sameDegreeCents = 1e-6;
 function degreesOf(preset: ResolvedPreset): DegreeJson[] {
   const built = buildScale(preset.scale);
   if (!built.ok) return [];
-  return built.value.degrees.map((d: IntervalSize) => ({ ratio: d.ratio ? ratioToString(d.ratio) : null, cents: d.cents }));
+  return built.value.degrees.map((d: IntervalSize) => ({
+    ratio: d.ratio ? ratioToString(d.ratio) : null,
+    cents: d.cents,
+  }));
 }
 
-const show = (d: DegreeJson) => (d.ratio ? `${d.ratio} (${d.cents.toFixed(2)}c)` : `${d.cents.toFixed(2)}c`);
+const show = (d: DegreeJson) =>
+  d.ratio ? `${d.ratio} (${d.cents.toFixed(2)}c)` : `${d.cents.toFixed(2)}c`;
 const showValue = (v: unknown) => (v === undefined || v === null ? 'none' : JSON.stringify(v));
 
 function settingChanges(before: ResolvedPreset, after: ResolvedPreset): SettingChange[] {
@@ -45,9 +49,17 @@ function settingChanges(before: ResolvedPreset, after: ResolvedPreset): SettingC
     ...(['rootKey', 'rootHz', 'anchor', 'concertA', 'keysPerPeriod', 'layout'] as const).map(
       (f): [string, unknown, unknown] => [`mapping.${f}`, before.mapping[f], after.mapping[f]],
     ),
-    ...(['deviceId', 'program', 'bank', 'tuningName', 'bendRange', 'memberChannels', 'samples'] as const).map(
-      (f): [string, unknown, unknown] => [`output.${f}`, before.output[f], after.output[f]],
-    ),
+    ...(
+      [
+        'deviceId',
+        'program',
+        'bank',
+        'tuningName',
+        'bendRange',
+        'memberChannels',
+        'samples',
+      ] as const
+    ).map((f): [string, unknown, unknown] => [`output.${f}`, before.output[f], after.output[f]]),
   ];
   return pairs
     .filter(([, from, to]) => JSON.stringify(from) !== JSON.stringify(to))
@@ -61,8 +73,12 @@ function settingChanges(before: ResolvedPreset, after: ResolvedPreset): SettingC
 export function summarizeChanges(before: ResolvedPreset, after: ResolvedPreset): RevisionChanges {
   const old = degreesOf(before);
   const fresh = degreesOf(after);
-  const unmatchedOld = old.filter((d) => !fresh.some((e) => Math.abs(e.cents - d.cents) < sameDegreeCents));
-  const unmatchedNew = fresh.filter((d) => !old.some((e) => Math.abs(e.cents - d.cents) < sameDegreeCents));
+  const unmatchedOld = old.filter(
+    (d) => !fresh.some((e) => Math.abs(e.cents - d.cents) < sameDegreeCents),
+  );
+  const unmatchedNew = fresh.filter(
+    (d) => !old.some((e) => Math.abs(e.cents - d.cents) < sameDegreeCents),
+  );
   const paired = Math.min(unmatchedOld.length, unmatchedNew.length);
   const degreesMoved = unmatchedOld
     .slice(0, paired)
@@ -71,10 +87,19 @@ export function summarizeChanges(before: ResolvedPreset, after: ResolvedPreset):
   const degreesAdded = unmatchedNew.slice(paired);
   const settings = settingChanges(before, after);
   const lines = [
-    ...degreesMoved.map((m) => `Degree ${show(m.from)} moved to ${show(m.to)} (${m.byCents > 0 ? '+' : ''}${m.byCents.toFixed(2)}c).`),
+    ...degreesMoved.map(
+      (m) =>
+        `Degree ${show(m.from)} moved to ${show(m.to)} (${m.byCents > 0 ? '+' : ''}${m.byCents.toFixed(2)}c).`,
+    ),
     ...degreesAdded.map((d) => `Degree ${show(d)} added.`),
     ...degreesRemoved.map((d) => `Degree ${show(d)} removed.`),
     ...settings.map((s) => `${s.field} changed from ${showValue(s.from)} to ${showValue(s.to)}.`),
   ];
-  return { degreesAdded, degreesRemoved, degreesMoved, settings, lines: lines.length ? lines : ['No changes.'] };
+  return {
+    degreesAdded,
+    degreesRemoved,
+    degreesMoved,
+    settings,
+    lines: lines.length ? lines : ['No changes.'],
+  };
 }

@@ -10,24 +10,44 @@ import { merged, notesOn, songOf, songs } from './songs.testing';
 
 const tuning: SongTuning = {
   keys: pureFifthsOnWhiteKeys,
-  output: { deviceId: 0x7f, program: 0, bank: 0, tuningName: 'LEAD', bendRange: 2, memberChannels: [2, 16] },
+  output: {
+    deviceId: 0x7f,
+    program: 0,
+    bank: 0,
+    tuningName: 'LEAD',
+    bendRange: 2,
+    memberChannels: [2, 16],
+  },
 };
 
 /** A conductor track (name, tempo at tick 0, a slower tempo at tick 960) and piano notes from tick 0. */
 function twoTrackSong(microsecondsPerQuarter = 600_000): Uint8Array {
-  const tempo = [(microsecondsPerQuarter >> 16) & 0xff, (microsecondsPerQuarter >> 8) & 0xff, microsecondsPerQuarter & 0xff];
+  const tempo = [
+    (microsecondsPerQuarter >> 16) & 0xff,
+    (microsecondsPerQuarter >> 8) & 0xff,
+    microsecondsPerQuarter & 0xff,
+  ];
   const conductor = [
     { tick: 0, bytes: [0xff, 0x03, 0x4c, 0x65, 0x61, 0x64] },
     { tick: 0, bytes: [0xff, 0x51, ...tempo] },
     { tick: 960, bytes: [0xff, 0x51, 0x0f, 0x42, 0x40] },
   ];
-  const piano = merged([{ tick: 0, bytes: [0xc0, 4] }], notesOn(1, [[60, 0, 480], [64, 480, 960], [67, 960, 1920]]));
+  const piano = merged(
+    [{ tick: 0, bytes: [0xc0, 4] }],
+    notesOn(1, [
+      [60, 0, 480],
+      [64, 480, 960],
+      [67, 960, 1920],
+    ]),
+  );
   return songOf(1, [conductor, piano]);
 }
 
 /** Every note as @tonejs/midi reads it (an independent reader with its own tempo map): start in seconds, key. */
 function noteTimes(bytes: Uint8Array) {
-  return new Midi(bytes).tracks.flatMap((track) => track.notes.map((note) => ({ key: note.midi, seconds: note.time, length: note.duration })));
+  return new Midi(bytes).tracks.flatMap((track) =>
+    track.notes.map((note) => ({ key: note.midi, seconds: note.time, length: note.duration })),
+  );
 }
 
 describe('the lead-in before the first note of a retuned song', () => {
@@ -54,11 +74,18 @@ describe('the lead-in before the first note of a retuned song', () => {
       let tick = 0;
       return track.map((event) => ({ tick: (tick += event.deltaTime), type: event.type }));
     });
-    expect(tracks[0].filter((event) => event.tick === 0).map((event) => event.type)).toEqual(['trackName', 'setTempo']);
-    expect(tracks[1].filter((event) => event.tick === 0).map((event) => event.type)).toEqual(['programChange']);
+    expect(tracks[0].filter((event) => event.tick === 0).map((event) => event.type)).toEqual([
+      'trackName',
+      'setTempo',
+    ]);
+    expect(tracks[1].filter((event) => event.tick === 0).map((event) => event.type)).toEqual([
+      'programChange',
+    ]);
     expect(tracks[1].find((event) => event.type === 'noteOn')?.tick).toBe(80);
     // The second tempo change moves with the music.
-    expect(tracks[0].filter((event) => event.type === 'setTempo').map((event) => event.tick)).toEqual([0, 960 + 80]);
+    expect(
+      tracks[0].filter((event) => event.type === 'setTempo').map((event) => event.tick),
+    ).toEqual([0, 960 + 80]);
   });
 
   it('grows a one-byte delta time into two and the track length with it', () => {
@@ -108,7 +135,9 @@ describe('the lead-in before the first note of a retuned song', () => {
       const first = Math.min(...noteTimes(retuned.value.bytes).map((note) => note.seconds));
       expect(first).toBeCloseTo(0.1, 6);
       const none = retuneSong(song, tuning, mode, 0);
-      expect(none.ok && Math.min(...noteTimes(none.value.bytes).map((note) => note.seconds))).toBe(0);
+      expect(none.ok && Math.min(...noteTimes(none.value.bytes).map((note) => note.seconds))).toBe(
+        0,
+      );
     }
   });
 });

@@ -47,7 +47,10 @@ interface ShiftPoint {
 }
 
 /** The song with its lead-in, or the song as it was for 0 ms. */
-export function withLeadIn(song: Uint8Array, ms: number): Result<{ bytes: Uint8Array; leadIn: LeadIn }> {
+export function withLeadIn(
+  song: Uint8Array,
+  ms: number,
+): Result<{ bytes: Uint8Array; leadIn: LeadIn }> {
   const fault = leadInFault(ms);
   if (fault) return fail([fieldError('leadInMs', fault)]);
   const points = new Map<number, ShiftPoint>();
@@ -64,7 +67,9 @@ export function withLeadIn(song: Uint8Array, ms: number): Result<{ bytes: Uint8A
     points.set(track, { deltaStart, deltaEnd: start });
   });
   if (!layout.ok) return layout;
-  const ticks = Math.round((ms / 1000) * ticksPerSecond(layout.value.division, tempo || defaultMicrosecondsPerQuarter));
+  const ticks = Math.round(
+    (ms / 1000) * ticksPerSecond(layout.value.division, tempo || defaultMicrosecondsPerQuarter),
+  );
   if (ticks === 0) return succeed({ bytes: song, leadIn: { ms, ticks: 0 } });
 
   const file = new ByteBuffer(song.length + 4 * layout.value.trackCount);
@@ -80,9 +85,15 @@ export function withLeadIn(song: Uint8Array, ms: number): Result<{ bytes: Uint8A
     }
     const deltaStart = point.deltaStart < 0 ? chunk.dataStart : point.deltaStart;
     let delta = 0;
-    for (let index = deltaStart; index < point.deltaEnd; index++) delta = delta * 128 + (song[index] & 0x7f);
+    for (let index = deltaStart; index < point.deltaEnd; index++)
+      delta = delta * 128 + (song[index] & 0x7f);
     if (delta + ticks > longestDelta) {
-      return fail([fieldError('leadInMs', `does not fit: track ${track} would need a delta time over ${longestDelta} ticks`)]);
+      return fail([
+        fieldError(
+          'leadInMs',
+          `does not fit: track ${track} would need a delta time over ${longestDelta} ticks`,
+        ),
+      ]);
     }
     const lengthened = new ByteBuffer(8);
     lengthened.variableLength(delta + ticks);

@@ -183,7 +183,13 @@ class MpeRewrite implements MessageSink {
    * A note-off (or note-on of velocity 0) ends the earliest sounding note of that key, one of its own track first:
    * the merged stream sounds the same either way, and readers that pair notes track by track find every note.
    */
-  private endNote(channel: number, key: number, kind: number, velocity: number, track: number): void {
+  private endNote(
+    channel: number,
+    key: number,
+    kind: number,
+    velocity: number,
+    track: number,
+  ): void {
     const holders = this.holders.get(channel * 128 + key);
     const note = holders?.find((held) => held.track === track) ?? holders?.[0];
     if (!note) return;
@@ -281,6 +287,15 @@ export function rewriteAsMpe(song: Uint8Array, tuning: SongTuning): Result<Retun
   }
   const channelsUsed = rewrite.channelUsed.flatMap((used, index) => (used ? [index + 1] : []));
   // Unmapped notes are counted for both modes by retuneSong.
-  const report = { mode: 'mpe' as const, notesRetuned, channelsUsed, notesStolen, notesUnmappedCount: 0, notesUnmapped: [], warnings, leadIn: { ms: 0, ticks: 0 } };
+  const report = {
+    mode: 'mpe' as const,
+    notesRetuned,
+    channelsUsed,
+    notesStolen,
+    notesUnmappedCount: 0,
+    notesUnmapped: [],
+    warnings,
+    leadIn: { ms: 0, ticks: 0 },
+  };
   return succeed({ bytes, report });
 }

@@ -94,7 +94,11 @@ function splitMessages(bytes: Uint8Array): Result<Uint8Array[]> {
   let start = 0;
   while (start < bytes.length) {
     if (messages.length === mostMessages) {
-      return fail([messageFault(`the file holds more than ${mostMessages} messages; split it into smaller files`)]);
+      return fail([
+        messageFault(
+          `the file holds more than ${mostMessages} messages; split it into smaller files`,
+        ),
+      ]);
     }
     if (bytes[start] !== systemExclusive) {
       return fail([

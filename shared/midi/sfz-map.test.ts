@@ -77,23 +77,46 @@ describe('SFZ sampler maps from several samples', () => {
     { file: 'piano-c4.wav', key: 60 },
     { file: 'piano-c6.wav', key: 84 },
   ];
-  const multiRegion = /^<region> sample=(\S+) lokey=(\d+) hikey=\d+ pitch_keycenter=(\d+) tune=(-?\d+)$/gm;
+  const multiRegion =
+    /^<region> sample=(\S+) lokey=(\d+) hikey=\d+ pitch_keycenter=(\d+) tune=(-?\d+)$/gm;
 
   it('plays each key from the sample recorded nearest its pitch, each region within half a cent', () => {
     const text = sfzMap(twelveEqualKeys, { name: 'piano', samples }).text;
-    const regions = [...text.matchAll(multiRegion)].map(([, file, key, centre, tune]) => ({ file, key: Number(key), centre: Number(centre), tune: Number(tune) }));
+    const regions = [...text.matchAll(multiRegion)].map(([, file, key, centre, tune]) => ({
+      file,
+      key: Number(key),
+      centre: Number(centre),
+      tune: Number(tune),
+    }));
     expect(regions).toHaveLength(128);
     const sampleOf = (key: number) => regions.find((region) => region.key === key)!.file;
-    expect([sampleOf(30), sampleOf(48), sampleOf(49), sampleOf(72), sampleOf(73), sampleOf(120)]).toEqual([
-      'piano-c2.wav', 'piano-c2.wav', 'piano-c4.wav', 'piano-c4.wav', 'piano-c6.wav', 'piano-c6.wav',
+    expect([
+      sampleOf(30),
+      sampleOf(48),
+      sampleOf(49),
+      sampleOf(72),
+      sampleOf(73),
+      sampleOf(120),
+    ]).toEqual([
+      'piano-c2.wav',
+      'piano-c2.wav',
+      'piano-c4.wav',
+      'piano-c4.wav',
+      'piano-c6.wav',
+      'piano-c6.wav',
     ]);
     // Each sample sounds its key's equal-tempered pitch (MIDI convention): moved by (key - centre)
     // semitones plus tune cents from its own key, every key of twelve equal sounds exactly.
     for (const region of regions) {
       const sampleKey = samples.find((sample) => sample.file === region.file)!.key;
-      const sounding = 440 * 2 ** ((sampleKey - 69 + (region.key - region.centre) + region.tune / 100) / 12);
-      expect(Math.abs(1200 * Math.log2(sounding / twelveEqualKeys[region.key].hz!))).toBeLessThan(0.5);
+      const sounding =
+        440 * 2 ** ((sampleKey - 69 + (region.key - region.centre) + region.tune / 100) / 12);
+      expect(Math.abs(1200 * Math.log2(sounding / twelveEqualKeys[region.key].hz!))).toBeLessThan(
+        0.5,
+      );
     }
-    expect(text).toContain('piano-c2.wav at key 36, piano-c4.wav at key 60, piano-c6.wav at key 84');
+    expect(text).toContain(
+      'piano-c2.wav at key 36, piano-c4.wav at key 60, piano-c6.wav at key 84',
+    );
   });
 });

@@ -39,7 +39,10 @@ function regionOf(key: number, hz: number, samples: readonly SfzSample[]): SfzRe
   const centsFromA4 = 1200 * Math.log2(hz / hzOfA4);
   // The sample recorded nearest the key's pitch: the least stretch, the most natural sound.
   const sample = samples.reduce((best, candidate) =>
-    Math.abs(centsFromA4 - 100 * (candidate.key - keyOfA4)) < Math.abs(centsFromA4 - 100 * (best.key - keyOfA4)) ? candidate : best,
+    Math.abs(centsFromA4 - 100 * (candidate.key - keyOfA4)) <
+    Math.abs(centsFromA4 - 100 * (best.key - keyOfA4))
+      ? candidate
+      : best,
   );
   const centsFromSample = centsFromA4 - 100 * (sample.key - keyOfA4);
   const idealCentre = key - Math.round(centsFromSample / 100);
@@ -57,16 +60,27 @@ export interface SfzMap {
 /**
  * The map of every mapped key, with comments saying what to replace and how precise the tuning is.
  */
-export function sfzMap(keys: readonly KeyPitch[], about: { name: string; samples?: readonly SfzSample[] }): SfzMap {
+export function sfzMap(
+  keys: readonly KeyPitch[],
+  about: { name: string; samples?: readonly SfzSample[] },
+): SfzMap {
   const samples = about.samples?.length ? about.samples : [placeholder];
   const placed = keys.flatMap(({ key, hz }) => (hz === null ? [] : [regionOf(key, hz, samples)]));
   const comment = (line: string) => `// ${singleLine(line)}`;
   const named = about.samples?.length
-    ? [comment(`Samples, each recorded at its key's equal-tempered pitch (A4 = 440 Hz): ${samples.map((s) => `${s.file} at key ${s.key}`).join(', ')}.`),
-       comment('Each key plays the sample nearest its pitch, moved by (key - pitch_keycenter) semitones plus tune cents.')]
-    : [comment(`Replace ${placeholder.file} with your own sample of middle C`),
-       comment('(key 60, 261.6256 Hz at A4 = 440 Hz); each region moves it to its key:'),
-       comment('(key - pitch_keycenter) semitones plus tune cents.')];
+    ? [
+        comment(
+          `Samples, each recorded at its key's equal-tempered pitch (A4 = 440 Hz): ${samples.map((s) => `${s.file} at key ${s.key}`).join(', ')}.`,
+        ),
+        comment(
+          'Each key plays the sample nearest its pitch, moved by (key - pitch_keycenter) semitones plus tune cents.',
+        ),
+      ]
+    : [
+        comment(`Replace ${placeholder.file} with your own sample of middle C`),
+        comment('(key 60, 261.6256 Hz at A4 = 440 Hz); each region moves it to its key:'),
+        comment('(key - pitch_keycenter) semitones plus tune cents.'),
+      ];
   const lines = [
     comment(`Keyloom sampler map: ${about.name}`),
     ...named,

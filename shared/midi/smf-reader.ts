@@ -158,7 +158,7 @@ export function readSong(bytes: Uint8Array, visit: SongEventVisitor): Result<Son
       songFault(
         format === 2
           ? 'is a format 2 MIDI file (independent patterns); ' +
-            'only format 0 and 1 songs can be retuned'
+              'only format 0 and 1 songs can be retuned'
           : `declares MIDI file format ${format}, which does not exist`,
       ),
     ]);

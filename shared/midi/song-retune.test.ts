@@ -145,7 +145,9 @@ describe('retuning a song with MTS', () => {
     ]);
     expect(report).toMatchObject({ mode: 'mts', channelsUsed: [1, 2], notesStolen: [] });
     // The song's C#4 lies on a black key, which pure fifths on the white keys leave unmapped: said, not hidden.
-    expect(report.warnings.map((warning) => warning.message)).toEqual(['file: 1 note falls on keys the tuning leaves unmapped and keep their old pitch (first: key 61 in track 2 at tick 1440)']);
+    expect(report.warnings.map((warning) => warning.message)).toEqual([
+      'file: 1 note falls on keys the tuning leaves unmapped and keep their old pitch (first: key 61 in track 2 at tick 1440)',
+    ]);
     expect(report.notesUnmappedCount).toBe(1);
     expect(report.notesRetuned).toBe(6);
   });
@@ -318,10 +320,9 @@ describe('a key struck in two tracks at once on one channel', () => {
   it('ends each note in its own track, so readers that pair notes track by track find both', () => {
     // Found by the property below: two tracks each strike key 118 on channel 14 at tick 0 and let go at ticks 2 and 1.
     const song = Uint8Array.from([
-      77, 84, 104, 100, 0, 0, 0, 6, 0, 1, 0, 3, 1, 224,
-      77, 84, 114, 107, 0, 0, 0, 12, 0, 157, 118, 1, 2, 141, 118, 64, 0, 255, 47, 0,
-      77, 84, 114, 107, 0, 0, 0, 12, 0, 157, 118, 1, 1, 141, 118, 64, 0, 255, 47, 0,
-      77, 84, 114, 107, 0, 0, 0, 4, 0, 255, 47, 0,
+      77, 84, 104, 100, 0, 0, 0, 6, 0, 1, 0, 3, 1, 224, 77, 84, 114, 107, 0, 0, 0, 12, 0, 157, 118,
+      1, 2, 141, 118, 64, 0, 255, 47, 0, 77, 84, 114, 107, 0, 0, 0, 12, 0, 157, 118, 1, 1, 141, 118,
+      64, 0, 255, 47, 0, 77, 84, 114, 107, 0, 0, 0, 4, 0, 255, 47, 0,
     ]);
     const everyChannel = { ...tuning, output: { ...output, memberChannels: [1, 16] as const } };
     const mpe = retuned(song, 'mpe', everyChannel);
@@ -377,18 +378,42 @@ describe('retuning any song', () => {
 
 describe('what a retune says about how the song fits the tuning', () => {
   const sevenOnWhiteKeys = (() => {
-    const keys = Array.from({ length: 128 }, (_, key) => ({ key, hz: [0, 2, 4, 5, 7, 9, 11].includes(key % 12) ? 440 * 2 ** ((key - 69) / 12) : null }));
-    return { keys, output: { deviceId: 127, program: 0, bank: 0, tuningName: 'WHITE', bendRange: 2, memberChannels: [2, 16] as const }, keysPerPeriod: 12 };
+    const keys = Array.from({ length: 128 }, (_, key) => ({
+      key,
+      hz: [0, 2, 4, 5, 7, 9, 11].includes(key % 12) ? 440 * 2 ** ((key - 69) / 12) : null,
+    }));
+    return {
+      keys,
+      output: {
+        deviceId: 127,
+        program: 0,
+        bank: 0,
+        tuningName: 'WHITE',
+        bendRange: 2,
+        memberChannels: [2, 16] as const,
+      },
+      keysPerPeriod: 12,
+    };
   })();
 
   it('counts the notes on unmapped keys and names the first few, in both modes', () => {
     // C4, C#4 (unmapped), D4, D#4 (unmapped), one after another on channel 1.
-    const song = songOf(0, [notesOn(1, [[60, 0, 96], [61, 96, 192], [62, 192, 288], [63, 288, 384]])]);
+    const song = songOf(0, [
+      notesOn(1, [
+        [60, 0, 96],
+        [61, 96, 192],
+        [62, 192, 288],
+        [63, 288, 384],
+      ]),
+    ]);
     for (const mode of ['mts', 'mpe'] as const) {
       const retuned = retuneSong(song, sevenOnWhiteKeys, mode, 0);
       if (!retuned.ok) throw new Error(retuned.errors[0].message);
       expect(retuned.value.report.notesUnmappedCount).toBe(2);
-      expect(retuned.value.report.notesUnmapped).toEqual([{ track: 1, tick: 96, key: 61 }, { track: 1, tick: 288, key: 63 }]);
+      expect(retuned.value.report.notesUnmapped).toEqual([
+        { track: 1, tick: 96, key: 61 },
+        { track: 1, tick: 288, key: 63 },
+      ]);
       expect(retuned.value.report.warnings.map((w) => w.message)).toContain(
         'file: 2 notes fall on keys the tuning leaves unmapped and keep their old pitch (first: key 61 in track 1 at tick 96, key 63 in track 1 at tick 288)',
       );
@@ -396,15 +421,28 @@ describe('what a retune says about how the song fits the tuning', () => {
   });
 
   it('warns when a tuning of another size than 12 keys an octave meets a song, and says what to do', () => {
-    const song = songOf(0, [notesOn(1, [[60, 0, 96], [67, 96, 192]])]);
-    const thirtyOne = { ...sevenOnWhiteKeys, keys: sevenOnWhiteKeys.keys.map((k) => ({ ...k, hz: 440 })), keysPerPeriod: 31 };
+    const song = songOf(0, [
+      notesOn(1, [
+        [60, 0, 96],
+        [67, 96, 192],
+      ]),
+    ]);
+    const thirtyOne = {
+      ...sevenOnWhiteKeys,
+      keys: sevenOnWhiteKeys.keys.map((k) => ({ ...k, hz: 440 })),
+      keysPerPeriod: 31,
+    };
     const retuned = retuneSong(song, thirtyOne, 'mts');
     if (!retuned.ok) throw new Error('refused');
     const warning = retuned.value.report.warnings.find((w) => w.path === 'mapping.keysPerPeriod');
-    expect(warning?.message).toContain('the tuning repeats every 31 keys, so a song written for 12 keys an octave (keys 60-67 here)');
+    expect(warning?.message).toContain(
+      'the tuning repeats every 31 keys, so a song written for 12 keys an octave (keys 60-67 here)',
+    );
     expect(warning?.message).toContain('Place degrees on nearest keys');
     // Twelve keys an octave: no such warning.
     const twelve = retuneSong(song, sevenOnWhiteKeys, 'mts');
-    expect(twelve.ok && twelve.value.report.warnings.some((w) => w.path === 'mapping.keysPerPeriod')).toBe(false);
+    expect(
+      twelve.ok && twelve.value.report.warnings.some((w) => w.path === 'mapping.keysPerPeriod'),
+    ).toBe(false);
   });
 });

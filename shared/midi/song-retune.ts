@@ -73,7 +73,13 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
   return succeed({
     bytes: file.toBytes(),
     report: {
-      mode: 'mts', notesRetuned, channelsUsed, notesStolen: [], notesUnmappedCount: 0, notesUnmapped: [], warnings,
+      mode: 'mts',
+      notesRetuned,
+      channelsUsed,
+      notesStolen: [],
+      notesUnmappedCount: 0,
+      notesUnmapped: [],
+      warnings,
       leadIn: { ms: 0, ticks: 0 },
     },
   });
@@ -83,7 +89,10 @@ function retuneWithMts(song: Uint8Array, tuning: SongTuning): Result<RetunedSong
  * Notes the tuning cannot retune, and whether the song fits the layout: a song written for 12 keys an octave on a
  * layout of another size lands its notes on consecutive steps of the tuning, not on the notes it was written for.
  */
-function fitOfSong(song: Uint8Array, tuning: SongTuning): { unmapped: UnmappedNote[]; count: number; warnings: FieldError[] } {
+function fitOfSong(
+  song: Uint8Array,
+  tuning: SongTuning,
+): { unmapped: UnmappedNote[]; count: number; warnings: FieldError[] } {
   const mapped = mappedKeys(tuning.keys);
   const unmapped: UnmappedNote[] = [];
   let count = 0;
@@ -100,9 +109,14 @@ function fitOfSong(song: Uint8Array, tuning: SongTuning): { unmapped: UnmappedNo
   });
   const warnings: FieldError[] = [];
   if (count > 0) {
-    const first = unmapped.map((note) => `key ${note.key} in track ${note.track} at tick ${note.tick}`).join(', ');
+    const first = unmapped
+      .map((note) => `key ${note.key} in track ${note.track} at tick ${note.tick}`)
+      .join(', ');
     warnings.push(
-      fieldError('file', `${count} note${count === 1 ? ' falls' : 's fall'} on keys the tuning leaves unmapped and keep their old pitch (first: ${first})`),
+      fieldError(
+        'file',
+        `${count} note${count === 1 ? ' falls' : 's fall'} on keys the tuning leaves unmapped and keep their old pitch (first: ${first})`,
+      ),
     );
   }
   const keys = tuning.keysPerPeriod;

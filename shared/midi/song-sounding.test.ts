@@ -8,7 +8,14 @@ import { merged, notesOn, songOf } from './songs.testing';
 
 const tuning: SongTuning = {
   keys: pureFifthsOnWhiteKeys,
-  output: { deviceId: 0x7f, program: 3, bank: 0, tuningName: 'HEAR', bendRange: 2, memberChannels: [2, 16] },
+  output: {
+    deviceId: 0x7f,
+    program: 3,
+    bank: 0,
+    tuningName: 'HEAR',
+    bendRange: 2,
+    memberChannels: [2, 16],
+  },
 };
 const cents = (a: number, b: number) => 1200 * Math.log2(a / b);
 
@@ -18,8 +25,22 @@ const song = songOf(1, [
     { tick: 0, bytes: [0xff, 0x51, 0x07, 0xa1, 0x20] },
     { tick: 960, bytes: [0xff, 0x51, 0x0f, 0x42, 0x40] },
   ],
-  notesOn(1, [[60, 0, 960], [64, 0, 960], [67, 0, 960], [62, 960, 1920]]),
-  merged(notesOn(2, [[69, 480, 1440], [71, 1440, 2400]]), notesOn(10, [[36, 0, 120], [38, 480, 600]])),
+  notesOn(1, [
+    [60, 0, 960],
+    [64, 0, 960],
+    [67, 0, 960],
+    [62, 960, 1920],
+  ]),
+  merged(
+    notesOn(2, [
+      [69, 480, 1440],
+      [71, 1440, 2400],
+    ]),
+    notesOn(10, [
+      [36, 0, 120],
+      [38, 480, 600],
+    ]),
+  ),
 ]);
 
 describe('what a song sounds like, note by note', () => {
@@ -42,7 +63,9 @@ describe('what a song sounds like, note by note', () => {
       .flatMap((track) => track.notes.filter((note) => note.midi !== 36 && note.midi !== 38))
       .map((note) => [note.time, note.time + note.duration])
       .sort((a, b) => a[0] - b[0] || a[1] - b[1]);
-    const actual = sound.value.notes.map((note) => [note.start, note.end]).sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+    const actual = sound.value.notes
+      .map((note) => [note.start, note.end])
+      .sort((a, b) => a[0] - b[0] || a[1] - b[1]);
     expect(actual.length).toBe(expected.length);
     actual.forEach(([start, end], index) => {
       expect(start).toBeCloseTo(expected[index][0], 9);
@@ -63,7 +86,9 @@ describe('what a song sounds like, note by note', () => {
         // MTS words round to 0.0031 cents (MIDI Tuning specification); a 14-bit bend over 2
         // semitones steps 0.0244 cents.
         const tolerance = mode === 'mts' ? 0.0031 : 0.0123;
-        expect(Math.abs(cents(heard[index], pureFifthsOnWhiteKeys[key].hz!))).toBeLessThanOrEqual(tolerance);
+        expect(Math.abs(cents(heard[index], pureFifthsOnWhiteKeys[key].hz!))).toBeLessThanOrEqual(
+          tolerance,
+        );
       }
     }
   });
@@ -74,7 +99,12 @@ describe('what a song sounds like, note by note', () => {
     // The song above: a C major chord and D4 on channel 1, A4 and B4 on channel 2 (0 and 1 here,
     // counted from 0).
     expect(sound.value.notes.map((note) => [note.key, note.channel])).toEqual([
-      [60, 0], [64, 0], [67, 0], [69, 1], [62, 0], [71, 1],
+      [60, 0],
+      [64, 0],
+      [67, 0],
+      [69, 1],
+      [62, 0],
+      [71, 1],
     ]);
   });
 

@@ -58,7 +58,10 @@ interface TimedEvent {
 }
 
 /** Seconds at each tick, from the tempo events of every track (SMF 1.0: tempo is song-wide). */
-function tempoMap(division: number, tempos: { tick: number; microseconds: number }[]): (tick: number) => number {
+function tempoMap(
+  division: number,
+  tempos: { tick: number; microseconds: number }[],
+): (tick: number) => number {
   if (division & 0x8000) {
     const frames = 256 - (division >> 8);
     const perSecond = (frames === 29 ? 29.97 : frames) * (division & 0xff);
@@ -70,7 +73,11 @@ function tempoMap(division: number, tempos: { tick: number; microseconds: number
   ];
   for (const { tick, microseconds } of sorted) {
     const last = spans[spans.length - 1];
-    spans.push({ tick, seconds: last.seconds + (tick - last.tick) * last.secondsPerTick, secondsPerTick: microseconds / 1e6 / division });
+    spans.push({
+      tick,
+      seconds: last.seconds + (tick - last.tick) * last.secondsPerTick,
+      secondsPerTick: microseconds / 1e6 / division,
+    });
   }
   return (tick) => {
     let span = spans[0];
@@ -97,7 +104,10 @@ export function songSound(song: Uint8Array): Result<SongSound> {
   const tempos: { tick: number; microseconds: number }[] = [];
   const layout = readSong(song, (_track, tick, status, data1, data2, start, end) => {
     if (status === metaEvent && data1 === tempoMeta && end - start === 6) {
-      tempos.push({ tick, microseconds: (song[end - 3] << 16) | (song[end - 2] << 8) | song[end - 1] });
+      tempos.push({
+        tick,
+        microseconds: (song[end - 3] << 16) | (song[end - 2] << 8) | song[end - 1],
+      });
     }
     const isChannelMessage = status >= noteOff && status < systemExclusive;
     const isEndOfTrack = status === metaEvent && data1 === endOfTrackMeta;
@@ -130,7 +140,8 @@ export function songSound(song: Uint8Array): Result<SongSound> {
     if (event.status === systemExclusive) {
       const decoded = decodeMtsMessage(exclusiveMessage(song, event.start, event.end));
       if (decoded.ok && decoded.value.kind !== 'dump-request') {
-        for (const { key, hz } of decoded.value.keys) if (hz !== null && key >= 0 && key < 128) keyHz[key] = hz;
+        for (const { key, hz } of decoded.value.keys)
+          if (hz !== null && key >= 0 && key < 128) keyHz[key] = hz;
       }
       continue;
     }
@@ -168,9 +179,17 @@ export function songSound(song: Uint8Array): Result<SongSound> {
       case controlChange:
         if (event.data1 === 101) parameter[channel].msb = event.data2;
         else if (event.data1 === 100) parameter[channel].lsb = event.data2;
-        else if (event.data1 === 6 && parameter[channel].msb === 0 && parameter[channel].lsb === 0) {
+        else if (
+          event.data1 === 6 &&
+          parameter[channel].msb === 0 &&
+          parameter[channel].lsb === 0
+        ) {
           bendRange[channel] = event.data2 + (bendRange[channel] % 1);
-        } else if (event.data1 === 38 && parameter[channel].msb === 0 && parameter[channel].lsb === 0) {
+        } else if (
+          event.data1 === 38 &&
+          parameter[channel].msb === 0 &&
+          parameter[channel].lsb === 0
+        ) {
           bendRange[channel] = Math.floor(bendRange[channel]) + event.data2 / 100;
         }
         break;

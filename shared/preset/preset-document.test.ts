@@ -53,7 +53,10 @@ function faults(input: unknown): string[] {
 describe('parsePresetDocument', () => {
   it('reads the example document as written', () => {
     // Resolving adds only what the document leaves unsaid: here, that it names no anchor key.
-    expect(resolved(designExample)).toEqual({ ...designExample, mapping: { ...designExample.mapping, anchor: null } });
+    expect(resolved(designExample)).toEqual({
+      ...designExample,
+      mapping: { ...designExample.mapping, anchor: null },
+    });
   });
 
   it('reads a document it resolved again as the same document', () => {
@@ -95,8 +98,9 @@ describe('parsePresetDocument', () => {
   });
 
   it('reads numbers as intervals where the syntax allows, and refuses a bare decimal', () => {
-    expect(resolved({ ...smallest, scale: { kind: 'equal', divisions: 13, period: 3 } }).scale)
-      .toEqual({ kind: 'equal', divisions: 13, period: '3' });
+    expect(
+      resolved({ ...smallest, scale: { kind: 'equal', divisions: 13, period: 3 } }).scale,
+    ).toEqual({ kind: 'equal', divisions: 13, period: '3' });
     expect(faults({ ...smallest, scale: { kind: 'equal', divisions: 12, period: 1.5 } })).toEqual([
       'scale.period: 1.5 needs a unit: write 1.5c for cents or a ratio such as 3/2',
     ]);
@@ -248,7 +252,13 @@ describe('the anchor: the key that sounds the pitch a musician tunes to', () => 
     format: 'keyloom.preset',
     version: 1,
     name: 'Quarter-comma from E-flat',
-    scale: { kind: 'generated', generator: '3/2', up: 8, down: 3, temper: { comma: '81/80', fraction: '1/4' } },
+    scale: {
+      kind: 'generated',
+      generator: '3/2',
+      up: 8,
+      down: 3,
+      temper: { comma: '81/80', fraction: '1/4' },
+    },
     mapping: { rootKey: 60, ...mapping },
   });
 
@@ -271,9 +281,14 @@ describe('the anchor: the key that sounds the pitch a musician tunes to', () => 
     const both = parsePresetDocument(meantone({ rootHz: 250, anchor: { key: 69, hz: 415 } }));
     expect(both.ok ? [] : both.errors.map((e) => e.path)).toEqual(['mapping.anchor']);
     const unmapped = parsePresetDocument({
-      ...meantone({ anchor: { key: 61, hz: 277 }, layout: [0, null, 2, 4, 5, 7, 8, 9, 10, 11, 1, 3] }),
+      ...meantone({
+        anchor: { key: 61, hz: 277 },
+        layout: [0, null, 2, 4, 5, 7, 8, 9, 10, 11, 1, 3],
+      }),
     });
-    expect(unmapped.ok ? '' : unmapped.errors[0].message).toBe('mapping.anchor.key: 61 plays no degree in this layout: anchor a key that does');
+    expect(unmapped.ok ? '' : unmapped.errors[0].message).toBe(
+      'mapping.anchor.key: 61 plays no degree in this layout: anchor a key that does',
+    );
   });
 
   it('keeps its key at its pitch to 1e-9 relative for every kind of scale and layout', () => {
@@ -283,10 +298,20 @@ describe('the anchor: the key that sounds the pitch a musician tunes to', () => 
         fc.integer({ min: 0, max: 127 }),
         fc.integer({ min: 0, max: 127 }),
         fc.double({ min: 20, max: 4000, noNaN: true }),
-        fc.option(fc.array(fc.option(fc.nat({ max: 3 }), { nil: null, freq: 4 }), { minLength: 1, maxLength: 24 }), { nil: undefined }),
+        fc.option(
+          fc.array(fc.option(fc.nat({ max: 3 }), { nil: null, freq: 4 }), {
+            minLength: 1,
+            maxLength: 24,
+          }),
+          { nil: undefined },
+        ),
         (scale, rootKey, key, hz, layout) => {
           const parsed = parsePresetDocument({
-            format: 'keyloom.preset', version: 1, name: 'Anchored', scale, mapping: { rootKey, layout, anchor: { key, hz } },
+            format: 'keyloom.preset',
+            version: 1,
+            name: 'Anchored',
+            scale,
+            mapping: { rootKey, layout, anchor: { key, hz } },
           });
           if (!parsed.ok) {
             // Refused only for a reason of its own: an unmapped anchor key, a layout naming a missing degree, or a
@@ -304,12 +329,18 @@ describe('the anchor: the key that sounds the pitch a musician tunes to', () => 
 
   it('anchored at A4 = 440 in twelve equal divisions, plays the MIDI key-frequency rule on every key', () => {
     const parsed = parsePresetDocument({
-      format: 'keyloom.preset', version: 1, name: '12', scale: { kind: 'equal', divisions: 12 }, mapping: { rootKey: 60, anchor: { key: 69, hz: 440 } },
+      format: 'keyloom.preset',
+      version: 1,
+      name: '12',
+      scale: { kind: 'equal', divisions: 12 },
+      mapping: { rootKey: 60, anchor: { key: 69, hz: 440 } },
     });
     if (!parsed.ok) throw new Error('refused');
     // An independent library for key to frequency: @tonaljs/midi midiToFreq, 440 * 2^((n - 69) /
     // 12).
-    previewTable(parsed.value).keys.forEach((key) => expect(key.hz! / midiToFreq(key.key)).toBeCloseTo(1, 12));
+    previewTable(parsed.value).keys.forEach((key) =>
+      expect(key.hz! / midiToFreq(key.key)).toBeCloseTo(1, 12),
+    );
   });
 
   it('travels in the preset file as written, and reads back to the same tuning', () => {

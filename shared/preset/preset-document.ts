@@ -31,7 +31,9 @@ const generatorCount = z.int().min(0);
 const temperLink = z.strictObject({
   comma: interval,
   fraction: z
-    .union([z.string().max(64), z.number()], { error: 'must be a fraction such as "1/4", "-1/6" or "0.25"' })
+    .union([z.string().max(64), z.number()], {
+      error: 'must be a fraction such as "1/4", "-1/6" or "0.25"',
+    })
     .transform(String),
 });
 
@@ -52,7 +54,10 @@ const scaleSchema = z.discriminatedUnion('kind', [
   z.strictObject({
     kind: z.literal('list'),
     // The length is checked before the entries, so that a huge list is refused at once with one fault.
-    degrees: z.array(z.unknown()).max(largestScale - 1).pipe(z.array(interval)),
+    degrees: z
+      .array(z.unknown())
+      .max(largestScale - 1)
+      .pipe(z.array(interval)),
     period: interval.default('2/1'),
   }),
   z.strictObject({
@@ -95,7 +100,8 @@ const sampleFile = z
   .string()
   .max(120)
   .regex(/^[\w][\w .()+-]*\.(wav|flac|ogg|aif|aiff)$/i, {
-    error: 'must be a plain file name ending in .wav, .flac, .ogg, .aif or .aiff, such as piano-c4.wav',
+    error:
+      'must be a plain file name ending in .wav, .flac, .ogg, .aif or .aiff, such as piano-c4.wav',
   });
 
 const outputSchema = z
@@ -112,7 +118,11 @@ const outputSchema = z
       .optional(),
     bendRange: z.int().min(1).max(96).default(2),
     memberChannels: z.tuple([channel, channel]).default([2, 16]),
-    samples: z.array(z.strictObject({ file: sampleFile, key: midiKey })).min(1).max(128).optional(),
+    samples: z
+      .array(z.strictObject({ file: sampleFile, key: midiKey }))
+      .min(1)
+      .max(128)
+      .optional(),
   })
   .superRefine(({ memberChannels: [first, last] }, context) => {
     if (first > last) {
@@ -219,7 +229,8 @@ export function parsePresetDocument(input: unknown): Result<ResolvedPreset> {
     const anchoredHz = anchor.hz / 2 ** (place.centsFromRoot / 1200);
     // A resolved preset carries both, and they agree; a document written with two different pitches is refused.
     if (mapping.rootHz !== undefined && Math.abs(anchoredHz / mapping.rootHz - 1) > 1e-9) {
-      const fault = 'and rootHz both set the pitch: give one of them (the anchor is the key a musician tunes to)';
+      const fault =
+        'and rootHz both set the pitch: give one of them (the anchor is the key a musician tunes to)';
       return fail([fieldError('mapping.anchor', fault)]);
     }
     rootHz = anchoredHz;

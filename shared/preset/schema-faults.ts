@@ -96,11 +96,17 @@ function fault(issue: z.core.$ZodIssue): string {
 export function schemaFaults(issues: readonly z.core.$ZodIssue[]): FieldError[] {
   return issues.flatMap((issue) => {
     const inner = shapeMatchedOption(issue);
-    if (inner) return schemaFaults(inner.map((option) => ({ ...option, path: [...issue.path, ...option.path] })));
+    if (inner)
+      return schemaFaults(
+        inner.map((option) => ({ ...option, path: [...issue.path, ...option.path] })),
+      );
     return issue.code === 'unrecognized_keys'
       ? issue.keys.map((key) =>
           // A key too long to quote is named by its start: the answer stays short.
-          fieldError(fieldPath([...issue.path, key.length > 40 ? `${key.slice(0, 40)}...` : key]), 'is not a field here'),
+          fieldError(
+            fieldPath([...issue.path, key.length > 40 ? `${key.slice(0, 40)}...` : key]),
+            'is not a field here',
+          ),
         )
       : [fieldError(fieldPath(issue.path), fault(issue))];
   });
@@ -111,8 +117,12 @@ export function schemaFaults(issues: readonly z.core.$ZodIssue[]): FieldError[] 
  * input has: its faults lie inside the value rather than at the value itself. Null when no single option fits.
  */
 function shapeMatchedOption(issue: z.core.$ZodIssue): z.core.$ZodIssue[] | null {
-  if (issue.code !== 'invalid_union' || ('discriminator' in issue && issue.discriminator)) return null;
-  const options = 'errors' in issue && Array.isArray(issue.errors) ? (issue.errors as z.core.$ZodIssue[][]) : [];
-  const fitting = options.filter((option) => option.length > 0 && option.every((inner) => inner.path.length > 0));
+  if (issue.code !== 'invalid_union' || ('discriminator' in issue && issue.discriminator))
+    return null;
+  const options =
+    'errors' in issue && Array.isArray(issue.errors) ? (issue.errors as z.core.$ZodIssue[][]) : [];
+  const fitting = options.filter(
+    (option) => option.length > 0 && option.every((inner) => inner.path.length > 0),
+  );
   return fitting.length === 1 ? fitting[0] : null;
 }

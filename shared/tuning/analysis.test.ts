@@ -11,7 +11,13 @@ describe('analyzeScale', () => {
     const scale = builtScale(stack('3/2', '2/1', 5, 1));
     const { degrees } = analyzeScale(scale, fromMiddleC);
     expect(degrees.map((degree) => degree.nearestNote.name)).toEqual([
-      'C4', 'D4', 'E4', 'F4', 'G4', 'A4', 'B4',
+      'C4',
+      'D4',
+      'E4',
+      'F4',
+      'G4',
+      'A4',
+      'B4',
     ]);
     // arithmetic (pure fifths from C4: E 331.1199 Hz; equal-tempered 329.6276)
     const offsets = degrees.map((degree) => degree.nearestNote.offsetCents);
@@ -19,7 +25,13 @@ describe('analyzeScale', () => {
     // arithmetic (F 348.8341 Hz against equal-tempered 349.2282)
     expect(offsets[3]).toBeCloseTo(1200 * Math.log2(348.8341 / 349.2282), 3);
     expect(degrees.map((degree) => ratioToString(degree.step.ratio!))).toEqual([
-      '9/8', '9/8', '256/243', '9/8', '9/8', '9/8', '256/243',
+      '9/8',
+      '9/8',
+      '256/243',
+      '9/8',
+      '9/8',
+      '9/8',
+      '256/243',
     ]);
     expect(degrees.every((degree) => degree.approximation === null)).toBe(true);
     expect(degrees[0].majorThird?.toDegree).toBe(2);
@@ -61,7 +73,12 @@ describe('analyzeScale', () => {
 
   it('shows a tempered degree that equals a ratio as that ratio, and names nothing that misleads', () => {
     const meantone = builtScale({
-      kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3, temper: { comma: '81/80', fraction: '1/4' },
+      kind: 'generated',
+      generator: '3/2',
+      period: '2/1',
+      up: 8,
+      down: 3,
+      temper: { comma: '81/80', fraction: '1/4' },
     });
     const degrees = analyzeScale(meantone, fromMiddleC).degrees;
     const byName = (cents: number) => degrees.find((d) => Math.abs(d.cents - cents) < 0.01)!;
@@ -70,10 +87,16 @@ describe('analyzeScale', () => {
     expect(byName(772.627).approximation).toBeNull();
     expect(ratioToString(byName(386.314).ratio!)).toBe('5/4');
     for (const degree of degrees) {
-      if (degree.approximation) expect(Math.abs(degree.approximation.errorCents)).toBeLessThanOrEqual(6);
+      if (degree.approximation)
+        expect(Math.abs(degree.approximation.errorCents)).toBeLessThanOrEqual(6);
     }
-    const thirtyOne = analyzeScale(builtScale({ kind: 'equal', divisions: 31, period: '2/1' }), fromMiddleC).degrees;
+    const thirtyOne = analyzeScale(
+      builtScale({ kind: 'equal', divisions: 31, period: '2/1' }),
+      fromMiddleC,
+    ).degrees;
     // 31 equal divisions: the first step (38.71 c) must not read "about 1/1".
-    expect(thirtyOne[1].approximation && ratioToString(thirtyOne[1].approximation.ratio)).not.toBe('1/1');
+    expect(thirtyOne[1].approximation && ratioToString(thirtyOne[1].approximation.ratio)).not.toBe(
+      '1/1',
+    );
   });
 });

@@ -57,7 +57,10 @@ function intervalMatrix(scale: Scale): number[][] {
 }
 
 /** Everything the designer shows about a scale played from `rootHz`, with A4 at `concertA`. */
-export function analyzeScale(scale: Scale, pitch: { rootHz: number; concertA: number }): ScaleAnalysis {
+export function analyzeScale(
+  scale: Scale,
+  pitch: { rootHz: number; concertA: number },
+): ScaleAnalysis {
   const steps = stepsOf(scale);
   const beats = beatRates(scale, pitch.rootHz);
   const degrees = scale.degrees.map((degree, index) => {

@@ -3,7 +3,11 @@ import { readDegreeList } from './degree-list';
 
 describe('readDegreeList', () => {
   it('reads one a line, as before, with nothing to say', () => {
-    expect(readDegreeList('9/8\n5/4\n4/3\n')).toEqual({ degrees: ['9/8', '5/4', '4/3'], period: '2/1', notices: [] });
+    expect(readDegreeList('9/8\n5/4\n4/3\n')).toEqual({
+      degrees: ['9/8', '5/4', '4/3'],
+      period: '2/1',
+      notices: [],
+    });
   });
 
   it('reads a list pasted on one line, with commas or spaces, keeping 9 / 8 and 386.3 c whole', () => {
@@ -23,7 +27,10 @@ describe('readDegreeList', () => {
   });
 
   it('takes a closing entry as the period only when it equals the period written, by size', () => {
-    expect(readDegreeList('0c 146.3c 292.6c 1901.955c', '3/1').degrees).toEqual(['146.3c', '292.6c']);
+    expect(readDegreeList('0c 146.3c 292.6c 1901.955c', '3/1').degrees).toEqual([
+      '146.3c',
+      '292.6c',
+    ]);
     expect(readDegreeList('9/8 5/4 3/1').degrees).toEqual(['9/8', '5/4', '3/1']);
     expect(readDegreeList('9/8 1200c').notices).toHaveLength(1);
   });

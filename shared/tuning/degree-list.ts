@@ -44,7 +44,9 @@ export function withoutTonicAndPeriod(entries: string[], period: string): Degree
   const notices: string[] = [];
   const first = degrees.length > 0 ? readInterval(degrees[0]) : null;
   if (first && typeof first !== 'string' && sameSize(sizeOf(first), unison)) {
-    notices.push(`The leading ${degrees[0]} is the tonic, which every scale has: it was left out of the list.`);
+    notices.push(
+      `The leading ${degrees[0]} is the tonic, which every scale has: it was left out of the list.`,
+    );
     degrees.shift();
   }
   const last = degrees[degrees.length - 1];

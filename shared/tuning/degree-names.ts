@@ -16,7 +16,8 @@ export function degreeNames(scale: Scale, tonic: number): string[] {
   if (generator && degrees.every((degree) => degree.stackPosition !== null)) {
     // A chain of fourths is a chain of fifths downwards.
     const step = fifthsPerStep(reduceIntoPeriod(generator, period).reduced.cents, period.cents);
-    if (step) return unique(degrees.map((degree) => fifthChainName(step * degree.stackPosition!, tonic)));
+    if (step)
+      return unique(degrees.map((degree) => fifthChainName(step * degree.stackPosition!, tonic)));
   }
   if (scale.kind === 'equal' && octave && degrees.length === 12) {
     return degrees.map((_, step) => twelveNames[(tonic + step) % 12]);
@@ -27,7 +28,10 @@ export function degreeNames(scale: Scale, tonic: number): string[] {
     return degrees.map((_, step) => (step === 0 ? twelveNames[tonic % 12] : `step ${step}`));
   }
   return unique(
-    degrees.map((degree) => twelveNames[(tonic + Math.round(degree.cents / 100)) % 12] ?? twelveNames[tonic % 12]),
+    degrees.map(
+      (degree) =>
+        twelveNames[(tonic + Math.round(degree.cents / 100)) % 12] ?? twelveNames[tonic % 12],
+    ),
   );
 }
 
@@ -49,7 +53,10 @@ function upsAndDowns(n: number, tonic: number): string[] | null {
   const sharp = 7 * fifth - 4 * n;
   if (sharp < 1 || n > 72) return null;
   const tonicPlace = [0, -5, 2, -3, 4, -1, 6, 1, -4, 3, -2, 5][tonic % 12];
-  const best: { name: string; cost: number }[] = Array.from({ length: n }, () => ({ name: '', cost: Infinity }));
+  const best: { name: string; cost: number }[] = Array.from({ length: n }, () => ({
+    name: '',
+    cost: Infinity,
+  }));
   for (let position = -14; position <= 14; position++) {
     const step = (((position * fifth) % n) + n) % n;
     const accidentals = Math.abs(Math.floor((tonicPlace + position + 1) / 7));
@@ -102,5 +109,9 @@ function augmented(times: number): string {
 }
 
 function diminished(times: number): string {
-  return times === 1 ? 'diminished' : times === 2 ? 'doubly diminished' : `${times}-times diminished`;
+  return times === 1
+    ? 'diminished'
+    : times === 2
+      ? 'doubly diminished'
+      : `${times}-times diminished`;
 }

@@ -12,7 +12,11 @@ export function firstNonFinite(value: unknown, path = ''): string | null {
     }
     return null;
   }
-  if (typeof value === 'object' && value !== null && Object.getPrototypeOf(value) === Object.prototype) {
+  if (
+    typeof value === 'object' &&
+    value !== null &&
+    Object.getPrototypeOf(value) === Object.prototype
+  ) {
     for (const [key, inner] of Object.entries(value)) {
       const found = firstNonFinite(inner, path ? `${path}.${key}` : key);
       if (found) return found;

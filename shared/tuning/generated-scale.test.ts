@@ -64,17 +64,25 @@ describe('generated scales', () => {
     });
     // 531441/524288 to the 8th has terms of 8 x 20 bits, within the budget: still exact.
     // (3/2) / (3^12/2^19)^8 = 2^151 / 3^95 (arithmetic).
-    expect(manyCommas.generator?.ratio && ratioToString(manyCommas.generator.ratio)).toBe(`${2n ** 151n}/${3n ** 95n}`);
+    expect(manyCommas.generator?.ratio && ratioToString(manyCommas.generator.ratio)).toBe(
+      `${2n ** 151n}/${3n ** 95n}`,
+    );
   });
 
   it('refuses a comma fraction with huge terms or of more than 8 commas, naming the field', () => {
-    const refused = (fraction: string) => scaleFaults({ ...stack('3/2', '2/1', 11, 0), temper: { comma: '81/80', fraction } });
+    const refused = (fraction: string) =>
+      scaleFaults({ ...stack('3/2', '2/1', 11, 0), temper: { comma: '81/80', fraction } });
     expect(refused('9'.repeat(400))).toEqual([
       'scale.temper.fraction: 99999999999999999999... has a term past 9999: write a fraction such as 1/4 or 2/7',
     ]);
-    expect(refused('1/99999')).toEqual(['scale.temper.fraction: 1/99999 has a term past 9999: write a fraction such as 1/4 or 2/7']);
+    expect(refused('1/99999')).toEqual([
+      'scale.temper.fraction: 1/99999 has a term past 9999: write a fraction such as 1/4 or 2/7',
+    ]);
     expect(refused('9')).toEqual(['scale.temper.fraction: 9 tempers by more than 8 commas']);
-    expect(builtScale({ ...stack('3/2', '2/1', 11, 0), temper: { comma: '81/80', fraction: '8' } }).degrees).toHaveLength(12);
+    expect(
+      builtScale({ ...stack('3/2', '2/1', 11, 0), temper: { comma: '81/80', fraction: '8' } })
+        .degrees,
+    ).toHaveLength(12);
   });
 
   it('stacks inside a tritave period', () => {
@@ -105,9 +113,7 @@ describe('generated scales', () => {
   });
 
   it('names the field of every fault', () => {
-    expect(
-      scaleFaults(stack('1.5', '1/2', 300, 0)),
-    ).toEqual([
+    expect(scaleFaults(stack('1.5', '1/2', 300, 0))).toEqual([
       'scale.period: 1/2 is not above the tonic; a period must be wider than 1/1',
       'scale.generator: 1.5 needs a unit: write 1.5c for cents or a ratio such as 3/2',
       'scale.up: gives 301 degrees; a scale holds at most 256',

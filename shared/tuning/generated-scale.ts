@@ -51,7 +51,9 @@ function parseCommaFraction(text: string, path: string): Result<Fraction> {
   const match = fractionPattern.exec(written);
   const decimal = decimalPattern.exec(written);
   if (!match && !decimal) {
-    return fail([fieldError(path, `"${shown}" is not a fraction: write one such as 1/4, -1/6 or 0.25`)]);
+    return fail([
+      fieldError(path, `"${shown}" is not a fraction: write one such as 1/4, -1/6 or 0.25`),
+    ]);
   }
   let fraction: Fraction;
   if (match) {
@@ -59,7 +61,12 @@ function parseCommaFraction(text: string, path: string): Result<Fraction> {
     if (denominator === 0n) return fail([fieldError(path, `${written} has a zero denominator`)]);
     const numerator = BigInt(match[2]);
     if (numerator > largestFractionTerm || denominator > largestFractionTerm) {
-      return fail([fieldError(path, `${shown} has a term past ${largestFractionTerm}: write a fraction such as 1/4 or 2/7`)]);
+      return fail([
+        fieldError(
+          path,
+          `${shown} has a term past ${largestFractionTerm}: write a fraction such as 1/4 or 2/7`,
+        ),
+      ]);
     }
     fraction = new Fraction(numerator, denominator);
     if (match[1] === '-') fraction = fraction.neg();
@@ -97,7 +104,8 @@ type TemperLink = { comma: string; fraction: string };
 function temperedLink(pure: IntervalSize, temper: TemperLink, path: string): Result<IntervalSize> {
   const comma = parseInterval(temper.comma, `${path}.comma`);
   const fraction = parseCommaFraction(temper.fraction, `${path}.fraction`);
-  if (!comma.ok || !fraction.ok) return fail([comma, fraction].flatMap((read) => (read.ok ? [] : read.errors)));
+  if (!comma.ok || !fraction.ok)
+    return fail([comma, fraction].flatMap((read) => (read.ok ? [] : read.errors)));
   const commaSize = sizeOf(comma.value);
   if (Math.abs(commaSize.cents) < sameSizeCents) {
     const fault = `${intervalToString(comma.value)} is a unison, so it tempers nothing`;
@@ -110,7 +118,9 @@ function temperedLink(pure: IntervalSize, temper: TemperLink, path: string): Res
  * The generator as stacked, and for a chain tempered link by link the size of each link from the
  * lowest note up. A link list must have one entry per link of the chain (`up + down`).
  */
-function parseGenerator(spec: GeneratedScaleSpec): Result<{ pure: IntervalSize; stacked: IntervalSize; links: IntervalSize[] | null }> {
+function parseGenerator(
+  spec: GeneratedScaleSpec,
+): Result<{ pure: IntervalSize; stacked: IntervalSize; links: IntervalSize[] | null }> {
   const generator = parseInterval(spec.generator, 'scale.generator');
   if (!generator.ok) return generator;
   const pure = sizeOf(generator.value);
@@ -125,11 +135,17 @@ function parseGenerator(spec: GeneratedScaleSpec): Result<{ pure: IntervalSize; 
     const fault = `has ${temper.length} links, but a chain of ${linkCount + 1} notes has ${linkCount}: one for each generator`;
     return fail([fieldError('scale.temper', fault)]);
   }
-  const read = temper.map((link, index) => (link ? temperedLink(pure, link, `scale.temper[${index}]`) : succeed(pure)));
+  const read = temper.map((link, index) =>
+    link ? temperedLink(pure, link, `scale.temper[${index}]`) : succeed(pure),
+  );
   const faults = read.flatMap((link) => (link.ok ? [] : link.errors));
   if (faults.length > 0) return fail(faults);
   // The chain is stacked from the pure generator; each link's deviation shows in the chain itself.
-  return succeed({ pure, stacked: pure, links: read.map((link) => (link as { ok: true; value: IntervalSize }).value) });
+  return succeed({
+    pure,
+    stacked: pure,
+    links: read.map((link) => (link as { ok: true; value: IntervalSize }).value),
+  });
 }
 
 /** Two intervals one on top of the other: exact while both are. */
@@ -196,8 +212,14 @@ export function buildGeneratedScale(spec: GeneratedScaleSpec): Result<Scale> {
   // Each step of the stack multiplies by the generator and divides by as many periods as the generator spans:
   // a small period (81/80) under a large generator (3/2) grows the terms much faster than the generator alone.
   const periodsPerStep = Math.ceil(Math.abs(stacked.cents) / period.value.cents) + 1;
-  const widestBits = Math.max(...(links ?? [stacked]).map((link) => (link.ratio ? termBits(link.ratio) : 0)));
-  if (widestBits > 0 && periodRatio && count * (widestBits + periodsPerStep * termBits(periodRatio)) > exactBitsBudget) {
+  const widestBits = Math.max(
+    ...(links ?? [stacked]).map((link) => (link.ratio ? termBits(link.ratio) : 0)),
+  );
+  if (
+    widestBits > 0 &&
+    periodRatio &&
+    count * (widestBits + periodsPerStep * termBits(periodRatio)) > exactBitsBudget
+  ) {
     stacked = temperedSize(stacked.cents);
     links = links && links.map((link) => temperedSize(link.cents));
     const fault = `stacked ${count} times, ${spec.generator} gives ratios too large to keep exact`;
@@ -208,7 +230,10 @@ export function buildGeneratedScale(spec: GeneratedScaleSpec): Result<Scale> {
   // 0 - down rather than -down: a stack with nothing below starts at 0, not -0
   for (let position = 0 - spec.down; position <= spec.up; position++) {
     unsorted.push({
-      size: reduceIntoPeriod(chain ? chain.get(position)! : repeatInterval(stacked, position), period.value).reduced,
+      size: reduceIntoPeriod(
+        chain ? chain.get(position)! : repeatInterval(stacked, position),
+        period.value,
+      ).reduced,
       stackPosition: position,
       path: 'scale',
       written: stackLabel(position),

@@ -5,7 +5,14 @@ describe('harmonic scales', () => {
   it('takes harmonics 8 to 15 over 8 in the period 16/8', () => {
     const scale = builtScale({ kind: 'harmonic', from: 8, to: 16, sub: false });
     expect(degreeRatios(scale)).toEqual([
-      '1/1', '9/8', '5/4', '11/8', '3/2', '13/8', '7/4', '15/8',
+      '1/1',
+      '9/8',
+      '5/4',
+      '11/8',
+      '3/2',
+      '13/8',
+      '7/4',
+      '15/8',
     ]);
     expect(scale.period.ratio?.equals(2)).toBe(true);
   });
@@ -13,7 +20,14 @@ describe('harmonic scales', () => {
   it('mirrors the segment as subharmonics', () => {
     const scale = builtScale({ kind: 'harmonic', from: 8, to: 16, sub: true });
     expect(degreeRatios(scale)).toEqual([
-      '1/1', '16/15', '8/7', '16/13', '4/3', '16/11', '8/5', '16/9',
+      '1/1',
+      '16/15',
+      '8/7',
+      '16/13',
+      '4/3',
+      '16/11',
+      '8/5',
+      '16/9',
     ]);
   });
 

@@ -56,7 +56,9 @@ export function reduceIntoPeriod(
   let periods = Math.floor(interval.cents / period.cents);
   // Exact only while period^k stays small: a huge interval in a tiny period (1/10^60 in 81/80) would need powers
   // of tens of thousands of bits, and is measured in cents instead.
-  const periodBits = period.ratio ? Math.max(period.ratio.n.toString(2).length, period.ratio.d.toString(2).length) : 0;
+  const periodBits = period.ratio
+    ? Math.max(period.ratio.n.toString(2).length, period.ratio.d.toString(2).length)
+    : 0;
   if (interval.ratio && period.ratio && Math.abs(periods) * periodBits <= largestExactPowerBits) {
     let reduced = interval.ratio.div(period.ratio.pow(periods));
     if (reduced.compare(1) < 0) {

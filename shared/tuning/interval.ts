@@ -45,7 +45,8 @@ export function readInterval(text: string): Interval | string {
 }
 
 function centsWithin(cents: number, written: string): Interval | string {
-  if (Math.abs(cents) > widestCents) return `${written} is wider than ${widestCents}c (100 octaves)`;
+  if (Math.abs(cents) > widestCents)
+    return `${written} is wider than ${widestCents}c (100 octaves)`;
   return { kind: 'cents', cents };
 }
 

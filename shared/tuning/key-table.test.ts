@@ -111,9 +111,11 @@ describe('mapKeys', () => {
         spec: fc.constant(spec),
         rootKey: fc.integer({ min: 0, max: 127 }),
         layout: fc.option(
-          fc.array(fc.boolean(), { minLength: size, maxLength: size }).map((keep) =>
-            keep.flatMap((kept, degree) => (kept || degree === 0 ? [degree] : [degree, null])),
-          ),
+          fc
+            .array(fc.boolean(), { minLength: size, maxLength: size })
+            .map((keep) =>
+              keep.flatMap((kept, degree) => (kept || degree === 0 ? [degree] : [degree, null])),
+            ),
         ),
       });
     });

@@ -12,9 +12,7 @@ function preset(scale: unknown, mapping: unknown = { rootKey: 60 }): ResolvedPre
 
 describe('previewTable', () => {
   it('answers with JSON that survives a round trip, ratios as text', () => {
-    const table = previewTable(
-      preset(stack('3/2', '2/1', 52, 0)),
-    );
+    const table = previewTable(preset(stack('3/2', '2/1', 52, 0)));
     const roundTrip = JSON.parse(JSON.stringify(table));
     expect(roundTrip).toEqual(table);
     // arithmetic, 3^53 / 2^84
@@ -48,18 +46,21 @@ describe('previewTable', () => {
 
   it('shows the fifths from F as the first journey (designing a scale) needs them', () => {
     const table = previewTable(
-      preset(
-        stack('3/2', '2/1', 5, 1),
-        {
-          rootKey: 60,
-          rootHz: 261.6255653,
-          layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
-        },
-      ),
+      preset(stack('3/2', '2/1', 5, 1), {
+        rootKey: 60,
+        rootHz: 261.6255653,
+        layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
+      }),
     );
     // arithmetic (pure fifths stacked from C: D 9/8, E 81/64 ... B 243/128)
     expect(table.degrees.map((degree) => degree.ratio)).toEqual([
-      '1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128',
+      '1/1',
+      '9/8',
+      '81/64',
+      '4/3',
+      '3/2',
+      '27/16',
+      '243/128',
     ]);
     expect(table.analysis.stepPattern.pattern).toBe('LLsLLLs');
     expect(table.analysis.stack?.comma.ratio).toBe('2187/2048');
@@ -83,12 +84,7 @@ describe('previewTable', () => {
   });
 
   it('warns about coinciding degrees and keys MTS cannot express', () => {
-    const table = previewTable(
-      preset(
-        stack('7\\12', '2/1', 12, 0),
-        { rootKey: 0, rootHz: 4 },
-      ),
-    );
+    const table = previewTable(preset(stack('7\\12', '2/1', 12, 0), { rootKey: 0, rootHz: 4 }));
     expect(table.warnings).toEqual([
       { path: 'scale', message: 'scale: generator +12 coincides with the tonic at 0c' },
       {

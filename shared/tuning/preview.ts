@@ -59,7 +59,9 @@ export interface PreviewTable {
       reducedGenerator: SizeJson;
       comma: SizeJson;
       /** `name`: for a chain of fifths, the interval the wolf is, such as `diminished sixth G♯–E♭`; else null. */
-      wolf: (SizeJson & { from: number; to: number; deviationCents: number; name: string | null }) | null;
+      wolf:
+        | (SizeJson & { from: number; to: number; deviationCents: number; name: string | null })
+        | null;
       mosSizes: number[];
       /**
        * The chain from its lowest note up: each link from one stack position to the next, its size and how far it

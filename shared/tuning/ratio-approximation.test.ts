@@ -19,7 +19,9 @@ describe('exactRatioOf', () => {
     expect(exactRatioOf(quarterCommaFifth)).toBeNull();
     expect(exactRatioOf(700)).toBeNull();
     // 3^53 / 2^84 has terms far past 10,000 (REFERENCE: arithmetic).
-    expect(exactRatioOf(1200 * Math.log2(19383245667680019896796723 / 19342813113834066795298816))).toBeNull();
+    expect(
+      exactRatioOf(1200 * Math.log2(19383245667680019896796723 / 19342813113834066795298816)),
+    ).toBeNull();
     expect(ratioToString(exactRatioOf(1200 * Math.log2(10000 / 9999))!)).toBe('10000/9999');
   });
 });

@@ -25,7 +25,8 @@ export const ratioSearch = { primeLimit: 7, largestTerm: 256, withinCents: 6 } a
 const largestExactTerm = 10_000;
 
 function isSmooth(n: number, primeLimit: number): boolean {
-  for (const p of [2, 3, 5, 7, 11, 13].filter((prime) => prime <= primeLimit)) while (n % p === 0) n /= p;
+  for (const p of [2, 3, 5, 7, 11, 13].filter((prime) => prime <= primeLimit))
+    while (n % p === 0) n /= p;
   return n === 1;
 }
 
@@ -39,7 +40,9 @@ let candidates: Candidate[] | undefined;
 function searchedRatios(): Candidate[] {
   if (candidates) return candidates;
   const { primeLimit, largestTerm } = ratioSearch;
-  const terms = Array.from({ length: largestTerm }, (_, i) => i + 1).filter((n) => isSmooth(n, primeLimit));
+  const terms = Array.from({ length: largestTerm }, (_, i) => i + 1).filter((n) =>
+    isSmooth(n, primeLimit),
+  );
   const found: Candidate[] = [];
   for (const n of terms) {
     for (const d of terms) {
@@ -61,7 +64,11 @@ export function nearestSimpleRatio(cents: number): RatioApproximation | null {
   for (const candidate of searchedRatios()) {
     const error = Math.abs(cents - candidate.cents);
     if (error > ratioSearch.withinCents) continue;
-    if (!best || candidate.height < best.height || (candidate.height === best.height && error < Math.abs(cents - best.cents))) {
+    if (
+      !best ||
+      candidate.height < best.height ||
+      (candidate.height === best.height && error < Math.abs(cents - best.cents))
+    ) {
       best = candidate;
     }
   }

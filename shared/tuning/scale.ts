@@ -28,8 +28,15 @@ export function buildScale(spec: ScaleSpec): Result<Scale> {
   const built = buildOfKind(spec);
   if (!built.ok) return built;
   const { degrees, period, generator } = built.value;
-  const sizes = { degrees: degrees.map((d) => d.cents), period: period.cents, generator: generator?.cents ?? 0 };
+  const sizes = {
+    degrees: degrees.map((d) => d.cents),
+    period: period.cents,
+    generator: generator?.cents ?? 0,
+  };
   const broken = firstNonFinite(sizes);
-  if (broken) return fail([fieldError('scale', `gives a size that is not a finite number of cents (${broken})`)]);
+  if (broken)
+    return fail([
+      fieldError('scale', `gives a size that is not a finite number of cents (${broken})`),
+    ]);
   return built;
 }

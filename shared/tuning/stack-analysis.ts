@@ -78,8 +78,7 @@ export function analyzeStack(scale: Scale): StackAnalysis | null {
   const size = degrees.length;
   const reducedGenerator = reduceIntoPeriod(generator, period).reduced;
   const overshoot = reduceIntoPeriod(repeatInterval(generator, size), period).reduced;
-  const comma =
-    overshoot.cents > period.cents / 2 ? intervalBetween(period, overshoot) : overshoot;
+  const comma = overshoot.cents > period.cents / 2 ? intervalBetween(period, overshoot) : overshoot;
   const positions = degrees.map((degree) => degree.stackPosition ?? 0);
   const top = positions.indexOf(Math.max(...positions));
   const bottom = positions.indexOf(Math.min(...positions));
@@ -90,7 +89,9 @@ export function analyzeStack(scale: Scale): StackAnalysis | null {
   if (deviationCents > period.cents / 2) deviationCents -= period.cents;
   if (deviationCents < -period.cents / 2) deviationCents += period.cents;
   const wolf =
-    size < 2 || Math.abs(deviationCents) < sameSizeCents ? null : { from: top, to: bottom, size: closing, deviationCents };
+    size < 2 || Math.abs(deviationCents) < sameSizeCents
+      ? null
+      : { from: top, to: bottom, size: closing, deviationCents };
   return {
     generator,
     reducedGenerator,

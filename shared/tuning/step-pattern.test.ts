@@ -15,9 +15,7 @@ function patternOf(scale: Scale) {
 
 describe('stepPattern', () => {
   it('finds the two steps of the diatonic stack of fifths and calls it a MOS', () => {
-    const pattern = patternOf(
-      builtScale(stack('3/2', '2/1', 5, 1)),
-    );
+    const pattern = patternOf(builtScale(stack('3/2', '2/1', 5, 1)));
     expect(pattern.pattern).toBe('LLsLLLs');
     expect(pattern.isMos).toBe(true);
     // arithmetic (9/8: two fifths less an octave; 256/243: an octave less 5 fifths)

@@ -14,7 +14,11 @@ describe('twelve-tone equal temperament', () => {
   it('names keys with middle C as C4', () => {
     // MIDI convention (A4 = key 69; middle C, key 60)
     expect([noteName(60), noteName(69), noteName(0), noteName(127), noteName(61)]).toEqual([
-      'C4', 'A4', 'C-1', 'G9', 'C#4',
+      'C4',
+      'A4',
+      'C-1',
+      'G9',
+      'C#4',
     ]);
   });
 

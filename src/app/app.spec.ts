@@ -14,7 +14,11 @@ describe('App shell', () => {
   beforeEach(async () => {
     await TestBed.configureTestingModule({
       imports: [App],
-      providers: [provideRouter(routes), provideHttpClient(withInterceptors([connectionInterceptor])), provideHttpClientTesting()],
+      providers: [
+        provideRouter(routes),
+        provideHttpClient(withInterceptors([connectionInterceptor])),
+        provideHttpClientTesting(),
+      ],
     }).compileComponents();
     http = TestBed.inject(HttpTestingController);
   });
@@ -34,10 +38,27 @@ describe('App shell', () => {
 
   it('links to Design, Library, Retune and Bands from the main navigation', async () => {
     const { element } = await render({ user: null });
-    const links = Array.from(element.querySelectorAll<HTMLAnchorElement>('nav[aria-label="Main"] a'));
-    expect(links.map((a) => a.querySelector('.label')?.textContent?.trim())).toEqual(['Design', 'Library', 'Retune', 'Bands']);
-    expect(links.map((a) => a.getAttribute('aria-label'))).toEqual(['Design', 'Library', 'Retune', 'Bands']);
-    expect(links.map((a) => new URL(a.href).pathname)).toEqual(['/design', '/library', '/retune', '/bands']);
+    const links = Array.from(
+      element.querySelectorAll<HTMLAnchorElement>('nav[aria-label="Main"] a'),
+    );
+    expect(links.map((a) => a.querySelector('.label')?.textContent?.trim())).toEqual([
+      'Design',
+      'Library',
+      'Retune',
+      'Bands',
+    ]);
+    expect(links.map((a) => a.getAttribute('aria-label'))).toEqual([
+      'Design',
+      'Library',
+      'Retune',
+      'Bands',
+    ]);
+    expect(links.map((a) => new URL(a.href).pathname)).toEqual([
+      '/design',
+      '/library',
+      '/retune',
+      '/bands',
+    ]);
   });
 
   it('says when sign-in came back refused, and leaves no trace of it in the address', async () => {
@@ -49,7 +70,9 @@ describe('App shell', () => {
     const alert = element.querySelector('.notice[role="alert"]');
     expect(alert?.textContent).toContain('Signing in did not finish');
     expect(router.url).toBe('/no/such/page');
-    const dismiss = Array.from(alert!.querySelectorAll('button')).find((b) => b.textContent?.includes('Dismiss'))!;
+    const dismiss = Array.from(alert!.querySelectorAll('button')).find((b) =>
+      b.textContent?.includes('Dismiss'),
+    )!;
     dismiss.click();
     fixture.detectChanges();
     expect(element.querySelector('.notice')).toBeNull();
@@ -68,7 +91,12 @@ describe('App shell', () => {
   it('shows the signed-in member by name and avatar, and signs out', async () => {
     const avatar = 'data:image/svg+xml,%3Csvg xmlns=%22http://www.w3.org/2000/svg%22/%3E';
     const member = {
-      id: 'u1', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: avatar, siteRole: 'member',
+      id: 'u1',
+      login: 'mira-vale',
+      name: 'Mira Vale',
+      email: null,
+      avatarUrl: avatar,
+      siteRole: 'member',
     };
     const { fixture, element } = await render({ user: member });
     const button = element.querySelector<HTMLButtonElement>('button.member')!;
@@ -77,7 +105,9 @@ describe('App shell', () => {
     expect(button.querySelector('img')?.getAttribute('src')).toBe(avatar);
     expect(element.querySelector('a.sign-in')).toBeNull();
 
-    const menu = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatMenuHarness.with({ selector: 'button.member' }));
+    const menu = await TestbedHarnessEnvironment.loader(fixture).getHarness(
+      MatMenuHarness.with({ selector: 'button.member' }),
+    );
     await menu.open();
     await menu.clickItem({ text: /Sign out/ });
     const logout = http.expectOne('/auth/logout');
@@ -97,7 +127,10 @@ describe('App shell', () => {
     toggle.click();
     await fixture.whenStable();
     expect(toggle.getAttribute('aria-label')).not.toBe(before);
-    expect(document.documentElement.classList.contains('light-theme') || document.documentElement.classList.contains('dark-theme')).toBeTrue();
+    expect(
+      document.documentElement.classList.contains('light-theme') ||
+        document.documentElement.classList.contains('dark-theme'),
+    ).toBeTrue();
     localStorage.removeItem('keyloom.theme');
     document.documentElement.classList.remove('light-theme', 'dark-theme');
   });

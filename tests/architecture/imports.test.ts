@@ -66,7 +66,9 @@ function resolveSpecifier(from: string, specifier: string): string | null {
   let target: string;
   if (specifier.startsWith('@shared/')) target = `shared/${specifier.slice('@shared/'.length)}`;
   else if (specifier.startsWith('.')) {
-    target = relative(root, resolve(root, dirname(from), specifier)).split(sep).join('/');
+    target = relative(root, resolve(root, dirname(from), specifier))
+      .split(sep)
+      .join('/');
   } else return null;
   const base = target.replace(/\.js$/, '');
   const found = existing([base, `${base}.ts`, `${base}/index.ts`]);

@@ -23,19 +23,29 @@ afterAll(() => browser.close());
 /** The serious and critical violations axe finds on the page as it is now, one line each. */
 async function seriousViolations(page: Page): Promise<string[]> {
   // Contrast is measured on the page at rest: wait for its own signal that no animation (a tab sliding in) runs.
-  await page.waitForFunction(() => document.getAnimations().every((animation) => animation.playState !== 'running'));
+  await page.waitForFunction(() =>
+    document.getAnimations().every((animation) => animation.playState !== 'running'),
+  );
   await page.addScriptTag({ path: axeSource });
   const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run(context: Document): Promise<{ violations: Violation[] }> } }).axe;
+    const axe = (
+      window as unknown as { axe: { run(context: Document): Promise<{ violations: Violation[] }> } }
+    ).axe;
     return (await axe.run(document)).violations;
   });
   return violations
     .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
-    .map((violation) => `${violation.id} (${violation.impact}): ${violation.help} at ${violation.nodes.map((n) => n.target.join(' ')).join(', ')}`);
+    .map(
+      (violation) =>
+        `${violation.id} (${violation.impact}): ${violation.help} at ${violation.nodes.map((n) => n.target.join(' ')).join(', ')}`,
+    );
 }
 
 async function opened(path: string, heading: string, login?: string): Promise<Page> {
-  const context = await newContext(browser, { bypassCSP: true, viewport: { width: 1280, height: 1000 } });
+  const context = await newContext(browser, {
+    bypassCSP: true,
+    viewport: { width: 1280, height: 1000 },
+  });
   const page = await context.newPage();
   // Signing in through the GitHub stand-in's shortcut comes back to the page asked for.
   const address = login ? `/auth/github?login=${login}&next=${encodeURIComponent(path)}` : path;
@@ -49,14 +59,23 @@ describe('accessibility of every page and tab (axe-core)', () => {
     const page = await opened('/design', 'Design a scale');
     await page.addScriptTag({ path: axeSource });
     const region = await page.evaluate(async () => {
-      const axe = (window as unknown as { axe: { run(context: Document, options: object): Promise<{ violations: Violation[] }> } }).axe;
-      return (await axe.run(document, { runOnly: ['region'] })).violations.flatMap((v) => v.nodes.map((n) => n.target.join(' ')));
+      const axe = (
+        window as unknown as {
+          axe: { run(context: Document, options: object): Promise<{ violations: Violation[] }> };
+        }
+      ).axe;
+      return (await axe.run(document, { runOnly: ['region'] })).violations.flatMap((v) =>
+        v.nodes.map((n) => n.target.join(' ')),
+      );
     });
     expect(region).toEqual([]);
     await page.context().close();
   });
 
-  for (const [path, heading] of [['/library', 'Library'], ['/bands', 'Bands']]) {
+  for (const [path, heading] of [
+    ['/library', 'Library'],
+    ['/bands', 'Bands'],
+  ]) {
     it(`finds no serious or critical violation on ${path}, signed in`, async () => {
       const page = await opened(path, heading, 'mira-vale');
       await page.getByRole('button', { name: /Signed in as/ }).waitFor();

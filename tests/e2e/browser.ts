@@ -1,7 +1,13 @@
 // Debian's Chromium through playwright-core, as root, headless, with no network of its own.
 import { mkdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { chromium, type Browser, type BrowserContext, type BrowserContextOptions, type Page } from 'playwright-core';
+import {
+  chromium,
+  type Browser,
+  type BrowserContext,
+  type BrowserContextOptions,
+  type Page,
+} from 'playwright-core';
 import { repoRoot } from '../../scripts/stack/postgres';
 
 export const screenshotDir = join(repoRoot, 'tests/e2e/screenshots');
@@ -10,8 +16,15 @@ export function launchChromium(): Promise<Browser> {
   return chromium.launch({
     executablePath: process.env['CHROME_BIN'] ?? '/usr/bin/chromium',
     args: [
-      '--no-sandbox', '--headless', '--disable-gpu', '--disable-background-networking', '--disable-component-update',
-      '--disable-sync', '--no-first-run', '--disable-quic', '--disable-dev-shm-usage',
+      '--no-sandbox',
+      '--headless',
+      '--disable-gpu',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+      '--disable-quic',
+      '--disable-dev-shm-usage',
     ],
   });
 }
@@ -23,7 +36,10 @@ export function launchChromium(): Promise<Browser> {
 const pageWait = 60_000;
 
 /** A browser profile of its own whose pages wait as long as a slow machine needs; open every test's pages here. */
-export async function newContext(browser: Browser, options: BrowserContextOptions = {}): Promise<BrowserContext> {
+export async function newContext(
+  browser: Browser,
+  options: BrowserContextOptions = {},
+): Promise<BrowserContext> {
   const context = await browser.newContext(options);
   context.setDefaultTimeout(pageWait);
   context.setDefaultNavigationTimeout(pageWait);
@@ -31,7 +47,10 @@ export async function newContext(browser: Browser, options: BrowserContextOption
 }
 
 /** One page in a fresh profile of its own (as `browser.newPage()`), waiting as long as a slow machine needs. */
-export async function newPage(browser: Browser, options: BrowserContextOptions = {}): Promise<Page> {
+export async function newPage(
+  browser: Browser,
+  options: BrowserContextOptions = {},
+): Promise<Page> {
   const page = await browser.newPage(options);
   page.setDefaultTimeout(pageWait);
   page.setDefaultNavigationTimeout(pageWait);

@@ -18,7 +18,9 @@ declare module 'vitest' {
 }
 
 export default async function setup(project: TestProject) {
-  const cluster = await ensureCluster((line) => console.log(`keyloom: ${line}`), { portIfTaken: 'pick-free' });
+  const cluster = await ensureCluster((line) => console.log(`keyloom: ${line}`), {
+    portIfTaken: 'pick-free',
+  });
   const name = `keyloom_e2e_${process.pid}_${Date.now().toString(36)}`;
   await cluster.createDatabase(name, { fastCommits: true });
   const db = createDatabase(cluster.url(name));

@@ -5,7 +5,8 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { launchChromium, newContext, screenshot } from './browser';
 
-type MidiMode = 'grant' | 'refuse' | 'missing' | 'drop after one' | 'answers dump requests' | 'never answers';
+type MidiMode =
+  'grant' | 'refuse' | 'missing' | 'drop after one' | 'answers dump requests' | 'never answers';
 
 interface Recorded {
   sent: number[][];
@@ -44,12 +45,21 @@ function standInMidi(mode: MidiMode): void {
    * specification, named "STAND-IN". */
   const dumpOf = (program: number) => {
     const name = Array.from('STAND-IN'.padEnd(16, ' '), (character) => character.charCodeAt(0));
-    const body = [0x7e, 0x7f, 0x08, 0x01, program, ...name, ...Array.from({ length: 128 }, (_, key) => [key, 0, 0]).flat()];
+    const body = [
+      0x7e,
+      0x7f,
+      0x08,
+      0x01,
+      program,
+      ...name,
+      ...Array.from({ length: 128 }, (_, key) => [key, 0, 0]).flat(),
+    ];
     return Uint8Array.from([0xf0, ...body, body.reduce((sum, byte) => sum ^ byte, 0) & 0x7f, 0xf7]);
   };
   const output = Object.assign(portOf('stand-in-out', 'output'), {
     send(bytes: Uint8Array | number[]) {
-      if (output.state === 'disconnected') throw new DOMException('The port is closed', 'InvalidStateError');
+      if (output.state === 'disconnected')
+        throw new DOMException('The port is closed', 'InvalidStateError');
       page.sent.push(Array.from(bytes));
       const isDumpRequest = bytes[0] === 0xf0 && bytes[3] === 0x08 && bytes[4] === 0x00;
       if (mode === 'answers dump requests' && isDumpRequest) {
@@ -69,7 +79,9 @@ function standInMidi(mode: MidiMode): void {
   });
   const access = {
     sysexEnabled: true,
-    inputs: new Map(mode === 'answers dump requests' || mode === 'never answers' ? [[input.id, input]] : []),
+    inputs: new Map(
+      mode === 'answers dump requests' || mode === 'never answers' ? [[input.id, input]] : [],
+    ),
     outputs: new Map([[output.id, output]]),
     onstatechange: null as Handler,
   };
@@ -89,7 +101,10 @@ beforeAll(async () => {
 afterAll(() => browser.close());
 
 async function designer(mode: MidiMode, width = 1280): Promise<Page> {
-  const context = await newContext(browser, { acceptDownloads: true, viewport: { width, height: width > 600 ? 1000 : 844 } });
+  const context = await newContext(browser, {
+    acceptDownloads: true,
+    viewport: { width, height: width > 600 ? 1000 : 844 },
+  });
   const page = await context.newPage();
   await page.addInitScript(standInMidi, mode);
   await page.goto(`${inject('appUrl')}/design`);
@@ -126,7 +141,9 @@ async function preview(path: string, document: unknown): Promise<Response> {
 }
 
 async function keyHz(document: unknown): Promise<(number | null)[]> {
-  const table = (await (await preview('table', document)).json()) as { keys: { hz: number | null }[] };
+  const table = (await (await preview('table', document)).json()) as {
+    keys: { hz: number | null }[];
+  };
   return table.keys.map((key) => key.hz);
 }
 
@@ -144,7 +161,9 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     await dialog.getByRole('button', { name: 'Send and replace' }).click();
     await expect.poll(() => page.getByText('Sent 1 message (408 bytes).').count()).toBe(1);
 
-    const exported = new Uint8Array(await (await preview('export/mts-bulk', await presetDocument(page))).arrayBuffer());
+    const exported = new Uint8Array(
+      await (await preview('export/mts-bulk', await presetDocument(page))).arrayBuffer(),
+    );
     const sent = await sentBytes(page);
     expect(sent.length).toBe(1);
     expect(sent[0]).toEqual([...exported]);
@@ -160,7 +179,9 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     await page.getByRole('tab', { name: 'Keys' }).click();
     await page.getByRole('radio', { name: 'Tune one key' }).click();
     await page.getByRole('button', { name: 'A = 415' }).click();
-    await expect.poll(() => page.locator('app-reference-pitch .summary').textContent()).toContain('Key 69 (A4) sounds 415 Hz');
+    await expect
+      .poll(() => page.locator('app-reference-pitch .summary').textContent())
+      .toContain('Key 69 (A4) sounds 415 Hz');
     await screenshot(page, 'werckmeister-a415-keys');
     await openSendPanel(page);
     await page.getByRole('button', { name: 'Send tuning' }).click();
@@ -170,7 +191,9 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     const document = await presetDocument(page);
     expect(document['mapping']).toMatchObject({ anchor: { key: 69, hz: 415 } });
     const [sent] = await sentBytes(page);
-    expect(sent).toEqual([...new Uint8Array(await (await preview('export/mts-bulk', document)).arrayBuffer())]);
+    expect(sent).toEqual([
+      ...new Uint8Array(await (await preview('export/mts-bulk', document)).arrayBuffer()),
+    ]);
     // MTS bulk dump: key k's frequency word at byte 22 + 3k, f = 440 * 2^((xx + (128 yy + zz) /
     // 16384 - 69) / 12). Key 69 sounds 415 Hz to within half a unit (0.003 cents).
     const word = (key: number) => sent.slice(22 + 3 * key, 25 + 3 * key);
@@ -196,7 +219,9 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     // MIDI Tuning specification: F0 7F dev 08 02 tt ll (kk xx yy zz)xll F7.
     const keysIn = (messages: number[][]) =>
       messages
-        .flatMap((message) => Array.from({ length: message[6] }, (_, index) => message[7 + 4 * index]))
+        .flatMap((message) =>
+          Array.from({ length: message[6] }, (_, index) => message[7 + 4 * index]),
+        )
         .sort((a, b) => a - b);
     // The settled edit's changes have all gone out once the keys sent are the keys changed (extra ones never match).
     await expect.poll(async () => keysIn(await sentBytes(page))).toEqual(changed);
@@ -207,17 +232,21 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     expect(keys).toEqual(changed);
     const bytes = sent.reduce((sum, message) => sum + message.length, 0);
     await page.getByRole('tab', { name: 'Output' }).click();
-    await expect.poll(() => page.getByLabel('Live follow counter').textContent()).toContain(`${sent.length} messages, ${bytes} bytes sent`);
+    await expect
+      .poll(() => page.getByLabel('Live follow counter').textContent())
+      .toContain(`${sent.length} messages, ${bytes} bytes sent`);
     await screenshot(page, 'hardware-live-follow');
     // Nothing else went out after the edit settled.
     expect(await sentBytes(page)).toEqual(sent);
     await page.context().close();
   });
 
-  it('backs up the program it is about to overwrite with a dump request, then sends on the player\'s word', async () => {
+  it("backs up the program it is about to overwrite with a dump request, then sends on the player's word", async () => {
     const page = await designer('answers dump requests');
     await openSendPanel(page);
-    await expect.poll(() => page.getByLabel('Answers from (MIDI input)').textContent()).toContain('Stand-in synth');
+    await expect
+      .poll(() => page.getByLabel('Answers from (MIDI input)').textContent())
+      .toContain('Stand-in synth');
     await page.getByRole('button', { name: 'Send tuning' }).click();
     const dialog = page.getByRole('dialog');
     const [download] = await Promise.all([
@@ -231,7 +260,9 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     expect(kept.length).toBe(408);
     expect([...kept.subarray(0, 6)]).toEqual([0xf0, 0x7e, 0x7f, 0x08, 0x01, 0x00]);
     expect(kept[406]).toBe(kept.subarray(1, 406).reduce((sum, byte) => sum ^ byte, 0) & 0x7f);
-    await expect.poll(() => dialog.textContent()).toContain('Backed up as backup-stand-in-synth-program-0.syx');
+    await expect
+      .poll(() => dialog.textContent())
+      .toContain('Backed up as backup-stand-in-synth-program-0.syx');
     await screenshot(page, 'hardware-backup-done');
     // Nothing is sent but the request until the player says so.
     expect(await sentBytes(page)).toEqual([[0xf0, 0x7e, 0x7f, 0x08, 0x00, 0x00, 0xf7]]);
@@ -241,7 +272,7 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     await page.context().close();
   });
 
-  it('says plainly when the instrument does not answer, and sends only on the player\'s word (phone width)', async () => {
+  it("says plainly when the instrument does not answer, and sends only on the player's word (phone width)", async () => {
     const page = await designer('never answers', 390);
     await openSendPanel(page);
     await page.locator('mat-label', { hasText: 'Answers from (MIDI input)' }).waitFor();
@@ -255,8 +286,13 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
         for (const field of fields) {
           if (field === own) continue;
           const other = field.querySelector('.mat-mdc-text-field-wrapper')!.getBoundingClientRect();
-          const overlaps = box.left < other.right && other.left < box.right && box.top < other.bottom && other.top < box.bottom;
-          if (overlaps) hits.push(`${hint.textContent} / ${field.querySelector('mat-label')?.textContent}`);
+          const overlaps =
+            box.left < other.right &&
+            other.left < box.right &&
+            box.top < other.bottom &&
+            other.top < box.bottom;
+          if (overlaps)
+            hits.push(`${hint.textContent} / ${field.querySelector('mat-label')?.textContent}`);
         }
       }
       return hits;
@@ -266,7 +302,9 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     await page.getByRole('button', { name: 'Send tuning' }).click();
     const dialog = page.getByRole('dialog');
     await dialog.getByRole('button', { name: "Back up the instrument's tuning first" }).click();
-    await expect.poll(() => dialog.getByRole('alert').textContent()).toContain('Stand-in synth did not answer the dump request');
+    await expect
+      .poll(() => dialog.getByRole('alert').textContent())
+      .toContain('Stand-in synth did not answer the dump request');
     expect(await dialog.getByRole('alert').textContent()).toContain('Nothing was backed up.');
     await screenshot(page, 'hardware-backup-no-answer-phone');
     expect((await sentBytes(page)).length).toBe(1);
@@ -278,14 +316,18 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
   it('says when the browser has no Web MIDI', async () => {
     const page = await designer('missing');
     await openSendPanel(page);
-    await expect.poll(() => page.getByRole('alert').first().textContent()).toContain('This browser has no Web MIDI');
+    await expect
+      .poll(() => page.getByRole('alert').first().textContent())
+      .toContain('This browser has no Web MIDI');
     await page.context().close();
   });
 
   it('says when the browser refuses MIDI access', async () => {
     const page = await designer('refuse');
     await openSendPanel(page);
-    await expect.poll(() => page.getByRole('alert').first().textContent()).toContain('refused access to MIDI devices');
+    await expect
+      .poll(() => page.getByRole('alert').first().textContent())
+      .toContain('refused access to MIDI devices');
     await page.context().close();
   });
 
@@ -296,7 +338,9 @@ describe('sending a tuning to an instrument over Web MIDI', () => {
     await page.getByRole('option', { name: 'Single-note real-time changes' }).click();
     await page.getByRole('button', { name: 'Send tuning' }).click();
     await page.getByRole('dialog').getByRole('button', { name: 'Send and replace' }).click();
-    await expect.poll(() => page.getByRole('alert').first().textContent()).toContain('The MIDI port disappeared while sending');
+    await expect
+      .poll(() => page.getByRole('alert').first().textContent())
+      .toContain('The MIDI port disappeared while sending');
     expect((await sentBytes(page)).length).toBe(1);
     await screenshot(page, 'hardware-port-gone');
     await page.context().close();

@@ -14,7 +14,10 @@ afterAll(() => browser.close());
 
 /** A fresh browser profile, signed in through the GitHub stand-in as `login` when given. */
 async function visitor(login?: string): Promise<{ context: BrowserContext; page: Page }> {
-  const context = await newContext(browser, { acceptDownloads: true, viewport: { width: 1280, height: 900 } });
+  const context = await newContext(browser, {
+    acceptDownloads: true,
+    viewport: { width: 1280, height: 900 },
+  });
   const page = await context.newPage();
   if (login) {
     await page.goto(`${inject('appUrl')}/auth/github?login=${login}&next=/design`);
@@ -23,7 +26,10 @@ async function visitor(login?: string): Promise<{ context: BrowserContext; page:
   return { context, page };
 }
 
-async function downloaded(page: Page, start: () => Promise<void>): Promise<{ name: string; bytes: Buffer }> {
+async function downloaded(
+  page: Page,
+  start: () => Promise<void>,
+): Promise<{ name: string; bytes: Buffer }> {
   const [download] = await Promise.all([page.waitForEvent('download'), start()]);
   return { name: download.suggestedFilename(), bytes: readFileSync((await download.path())!) };
 }
@@ -50,10 +56,21 @@ describe('journey 1: a composer designs signed out and downloads an MTS bulk dum
     await generator.fill('3/2');
     await page.getByLabel('Generators up').fill('5');
     await page.getByLabel('Generators down').fill('1');
-    const column = (n: number) => page.locator('table').first().locator(`tbody tr td:nth-child(${n})`);
-    await expect.poll(() => column(3).allTextContents()).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
+    const column = (n: number) =>
+      page.locator('table').first().locator(`tbody tr td:nth-child(${n})`);
+    await expect
+      .poll(() => column(3).allTextContents())
+      .toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
     // Each degree named along the chain of fifths from C (common practice).
-    expect((await column(2).allTextContents()).map((name) => name.trim())).toEqual(['C', 'D', 'E', 'F', 'G', 'A', 'B']);
+    expect((await column(2).allTextContents()).map((name) => name.trim())).toEqual([
+      'C',
+      'D',
+      'E',
+      'F',
+      'G',
+      'A',
+      'B',
+    ]);
     await screenshot(page, 'journey-1-design');
 
     await expect.poll(() => new URL(page.url()).searchParams.get('d')).toBeTruthy();
@@ -61,7 +78,9 @@ describe('journey 1: a composer designs signed out and downloads an MTS bulk dum
     await expect.poll(() => page.getByLabel('Preset name').inputValue()).toBe('Journey Fifths');
 
     await page.getByRole('button', { name: 'Download' }).click();
-    const file = await downloaded(page, () => page.getByRole('menuitem', { name: /^MTS bulk dump \(\.syx\)/ }).click());
+    const file = await downloaded(page, () =>
+      page.getByRole('menuitem', { name: /^MTS bulk dump \(\.syx\)/ }).click(),
+    );
     expect(file.name).toBe('journey-fifths.syx');
     // MIDI Tuning specification: a bulk dump is 408 bytes, F0 7E dev 08 01 ... F7, its checksum the
     // XOR of bytes 1-405 AND 7F.
@@ -77,7 +96,7 @@ describe('journey 1: a composer designs signed out and downloads an MTS bulk dum
 describe('journeys 2 to 4: a band saves, invites, shares', () => {
   let presetPath = '';
 
-  it('journey 2: saves the design into the band\'s library as revision 1', async () => {
+  it("journey 2: saves the design into the band's library as revision 1", async () => {
     const { context, page } = await visitor('mira-vale');
     await page.goto(`${inject('appUrl')}/design`);
     await page.getByLabel('Preset name').fill('Journey Twelve');
@@ -99,20 +118,33 @@ describe('journeys 2 to 4: a band saves, invites, shares', () => {
   it('journey 3: invites a bandmate by e-mail; he follows the link from the mailbox, signs in and joins', async () => {
     const owner = await visitor('mira-vale');
     await owner.page.goto(`${inject('appUrl')}/bands`);
-    await owner.page.getByRole('link', { name: /Copper Fen/ }).first().click();
-    const inviteForm = owner.page.locator('form').filter({ has: owner.page.getByLabel('E-mail address') });
+    await owner.page
+      .getByRole('link', { name: /Copper Fen/ })
+      .first()
+      .click();
+    const inviteForm = owner.page
+      .locator('form')
+      .filter({ has: owner.page.getByLabel('E-mail address') });
     await inviteForm.getByLabel('E-mail address').fill('ada.quill@example.org');
     await inviteForm.getByRole('combobox', { name: 'Role' }).click();
     await owner.page.getByRole('option', { name: /editor/i }).click();
     await inviteForm.getByRole('button', { name: /Send/ }).click();
-    await owner.page.getByRole('button', { name: 'Revoke the invite to ada.quill@example.org' }).waitFor();
+    await owner.page
+      .getByRole('button', { name: 'Revoke the invite to ada.quill@example.org' })
+      .waitFor();
     await screenshot(owner.page, 'journey-3-invited');
     await owner.context.close();
 
     const guest = await visitor();
     await guest.page.goto(inject('mailboxUrl'));
-    await guest.page.getByRole('link', { name: /invites you to the band Copper Fen/ }).first().click();
-    const link = await guest.page.getByRole('link', { name: /\/invites\// }).first().getAttribute('href');
+    await guest.page
+      .getByRole('link', { name: /invites you to the band Copper Fen/ })
+      .first()
+      .click();
+    const link = await guest.page
+      .getByRole('link', { name: /\/invites\// })
+      .first()
+      .getAttribute('href');
     await guest.page.goto(link!);
     await guest.page.getByRole('link', { name: /Sign in to join/ }).click();
     await guest.page.waitForURL((url) => url.origin === inject('githubUrl'));
@@ -145,14 +177,23 @@ describe('journeys 2 to 4: a band saves, invites, shares', () => {
 
     const guest = await visitor();
     await guest.page.goto(url);
-    await expect.poll(() => guest.page.getByRole('heading', { level: 1 }).textContent()).toContain('Journey Twelve');
+    await expect
+      .poll(() => guest.page.getByRole('heading', { level: 1 }).textContent())
+      .toContain('Journey Twelve');
     await expect.poll(() => guest.page.getByText('2187/2048').count()).toBeGreaterThan(0);
     await screenshot(guest.page, 'journey-4-shared-signed-out');
 
-    await dialog.getByRole('button', { name: /^Revoke the link/ }).first().click();
-    await expect.poll(() => dialog.getByRole('button', { name: /^Revoke the link/ }).count()).toBe(0);
+    await dialog
+      .getByRole('button', { name: /^Revoke the link/ })
+      .first()
+      .click();
+    await expect
+      .poll(() => dialog.getByRole('button', { name: /^Revoke the link/ }).count())
+      .toBe(0);
     await guest.page.reload();
-    await expect.poll(() => guest.page.getByText(/no longer|revoked|not found|cannot/i).count()).toBeGreaterThan(0);
+    await expect
+      .poll(() => guest.page.getByText(/no longer|revoked|not found|cannot/i).count())
+      .toBeGreaterThan(0);
     await owner.context.close();
     await guest.context.close();
   });
@@ -162,15 +203,32 @@ describe('journey 5: a producer retunes a song', () => {
   it('uploads a song, retunes it one note per channel, reads the report and downloads the result', async () => {
     const events: MidiEvent[] = [];
     for (const key of [60, 62, 64, 65, 67]) {
-      events.push({ deltaTime: 0, channel: 0, type: 'noteOn', noteNumber: key, velocity: 90 } as MidiEvent);
-      events.push({ deltaTime: 240, channel: 0, type: 'noteOff', noteNumber: key, velocity: 0 } as MidiEvent);
+      events.push({
+        deltaTime: 0,
+        channel: 0,
+        type: 'noteOn',
+        noteNumber: key,
+        velocity: 90,
+      } as MidiEvent);
+      events.push({
+        deltaTime: 240,
+        channel: 0,
+        type: 'noteOff',
+        noteNumber: key,
+        velocity: 0,
+      } as MidiEvent);
     }
     events.push({ deltaTime: 0, meta: true, type: 'endOfTrack' } as MidiEvent);
-    const song = Buffer.from(writeMidi({ header: { format: 0, numTracks: 1, ticksPerBeat: 480 }, tracks: [events] }));
+    const song = Buffer.from(
+      writeMidi({ header: { format: 0, numTracks: 1, ticksPerBeat: 480 }, tracks: [events] }),
+    );
 
     const { context, page } = await visitor('mira-vale');
     await page.goto(`${inject('appUrl')}/retune`);
-    await page.locator('input[type=file]').first().setInputFiles({ name: 'little-tune.mid', mimeType: 'audio/midi', buffer: song });
+    await page
+      .locator('input[type=file]')
+      .first()
+      .setInputFiles({ name: 'little-tune.mid', mimeType: 'audio/midi', buffer: song });
     // The roll of the song as written, read in the browser, before any tuning is chosen.
     const roll = page.getByRole('img', {
       name: /^Piano roll of the song: 5 notes in 1 track, keys 60–67/,
@@ -178,7 +236,10 @@ describe('journey 5: a producer retunes a song', () => {
     await roll.waitFor();
     await page.getByRole('radio', { name: 'A saved preset' }).check();
     await page.getByRole('combobox', { name: 'Saved preset' }).click();
-    await page.getByRole('option', { name: /Fen Fifths/ }).first().click();
+    await page
+      .getByRole('option', { name: /Fen Fifths/ })
+      .first()
+      .click();
     // Fen Fifths' latest revision maps all twelve keys of the octave: no note on an unmapped key.
     await expect
       .poll(() => roll.getAttribute('aria-label'))
@@ -187,8 +248,12 @@ describe('journey 5: a producer retunes a song', () => {
     await page.getByRole('radio', { name: /One note per channel/ }).check();
     await page.getByLabel('Lead-in before the first note').fill('250');
     await page.getByRole('button', { name: /^Retune/ }).click();
-    await expect.poll(() => page.getByText(/5 notes? retuned|retuned 5|Notes retuned/i).count()).toBeGreaterThan(0);
-    await expect.poll(() => page.locator('.lead-in-note').textContent()).toContain('The song starts 250 ms (240 ticks) later');
+    await expect
+      .poll(() => page.getByText(/5 notes? retuned|retuned 5|Notes retuned/i).count())
+      .toBeGreaterThan(0);
+    await expect
+      .poll(() => page.locator('.lead-in-note').textContent())
+      .toContain('The song starts 250 ms (240 ticks) later');
     await screenshot(page, 'journey-5-report');
     // The roll of the retuned song: each note against 12-tone equal temperament (in pure fifths
     // from C, E4 is 81/64, 407.820 cents: 7.8 cents sharp; from memory).
@@ -206,7 +271,12 @@ describe('journey 5: a producer retunes a song', () => {
     await page.getByRole('button', { name: 'Stop' }).waitFor();
     await screenshot(page, 'journey-5-hearing');
     await page.getByRole('button', { name: 'Stop' }).click();
-    const file = await downloaded(page, () => page.getByRole('link', { name: /Download/ }).first().click());
+    const file = await downloaded(page, () =>
+      page
+        .getByRole('link', { name: /Download/ })
+        .first()
+        .click(),
+    );
     const tuned = parseMidi(file.bytes);
     const notes = tuned.tracks.flat().filter((e) => e.type === 'noteOn' && e.velocity > 0);
     expect(notes).toHaveLength(5);

@@ -12,7 +12,12 @@ afterAll(() => browser.close());
 describe('the local mailbox page', () => {
   it('shows a message sent over SMTP, with its link clickable', async () => {
     const smtpPort = inject('mailboxSmtpPort');
-    const transport = nodemailer.createTransport({ host: '127.0.0.1', port: smtpPort, secure: false, ignoreTLS: true });
+    const transport = nodemailer.createTransport({
+      host: '127.0.0.1',
+      port: smtpPort,
+      secure: false,
+      ignoreTLS: true,
+    });
     await transport.sendMail({
       from: 'Keyloom <keyloom@localhost>',
       to: 'tobias.reed@copperfen.example',
@@ -22,7 +27,9 @@ describe('the local mailbox page', () => {
 
     const page = await newPage(browser);
     await page.goto(inject('mailboxUrl'));
-    const subject = page.getByRole('link', { name: 'Mira Vale invites you to Copper Fen <as editor>' });
+    const subject = page.getByRole('link', {
+      name: 'Mira Vale invites you to Copper Fen <as editor>',
+    });
     await subject.click();
     const link = page.getByRole('link', { name: 'http://127.0.0.1:3000/invites/example-token' });
     expect(await link.getAttribute('href')).toBe('http://127.0.0.1:3000/invites/example-token');

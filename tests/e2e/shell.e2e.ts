@@ -32,10 +32,14 @@ describe('the app shell in Chromium', () => {
     const fonts = await page.evaluate(async () => {
       await document.fonts.ready;
       const loaded = (family: string) =>
-        [...document.fonts].some((face) => face.family.replace(/"/g, '') === family && face.status === 'loaded');
+        [...document.fonts].some(
+          (face) => face.family.replace(/"/g, '') === family && face.status === 'loaded',
+        );
       return {
         roboto: loaded('Roboto') && document.fonts.check('16px Roboto'),
-        symbols: loaded('Material Symbols Outlined') && document.fonts.check('24px "Material Symbols Outlined"'),
+        symbols:
+          loaded('Material Symbols Outlined') &&
+          document.fonts.check('24px "Material Symbols Outlined"'),
       };
     });
     await screenshot(page, 'shell-signed-out');
@@ -52,8 +56,15 @@ describe('the app shell in Chromium', () => {
     const page = await newPage(browser);
     await page.goto(`${inject('appUrl')}/design`);
     const title = page.getByRole('heading', { level: 1 });
-    for (const [label, heading] of [['Library', 'Library'], ['Retune', 'Retune a song'], ['Bands', 'Bands']]) {
-      await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: label }).click();
+    for (const [label, heading] of [
+      ['Library', 'Library'],
+      ['Retune', 'Retune a song'],
+      ['Bands', 'Bands'],
+    ]) {
+      await page
+        .getByRole('navigation', { name: 'Main' })
+        .getByRole('link', { name: label })
+        .click();
       // Each destination is a lazy route: its heading appears once its code has loaded, however long that takes.
       await page.getByRole('heading', { level: 1, name: heading, exact: true }).waitFor();
       expect(await title.textContent()).toBe(heading);
@@ -61,7 +72,9 @@ describe('the app shell in Chromium', () => {
     await expect.poll(() => page.title()).toBe('Bands · Keyloom');
 
     await page.goto(`${inject('appUrl')}/no/such/page`);
-    await page.getByRole('heading', { level: 1, name: 'Nothing plays on this key', exact: true }).waitFor();
+    await page
+      .getByRole('heading', { level: 1, name: 'Nothing plays on this key', exact: true })
+      .waitFor();
     expect(await title.textContent()).toBe('Nothing plays on this key');
     await screenshot(page, 'not-found');
     await page.close();
@@ -73,7 +86,9 @@ describe('the app shell in Chromium', () => {
     await page.getByRole('link', { name: 'Sign in with GitHub' }).waitFor();
     // Measure the designer itself, not the shell alone while the route's code is still loading.
     await page.getByLabel('Preset name').waitFor();
-    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    const overflow = await page.evaluate(
+      () => document.documentElement.scrollWidth - document.documentElement.clientWidth,
+    );
     await screenshot(page, 'shell-390px');
     expect(overflow).toBeLessThanOrEqual(0);
 
@@ -82,7 +97,9 @@ describe('the app shell in Chromium', () => {
     await page.getByLabel('Generators up').fill('8');
     await page.getByLabel('Generators down').fill('3');
     await page.locator('app-offset-chart text.note').nth(11).waitFor();
-    const chart = await page.locator('app-offset-chart .scroller').evaluate((s) => s.scrollWidth - s.clientWidth);
+    const chart = await page
+      .locator('app-offset-chart .scroller')
+      .evaluate((s) => s.scrollWidth - s.clientWidth);
     expect(chart).toBeLessThanOrEqual(0);
     const table = page.locator('app-degree-table .scroller');
     await table.evaluate((s) => (s.scrollLeft = s.scrollWidth));

@@ -24,7 +24,11 @@ describe('signing in through the GitHub stand-in', () => {
     expect(await member.locator('img').getAttribute('src')).toMatch(/\/avatars\/mira-vale\.svg$/);
     // The avatar is a file of its own: it may still be on its way when the button shows.
     await expect
-      .poll(() => member.locator('img').evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0))
+      .poll(() =>
+        member
+          .locator('img')
+          .evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth > 0),
+      )
       .toBe(true);
     await screenshot(page, 'signed-in');
 

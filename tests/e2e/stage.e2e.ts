@@ -106,9 +106,7 @@ describe('the stage', () => {
       bank: 2,
       port: 'Stage synth',
     });
-    const list = await owner.request.get(
-      `${inject('appUrl')}/api/presets?bandId=${demoBand.id}`,
-    );
+    const list = await owner.request.get(`${inject('appUrl')}/api/presets?bandId=${demoBand.id}`);
     const presets = ((await list.json()) as { items: { id: string; name: string }[] }).items;
     expect(presets.length).toBeGreaterThanOrEqual(2);
     const setlist = await post<{ id: string }>(owner, `/api/bands/${demoBand.id}/setlists`, {
@@ -120,7 +118,10 @@ describe('the stage', () => {
     await follow(editor, setlist.id);
     await expect.poll(() => editor.locator('.current').textContent()).toContain(presets[0].name);
     await expect.poll(() => editor.getByRole('button', { name: 'Next' }).count()).toBe(1);
-    const before = { owner: (await sentBytes(owner)).length, editor: (await sentBytes(editor)).length };
+    const before = {
+      owner: (await sentBytes(owner)).length,
+      editor: (await sentBytes(editor)).length,
+    };
 
     await owner.getByRole('button', { name: 'Next' }).click();
     await expect.poll(() => owner.locator('.place').textContent()).toContain('2 of 2');

@@ -13,7 +13,11 @@ let cluster: Cluster;
 let server: Awaited<ReturnType<typeof startTestServer>>;
 
 beforeAll(async () => {
-  cluster = await ensureCluster(() => {}, { stateDir, port: 56000 + (process.pid % 1000), portIfTaken: 'pick-free' });
+  cluster = await ensureCluster(() => {}, {
+    stateDir,
+    port: 56000 + (process.pid % 1000),
+    portIfTaken: 'pick-free',
+  });
   await cluster.createDatabase('outage', { fastCommits: true });
   const db = createDatabase(cluster.url('outage'));
   await applyMigrations(db);
@@ -32,11 +36,17 @@ describe('a database outage', () => {
   it('answers 503 while PostgreSQL is down, keeps pure routes working, and recovers by itself', async () => {
     const owner = await server.signIn('outage-owner');
     const doc = fifthsPreset('Outage Fifths');
-    const created = await owner.agent.post('/api/presets').set('X-XSRF-TOKEN', owner.xsrf).send({ document: doc }).expect(201);
+    const created = await owner.agent
+      .post('/api/presets')
+      .set('X-XSRF-TOKEN', owner.xsrf)
+      .send({ document: doc })
+      .expect(201);
 
     // Requests in flight while the server stops: each gets an answer, 200 or 503, none a 500.
     const inFlight = Array.from({ length: 20 }, (_, i) =>
-      new Promise((r) => setTimeout(r, i * 15)).then(() => owner.agent.get(`/api/presets/${created.body.id}`)),
+      new Promise((r) => setTimeout(r, i * 15)).then(() =>
+        owner.agent.get(`/api/presets/${created.body.id}`),
+      ),
     );
     await cluster.stop();
     const during = await Promise.all(inFlight);

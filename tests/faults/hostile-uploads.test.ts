@@ -46,7 +46,10 @@ let github: Awaited<ReturnType<typeof startFakeGitHub>>;
 
 beforeAll(async () => {
   github = await startFakeGitHub();
-  server = await startServerProcess({ DATABASE_URL: inject('databaseUrl'), FAKE_GITHUB_URL: github.url });
+  server = await startServerProcess({
+    DATABASE_URL: inject('databaseUrl'),
+    FAKE_GITHUB_URL: github.url,
+  });
 });
 afterAll(async () => {
   await server?.stop();
@@ -77,13 +80,29 @@ async function probeWhile(done: Promise<unknown>): Promise<number[]> {
  * Sends a file as multipart form data from a process of its own (curl), so that sending 5 MB does not take turns
  * with the health checks that this process times.
  */
-async function upload(path: string, file: Uint8Array, fileName: string, fields: Record<string, string> = {}) {
+async function upload(
+  path: string,
+  file: Uint8Array,
+  fileName: string,
+  fields: Record<string, string> = {},
+) {
   const dir = mkdtempSync(join(tmpdir(), 'keyloom-upload-'));
   try {
     writeFileSync(join(dir, fileName), file);
-    const form = Object.entries(fields).flatMap(([name, value]) => ['--form-string', `${name}=${value}`]);
+    const form = Object.entries(fields).flatMap(([name, value]) => [
+      '--form-string',
+      `${name}=${value}`,
+    ]);
     const { stdout } = await run('curl', [
-      '-sS', '-o', join(dir, 'answer'), '-w', '%{http_code}', '-F', `file=@${join(dir, fileName)}`, ...form, `${server.url}${path}`,
+      '-sS',
+      '-o',
+      join(dir, 'answer'),
+      '-w',
+      '%{http_code}',
+      '-F',
+      `file=@${join(dir, fileName)}`,
+      ...form,
+      `${server.url}${path}`,
     ]);
     const answer = readFileSync(join(dir, 'answer'));
     const status = Number(stdout);
@@ -101,7 +120,8 @@ describe('hostile uploads of 5 MB', () => {
       endless: Uint8Array.from([0xf0, ...new Uint8Array(megabytes), 0xf7]),
       song: hugeSong(),
     };
-    for (const bytes of Object.values(uploads)) expect(bytes.length).toBeGreaterThan(4.5 * 1024 * 1024);
+    for (const bytes of Object.values(uploads))
+      expect(bytes.length).toBeGreaterThan(4.5 * 1024 * 1024);
 
     // A server that stalls on an upload delays every health check asked meanwhile, every time. A busy machine
     // delays one now and then by chance. So the uploads go three times at most, and the claim holds when one round
@@ -113,21 +133,28 @@ describe('hostile uploads of 5 MB', () => {
         upload('/api/import', uploads.list, 'fifths.txt'),
         upload('/api/import', uploads.dumps, 'dumps.syx'),
         upload('/api/import', uploads.endless, 'endless.syx'),
-        upload('/api/retune', uploads.song, 'huge.mid', { preset: JSON.stringify(document), mode: 'mpe' }),
+        upload('/api/retune', uploads.song, 'huge.mid', {
+          preset: JSON.stringify(document),
+          mode: 'mpe',
+        }),
       ]);
       const during = await probeWhile(all);
       const [list, dumps, endless, song] = await all;
 
       expect(list.status).toBe(413);
       expect(dumps.status).toBe(400);
-      expect((dumps.body as { error: { message: string } }).error.message).toMatch(/more than 2048 messages/);
+      expect((dumps.body as { error: { message: string } }).error.message).toMatch(
+        /more than 2048 messages/,
+      );
       expect(endless.status).toBe(400);
       expect(song.status).toBe(200);
 
       const median = [...usual].sort((x, y) => x - y)[Math.floor(usual.length / 2)];
       const worst = Math.max(...during);
       delays.push(worst - median);
-      console.log(`round ${round}: health check usually ${median.toFixed(1)} ms, at worst ${worst.toFixed(1)} ms during the uploads`);
+      console.log(
+        `round ${round}: health check usually ${median.toFixed(1)} ms, at worst ${worst.toFixed(1)} ms during the uploads`,
+      );
     }
     expect(Math.min(...delays)).toBeLessThan(100);
   }, 240_000);

@@ -14,7 +14,11 @@ const players = (acks: Acknowledged[]) => new Set(acks.map(player)).size;
 
 beforeAll(async () => {
   github = await startFakeGitHub();
-  env = { DATABASE_URL: inject('databaseUrl'), FAKE_GITHUB_URL: github.url, RATE_LIMIT_PER_MINUTE: '100000' };
+  env = {
+    DATABASE_URL: inject('databaseUrl'),
+    FAKE_GITHUB_URL: github.url,
+    RATE_LIMIT_PER_MINUTE: '100000',
+  };
 });
 afterAll(() => github?.close());
 
@@ -24,7 +28,10 @@ describe('under load', () => {
     try {
       // On a busy machine the run goes on past 8 seconds until every player has had a save acknowledged.
       const report = await runMixedLoad({
-        appUrl: () => server.url, clients: 30, seconds: 8, loginPrefix: 'load',
+        appUrl: () => server.url,
+        clients: 30,
+        seconds: 8,
+        loginPrefix: 'load',
         until: (r) => players(r.acknowledged) === 30,
       });
       expect(report.failures).toEqual([]);
@@ -42,12 +49,17 @@ describe('under load', () => {
     let restartedAt = 0;
     const beforeCrash = new Set<string>();
     const load = runMixedLoad({
-      appUrl: () => server.url, clients: 20, seconds: 18, loginPrefix: 'crash', outage: () => down,
+      appUrl: () => server.url,
+      clients: 20,
+      seconds: 18,
+      loginPrefix: 'crash',
+      outage: () => down,
       onAcknowledged: (ack) => {
         if (!down && restartedAt === 0) beforeCrash.add(player(ack));
       },
       // On a busy machine the run goes on past 18 seconds until every player has saved again after the restart.
-      until: (r) => restartedAt > 0 && players(r.acknowledged.filter((a) => a.at > restartedAt)) === 20,
+      until: (r) =>
+        restartedAt > 0 && players(r.acknowledged.filter((a) => a.at > restartedAt)) === 20,
     });
     // Mid-load: every player is signed in and saving, however long that took.
     await vi.waitFor(() => expect(beforeCrash.size).toBe(20), { timeout: 120_000, interval: 100 });

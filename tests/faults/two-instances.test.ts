@@ -12,7 +12,11 @@ let second: ServerProcess;
 
 beforeAll(async () => {
   github = await startFakeGitHub();
-  const env = { DATABASE_URL: inject('databaseUrl'), FAKE_GITHUB_URL: github.url, SESSION_SECRET: 'shared-by-both-instances' };
+  const env = {
+    DATABASE_URL: inject('databaseUrl'),
+    FAKE_GITHUB_URL: github.url,
+    SESSION_SECRET: 'shared-by-both-instances',
+  };
   [first, second] = await Promise.all([startServerProcess(env), startServerProcess(env)]);
 }, 120_000);
 
@@ -29,8 +33,11 @@ describe('two instances behind one address', () => {
     expect(me.user.login).toBe('two-instances-player');
 
     const document = {
-      format: 'keyloom.preset', version: 1, name: 'Across Instances',
-      scale: { kind: 'equal', divisions: 19, period: '2/1' }, mapping: { rootKey: 60 },
+      format: 'keyloom.preset',
+      version: 1,
+      name: 'Across Instances',
+      scale: { kind: 'equal', divisions: 19, period: '2/1' },
+      mapping: { rootKey: 60 },
     };
     const created = await browser.fetch(`${second.url}/api/presets`, {
       method: 'POST',
@@ -63,20 +70,29 @@ describe('two instances behind one address', () => {
     const presetIds: string[] = [];
     for (const divisions of [19, 31]) {
       const document = {
-        format: 'keyloom.preset', version: 1, name: `${divisions} across`,
-        scale: { kind: 'equal', divisions, period: '2/1' }, mapping: { rootKey: 60 },
+        format: 'keyloom.preset',
+        version: 1,
+        name: `${divisions} across`,
+        scale: { kind: 'equal', divisions, period: '2/1' },
+        mapping: { rootKey: 60 },
       };
       presetIds.push((await post(`${first.url}/api/presets`, { document, bandId: band.id })).id);
     }
     const setlist = await post(`${first.url}/api/bands/${band.id}/setlists`, {
-      name: 'Across', entries: presetIds.map((presetId) => ({ presetId })),
+      name: 'Across',
+      entries: presetIds.map((presetId) => ({ presetId })),
     });
 
     let stream: EventStream | undefined;
     try {
-      stream = await openEventStream(`${second.url}/api/setlists/${setlist.id}/live`, { cookie: browser.header() });
+      stream = await openEventStream(`${second.url}/api/setlists/${setlist.id}/live`, {
+        cookie: browser.header(),
+      });
       expect(stream.status).toBe(200);
-      expect(JSON.parse((await stream.next()).data)).toMatchObject({ position: 0, presetId: presetIds[0] });
+      expect(JSON.parse((await stream.next()).data)).toMatchObject({
+        position: 0,
+        presetId: presetIds[0],
+      });
       await post(`${first.url}/api/setlists/${setlist.id}/position`, { position: 1 });
       const moved = JSON.parse((await stream.next()).data);
       expect(moved).toMatchObject({ position: 1, presetId: presetIds[1], revision: 1 });

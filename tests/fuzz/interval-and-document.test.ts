@@ -15,10 +15,38 @@ const slowestMs = 2000;
 
 /** Text shaped like intervals: digits, slashes, backslashes, units, signs, dots, spaces and stray characters. */
 const intervalish = fc
-  .array(fc.constantFrom('0', '1', '2', '3', '5', '7', '9', '/', '\\', '.', 'c', '¢', '-', '+', ' ', 'e', 'x', '٣', '\u0000'), { maxLength: 24 })
+  .array(
+    fc.constantFrom(
+      '0',
+      '1',
+      '2',
+      '3',
+      '5',
+      '7',
+      '9',
+      '/',
+      '\\',
+      '.',
+      'c',
+      '¢',
+      '-',
+      '+',
+      ' ',
+      'e',
+      'x',
+      '٣',
+      '\u0000',
+    ),
+    { maxLength: 24 },
+  )
   .map((parts) => parts.join(''));
 
-const anyText = fc.oneof(fc.string({ maxLength: 64 }), fc.string({ unit: 'binary', maxLength: 64 }), intervalish, fc.bigInt().map(String));
+const anyText = fc.oneof(
+  fc.string({ maxLength: 64 }),
+  fc.string({ unit: 'binary', maxLength: 64 }),
+  intervalish,
+  fc.bigInt().map(String),
+);
 
 function timed<T>(work: () => T): T {
   const started = performance.now();
@@ -34,7 +62,8 @@ describe('fuzzing the interval parser', () => {
         const result = timed(() => parseInterval(text, 'scale.generator'));
         if (!result.ok) {
           expect(result.errors.length).toBeGreaterThan(0);
-          for (const e of result.errors) expect(e.message.startsWith('scale.generator: ')).toBe(true);
+          for (const e of result.errors)
+            expect(e.message.startsWith('scale.generator: ')).toBe(true);
         }
       }),
       { numRuns: runs },
@@ -43,14 +72,36 @@ describe('fuzzing the interval parser', () => {
 });
 
 /** Mostly the right thing, now and then anything at all. */
-const mostly = <T>(right: fc.Arbitrary<T>) => fc.oneof({ weight: 12, arbitrary: right }, { weight: 1, arbitrary: fc.anything() });
+const mostly = <T>(right: fc.Arbitrary<T>) =>
+  fc.oneof({ weight: 12, arbitrary: right }, { weight: 1, arbitrary: fc.anything() });
 
 /** Documents near the real shape: each field sometimes right, sometimes anything at all. */
 /** Sizes at the edges of what can be written: huge terms, huge cents, huge step counts. */
-const hugeText = fc.constantFrom('9'.repeat(400), '9'.repeat(63) + 'c', '3000000000\\1', '1/' + '9'.repeat(60), '9'.repeat(30) + '/7', '4294967296/1');
+const hugeText = fc.constantFrom(
+  '9'.repeat(400),
+  '9'.repeat(63) + 'c',
+  '3000000000\\1',
+  '1/' + '9'.repeat(60),
+  '9'.repeat(30) + '/7',
+  '4294967296/1',
+);
 const intervalText = fc.oneof(
   { weight: 1, arbitrary: intervalish },
-  { weight: 4, arbitrary: fc.constantFrom('3/2', '2/1', '3/1', '81/80', '1/4', '701.955c', '7\\12', '0/1', '1/0', '-3/2') },
+  {
+    weight: 4,
+    arbitrary: fc.constantFrom(
+      '3/2',
+      '2/1',
+      '3/1',
+      '81/80',
+      '1/4',
+      '701.955c',
+      '7\\12',
+      '0/1',
+      '1/0',
+      '-3/2',
+    ),
+  },
   { weight: 1, arbitrary: hugeText },
 );
 const nearlyDocument = fc.record(
@@ -59,25 +110,55 @@ const nearlyDocument = fc.record(
     version: mostly(fc.constant(1)),
     name: mostly(fc.string({ minLength: 1, maxLength: 30 })),
     scale: fc.oneof(
+      fc.record(
+        {
+          kind: fc.constant('generated'),
+          generator: intervalText,
+          period: intervalText,
+          up: mostly(fc.integer({ min: -3, max: 80 })),
+          down: fc.integer({ min: -3, max: 80 }),
+          temper: fc.option(fc.record({ comma: intervalText, fraction: intervalText }), {
+            nil: undefined,
+          }),
+        },
+        { requiredKeys: ['kind', 'generator', 'period', 'up', 'down'] },
+      ),
       fc.record({
-        kind: fc.constant('generated'),
-        generator: intervalText,
+        kind: fc.constant('equal'),
+        divisions: fc.oneof(
+          { weight: 6, arbitrary: fc.integer({ min: -2, max: 400 }) },
+          { weight: 1, arbitrary: fc.double() },
+        ),
         period: intervalText,
-        up: mostly(fc.integer({ min: -3, max: 80 })),
-        down: fc.integer({ min: -3, max: 80 }),
-        temper: fc.option(fc.record({ comma: intervalText, fraction: intervalText }), { nil: undefined }),
-      }, { requiredKeys: ['kind', 'generator', 'period', 'up', 'down'] }),
-      fc.record({ kind: fc.constant('equal'), divisions: fc.oneof({ weight: 6, arbitrary: fc.integer({ min: -2, max: 400 }) }, { weight: 1, arbitrary: fc.double() }), period: intervalText }),
-      fc.record({ kind: fc.constant('list'), degrees: fc.array(intervalText, { maxLength: 20 }), period: intervalText }),
-      fc.record({ kind: fc.constant('harmonic'), from: fc.integer({ min: -2, max: 300 }), to: fc.integer({ min: -2, max: 300 }), sub: fc.boolean() }),
+      }),
+      fc.record({
+        kind: fc.constant('list'),
+        degrees: fc.array(intervalText, { maxLength: 20 }),
+        period: intervalText,
+      }),
+      fc.record({
+        kind: fc.constant('harmonic'),
+        from: fc.integer({ min: -2, max: 300 }),
+        to: fc.integer({ min: -2, max: 300 }),
+        sub: fc.boolean(),
+      }),
     ),
     mapping: fc.oneof(
-      fc.record({
-        rootKey: mostly(fc.integer({ min: -5, max: 140 })),
-        rootHz: fc.option(fc.double({ min: -10, max: 30000, noNaN: false }), { nil: undefined, freq: 2 }),
-        concertA: fc.option(fc.double({ min: -10, max: 2000 }), { nil: undefined, freq: 2 }),
-        layout: fc.option(fc.array(fc.option(fc.integer({ min: -2, max: 20 }), { nil: null }), { maxLength: 30 }), { nil: undefined }),
-      }, { requiredKeys: ['rootKey'] }),
+      fc.record(
+        {
+          rootKey: mostly(fc.integer({ min: -5, max: 140 })),
+          rootHz: fc.option(fc.double({ min: -10, max: 30000, noNaN: false }), {
+            nil: undefined,
+            freq: 2,
+          }),
+          concertA: fc.option(fc.double({ min: -10, max: 2000 }), { nil: undefined, freq: 2 }),
+          layout: fc.option(
+            fc.array(fc.option(fc.integer({ min: -2, max: 20 }), { nil: null }), { maxLength: 30 }),
+            { nil: undefined },
+          ),
+        },
+        { requiredKeys: ['rootKey'] },
+      ),
     ),
     output: fc.option(fc.anything(), { nil: undefined, freq: 2 }),
   },
@@ -89,16 +170,19 @@ describe('fuzzing the preset document', () => {
     const heapBefore = process.memoryUsage().heapUsed;
     let accepted = 0;
     fc.assert(
-      fc.property(fc.oneof({ weight: 9, arbitrary: nearlyDocument }, { weight: 1, arbitrary: fc.anything() }), (input) => {
-        const result = timed(() => parsePresetDocument(input));
-        if (result.ok) {
-          accepted++;
-          const table = timed(() => previewTable(result.value));
-          expect(table.keys).toHaveLength(128);
-        } else {
-          for (const e of result.errors) expect(e.message.startsWith(`${e.path}: `)).toBe(true);
-        }
-      }),
+      fc.property(
+        fc.oneof({ weight: 9, arbitrary: nearlyDocument }, { weight: 1, arbitrary: fc.anything() }),
+        (input) => {
+          const result = timed(() => parsePresetDocument(input));
+          if (result.ok) {
+            accepted++;
+            const table = timed(() => previewTable(result.value));
+            expect(table.keys).toHaveLength(128);
+          } else {
+            for (const e of result.errors) expect(e.message.startsWith(`${e.path}: `)).toBe(true);
+          }
+        },
+      ),
       { numRuns: runs },
     );
     // The generator must reach the valid side too, or the property says little.
@@ -129,7 +213,10 @@ describe('no table, file or stored document carries NaN or an infinite value', (
             // A layout with no mapped key gives a file with nothing to tune, which reads back as such.
             const decoded = decodeMtsStream(bytes);
             if (decoded.ok) expect(firstNonFinite(decoded.value.keys)).toBeNull();
-            else expect(decoded.errors[0].message, format.id).toMatch(/holds no tuning|holds nothing|empty/);
+            else
+              expect(decoded.errors[0].message, format.id).toMatch(
+                /holds no tuning|holds nothing|empty/,
+              );
           } else if (format.extension !== 'mid') {
             const text = new TextDecoder().decode(bytes);
             expect(text, format.id).not.toMatch(/NaN|Infinity/);

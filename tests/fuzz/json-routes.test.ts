@@ -18,11 +18,28 @@ const doc = {
   version: 1,
   name: 'Fuzzed Fifths',
   notes: 'for the fuzzer',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 5, down: 1, temper: { comma: '81/80', fraction: '1/4' } },
+  scale: {
+    kind: 'generated',
+    generator: '3/2',
+    period: '2/1',
+    up: 5,
+    down: 1,
+    temper: { comma: '81/80', fraction: '1/4' },
+  },
   mapping: { rootKey: 60, concertA: 440, keysPerPeriod: 7 },
-  output: { deviceId: 127, program: 0, bank: 0, tuningName: 'FUZZ', bendRange: 2, memberChannels: [2, 16] },
+  output: {
+    deviceId: 127,
+    program: 0,
+    bank: 0,
+    tuningName: 'FUZZ',
+    bendRange: 2,
+    memberChannels: [2, 16],
+  },
 };
-const listDoc = { ...doc, scale: { kind: 'list', degrees: ['9/8', '5/4', '4/3', '3/2', '5/3', '15/8'], period: '2/1' } };
+const listDoc = {
+  ...doc,
+  scale: { kind: 'list', degrees: ['9/8', '5/4', '4/3', '3/2', '5/3', '15/8'], period: '2/1' },
+};
 
 interface Ids {
   presetId: string;
@@ -44,27 +61,61 @@ interface JsonRoute {
 const jsonRoutes: Record<string, JsonRoute> = {
   'POST /api/preview/table': { method: 'post', path: () => '/api/preview/table', body: () => doc },
   'POST /api/preview/export/:format': {
-    method: 'post', path: () => '/api/preview/export/bend-json', body: () => listDoc,
+    method: 'post',
+    path: () => '/api/preview/export/bend-json',
+    body: () => listDoc,
     query: () => ({ instrument: ids.instrumentId }),
   },
-  'POST /api/presets': { method: 'post', path: () => '/api/presets', body: () => ({ document: doc, note: 'first' }) },
-  'GET /api/presets': { method: 'get', path: () => '/api/presets', query: () => ({ q: 'Fifths', sort: 'name', page: 1, pageSize: 20 }) },
+  'POST /api/presets': {
+    method: 'post',
+    path: () => '/api/presets',
+    body: () => ({ document: doc, note: 'first' }),
+  },
+  'GET /api/presets': {
+    method: 'get',
+    path: () => '/api/presets',
+    query: () => ({ q: 'Fifths', sort: 'name', page: 1, pageSize: 20 }),
+  },
   'GET /api/presets/:id': { method: 'get', path: (ids) => `/api/presets/${ids.presetId}` },
   'POST /api/presets/:id/revisions': {
-    method: 'post', path: (ids) => `/api/presets/${ids.presetId}/revisions`, body: () => ({ document: doc, note: 'again' }),
+    method: 'post',
+    path: (ids) => `/api/presets/${ids.presetId}/revisions`,
+    body: () => ({ document: doc, note: 'again' }),
   },
-  'GET /api/presets/:id/revisions/:n': { method: 'get', path: (ids) => `/api/presets/${ids.presetId}/revisions/1` },
+  'GET /api/presets/:id/revisions/:n': {
+    method: 'get',
+    path: (ids) => `/api/presets/${ids.presetId}/revisions/1`,
+  },
   'GET /api/presets/:id/revisions/:n/changes': {
-    method: 'get', path: (ids) => `/api/presets/${ids.presetId}/revisions/2/changes`, query: () => ({ from: 1 }),
+    method: 'get',
+    path: (ids) => `/api/presets/${ids.presetId}/revisions/2/changes`,
+    query: () => ({ from: 1 }),
   },
-  'POST /api/presets/:id/restore': { method: 'post', path: (ids) => `/api/presets/${ids.presetId}/restore`, body: () => ({ revision: 1 }) },
-  'POST /api/presets/:id/fork': { method: 'post', path: (ids) => `/api/presets/${ids.presetId}/fork`, body: () => ({}) },
-  'POST /api/presets/:id/shares': { method: 'post', path: (ids) => `/api/presets/${ids.presetId}/shares`, body: () => ({ revision: 1 }) },
+  'POST /api/presets/:id/restore': {
+    method: 'post',
+    path: (ids) => `/api/presets/${ids.presetId}/restore`,
+    body: () => ({ revision: 1 }),
+  },
+  'POST /api/presets/:id/fork': {
+    method: 'post',
+    path: (ids) => `/api/presets/${ids.presetId}/fork`,
+    body: () => ({}),
+  },
+  'POST /api/presets/:id/shares': {
+    method: 'post',
+    path: (ids) => `/api/presets/${ids.presetId}/shares`,
+    body: () => ({ revision: 1 }),
+  },
   'GET /api/presets/:id/export/:format': {
     method: 'get',
     path: (ids) => `/api/presets/${ids.presetId}/export/sfz`,
     query: () => ({
-      revision: 1, receives: 'sfz', deviceId: 16, program: 5, bank: 0, bendRange: 48,
+      revision: 1,
+      receives: 'sfz',
+      deviceId: 16,
+      program: 5,
+      bank: 0,
+      bendRange: 48,
       memberChannels: '2-9',
     }),
   },
@@ -79,27 +130,51 @@ const jsonRoutes: Record<string, JsonRoute> = {
     body: () => ({ program: 9, memberChannels: [3, 9] }),
   },
   'DELETE /api/shares/:id': { method: 'delete', path: (ids) => `/api/shares/${ids.shareId}` },
-  'POST /api/bands': { method: 'post', path: () => '/api/bands', body: () => ({ name: 'Fuzz Band' }) },
-  'PATCH /api/bands/:id': { method: 'patch', path: (ids) => `/api/bands/${ids.bandId}`, body: () => ({ name: 'Fuzz Band Renamed' }) },
+  'POST /api/bands': {
+    method: 'post',
+    path: () => '/api/bands',
+    body: () => ({ name: 'Fuzz Band' }),
+  },
+  'PATCH /api/bands/:id': {
+    method: 'patch',
+    path: (ids) => `/api/bands/${ids.bandId}`,
+    body: () => ({ name: 'Fuzz Band Renamed' }),
+  },
   'PATCH /api/bands/:id/members/:userId': {
-    method: 'patch', path: (ids) => `/api/bands/${ids.bandId}/members/${ids.userId}`, body: () => ({ role: 'owner' }),
+    method: 'patch',
+    path: (ids) => `/api/bands/${ids.bandId}/members/${ids.userId}`,
+    body: () => ({ role: 'owner' }),
   },
   'POST /api/bands/:id/invites': {
-    method: 'post', path: (ids) => `/api/bands/${ids.bandId}/invites`, body: () => ({ email: 'fuzz@example.org', role: 'viewer' }),
+    method: 'post',
+    path: (ids) => `/api/bands/${ids.bandId}/invites`,
+    body: () => ({ email: 'fuzz@example.org', role: 'viewer' }),
   },
-  'GET /api/bands/:id/audit': { method: 'get', path: (ids) => `/api/bands/${ids.bandId}/audit`, query: () => ({ page: 1 }) },
+  'GET /api/bands/:id/audit': {
+    method: 'get',
+    path: (ids) => `/api/bands/${ids.bandId}/audit`,
+    query: () => ({ page: 1 }),
+  },
   'POST /api/bands/:id/setlists': {
     method: 'post',
     path: (ids) => `/api/bands/${ids.bandId}/setlists`,
-    body: () => ({ name: 'Fuzz Set', entries: [{ presetId: ids.presetId, revision: 1, trigger: 5 }] }),
+    body: () => ({
+      name: 'Fuzz Set',
+      entries: [{ presetId: ids.presetId, revision: 1, trigger: 5 }],
+    }),
   },
   'PUT /api/setlists/:id': {
     method: 'put',
     path: (ids) => `/api/setlists/${ids.setlistId}`,
-    body: () => ({ name: 'Fuzz Set', entries: [{ presetId: ids.presetId }, { presetId: ids.presetId, trigger: 9 }] }),
+    body: () => ({
+      name: 'Fuzz Set',
+      entries: [{ presetId: ids.presetId }, { presetId: ids.presetId, trigger: 9 }],
+    }),
   },
   'POST /api/setlists/:id/position': {
-    method: 'post', path: (ids) => `/api/setlists/${ids.setlistId}/position`, body: () => ({ position: 1 }),
+    method: 'post',
+    path: (ids) => `/api/setlists/${ids.setlistId}/position`,
+    body: () => ({ position: 1 }),
   },
 };
 
@@ -107,30 +182,74 @@ const jsonRoutes: Record<string, JsonRoute> = {
 const hostile: fc.Arbitrary<unknown> = fc.oneof(
   fc.string({ maxLength: 20 }).map((s) => `${s}\u0000${s}`),
   fc.constantFrom('\ud800', 'a\udc00b', '\udbff\u0000', 'x\u0000'),
-  fc.constantFrom(1e308, -1e308, 2 ** 31, 2 ** 53 + 2, 3e9, -0, 1.5, -1, 0, Number.MAX_SAFE_INTEGER),
+  fc.constantFrom(
+    1e308,
+    -1e308,
+    2 ** 31,
+    2 ** 53 + 2,
+    3e9,
+    -0,
+    1.5,
+    -1,
+    0,
+    Number.MAX_SAFE_INTEGER,
+  ),
   fc.constantFrom('1e308', '2147483648', '9'.repeat(400), '-1', '1.5', 'NaN', 'Infinity'),
-  fc.constantFrom(() => Array.from({ length: 100_000 }, () => 1.5), () => Array.from({ length: 30_000 }, () => '3/2')).map((make) => make()),
-  fc.constantFrom(() => 'x'.repeat(400_000), () => '3/2 '.repeat(100_000)).map((make) => make()),
+  fc
+    .constantFrom(
+      () => Array.from({ length: 100_000 }, () => 1.5),
+      () => Array.from({ length: 30_000 }, () => '3/2'),
+    )
+    .map((make) => make()),
+  fc
+    .constantFrom(
+      () => 'x'.repeat(400_000),
+      () => '3/2 '.repeat(100_000),
+    )
+    .map((make) => make()),
   fc.constantFrom(null, true, {}, [], { '\u0000': 1 }, { ['k'.repeat(300_000)]: 1 }),
 );
 
 /** The paths of the leaves and objects in a value, where a hostile value can go. */
 function placesIn(value: unknown, prefix: string[] = []): string[][] {
   if (typeof value !== 'object' || value === null) return [prefix];
-  const entries = Array.isArray(value) ? value.map((v, i) => [String(i), v] as const) : Object.entries(value);
+  const entries = Array.isArray(value)
+    ? value.map((v, i) => [String(i), v] as const)
+    : Object.entries(value);
   return [prefix, ...entries.flatMap(([key, inner]) => placesIn(inner, [...prefix, key]))];
 }
 
-function withValueAt(value: unknown, place: string[], replacement: unknown, extraKey: boolean): unknown {
-  if (place.length === 0) return extraKey && typeof value === 'object' && value !== null ? { ...value, extra: replacement } : replacement;
+function withValueAt(
+  value: unknown,
+  place: string[],
+  replacement: unknown,
+  extraKey: boolean,
+): unknown {
+  if (place.length === 0)
+    return extraKey && typeof value === 'object' && value !== null
+      ? { ...value, extra: replacement }
+      : replacement;
   const [head, ...rest] = place;
-  const copy = (Array.isArray(value) ? [...value] : { ...(value as object) }) as Record<string, unknown>;
+  const copy = (Array.isArray(value) ? [...value] : { ...(value as object) }) as Record<
+    string,
+    unknown
+  >;
   copy[head] = withValueAt(copy[head], rest, replacement, extraKey);
   return copy;
 }
 
 /** Address segments that broke the server before. */
-const hostileSegment = fc.constantFrom('%00', '%ZZ', '2147483648', '3000000000', '%ED%A0%80', 'a'.repeat(3000), '-1', '1.5', '1e308');
+const hostileSegment = fc.constantFrom(
+  '%00',
+  '%ZZ',
+  '2147483648',
+  '3000000000',
+  '%ED%A0%80',
+  'a'.repeat(3000),
+  '-1',
+  '1.5',
+  '1e308',
+);
 
 let server: Awaited<ReturnType<typeof startTestServer>>;
 let owner: Awaited<ReturnType<typeof server.signIn>>;
@@ -140,14 +259,17 @@ beforeAll(async () => {
   server = await startTestServer();
   owner = await server.signIn('fuzz-owner');
   const other = await server.signIn('fuzz-member');
-  const post = (path: string, body: object) => owner.agent.post(path).set('X-XSRF-TOKEN', owner.xsrf).send(body);
+  const post = (path: string, body: object) =>
+    owner.agent.post(path).set('X-XSRF-TOKEN', owner.xsrf).send(body);
   const bandId = (await post('/api/bands', { name: 'Fuzzers' })).body.id;
   const presetId = (await post('/api/presets', { document: doc, bandId })).body.id;
   await post(`/api/presets/${presetId}/revisions`, { document: listDoc });
   const shareId = (await post(`/api/presets/${presetId}/shares`, {})).body.id;
   const keys = { name: 'Fuzz keys', receives: 'mts-bulk' };
   const instrumentId = (await post('/api/instruments', keys)).body.id;
-  const setlistId = (await post(`/api/bands/${bandId}/setlists`, { name: 'Fuzz', entries: [{ presetId }] })).body.id;
+  const setlistId = (
+    await post(`/api/bands/${bandId}/setlists`, { name: 'Fuzz', entries: [{ presetId }] })
+  ).body.id;
   ids = { presetId, bandId, shareId, userId: other.user.id, instrumentId, setlistId };
 });
 afterAll(() => server.close());
@@ -166,9 +288,15 @@ describe('fuzzing every JSON route', () => {
         fc.constantFrom(...names),
         fc.nat(),
         // Now and then the valid request as it is, so that the fuzzer reaches the accepting side too.
-        fc.oneof({ weight: 1, arbitrary: fc.constant(undefined) }, { weight: 4, arbitrary: hostile }),
+        fc.oneof(
+          { weight: 1, arbitrary: fc.constant(undefined) },
+          { weight: 4, arbitrary: hostile },
+        ),
         fc.boolean(),
-        fc.oneof({ weight: 4, arbitrary: fc.constant(undefined) }, { weight: 1, arbitrary: hostileSegment }),
+        fc.oneof(
+          { weight: 4, arbitrary: fc.constant(undefined) },
+          { weight: 1, arbitrary: hostileSegment },
+        ),
         fc.boolean(),
         async (name, placeSeed, value, extraKey, segment, signedIn) => {
           const route = jsonRoutes[name];
@@ -185,7 +313,8 @@ describe('fuzzing every JSON route', () => {
             // as it is
           } else if (query && (body === undefined || placeSeed % 2 === 0)) {
             const keys = Object.keys(query);
-            const hostileText = typeof value === 'string' ? value : JSON.stringify(value) ?? 'null';
+            const hostileText =
+              typeof value === 'string' ? value : (JSON.stringify(value) ?? 'null');
             query = { ...query, [keys[placeSeed % keys.length]]: hostileText.slice(0, 2000) };
           } else if (body !== undefined) {
             const places = placesIn(body);
@@ -195,7 +324,10 @@ describe('fuzzing every JSON route', () => {
           let call = agent[route.method](path);
           if (signedIn) call = call.set('X-XSRF-TOKEN', owner.xsrf);
           if (query) call = call.query(query as Record<string, string>);
-          if (body !== undefined) call = call.set('Content-Type', 'application/json').send(JSON.stringify(body) ?? 'null');
+          if (body !== undefined)
+            call = call
+              .set('Content-Type', 'application/json')
+              .send(JSON.stringify(body) ?? 'null');
           const started = performance.now();
           const answer = await asBytes(call);
           const tookMs = performance.now() - started;
@@ -216,7 +348,8 @@ describe('fuzzing every JSON route', () => {
             // JSON writes NaN as null: where a number must stand, a null is a NaN that slipped through.
             if (name === 'POST /api/preview/table') {
               for (const degree of json.degrees) expect(typeof degree.cents).toBe('number');
-              for (const key of json.keys) if (key.degree !== null) expect(typeof key.hz).toBe('number');
+              for (const key of json.keys)
+                if (key.degree !== null) expect(typeof key.hz).toBe('number');
             }
           } else {
             expect(text).not.toMatch(/NaN|Infinity/);

@@ -16,8 +16,11 @@ const runs = 10_000;
 const slowestMs = 2000;
 
 const parsed = parsePresetDocument({
-  format: 'keyloom.preset', version: 1, name: 'Fuzz Fifths',
-  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3 }, mapping: { rootKey: 60 },
+  format: 'keyloom.preset',
+  version: 1,
+  name: 'Fuzz Fifths',
+  scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 8, down: 3 },
+  mapping: { rootKey: 60 },
 });
 if (!parsed.ok) throw new Error('bad fuzz preset');
 const preset = parsed.value;
@@ -50,7 +53,10 @@ function damaged(seeds: Uint8Array[]): fc.Arbitrary<Uint8Array> {
 }
 
 const bytesToFuzz = (seeds: Uint8Array[]) =>
-  fc.oneof({ weight: 3, arbitrary: damaged(seeds) }, { weight: 1, arbitrary: fc.uint8Array({ maxLength: 600 }) });
+  fc.oneof(
+    { weight: 3, arbitrary: damaged(seeds) },
+    { weight: 1, arbitrary: fc.uint8Array({ maxLength: 600 }) },
+  );
 
 function timed<T>(work: () => T): T {
   const started = performance.now();
@@ -61,7 +67,9 @@ function timed<T>(work: () => T): T {
 
 describe('fuzzing the MTS decoders', () => {
   it('reads every byte string as a tuning or an error, never throwing', () => {
-    const seeds = ['mts-bulk', 'mts-bulk-bank', 'mts-notes', 'mts-octave-1', 'mts-octave-2'].map(file);
+    const seeds = ['mts-bulk', 'mts-bulk-bank', 'mts-notes', 'mts-octave-1', 'mts-octave-2'].map(
+      file,
+    );
     let decoded = 0;
     fc.assert(
       fc.property(bytesToFuzz(seeds), (bytes) => {
@@ -84,11 +92,15 @@ describe('fuzzing the song reader and retuner', () => {
     const seeds = [file('smf'), file('mpe-smf')];
     const heapBefore = process.memoryUsage().heapUsed;
     fc.assert(
-      fc.property(bytesToFuzz(seeds), fc.constantFrom('mts' as const, 'mpe' as const), (bytes, mode) => {
-        timed(() => readSong(bytes, () => {}));
-        const result = timed(() => retuneSong(bytes, tuning, mode));
-        if (!result.ok) expect(result.errors[0].message.length).toBeGreaterThan(10);
-      }),
+      fc.property(
+        bytesToFuzz(seeds),
+        fc.constantFrom('mts' as const, 'mpe' as const),
+        (bytes, mode) => {
+          timed(() => readSong(bytes, () => {}));
+          const result = timed(() => retuneSong(bytes, tuning, mode));
+          if (!result.ok) expect(result.errors[0].message.length).toBeGreaterThan(10);
+        },
+      ),
       { numRuns: runs },
     );
     expect(process.memoryUsage().heapUsed - heapBefore).toBeLessThan(200 * 1024 * 1024);
@@ -104,13 +116,24 @@ describe('fuzzing the import endpoint', () => {
 
   it('answers every upload with a preset or a 4xx in the JSON error shape, never a 5xx', async () => {
     const text = new TextEncoder();
-    const seeds = [file('mts-bulk'), file('mts-notes'), file('preset'), text.encode('9/8\n5/4\n# c\n3/2\nperiod 2/1\n')];
+    const seeds = [
+      file('mts-bulk'),
+      file('mts-notes'),
+      file('preset'),
+      text.encode('9/8\n5/4\n# c\n3/2\nperiod 2/1\n'),
+    ];
     await fc.assert(
-      fc.asyncProperty(bytesToFuzz(seeds), fc.constantFrom('a.syx', 'b.json', 'c.txt', 'd.mid', ''), async (bytes, name) => {
-        const res = await request(server.app).post('/api/import').attach('file', Buffer.from(bytes), name || 'upload');
-        expect(res.status).toBeLessThan(500);
-        if (res.status !== 200) expect(typeof res.body.error?.message).toBe('string');
-      }),
+      fc.asyncProperty(
+        bytesToFuzz(seeds),
+        fc.constantFrom('a.syx', 'b.json', 'c.txt', 'd.mid', ''),
+        async (bytes, name) => {
+          const res = await request(server.app)
+            .post('/api/import')
+            .attach('file', Buffer.from(bytes), name || 'upload');
+          expect(res.status).toBeLessThan(500);
+          if (res.status !== 200) expect(typeof res.body.error?.message).toBe('string');
+        },
+      ),
       { numRuns: runs },
     );
   }, 300_000);

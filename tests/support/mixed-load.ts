@@ -39,11 +39,17 @@ export interface LoadOptions {
 const document = (name: string, up: number) => fifthsPreset(name, up, 1);
 
 export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
-  const report: LoadReport = { requests: 0, failures: [], failuresDuringOutage: 0, acknowledged: [] };
+  const report: LoadReport = {
+    requests: 0,
+    failures: [],
+    failuresDuringOutage: 0,
+    acknowledged: [],
+  };
   const deadline = Date.now() + options.seconds * 1000;
   const patience = deadline + 120_000;
   const running = () =>
-    Date.now() < deadline || (options.until !== undefined && !options.until(report) && Date.now() < patience);
+    Date.now() < deadline ||
+    (options.until !== undefined && !options.until(report) && Date.now() < patience);
 
   /** One request and the reading of its answer; a failure is counted (or set apart during an outage), never thrown. */
   async function attempt<T>(
@@ -56,13 +62,15 @@ export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
     // A request sent to a server that is down fails when it fails, perhaps after the server is back.
     const sentDuringOutage = options.outage?.() ?? false;
     const body = init?.json === undefined ? init?.body : JSON.stringify(init.json);
-    const headers = init?.json === undefined ? init?.headers : { 'content-type': 'application/json' };
+    const headers =
+      init?.json === undefined ? init?.headers : { 'content-type': 'application/json' };
     const what = `${init?.method ?? 'GET'} ${path}`;
     try {
       const res = await jar.fetch(`${options.appUrl()}${path}`, { ...init, body, headers });
       if (res.status >= 200 && res.status < 400) return await read(res);
       const text = await res.text();
-      if (sentDuringOutage || options.outage?.() || res.status === 503) report.failuresDuringOutage++;
+      if (sentDuringOutage || options.outage?.() || res.status === 503)
+        report.failuresDuringOutage++;
       else report.failures.push(`${what}: ${res.status} ${text.slice(0, 120)}`);
     } catch (error) {
       if (sentDuringOutage || options.outage?.()) report.failuresDuringOutage++;
@@ -85,9 +93,15 @@ export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
     let presetId: string | null = null;
     for (let i = 0; running(); i++) {
       if (!presetId) {
-        presetId = await attempt(jar, '/api/presets', async (res) => (await res.json()).id as string, {
-          method: 'POST', json: { document: document(`Load ${n}`, 5), note: 'start' },
-        });
+        presetId = await attempt(
+          jar,
+          '/api/presets',
+          async (res) => (await res.json()).id as string,
+          {
+            method: 'POST',
+            json: { document: document(`Load ${n}`, 5), note: 'start' },
+          },
+        );
         continue;
       }
       switch (i % 4) {
@@ -96,9 +110,15 @@ export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
           break;
         case 1: {
           const note = `client ${n} save ${i}`;
-          const revision = await attempt(jar, `/api/presets/${presetId}/revisions`, async (res) => (await res.json()).revision as number, {
-            method: 'POST', json: { document: document(`Load ${n}`, 1 + (i % 11)), note },
-          });
+          const revision = await attempt(
+            jar,
+            `/api/presets/${presetId}/revisions`,
+            async (res) => (await res.json()).revision as number,
+            {
+              method: 'POST',
+              json: { document: document(`Load ${n}`, 1 + (i % 11)), note },
+            },
+          );
           if (revision !== null) {
             const ack = { presetId, revision, note, at: Date.now() };
             report.acknowledged.push(ack);
@@ -107,10 +127,15 @@ export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
           break;
         }
         case 2:
-          await attempt(jar, `/api/presets/${presetId}/export/mts-bulk`, (res) => res.arrayBuffer());
+          await attempt(jar, `/api/presets/${presetId}/export/mts-bulk`, (res) =>
+            res.arrayBuffer(),
+          );
           break;
         default:
-          await attempt(jar, '/api/preview/table', (res) => res.json(), { method: 'POST', json: document('Preview', 1 + (i % 11)) });
+          await attempt(jar, '/api/preview/table', (res) => res.json(), {
+            method: 'POST',
+            json: document('Preview', 1 + (i % 11)),
+          });
       }
     }
   }
@@ -120,9 +145,14 @@ export async function runMixedLoad(options: LoadOptions): Promise<LoadReport> {
 }
 
 /** Reads back every acknowledged save; returns the ones that are missing or differ. */
-export async function missingSaves(appUrl: string, loginPrefix: string, acknowledged: Acknowledged[]): Promise<string[]> {
+export async function missingSaves(
+  appUrl: string,
+  loginPrefix: string,
+  acknowledged: Acknowledged[],
+): Promise<string[]> {
   const byPreset = new Map<string, Acknowledged[]>();
-  for (const ack of acknowledged) byPreset.set(ack.presetId, [...(byPreset.get(ack.presetId) ?? []), ack]);
+  for (const ack of acknowledged)
+    byPreset.set(ack.presetId, [...(byPreset.get(ack.presetId) ?? []), ack]);
   const missing: string[] = [];
   // Presets are personal: read each back through its owner's own session.
   const owners = new Map<string, CookieJar>();
@@ -134,9 +164,15 @@ export async function missingSaves(appUrl: string, loginPrefix: string, acknowle
       await ownerJar.signIn(appUrl, `${loginPrefix}-${owner}`);
       owners.set(owner, ownerJar);
     }
-    const history = await (await ownerJar.fetch(`${appUrl}/api/presets/${presetId}/revisions`)).json();
-    const notes = new Map<number, string>(history.items.map((r: { revision: number; note: string }) => [r.revision, r.note]));
-    for (const ack of acks) if (notes.get(ack.revision) !== ack.note) missing.push(`${presetId} revision ${ack.revision}`);
+    const history = await (
+      await ownerJar.fetch(`${appUrl}/api/presets/${presetId}/revisions`)
+    ).json();
+    const notes = new Map<number, string>(
+      history.items.map((r: { revision: number; note: string }) => [r.revision, r.note]),
+    );
+    for (const ack of acks)
+      if (notes.get(ack.revision) !== ack.note)
+        missing.push(`${presetId} revision ${ack.revision}`);
   }
   return missing;
 }

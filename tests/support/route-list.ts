@@ -11,7 +11,8 @@ export function listRoutes(app: Express): string[] {
   const walk = (stack: Layer[]) => {
     for (const layer of stack) {
       if (layer.route) {
-        for (const method of Object.keys(layer.route.methods)) found.push(`${method.toUpperCase()} ${layer.route.path}`);
+        for (const method of Object.keys(layer.route.methods))
+          found.push(`${method.toUpperCase()} ${layer.route.path}`);
       } else if (layer.handle?.stack) {
         walk(layer.handle.stack);
       }

@@ -22,7 +22,10 @@ export interface ServerProcess {
   stop(signal?: NodeJS.Signals): Promise<void>;
 }
 
-export async function startServerProcess(env: Record<string, string>, port?: number): Promise<ServerProcess> {
+export async function startServerProcess(
+  env: Record<string, string>,
+  port?: number,
+): Promise<ServerProcess> {
   const chosen = port ?? (await freePort());
   const url = `http://127.0.0.1:${chosen}`;
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {

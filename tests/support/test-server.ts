@@ -36,10 +36,17 @@ export async function startTestServer(env: Record<string, string> = {}) {
     const callback = new URL(answer.headers.get('location')!);
     await agent.get(callback.pathname + callback.search).expect(302);
     const me = await agent.get('/api/me');
-    const xsrf = agent.jar.getCookie('XSRF-TOKEN', { domain: '127.0.0.1', path: '/', secure: false, script: false })!.value;
+    const xsrf = agent.jar.getCookie('XSRF-TOKEN', {
+      domain: '127.0.0.1',
+      path: '/',
+      secure: false,
+      script: false,
+    })!.value;
     /** The Cookie header a browser would send, for requests made without the agent (a raw event stream). */
     const cookie = () =>
-      agent.jar.getCookies({ domain: '127.0.0.1', path: '/', secure: false, script: false }).toValueString();
+      agent.jar
+        .getCookies({ domain: '127.0.0.1', path: '/', secure: false, script: false })
+        .toValueString();
     return { agent, user: me.body.user as { id: string; login: string }, xsrf, cookie };
   }
 

@@ -45,10 +45,7 @@ type Step<T> =
  * the observable to load from, or null when there is nothing to load (signed out, say), which
  * clears the value and the failure. Call it in an injection context, or pass `injector`.
  */
-export function loader<T>(
-  request: () => Observable<T> | null,
-  options: LoaderOptions,
-): Loaded<T> {
+export function loader<T>(request: () => Observable<T> | null, options: LoaderOptions): Loaded<T> {
   if (!options.injector) assertInInjectionContext(loader);
   const injector = options.injector ?? inject(Injector);
   const reloads = signal(0);

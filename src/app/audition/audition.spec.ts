@@ -10,7 +10,9 @@ describe('Audition', () => {
   let audition: Audition;
 
   beforeEach(() => {
-    TestBed.configureTestingModule({ providers: [DesignState, Audition, MidiAccess, ControllerInput] });
+    TestBed.configureTestingModule({
+      providers: [DesignState, Audition, MidiAccess, ControllerInput],
+    });
     audition = TestBed.inject(Audition);
   });
 
@@ -62,7 +64,9 @@ describe('Audition', () => {
 
 describe('PlayPanel', () => {
   it('plays the home row from the root key, shifts by a period, and stays quiet while typing in a field', async () => {
-    TestBed.configureTestingModule({ providers: [DesignState, Audition, MidiAccess, ControllerInput] });
+    TestBed.configureTestingModule({
+      providers: [DesignState, Audition, MidiAccess, ControllerInput],
+    });
     const fixture = TestBed.createComponent(PlayPanel);
     await fixture.whenStable();
     const audition = TestBed.inject(Audition);

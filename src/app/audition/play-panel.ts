@@ -16,22 +16,41 @@ import { DesignState } from '../design/design-state';
 import { MidiAccess, midiAccessFaults } from '../hardware/midi-access';
 import { Audition } from './audition';
 import type { Timbre } from './audition-engine';
-import { keyOffsetOfCode, playingKeyCount, shiftDownCode, shiftUpCode, sustainCode } from './computer-keys';
+import {
+  keyOffsetOfCode,
+  playingKeyCount,
+  shiftDownCode,
+  shiftUpCode,
+  sustainCode,
+} from './computer-keys';
 import { ControllerInput } from './controller-input';
 
 /** Whether a key press lands in a place that takes typing or pressing, where playing must stay quiet. */
 function isTyping(target: EventTarget | null): boolean {
-  return target instanceof HTMLElement && (target.isContentEditable || /^(INPUT|TEXTAREA|SELECT|BUTTON)$/.test(target.tagName));
+  return (
+    target instanceof HTMLElement &&
+    (target.isContentEditable || /^(INPUT|TEXTAREA|SELECT|BUTTON)$/.test(target.tagName))
+  );
 }
 
 /** The Play panel: volume, timbre, sustain, drone, compare and a MIDI controller, and the computer keyboard. */
 @Component({
   selector: 'app-play-panel',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [MatButtonModule, MatButtonToggleModule, MatFormFieldModule, MatSelectModule, MatSliderModule, MatSlideToggleModule],
+  imports: [
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatFormFieldModule,
+    MatSelectModule,
+    MatSliderModule,
+    MatSlideToggleModule,
+  ],
   templateUrl: './play-panel.html',
   styleUrl: './play-panel.scss',
-  host: { '(document:keydown)': 'playComputerKey($event, true)', '(document:keyup)': 'playComputerKey($event, false)' },
+  host: {
+    '(document:keydown)': 'playComputerKey($event, true)',
+    '(document:keyup)': 'playComputerKey($event, false)',
+  },
 })
 export class PlayPanel {
   /** Whether the 128 keys are shown right under the panel (the shared page) rather than on the Keys tab. */
@@ -46,8 +65,12 @@ export class PlayPanel {
     { id: 'pluck', label: 'Plucked' },
   ];
   /** The lowest key the computer keyboard plays: the root key until shifted. */
-  protected readonly lowestKey = linkedSignal(() => this.state.shown()?.preset.mapping.rootKey ?? 60);
-  protected readonly highestKey = computed(() => Math.min(127, this.lowestKey() + playingKeyCount - 1));
+  protected readonly lowestKey = linkedSignal(
+    () => this.state.shown()?.preset.mapping.rootKey ?? 60,
+  );
+  protected readonly highestKey = computed(() =>
+    Math.min(127, this.lowestKey() + playingKeyCount - 1),
+  );
   protected readonly accessFault = computed(() => midiAccessFaults[this.midi.state()] ?? null);
   private readonly down = new Map<string, number>();
   protected readonly volumeText = (db: number) => `${db} dB`;

@@ -8,13 +8,16 @@ export interface AuditNames {
 
 const text = (value: unknown): string | null => (typeof value === 'string' && value ? value : null);
 const role = (value: unknown): string =>
-  typeof value === 'string' && value in roleWithArticle ? roleWithArticle[value as BandRole] : 'a member';
+  typeof value === 'string' && value in roleWithArticle
+    ? roleWithArticle[value as BandRole]
+    : 'a member';
 
 /** One entry of a band's audit log in plain words: "Mira Vale saved revision 3 of Fen Fifths." */
 export function auditSentence(entry: AuditEntry, names: AuditNames): string {
   const actor = entry.actorName ?? entry.actorLogin ?? 'A former member';
   const detail = entry.detail ?? {};
-  const preset = (entry.presetId && names.presets.get(entry.presetId)) ?? text(detail['name']) ?? 'a preset';
+  const preset =
+    (entry.presetId && names.presets.get(entry.presetId)) ?? text(detail['name']) ?? 'a preset';
   const member = names.members.get(String(detail['userId'])) ?? 'a former member';
   const email = text(detail['email']) ?? 'someone';
   const revision = detail['revision'];

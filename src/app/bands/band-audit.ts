@@ -17,7 +17,9 @@ import { BandDetail, BandsApi } from './bands-api';
         @for (line of lines; track line.id) {
           <li>
             <span>{{ line.sentence }}</span>
-            <time [attr.datetime]="line.createdAt">{{ line.createdAt | date: 'd MMM y, HH:mm' }}</time>
+            <time [attr.datetime]="line.createdAt">{{
+              line.createdAt | date: 'd MMM y, HH:mm'
+            }}</time>
           </li>
         } @empty {
           <li>Nothing has happened in this band yet.</li>
@@ -28,11 +30,29 @@ import { BandDetail, BandsApi } from './bands-api';
     }
   `,
   styles: `
-    .audit { list-style: none; margin: 0; padding: 0; max-height: 420px; overflow-y: auto; }
-    li { display: flex; flex-wrap: wrap; justify-content: space-between; gap: 0 12px; padding: 6px 0;
-      border-bottom: 1px solid var(--mat-sys-outline-variant); }
-    time { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); white-space: nowrap; }
-    .failure { color: var(--mat-sys-error); }
+    .audit {
+      list-style: none;
+      margin: 0;
+      padding: 0;
+      max-height: 420px;
+      overflow-y: auto;
+    }
+    li {
+      display: flex;
+      flex-wrap: wrap;
+      justify-content: space-between;
+      gap: 0 12px;
+      padding: 6px 0;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+    time {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+      white-space: nowrap;
+    }
+    .failure {
+      color: var(--mat-sys-error);
+    }
   `,
 })
 export class BandAudit {
@@ -54,6 +74,10 @@ export class BandAudit {
       presets: this.presetNames(),
       members: new Map(this.band().members.map((m) => [m.userId, m.name ?? m.login])),
     };
-    return entries.map((entry) => ({ id: entry.id, createdAt: entry.createdAt, sentence: auditSentence(entry, names) }));
+    return entries.map((entry) => ({
+      id: entry.id,
+      createdAt: entry.createdAt,
+      sentence: auditSentence(entry, names),
+    }));
   });
 }

@@ -18,7 +18,13 @@ import { requestFieldValidator } from './request-validator';
   selector: 'app-band-invites',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    DatePipe, TitleCasePipe, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule,
+    DatePipe,
+    TitleCasePipe,
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
     MatSelectModule,
   ],
   templateUrl: './band-invites.html',
@@ -33,7 +39,10 @@ export class BandInvites {
   protected readonly roles = bandRoles;
   protected readonly roleWithArticle = roleWithArticle;
   protected readonly form = new FormGroup({
-    email: new FormControl('', { nonNullable: true, validators: requestFieldValidator(inviteRequest, 'email', 'This') }),
+    email: new FormControl('', {
+      nonNullable: true,
+      validators: requestFieldValidator(inviteRequest, 'email', 'This'),
+    }),
     role: new FormControl<BandRole>('editor', { nonNullable: true }),
   });
   private readonly invites = loader(() => this.api.invites(this.bandId()), {
@@ -68,7 +77,11 @@ export class BandInvites {
     this.actionFailure.set(null);
     this.api.resendInvite(this.bandId(), invite.id).subscribe({
       next: () => {
-        this.snackBar.open(`Sent again to ${invite.email}; the earlier link no longer works.`, 'Close', { duration: 6000 });
+        this.snackBar.open(
+          `Sent again to ${invite.email}; the earlier link no longer works.`,
+          'Close',
+          { duration: 6000 },
+        );
         this.reload();
       },
       error: (error: unknown) =>
@@ -80,7 +93,9 @@ export class BandInvites {
     this.actionFailure.set(null);
     this.api.revokeInvite(this.bandId(), invite.id).subscribe({
       next: () => {
-        this.snackBar.open(`The invite to ${invite.email} is revoked.`, 'Close', { duration: 6000 });
+        this.snackBar.open(`The invite to ${invite.email} is revoked.`, 'Close', {
+          duration: 6000,
+        });
         this.reload();
       },
       error: (error: unknown) => void this.tellFailure(error, 'The invite could not be revoked.'),

@@ -18,13 +18,27 @@ import { Router } from '@angular/router';
 import { filter, switchMap } from 'rxjs';
 import { apiErrorMessage } from '../api/api-error';
 import { ConfirmDialog, ConfirmDialogData } from '../library/confirm-dialog';
-import { BandDetail, BandMember, BandRole, BandsApi, bandRoles, roleWithArticle } from './bands-api';
+import {
+  BandDetail,
+  BandMember,
+  BandRole,
+  BandsApi,
+  bandRoles,
+  roleWithArticle,
+} from './bands-api';
 
 /** The band's members with their roles: owners change roles and remove members; anyone may leave. */
 @Component({
   selector: 'app-band-members',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, TitleCasePipe, MatButtonModule, MatFormFieldModule, MatIconModule, MatSelectModule],
+  imports: [
+    DatePipe,
+    TitleCasePipe,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatSelectModule,
+  ],
   templateUrl: './band-members.html',
   styleUrl: './band-members.scss',
 })
@@ -52,7 +66,9 @@ export class BandMembers {
     this.failure.set(null);
     this.api.changeRole(this.band().id, member.userId, role).subscribe({
       next: () => {
-        this.snackBar.open(`${this.nameOf(member)} is now ${roleWithArticle[role]}.`, 'Close', { duration: 6000 });
+        this.snackBar.open(`${this.nameOf(member)} is now ${roleWithArticle[role]}.`, 'Close', {
+          duration: 6000,
+        });
         this.changed.emit();
       },
       error: async (error: unknown) => {
@@ -64,30 +80,40 @@ export class BandMembers {
 
   protected removeMember(member: BandMember): void {
     const band = this.band();
-    this.confirm({
-      title: `Remove ${this.nameOf(member)}?`,
-      message:
-        `${this.nameOf(member)} will no longer see ${band.name}'s presets. Presets saved into the band stay in its ` +
-        'library. You can invite them again later.',
-      confirm: 'Remove from band',
-    }, () => {
-      this.snackBar.open(`${this.nameOf(member)} is no longer in ${band.name}.`, 'Close', { duration: 6000 });
-      this.changed.emit();
-    }, member.userId);
+    this.confirm(
+      {
+        title: `Remove ${this.nameOf(member)}?`,
+        message:
+          `${this.nameOf(member)} will no longer see ${band.name}'s presets. Presets saved into the band stay in its ` +
+          'library. You can invite them again later.',
+        confirm: 'Remove from band',
+      },
+      () => {
+        this.snackBar.open(`${this.nameOf(member)} is no longer in ${band.name}.`, 'Close', {
+          duration: 6000,
+        });
+        this.changed.emit();
+      },
+      member.userId,
+    );
   }
 
   protected leaveBand(): void {
     const band = this.band();
-    this.confirm({
-      title: `Leave ${band.name}?`,
-      message:
-        `You will no longer see ${band.name}'s presets. Presets you saved into the band stay there for your ` +
-        'bandmates. To come back, an owner has to invite you again.',
-      confirm: 'Leave band',
-    }, () => {
-      this.snackBar.open(`You left ${band.name}.`, 'Close', { duration: 6000 });
-      void this.router.navigate(['/bands']);
-    }, this.me());
+    this.confirm(
+      {
+        title: `Leave ${band.name}?`,
+        message:
+          `You will no longer see ${band.name}'s presets. Presets you saved into the band stay there for your ` +
+          'bandmates. To come back, an owner has to invite you again.',
+        confirm: 'Leave band',
+      },
+      () => {
+        this.snackBar.open(`You left ${band.name}.`, 'Close', { duration: 6000 });
+        void this.router.navigate(['/bands']);
+      },
+      this.me(),
+    );
   }
 
   private confirm(data: ConfirmDialogData, done: () => void, userId: string): void {

@@ -11,7 +11,11 @@ export type { BandDetail, BandMember, BandSummary, PendingInvite } from '@shared
 export { type BandRole, bandRoles } from '@shared/api/roles';
 
 /** How a role reads in a sentence: "as an editor". */
-export const roleWithArticle: Record<BandRole, string> = { owner: 'an owner', editor: 'an editor', viewer: 'a viewer' };
+export const roleWithArticle: Record<BandRole, string> = {
+  owner: 'an owner',
+  editor: 'an editor',
+  viewer: 'a viewer',
+};
 
 /** Bands, their members and roles, invitations and the audit log. */
 @Injectable({ providedIn: 'root' })
@@ -48,7 +52,9 @@ export class BandsApi {
   }
 
   invite(bandId: string, email: string, role: BandRole): Observable<void> {
-    return this.http.post(`${this.bandPath(bandId)}/invites`, { email, role }).pipe(map(() => undefined));
+    return this.http
+      .post(`${this.bandPath(bandId)}/invites`, { email, role })
+      .pipe(map(() => undefined));
   }
 
   resendInvite(bandId: string, inviteId: string): Observable<void> {
@@ -58,11 +64,15 @@ export class BandsApi {
   }
 
   revokeInvite(bandId: string, inviteId: string): Observable<void> {
-    return this.http.delete<void>(`${this.bandPath(bandId)}/invites/${encodeURIComponent(inviteId)}`);
+    return this.http.delete<void>(
+      `${this.bandPath(bandId)}/invites/${encodeURIComponent(inviteId)}`,
+    );
   }
 
   audit(bandId: string): Observable<AuditEntry[]> {
-    return this.http.get<ItemList<AuditEntry>>(`${this.bandPath(bandId)}/audit`).pipe(map((answer) => answer.items));
+    return this.http
+      .get<ItemList<AuditEntry>>(`${this.bandPath(bandId)}/audit`)
+      .pipe(map((answer) => answer.items));
   }
 
   private bandPath(id: string): string {

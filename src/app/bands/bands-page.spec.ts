@@ -6,7 +6,14 @@ import { Member } from '../auth/session';
 import { BandsPage } from './bands-page';
 import { PageTest } from '../testing/page-test';
 
-const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
+const mira: Member = {
+  id: 'u-mira',
+  login: 'mira-vale',
+  name: 'Mira Vale',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member',
+};
 
 @Component({
   template: 'band',
@@ -20,9 +27,9 @@ describe('BandsPage', () => {
 
   beforeEach(() => {
     pages = new PageTest([
-          { path: 'bands', component: BandsPage },
-          { path: 'bands/:id', component: BandStub },
-        ]);
+      { path: 'bands', component: BandsPage },
+      { path: 'bands/:id', component: BandStub },
+    ]);
     http = pages.http;
   });
 
@@ -49,7 +56,9 @@ describe('BandsPage', () => {
 
   it('asks a signed-out visitor to sign in', async () => {
     await open(null);
-    expect(page().querySelector('a.sign-in-link')!.getAttribute('href')).toBe('/auth/github?next=%2Fbands');
+    expect(page().querySelector('a.sign-in-link')!.getAttribute('href')).toBe(
+      '/auth/github?next=%2Fbands',
+    );
   });
 
   it('lists my bands with my role in each, linking to the band', async () => {
@@ -82,7 +91,9 @@ describe('BandsPage', () => {
     submit();
     await settle();
     http.expectNone('/api/bands');
-    expect(page().querySelector('mat-error')!.textContent).toContain('The band name must not be empty.');
+    expect(page().querySelector('mat-error')!.textContent).toContain(
+      'The band name must not be empty.',
+    );
   });
 
   it('creates a band and opens its page', async () => {
@@ -93,7 +104,10 @@ describe('BandsPage', () => {
     const create = http.expectOne('/api/bands');
     expect(create.request.method).toBe('POST');
     expect(create.request.body).toEqual({ name: 'Copper Fen' });
-    create.flush({ id: 'b-new', name: 'Copper Fen', role: 'owner' }, { status: 201, statusText: 'Created' });
+    create.flush(
+      { id: 'b-new', name: 'Copper Fen', role: 'owner' },
+      { status: 201, statusText: 'Created' },
+    );
     await settle();
     expect(TestBed.inject(Router).url).toBe('/bands/b-new');
   });

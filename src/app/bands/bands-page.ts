@@ -20,13 +20,22 @@ import { requestFieldValidator } from './request-validator';
   selector: 'app-bands-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    RouterLink, ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatListModule, MatProgressBarModule,
+    RouterLink,
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatListModule,
+    MatProgressBarModule,
     SignInPrompt,
   ],
   template: `
     <h1>Bands</h1>
-    <p class="about">A band keeps one library of presets. Owners invite bandmates by e-mail and give each a role:
-      owners manage the band, editors save presets into it, viewers open and fork them.</p>
+    <p class="about">
+      A band keeps one library of presets. Owners invite bandmates by e-mail and give each a role:
+      owners manage the band, editors save presets into it, viewers open and fork them.
+    </p>
     @switch (session.member()) {
       @case (undefined) {
         <mat-progress-bar mode="indeterminate" aria-label="Checking sign-in" />
@@ -50,7 +59,9 @@ import { requestFieldValidator } from './request-validator';
               }
             </mat-nav-list>
           } @else {
-            <p class="empty">You are in no band yet. Start one below, or follow an invite a bandmate sent you.</p>
+            <p class="empty">
+              You are in no band yet. Start one below, or follow an invite a bandmate sent you.
+            </p>
           }
         } @else {
           <mat-progress-bar mode="indeterminate" aria-label="Loading your bands" />
@@ -60,7 +71,7 @@ import { requestFieldValidator } from './request-validator';
           <h2>Start a band</h2>
           <mat-form-field appearance="outline">
             <mat-label>Band name</mat-label>
-            <input matInput formControlName="name" autocomplete="off">
+            <input matInput formControlName="name" autocomplete="off" />
             <mat-error>{{ form.controls.name.errors?.['request'] }}</mat-error>
           </mat-form-field>
           <button mat-flat-button type="submit" [disabled]="busy()">Create band</button>
@@ -72,14 +83,40 @@ import { requestFieldValidator } from './request-validator';
     }
   `,
   styles: `
-    h1 { font: var(--mat-sys-headline-small); margin: 8px 0 8px; }
-    h2 { font: var(--mat-sys-title-medium); margin: 0 0 8px; }
-    .about { max-width: 64ch; color: var(--mat-sys-on-surface-variant); }
-    .failure { color: var(--mat-sys-error); }
-    .bands { max-width: 560px; border: 1px solid var(--mat-sys-outline-variant); border-radius: var(--mat-sys-corner-medium); }
-    .create { margin-top: 32px; display: flex; flex-wrap: wrap; align-items: baseline; gap: 0 12px; max-width: 560px; }
-    .create h2 { flex-basis: 100%; }
-    .create mat-form-field { flex: 1 1 240px; }
+    h1 {
+      font: var(--mat-sys-headline-small);
+      margin: 8px 0 8px;
+    }
+    h2 {
+      font: var(--mat-sys-title-medium);
+      margin: 0 0 8px;
+    }
+    .about {
+      max-width: 64ch;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .failure {
+      color: var(--mat-sys-error);
+    }
+    .bands {
+      max-width: 560px;
+      border: 1px solid var(--mat-sys-outline-variant);
+      border-radius: var(--mat-sys-corner-medium);
+    }
+    .create {
+      margin-top: 32px;
+      display: flex;
+      flex-wrap: wrap;
+      align-items: baseline;
+      gap: 0 12px;
+      max-width: 560px;
+    }
+    .create h2 {
+      flex-basis: 100%;
+    }
+    .create mat-form-field {
+      flex: 1 1 240px;
+    }
   `,
 })
 export class BandsPage {
@@ -95,7 +132,10 @@ export class BandsPage {
   protected readonly bands = computed<BandSummary[] | null>(() => this.myBands.value() ?? null);
   protected readonly failure = this.myBands.failure;
   protected readonly form = new FormGroup({
-    name: new FormControl('', { nonNullable: true, validators: requestFieldValidator(bandNameRequest, 'name', 'The band name') }),
+    name: new FormControl('', {
+      nonNullable: true,
+      validators: requestFieldValidator(bandNameRequest, 'name', 'The band name'),
+    }),
   });
   protected readonly createFailure = signal<string | null>(null);
   protected readonly busy = signal(false);

@@ -6,9 +6,28 @@ describe('The design in the address', () => {
     const draft: DraftDocument = {
       ...newDraft(),
       name: 'Fifths from F, ¼-comma ♭',
-      scale: { kind: 'generated', generator: '3/2', period: '2/1', up: 11, down: '1.', temper: { comma: '81/80', fraction: '1/4' } },
-      mapping: { rootKey: 53, rootHz: 174.6141, concertA: 440, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
-      output: { deviceId: 127, program: 3, bank: 1, tuningName: 'MEANTONE', bendRange: 12, memberChannels: [2, 9] },
+      scale: {
+        kind: 'generated',
+        generator: '3/2',
+        period: '2/1',
+        up: 11,
+        down: '1.',
+        temper: { comma: '81/80', fraction: '1/4' },
+      },
+      mapping: {
+        rootKey: 53,
+        rootHz: 174.6141,
+        concertA: 440,
+        layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
+      },
+      output: {
+        deviceId: 127,
+        program: 3,
+        bank: 1,
+        tuningName: 'MEANTONE',
+        bendRange: 12,
+        memberChannels: [2, 9],
+      },
     };
     const encoded = encodeDesign(draft);
     expect(encoded).toMatch(/^1\.[A-Za-z0-9_-]+$/);

@@ -13,19 +13,50 @@ const encodingPrefix = '1.';
  * letter and no field of the document is one letter long, so the two never meet.
  */
 const shortNames: Record<string, string> = {
-  name: 'n', notes: 'o', scale: 's', kind: 'k', generator: 'g', period: 'p', up: 'u', down: 'd',
-  temper: 't', comma: 'c', fraction: 'f', divisions: 'e', degrees: 'r', from: 'a', to: 'b', sub: 'h',
-  mapping: 'm', rootKey: 'K', rootHz: 'H', concertA: 'A', keysPerPeriod: 'P', layout: 'L', output: 'O',
-  deviceId: 'D', program: 'G', bank: 'B', tuningName: 'N', bendRange: 'R', memberChannels: 'C',
-  anchor: 'Y', key: 'y', hz: 'z',
+  name: 'n',
+  notes: 'o',
+  scale: 's',
+  kind: 'k',
+  generator: 'g',
+  period: 'p',
+  up: 'u',
+  down: 'd',
+  temper: 't',
+  comma: 'c',
+  fraction: 'f',
+  divisions: 'e',
+  degrees: 'r',
+  from: 'a',
+  to: 'b',
+  sub: 'h',
+  mapping: 'm',
+  rootKey: 'K',
+  rootHz: 'H',
+  concertA: 'A',
+  keysPerPeriod: 'P',
+  layout: 'L',
+  output: 'O',
+  deviceId: 'D',
+  program: 'G',
+  bank: 'B',
+  tuningName: 'N',
+  bendRange: 'R',
+  memberChannels: 'C',
+  anchor: 'Y',
+  key: 'y',
+  hz: 'z',
 };
 const scaleKinds: ScaleKind[] = ['generated', 'equal', 'list', 'harmonic'];
-const longNames = Object.fromEntries(Object.entries(shortNames).map(([long, short]) => [short, long]));
+const longNames = Object.fromEntries(
+  Object.entries(shortNames).map(([long, short]) => [short, long]),
+);
 
 function renameKeys(value: unknown, names: Record<string, string>): unknown {
   if (Array.isArray(value)) return value.map((item) => renameKeys(item, names));
   if (value === null || typeof value !== 'object') return value;
-  return Object.fromEntries(Object.entries(value).map(([key, inner]) => [names[key] ?? key, renameKeys(inner, names)]));
+  return Object.fromEntries(
+    Object.entries(value).map(([key, inner]) => [names[key] ?? key, renameKeys(inner, names)]),
+  );
 }
 
 function toBase64Url(bytes: Uint8Array): string {
@@ -52,10 +83,16 @@ export function decodeDesign(text: string): DraftDocument | string {
     return 'The design in this address was written by another version of Keyloom and cannot be read here.';
   }
   try {
-    const json = new TextDecoder('utf-8', { fatal: true }).decode(fromBase64Url(text.slice(encodingPrefix.length)));
+    const json = new TextDecoder('utf-8', { fatal: true }).decode(
+      fromBase64Url(text.slice(encodingPrefix.length)),
+    );
     const content = renameKeys(JSON.parse(json), longNames);
     const design = content as Partial<DraftDocument> | null;
-    if (!design || typeof design !== 'object' || !scaleKinds.includes(design.scale?.kind as ScaleKind)) {
+    if (
+      !design ||
+      typeof design !== 'object' ||
+      !scaleKinds.includes(design.scale?.kind as ScaleKind)
+    ) {
       throw new Error('not a design');
     }
     return draftFrom({ ...(design as DraftDocument), format: 'keyloom.preset', version: 1 });
@@ -79,7 +116,9 @@ export class DesignAddress {
   private readonly injector = inject(Injector);
   private readonly destroyRef = inject(DestroyRef);
   private following = false;
-  private readonly encoded = computed(() => (this.state.dirty() ? encodeDesign(this.state.draft()) : null));
+  private readonly encoded = computed(() =>
+    this.state.dirty() ? encodeDesign(this.state.draft()) : null,
+  );
 
   /** Where signing in starts, coming back to this page with this design. */
   readonly signInHref = computed(() => {
@@ -100,7 +139,11 @@ export class DesignAddress {
     if (this.following) return;
     this.following = true;
     toObservable(this.encoded, { injector: this.injector })
-      .pipe(debounceTime(addressDelayMs), distinctUntilChanged(), takeUntilDestroyed(this.destroyRef))
+      .pipe(
+        debounceTime(addressDelayMs),
+        distinctUntilChanged(),
+        takeUntilDestroyed(this.destroyRef),
+      )
       .subscribe((d) => {
         // A navigation under way (the musician went to another page while typing paused) must not be overtaken by
         // this rewrite, which would bring them back here; the page it leaves is being left anyway.

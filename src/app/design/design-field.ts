@@ -15,15 +15,36 @@ import { FieldFault } from './field-fault';
   template: `
     <mat-form-field [subscriptSizing]="'dynamic'" [floatLabel]="floatLabel()">
       <mat-label>{{ label() }}</mat-label>
-      <input matInput #field [value]="value()" (input)="edited.emit(field.value)" [appFault]="fault()"
-             [attr.inputmode]="inputMode()" [placeholder]="placeholder()" [readonly]="state.readOnly()"
-             [attr.maxlength]="maxLength()" autocomplete="off" spellcheck="false">
-      @if (suffix()) { <span matTextSuffix>{{ suffix() }}</span> }
-      @if (hint()) { <mat-hint>{{ hint() }}</mat-hint> }
+      <input
+        matInput
+        #field
+        [value]="value()"
+        (input)="edited.emit(field.value)"
+        [appFault]="fault()"
+        [attr.inputmode]="inputMode()"
+        [placeholder]="placeholder()"
+        [readonly]="state.readOnly()"
+        [attr.maxlength]="maxLength()"
+        autocomplete="off"
+        spellcheck="false"
+      />
+      @if (suffix()) {
+        <span matTextSuffix>{{ suffix() }}</span>
+      }
+      @if (hint()) {
+        <mat-hint>{{ hint() }}</mat-hint>
+      }
       <mat-error>{{ fault() }}</mat-error>
     </mat-form-field>
   `,
-  styles: `:host { display: block; } mat-form-field { width: 100%; }`,
+  styles: `
+    :host {
+      display: block;
+    }
+    mat-form-field {
+      width: 100%;
+    }
+  `,
 })
 export class DesignField {
   protected readonly state = inject(DesignState);

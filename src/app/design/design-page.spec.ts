@@ -15,7 +15,14 @@ import { ShareDialog } from '../share/share-dialog';
 import { DesignPage } from './design-page';
 import { type DraftDocument, newDraft } from './draft-document';
 
-const member = { id: 'u1', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' as const };
+const member = {
+  id: 'u1',
+  login: 'mira-vale',
+  name: 'Mira Vale',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member' as const,
+};
 
 describe('DesignPage', () => {
   let http: HttpTestingController;
@@ -39,7 +46,11 @@ describe('DesignPage', () => {
     const harness = await RouterTestingHarness.create();
     await harness.navigateByUrl(url, DesignPage);
     const element = harness.routeNativeElement as HTMLElement;
-    return { harness, element, nameInput: () => element.querySelector<HTMLInputElement>('app-design-field.name input')! };
+    return {
+      harness,
+      element,
+      nameInput: () => element.querySelector<HTMLInputElement>('app-design-field.name input')!,
+    };
   }
 
   /** The one request for `url`, once the page has sent it. */
@@ -68,26 +79,34 @@ describe('DesignPage', () => {
     expect(element.querySelectorAll('app-interval-matrix tbody tr').length).toBe(7);
   });
 
-  it('opens the design an address holds, and writes edits back into the address', async () => {
-    const design: DraftDocument = { ...newDraft(), name: 'Bookmarked', scale: { kind: 'equal', divisions: 31, period: '2/1' } };
-    const { harness, element, nameInput } = await open(`/design?d=${encodeDesign(design)}`, null);
-    expect(nameInput().value).toBe('Bookmarked');
-    expect(element.querySelectorAll('app-degree-table tbody tr').length).toBe(31);
+  it(
+    'opens the design an address holds, and writes edits back into the address',
+    async () => {
+      const design: DraftDocument = {
+        ...newDraft(),
+        name: 'Bookmarked',
+        scale: { kind: 'equal', divisions: 31, period: '2/1' },
+      };
+      const { harness, element, nameInput } = await open(`/design?d=${encodeDesign(design)}`, null);
+      expect(nameInput().value).toBe('Bookmarked');
+      expect(element.querySelectorAll('app-degree-table tbody tr').length).toBe(31);
 
-    nameInput().value = 'Bookmarked again';
-    nameInput().dispatchEvent(new Event('input'));
-    const router = TestBed.inject(Router);
-    const written = await waitFor(
-      'the address to hold the new name',
-      () => {
-        const d = new URL(router.url, 'http://keyloom.test').searchParams.get('d');
-        const held = d ? decodeDesign(d) : null;
-        return typeof held === 'object' && held?.name === 'Bookmarked again' ? held : null;
-      },
-      () => harness.fixture.whenStable(),
-    );
-    expect(written).toEqual({ ...design, name: 'Bookmarked again' });
-  }, patientSpecMs);
+      nameInput().value = 'Bookmarked again';
+      nameInput().dispatchEvent(new Event('input'));
+      const router = TestBed.inject(Router);
+      const written = await waitFor(
+        'the address to hold the new name',
+        () => {
+          const d = new URL(router.url, 'http://keyloom.test').searchParams.get('d');
+          const held = d ? decodeDesign(d) : null;
+          return typeof held === 'object' && held?.name === 'Bookmarked again' ? held : null;
+        },
+        () => harness.fixture.whenStable(),
+      );
+      expect(written).toEqual({ ...design, name: 'Bookmarked again' });
+    },
+    patientSpecMs,
+  );
 
   it('says so when the address holds a design it cannot read, and starts a new one', async () => {
     const { element } = await open('/design?d=1.broken', null);
@@ -95,55 +114,98 @@ describe('DesignPage', () => {
     expect(element.querySelectorAll('app-degree-table tbody tr').length).toBe(7);
   });
 
-  it('opens a saved preset with its revision, read-only for a reader, with a fork button', async () => {
-    const opening = open('/presets/p-7', member);
-    (await requestFor('/api/presets/p-7')).flush({
-      id: 'p-7', name: 'Guest tuning', bandId: null, revision: 3, document: { ...newDraft(), name: 'Guest tuning' }, access: 'read',
-    });
-    const { harness, element, nameInput } = await opening;
-    await harness.fixture.whenStable();
-    expect(element.querySelector('.status')?.textContent).toContain('Revision 3 · read only');
-    expect(nameInput().readOnly).toBeTrue();
-    const buttons = Array.from(element.querySelectorAll('button')).map((button) => button.textContent?.trim());
-    expect(buttons.some((text) => text?.includes('Fork to my library'))).toBeTrue();
-    expect(buttons.some((text) => text?.includes('Save'))).toBeFalse();
-    // A reader may not make share links, so the page offers none.
-    expect(element.querySelector('button.share')).toBeNull();
-    expect(element.querySelector('fieldset')?.disabled).toBeTrue();
-  }, patientSpecMs);
+  it(
+    'opens a saved preset with its revision, read-only for a reader, with a fork button',
+    async () => {
+      const opening = open('/presets/p-7', member);
+      (await requestFor('/api/presets/p-7')).flush({
+        id: 'p-7',
+        name: 'Guest tuning',
+        bandId: null,
+        revision: 3,
+        document: { ...newDraft(), name: 'Guest tuning' },
+        access: 'read',
+      });
+      const { harness, element, nameInput } = await opening;
+      await harness.fixture.whenStable();
+      expect(element.querySelector('.status')?.textContent).toContain('Revision 3 · read only');
+      expect(nameInput().readOnly).toBeTrue();
+      const buttons = Array.from(element.querySelectorAll('button')).map((button) =>
+        button.textContent?.trim(),
+      );
+      expect(buttons.some((text) => text?.includes('Fork to my library'))).toBeTrue();
+      expect(buttons.some((text) => text?.includes('Save'))).toBeFalse();
+      // A reader may not make share links, so the page offers none.
+      expect(element.querySelector('button.share')).toBeNull();
+      expect(element.querySelector('fieldset')?.disabled).toBeTrue();
+    },
+    patientSpecMs,
+  );
 
-  it('offers Share on a saved preset its editor opens, with the share dialog for that revision', async () => {
-    const opening = open('/presets/p-8', member);
-    (await requestFor('/api/presets/p-8')).flush({
-      id: 'p-8', name: 'Band tuning', bandId: 'b-1', revision: 4, document: { ...newDraft(), name: 'Band tuning' }, access: 'edit',
-    });
-    const { harness, element } = await opening;
-    await harness.fixture.whenStable();
-    const opened = spyOn(TestBed.inject(MatDialog), 'open').and.callThrough();
-    const share = await waitFor('the Share button', () => element.querySelector<HTMLButtonElement>('button.share'));
-    share.click();
-    expect(opened).toHaveBeenCalledWith(ShareDialog, jasmine.objectContaining({ data: { presetId: 'p-8', revision: 4, name: 'Band tuning' } }));
-  }, patientSpecMs);
+  it(
+    'offers Share on a saved preset its editor opens, with the share dialog for that revision',
+    async () => {
+      const opening = open('/presets/p-8', member);
+      (await requestFor('/api/presets/p-8')).flush({
+        id: 'p-8',
+        name: 'Band tuning',
+        bandId: 'b-1',
+        revision: 4,
+        document: { ...newDraft(), name: 'Band tuning' },
+        access: 'edit',
+      });
+      const { harness, element } = await opening;
+      await harness.fixture.whenStable();
+      const opened = spyOn(TestBed.inject(MatDialog), 'open').and.callThrough();
+      const share = await waitFor('the Share button', () =>
+        element.querySelector<HTMLButtonElement>('button.share'),
+      );
+      share.click();
+      expect(opened).toHaveBeenCalledWith(
+        ShareDialog,
+        jasmine.objectContaining({ data: { presetId: 'p-8', revision: 4, name: 'Band tuning' } }),
+      );
+    },
+    patientSpecMs,
+  );
 
-  it('saves with Ctrl+S when signed in, asking first which library to save into', async () => {
-    await open('/design', member);
-    document.dispatchEvent(new KeyboardEvent('keydown', { key: 's', code: 'KeyS', ctrlKey: true, cancelable: true }));
-    (await requestFor('/api/bands')).flush({ items: [] });
-  }, patientSpecMs);
+  it(
+    'saves with Ctrl+S when signed in, asking first which library to save into',
+    async () => {
+      await open('/design', member);
+      document.dispatchEvent(
+        new KeyboardEvent('keydown', { key: 's', code: 'KeyS', ctrlKey: true, cancelable: true }),
+      );
+      (await requestFor('/api/bands')).flush({ items: [] });
+    },
+    patientSpecMs,
+  );
 
-  it('says why Ctrl+S cannot save for a visitor who has not signed in', async () => {
-    const { harness } = await open('/design', null);
-    document.dispatchEvent(new KeyboardEvent('keydown', { key: 's', code: 'KeyS', ctrlKey: true, cancelable: true }));
-    await waitFor('a snack bar', () => document.querySelector('mat-snack-bar-container'));
-    const snackBar = await TestbedHarnessEnvironment.documentRootLoader(harness.fixture).getHarness(MatSnackBarHarness);
-    expect(await snackBar.getMessage()).toContain('Sign in to save');
-  }, patientSpecMs);
+  it(
+    'says why Ctrl+S cannot save for a visitor who has not signed in',
+    async () => {
+      const { harness } = await open('/design', null);
+      document.dispatchEvent(
+        new KeyboardEvent('keydown', { key: 's', code: 'KeyS', ctrlKey: true, cancelable: true }),
+      );
+      await waitFor('a snack bar', () => document.querySelector('mat-snack-bar-container'));
+      const snackBar = await TestbedHarnessEnvironment.documentRootLoader(
+        harness.fixture,
+      ).getHarness(MatSnackBarHarness);
+      expect(await snackBar.getMessage()).toContain('Sign in to save');
+    },
+    patientSpecMs,
+  );
 
   it('switches tabs with Alt and a number', async () => {
     const { harness, element } = await open('/design', null);
-    document.dispatchEvent(new KeyboardEvent('keydown', { key: '2', code: 'Digit2', altKey: true }));
+    document.dispatchEvent(
+      new KeyboardEvent('keydown', { key: '2', code: 'Digit2', altKey: true }),
+    );
     await harness.fixture.whenStable();
-    const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(MatTabGroupHarness);
+    const tabs = await TestbedHarnessEnvironment.loader(harness.fixture).getHarness(
+      MatTabGroupHarness,
+    );
     expect(await (await tabs.getSelectedTab()).getLabel()).toContain('Keys');
     expect(element.querySelector('app-keyboard-strip')).not.toBeNull();
   });

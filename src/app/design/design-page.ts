@@ -48,7 +48,10 @@ const tabCount = 3;
 
 /** Whether a key press lands in a place that takes typing, where single-key shortcuts must stay quiet. */
 function isTyping(target: EventTarget | null): boolean {
-  return target instanceof HTMLElement && (target.isContentEditable || /^(INPUT|TEXTAREA|SELECT)$/.test(target.tagName));
+  return (
+    target instanceof HTMLElement &&
+    (target.isContentEditable || /^(INPUT|TEXTAREA|SELECT)$/.test(target.tagName))
+  );
 }
 
 /**
@@ -59,11 +62,39 @@ function isTyping(target: EventTarget | null): boolean {
   selector: 'app-design-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    MatButtonModule, MatIconModule, MatProgressBarModule, MatTabsModule, DesignField, DownloadMenu, ScaleForm,
-    ScaleSummary, PeriodRing, DegreeTable, OffsetChart, IntervalMatrix, ReferencePitch, KeyboardStrip, LayoutEditor,
-    OutputSettings, PlayPanel, StripPlaying, AnchorPicking, KeyTable, SendPanel,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    MatTabsModule,
+    DesignField,
+    DownloadMenu,
+    ScaleForm,
+    ScaleSummary,
+    PeriodRing,
+    DegreeTable,
+    OffsetChart,
+    IntervalMatrix,
+    ReferencePitch,
+    KeyboardStrip,
+    LayoutEditor,
+    OutputSettings,
+    PlayPanel,
+    StripPlaying,
+    AnchorPicking,
+    KeyTable,
+    SendPanel,
   ],
-  providers: [DesignState, DesignAddress, SavedPreset, Audition, MidiAccess, ControllerInput, TuningSender, TuningBackup, LiveFollow],
+  providers: [
+    DesignState,
+    DesignAddress,
+    SavedPreset,
+    Audition,
+    MidiAccess,
+    ControllerInput,
+    TuningSender,
+    TuningBackup,
+    LiveFollow,
+  ],
   templateUrl: './design-page.html',
   styleUrl: './design-page.scss',
   host: { '(document:keydown)': 'followShortcut($event)' },
@@ -78,7 +109,9 @@ export class DesignPage {
   protected readonly audition = inject(Audition);
   private readonly dialog = inject(MatDialog);
   protected readonly tab = signal(0);
-  protected readonly ringCents = computed(() => this.state.shown()?.table.degrees.map((degree) => degree.cents) ?? []);
+  protected readonly ringCents = computed(
+    () => this.state.shown()?.table.degrees.map((degree) => degree.cents) ?? [],
+  );
   /** Why the design in the address could not be opened, if it could not. */
   protected readonly addressFault = signal<string | null>(null);
   private readonly help = viewChild.required<ElementRef<HTMLElement>>('help');

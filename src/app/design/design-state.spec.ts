@@ -19,10 +19,14 @@ describe('DesignState', () => {
   it('puts the message for a bare decimal under the generator, without the path the field already names', () => {
     expect(state.shown()?.table.analysis.size).toBe(7);
     state.setScaleField('generator', '1.5');
-    expect(state.faultAt('scale.generator')).toBe('1.5 needs a unit: write 1.5c for cents or a ratio such as 3/2');
+    expect(state.faultAt('scale.generator')).toBe(
+      '1.5 needs a unit: write 1.5c for cents or a ratio such as 3/2',
+    );
     expect(state.faultAt('scale.period')).toBeNull();
     expect(state.stale()).toBeTrue();
-    expect(state.shown()?.table.analysis.size).withContext('the last design that built stays shown').toBe(7);
+    expect(state.shown()?.table.analysis.size)
+      .withContext('the last design that built stays shown')
+      .toBe(7);
   });
 
   it('gives the fields of a kind back when the musician returns to it', () => {
@@ -30,7 +34,13 @@ describe('DesignState', () => {
     state.chooseKind('equal');
     expect(state.draft().scale).toEqual({ kind: 'equal', divisions: 12, period: '2/1' });
     state.chooseKind('generated');
-    expect(state.draft().scale).toEqual({ kind: 'generated', generator: '3/2', period: '2/1', up: 11, down: 1 });
+    expect(state.draft().scale).toEqual({
+      kind: 'generated',
+      generator: '3/2',
+      period: '2/1',
+      up: 11,
+      down: 1,
+    });
   });
 
   it('starts a scale of fewer than 12 degrees on its nearest keys, and follows the scale until keys are laid by hand', () => {
@@ -82,10 +92,20 @@ describe('DesignState', () => {
   it('tells the keys which of them MTS cannot express, and the scale which degrees coincide', () => {
     state.setMappingField('rootHz', 19000);
     expect(state.faults()).toEqual([]);
-    expect(state.keyNotices().map((notice) => notice.message).join()).toContain('outside the pitches MTS can express');
+    expect(
+      state
+        .keyNotices()
+        .map((notice) => notice.message)
+        .join(),
+    ).toContain('outside the pitches MTS can express');
     state.chooseKind('list');
     state.setScaleField('degrees', ['9/8', '18/16']);
-    expect(state.generalNotices().map((notice) => notice.message).join()).toContain('coincides');
+    expect(
+      state
+        .generalNotices()
+        .map((notice) => notice.message)
+        .join(),
+    ).toContain('coincides');
   });
 
   it('leaves a read-only preset as it was loaded, and tracks changes against the saved revision', () => {

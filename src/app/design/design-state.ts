@@ -32,7 +32,8 @@ interface ShownDesign {
   table: PreviewTable;
 }
 
-type ScaleField = 'generator' | 'period' | 'up' | 'down' | 'divisions' | 'degrees' | 'from' | 'to' | 'sub';
+type ScaleField =
+  'generator' | 'period' | 'up' | 'down' | 'divisions' | 'degrees' | 'from' | 'to' | 'sub';
 type MappingField = 'rootKey' | 'rootHz' | 'concertA';
 
 /** How the design's pitch is set: the root from concert A, the root's pitch typed, or one key tuned to a pitch. */
@@ -41,11 +42,32 @@ type OutputField = 'deviceId' | 'program' | 'bank' | 'tuningName' | 'bendRange';
 
 /** The document paths that have a field of their own; faults elsewhere are listed above the analysis. */
 const fieldPaths = [
-  'name', 'scale.generator', 'scale.period', 'scale.up', 'scale.down', 'scale.temper.comma',
-  'scale.temper.fraction', 'scale.temper', 'scale.divisions', 'scale.degrees', 'scale.from', 'scale.to', 'scale.sub',
-  'mapping.rootKey', 'mapping.rootHz', 'mapping.concertA', 'mapping.keysPerPeriod', 'mapping.layout', 'mapping.anchor',
-  'output.deviceId', 'output.program', 'output.bank', 'output.tuningName', 'output.bendRange',
-  'output.memberChannels', 'output.samples',
+  'name',
+  'scale.generator',
+  'scale.period',
+  'scale.up',
+  'scale.down',
+  'scale.temper.comma',
+  'scale.temper.fraction',
+  'scale.temper',
+  'scale.divisions',
+  'scale.degrees',
+  'scale.from',
+  'scale.to',
+  'scale.sub',
+  'mapping.rootKey',
+  'mapping.rootHz',
+  'mapping.concertA',
+  'mapping.keysPerPeriod',
+  'mapping.layout',
+  'mapping.anchor',
+  'output.deviceId',
+  'output.program',
+  'output.bank',
+  'output.tuningName',
+  'output.bendRange',
+  'output.memberChannels',
+  'output.samples',
 ];
 
 /** Whether a fault at `path` belongs to the field at `field` (`scale.degrees[3]` belongs to `scale.degrees`). */
@@ -67,12 +89,21 @@ function canonicalJson(value: unknown): string {
  * exist go, new ones start pure. Nothing changes unless the chain is tempered link by link.
  */
 function withChainLength(before: DraftScale, after: DraftScale): DraftScale {
-  if (before.kind !== 'generated' || after.kind !== 'generated' || !Array.isArray(after.temper)) return after;
-  const count = (value: Typed | undefined) => (typeof value === 'number' && Number.isInteger(value) && value >= 0 ? value : null);
-  const [downBefore, upAfter, downAfter] = [count(before.down ?? 0), count(after.up), count(after.down ?? 0)];
+  if (before.kind !== 'generated' || after.kind !== 'generated' || !Array.isArray(after.temper))
+    return after;
+  const count = (value: Typed | undefined) =>
+    typeof value === 'number' && Number.isInteger(value) && value >= 0 ? value : null;
+  const [downBefore, upAfter, downAfter] = [
+    count(before.down ?? 0),
+    count(after.up),
+    count(after.down ?? 0),
+  ];
   if (downBefore === null || upAfter === null || downAfter === null) return after;
   const links = after.temper;
-  const temper = Array.from({ length: upAfter + downAfter }, (_, index) => links[index - downAfter + downBefore] ?? null);
+  const temper = Array.from(
+    { length: upAfter + downAfter },
+    (_, index) => links[index - downAfter + downBefore] ?? null,
+  );
   return { ...after, temper };
 }
 
@@ -103,21 +134,27 @@ export class DesignState {
   readonly shown = linkedSignal<ReturnType<typeof parsePresetDocument>, ShownDesign | null>({
     source: this.parsed,
     computation: (parsed, previous) =>
-      parsed.ok ? { preset: parsed.value, table: previewTable(parsed.value) } : (previous?.value ?? null),
+      parsed.ok
+        ? { preset: parsed.value, table: previewTable(parsed.value) }
+        : (previous?.value ?? null),
   }).asReadonly();
   readonly stale = computed(() => !this.parsed().ok);
   readonly faults = computed<FieldError[]>(() => {
     const parsed = this.parsed();
     return parsed.ok ? [] : parsed.errors;
   });
-  private readonly warnings = computed(() => (this.parsed().ok ? (this.shown()?.table.warnings ?? []) : []));
+  private readonly warnings = computed(() =>
+    this.parsed().ok ? (this.shown()?.table.warnings ?? []) : [],
+  );
   /** Faults no field shows, and what the built scale warns about (degrees that coincide). */
   readonly generalNotices = computed(() => [
     ...this.faults().filter((fault) => !fieldPaths.some((field) => isUnder(fault.path, field))),
     ...this.warnings().filter((warning) => !isUnder(warning.path, 'mapping')),
   ]);
   /** What the built design warns about its keys: those whose pitch MTS cannot express. */
-  readonly keyNotices = computed(() => this.warnings().filter((warning) => isUnder(warning.path, 'mapping')));
+  readonly keyNotices = computed(() =>
+    this.warnings().filter((warning) => isUnder(warning.path, 'mapping')),
+  );
   readonly readOnly = computed(() => this.origin()?.access === 'read');
   /** True when the draft differs from the saved revision, and always for a design never saved. */
   readonly dirty = computed(() => this.savedJson() !== canonicalJson(this.draft()));
@@ -144,7 +181,9 @@ export class DesignState {
   /** The fault at a field (else the first inside it), without the path that the field already names. */
   faultAt(field: string): string | null {
     const faults = this.faults();
-    const fault = faults.find((candidate) => candidate.path === field) ?? faults.find((candidate) => isUnder(candidate.path, field));
+    const fault =
+      faults.find((candidate) => candidate.path === field) ??
+      faults.find((candidate) => isUnder(candidate.path, field));
     if (!fault) return null;
     const prefix = `${fault.path}: `;
     return fault.message.startsWith(prefix) ? fault.message.slice(prefix.length) : fault.message;
@@ -189,7 +228,10 @@ export class DesignState {
   setScaleField(field: ScaleField, value: Typed | string[] | boolean | undefined): void {
     this.change((draft) => {
       const scale = withField(draft.scale, field, value);
-      return { ...draft, scale: field === 'up' || field === 'down' ? withChainLength(draft.scale, scale) : scale };
+      return {
+        ...draft,
+        scale: field === 'up' || field === 'down' ? withChainLength(draft.scale, scale) : scale,
+      };
     });
     this.followNearestKeys();
   }
@@ -204,7 +246,10 @@ export class DesignState {
   }
 
   setMappingField(field: MappingField, value: Typed | undefined): void {
-    this.change((draft) => ({ ...draft, mapping: withField<DraftMapping>(draft.mapping, field, value) }));
+    this.change((draft) => ({
+      ...draft,
+      mapping: withField<DraftMapping>(draft.mapping, field, value),
+    }));
   }
 
   /**
@@ -215,8 +260,13 @@ export class DesignState {
     this.pickingAnchorKey.set(false);
     this.change((draft) => {
       const { anchor: _, rootHz: __, ...mapping } = draft.mapping;
-      if (source === 'anchor') return { ...draft, mapping: { ...mapping, anchor: { key: 69, hz: mapping.concertA ?? 440 } } };
-      if (source === 'root') return { ...draft, mapping: { ...mapping, rootHz: rootHzNow ?? 261.6256 } };
+      if (source === 'anchor')
+        return {
+          ...draft,
+          mapping: { ...mapping, anchor: { key: 69, hz: mapping.concertA ?? 440 } },
+        };
+      if (source === 'root')
+        return { ...draft, mapping: { ...mapping, rootHz: rootHzNow ?? 261.6256 } };
       return { ...draft, mapping };
     });
   }
@@ -239,7 +289,10 @@ export class DesignState {
   }
 
   setOutputField(field: OutputField, value: Typed | undefined): void {
-    this.change((draft) => ({ ...draft, output: withField<DraftOutput>(draft.output, field, value) }));
+    this.change((draft) => ({
+      ...draft,
+      output: withField<DraftOutput>(draft.output, field, value),
+    }));
   }
 
   /** The samples of the SFZ map, as typed: `36 piano-c2.wav, 60 piano-c4.wav` (none: one sample of middle C). */
@@ -252,12 +305,17 @@ export class DesignState {
         const [key, ...file] = entry.split(/\s+/);
         return { key: typedFrom(key) ?? key, file: file.join(' ') };
       });
-    this.change((draft) => ({ ...draft, output: withField<DraftOutput>(draft.output, 'samples', samples.length ? samples : undefined) }));
+    this.change((draft) => ({
+      ...draft,
+      output: withField<DraftOutput>(draft.output, 'samples', samples.length ? samples : undefined),
+    }));
   }
 
   setMemberChannel(end: 0 | 1, value: Typed | undefined): void {
     this.change((draft) => {
-      const channels: [Typed | undefined, Typed | undefined] = [...(draft.output.memberChannels ?? [2, 16])];
+      const channels: [Typed | undefined, Typed | undefined] = [
+        ...(draft.output.memberChannels ?? [2, 16]),
+      ];
       channels[end] = value;
       return { ...draft, output: { ...draft.output, memberChannels: channels } };
     });
@@ -300,7 +358,10 @@ export class DesignState {
   placeOnNearestKeys(): boolean {
     const table = this.shown()?.table;
     if (!table) return false;
-    const layout = nearestKeyLayout(table.degrees.map((degree) => degree.cents), table.analysis.period.cents);
+    const layout = nearestKeyLayout(
+      table.degrees.map((degree) => degree.cents),
+      table.analysis.period.cents,
+    );
     if (!layout) return false;
     this.widestLayout = layout;
     this.writeLayout(layout);
@@ -321,7 +382,13 @@ export class DesignState {
     if (!built.ok) return;
     const { degrees, period } = built.value;
     const octave = Math.abs(period.cents - 1200) < 1e-6;
-    const layout = octave && degrees.length < 12 ? nearestKeyLayout(degrees.map((d) => d.cents), period.cents) : null;
+    const layout =
+      octave && degrees.length < 12
+        ? nearestKeyLayout(
+            degrees.map((d) => d.cents),
+            period.cents,
+          )
+        : null;
     this.writeLayout(layout);
   }
 

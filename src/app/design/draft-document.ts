@@ -92,7 +92,11 @@ export function newDraft(): DraftDocument {
     version: 1,
     name: 'New scale',
     scale: startingScale('generated'),
-    mapping: { rootKey: 60, concertA: 440, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
+    mapping: {
+      rootKey: 60,
+      concertA: 440,
+      layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
+    },
     output: { deviceId: 127, program: 0, bank: 0, bendRange: 2, memberChannels: [2, 16] },
   };
 }

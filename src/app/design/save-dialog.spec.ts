@@ -9,19 +9,31 @@ describe('SaveDialog', () => {
     const close = jasmine.createSpy('close');
     TestBed.configureTestingModule({
       imports: [SaveDialog],
-      providers: [{ provide: MAT_DIALOG_DATA, useValue: data }, { provide: MatDialogRef, useValue: { close } }],
+      providers: [
+        { provide: MAT_DIALOG_DATA, useValue: data },
+        { provide: MatDialogRef, useValue: { close } },
+      ],
     });
     const fixture = TestBed.createComponent(SaveDialog);
     await fixture.whenStable();
     const element = fixture.nativeElement as HTMLElement;
-    const saveButton = () => Array.from(element.querySelectorAll('button')).find((button) => button.textContent?.trim() === 'Save')!;
+    const saveButton = () =>
+      Array.from(element.querySelectorAll('button')).find(
+        (button) => button.textContent?.trim() === 'Save',
+      )!;
     return { fixture, element, close, saveButton };
   }
 
-  const bands = [{ id: 'b-2', name: 'Copper Fen', role: 'editor' as const, createdAt: '2026-11-01T10:00:00Z' }];
+  const bands = [
+    { id: 'b-2', name: 'Copper Fen', role: 'editor' as const, createdAt: '2026-11-01T10:00:00Z' },
+  ];
 
   it('saves into my library unless a band is chosen', async () => {
-    const { element, fixture, close, saveButton } = await render({ name: 'Fifths', bands, nextRevision: null });
+    const { element, fixture, close, saveButton } = await render({
+      name: 'Fifths',
+      bands,
+      nextRevision: null,
+    });
     expect(element.querySelector('h2')?.textContent).toBe('Save preset');
     expect(element.querySelector('mat-select')?.textContent).toContain('My library');
     saveButton().click();
@@ -45,7 +57,11 @@ describe('SaveDialog', () => {
   });
 
   it('will not save a preset without a name, and says so under the field', async () => {
-    const { element, fixture, close, saveButton } = await render({ name: 'Fifths', bands: null, nextRevision: null });
+    const { element, fixture, close, saveButton } = await render({
+      name: 'Fifths',
+      bands: null,
+      nextRevision: null,
+    });
     const name = element.querySelector<HTMLInputElement>('input')!;
     name.value = '   ';
     name.dispatchEvent(new Event('input'));

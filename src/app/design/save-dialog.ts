@@ -30,14 +30,32 @@ const longestNote = 500;
 @Component({
   selector: 'app-save-dialog',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [FieldFault, MatDialogModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule],
+  imports: [
+    FieldFault,
+    MatDialogModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+  ],
   template: `
-    <h2 mat-dialog-title>{{ data.nextRevision ? 'Save revision ' + data.nextRevision : 'Save preset' }}</h2>
+    <h2 mat-dialog-title>
+      {{ data.nextRevision ? 'Save revision ' + data.nextRevision : 'Save preset' }}
+    </h2>
     <div mat-dialog-content class="fields">
       <mat-form-field subscriptSizing="dynamic">
         <mat-label>Name</mat-label>
-        <input matInput #nameField [value]="name()" (input)="name.set(nameField.value)" required
-               [attr.maxlength]="longestName" [appFault]="nameFault()" (keydown.enter)="save()" cdkFocusInitial>
+        <input
+          matInput
+          #nameField
+          [value]="name()"
+          (input)="name.set(nameField.value)"
+          required
+          [attr.maxlength]="longestName"
+          [appFault]="nameFault()"
+          (keydown.enter)="save()"
+          cdkFocusInitial
+        />
         <mat-error>{{ nameFault() }}</mat-error>
       </mat-form-field>
       @if (data.bands) {
@@ -54,8 +72,14 @@ const longestNote = 500;
       }
       <mat-form-field subscriptSizing="dynamic">
         <mat-label>Note on this change</mat-label>
-        <textarea matInput #noteField rows="2" [value]="note()" (input)="note.set(noteField.value)"
-                  [attr.maxlength]="longestNote"></textarea>
+        <textarea
+          matInput
+          #noteField
+          rows="2"
+          [value]="note()"
+          (input)="note.set(noteField.value)"
+          [attr.maxlength]="longestNote"
+        ></textarea>
         <mat-hint align="end">{{ note().length }} / {{ longestNote }}</mat-hint>
       </mat-form-field>
     </div>
@@ -64,7 +88,14 @@ const longestNote = 500;
       <button mat-flat-button (click)="save()" [disabled]="nameFault() !== null">Save</button>
     </div>
   `,
-  styles: `.fields { display: flex; flex-direction: column; gap: 4px; min-width: min(360px, 70vw); }`,
+  styles: `
+    .fields {
+      display: flex;
+      flex-direction: column;
+      gap: 4px;
+      min-width: min(360px, 70vw);
+    }
+  `,
 })
 export class SaveDialog {
   protected readonly data = inject<SaveDialogData>(MAT_DIALOG_DATA);
@@ -76,7 +107,9 @@ export class SaveDialog {
   protected readonly library = signal(myLibrary);
   protected readonly myLibrary = myLibrary;
   protected readonly note = signal('');
-  protected readonly nameFault = computed(() => (this.name().trim() === '' ? 'A preset needs a name' : null));
+  protected readonly nameFault = computed(() =>
+    this.name().trim() === '' ? 'A preset needs a name' : null,
+  );
 
   protected save(): void {
     if (this.nameFault()) return;

@@ -10,7 +10,14 @@ import { newDraft } from './draft-document';
 import type { SaveChoice } from './save-dialog';
 import { SavedPreset } from './saved-preset';
 
-const member = { id: 'u1', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' as const };
+const member = {
+  id: 'u1',
+  login: 'mira-vale',
+  name: 'Mira Vale',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member' as const,
+};
 
 describe('SavedPreset', () => {
   let http: HttpTestingController;
@@ -23,10 +30,19 @@ describe('SavedPreset', () => {
   beforeEach(() => {
     TestBed.configureTestingModule({
       providers: [
-        provideHttpClient(), provideHttpClientTesting(), provideRouter([]), DesignState, SavedPreset,
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        provideRouter([]),
+        DesignState,
+        SavedPreset,
         {
           provide: MatDialog,
-          useValue: { open: (_: unknown, config: { data: unknown }) => ((dialogData = config.data), { afterClosed: () => of(choice) }) },
+          useValue: {
+            open: (_: unknown, config: { data: unknown }) => (
+              (dialogData = config.data),
+              { afterClosed: () => of(choice) }
+            ),
+          },
         },
       ],
     });
@@ -39,7 +55,10 @@ describe('SavedPreset', () => {
 
   afterEach(() => http.verify());
 
-  async function flushing<T>(work: Promise<T>, answer: (http: HttpTestingController) => void): Promise<T> {
+  async function flushing<T>(
+    work: Promise<T>,
+    answer: (http: HttpTestingController) => void,
+  ): Promise<T> {
     await new Promise((resolve) => setTimeout(resolve));
     answer(http);
     return work;
@@ -50,7 +69,10 @@ describe('SavedPreset', () => {
     const done = saved.save();
     await new Promise((resolve) => setTimeout(resolve));
     http.expectOne('/api/bands').flush({
-      items: [{ id: 'b-1', name: 'Listeners', role: 'viewer' }, { id: 'b-2', name: 'Copper Fen', role: 'editor' }],
+      items: [
+        { id: 'b-1', name: 'Listeners', role: 'viewer' },
+        { id: 'b-2', name: 'Copper Fen', role: 'editor' },
+      ],
     });
     await flushing(done, (mock) => {
       const request = mock.expectOne('/api/presets');
@@ -62,7 +84,9 @@ describe('SavedPreset', () => {
       });
       request.flush({ id: 'p-9', revision: 1 }, { status: 201, statusText: 'Created' });
     });
-    expect(dialogData).toEqual(jasmine.objectContaining({ bands: [{ id: 'b-2', name: 'Copper Fen', role: 'editor' }] }));
+    expect(dialogData).toEqual(
+      jasmine.objectContaining({ bands: [{ id: 'b-2', name: 'Copper Fen', role: 'editor' }] }),
+    );
     expect(navigate).toHaveBeenCalledWith(['/presets', 'p-9']);
   });
 
@@ -87,7 +111,12 @@ describe('SavedPreset', () => {
   it('opens a preset a reader may only read, read-only, and forks it into their library', async () => {
     const opened = saved.open('p-7');
     http.expectOne('/api/presets/p-7').flush({
-      id: 'p-7', name: 'Guest tuning', bandId: 'b-1', revision: 2, document: { ...newDraft(), name: 'Guest tuning' }, access: 'read',
+      id: 'p-7',
+      name: 'Guest tuning',
+      bandId: 'b-1',
+      revision: 2,
+      document: { ...newDraft(), name: 'Guest tuning' },
+      access: 'read',
     });
     expect(await opened).toBeTrue();
     expect(state.readOnly()).toBeTrue();
@@ -101,9 +130,14 @@ describe('SavedPreset', () => {
     expect(navigate).toHaveBeenCalledWith(['/presets', 'p-8']);
   });
 
-  it('keeps the server\'s words when a preset cannot be opened', async () => {
+  it("keeps the server's words when a preset cannot be opened", async () => {
     const opened = saved.open('nope');
-    http.expectOne('/api/presets/nope').flush({ error: { code: 'not_found', message: 'No such preset.' } }, { status: 404, statusText: 'Not Found' });
+    http
+      .expectOne('/api/presets/nope')
+      .flush(
+        { error: { code: 'not_found', message: 'No such preset.' } },
+        { status: 404, statusText: 'Not Found' },
+      );
     expect(await opened).toBeFalse();
     expect(saved.loadFault()).toBe('No such preset.');
   });

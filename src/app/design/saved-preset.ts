@@ -38,7 +38,12 @@ export class SavedPreset {
     this.loadFault.set(null);
     try {
       const answer = await firstValueFrom(this.api.load(id));
-      const origin = { id: answer.id, revision: answer.revision, bandId: answer.bandId, access: answer.access };
+      const origin = {
+        id: answer.id,
+        revision: answer.revision,
+        bandId: answer.bandId,
+        access: answer.access,
+      };
       // Opened as a draft: the designer names whatever in a stored document it cannot read, as it does for typing.
       this.state.open(draftFrom(answer.document as DraftDocument), origin);
       return true;
@@ -52,8 +57,10 @@ export class SavedPreset {
 
   /** Why saving cannot happen now, in words for the musician; null when it can. */
   private whyNotSave(): string | null {
-    if (!this.session.member()) return 'Sign in to save; until then this page\'s address keeps your design.';
-    if (this.state.readOnly()) return 'You can read this preset but not change it: fork it to your library first.';
+    if (!this.session.member())
+      return "Sign in to save; until then this page's address keeps your design.";
+    if (this.state.readOnly())
+      return 'You can read this preset but not change it: fork it to your library first.';
     if (this.state.faults().length > 0) return 'Fix the fields marked in red before saving.';
     return null;
   }
@@ -74,7 +81,10 @@ export class SavedPreset {
         bands: origin ? null : await firstValueFrom(this.api.writableBands()),
         nextRevision: origin ? origin.revision + 1 : null,
       };
-      const dialog = this.dialog.open<SaveDialog, SaveDialogData, SaveChoice>(SaveDialog, { data, autoFocus: 'dialog' });
+      const dialog = this.dialog.open<SaveDialog, SaveDialogData, SaveChoice>(SaveDialog, {
+        data,
+        autoFocus: 'dialog',
+      });
       const choice = await firstValueFrom(dialog.afterClosed());
       if (!choice) return;
       this.state.rename(choice.name);
@@ -113,6 +123,8 @@ export class SavedPreset {
   }
 
   private tell(message: string, fault = false): void {
-    this.snackBar.open(message, fault ? 'Dismiss' : undefined, { duration: fault ? undefined : 4000 });
+    this.snackBar.open(message, fault ? 'Dismiss' : undefined, {
+      duration: fault ? undefined : 4000,
+    });
   }
 }

@@ -48,7 +48,9 @@ export class LiveFollow {
     if (!this.on() || !preset) return;
     const next = keyPitches(preset);
     if (!next) return;
-    const messages = this.sounding ? changedKeyMessages(this.sounding, next, this.sender.target()) : [];
+    const messages = this.sounding
+      ? changedKeyMessages(this.sounding, next, this.sender.target())
+      : [];
     this.sounding = next;
     for (const message of messages) {
       if (!this.sender.sendNow(message)) {

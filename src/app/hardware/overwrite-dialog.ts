@@ -32,27 +32,45 @@ export interface OverwriteQuestion {
     <mat-dialog-content>
       @if (data.program !== null) {
         <p>
-          This overwrites <strong>tuning program {{ data.program }}@if (data.bank !== null) { in bank {{ data.bank }}}</strong>
+          This overwrites
+          <strong
+            >tuning program {{ data.program }}
+            @if (data.bank !== null) {
+              in bank {{ data.bank }}
+            }
+          </strong>
           on the instrument. Whatever that program holds now is lost.
         </p>
         @if (data.backUp) {
           @if (outcome(); as outcome) {
             @if (outcome.kind === 'kept') {
               <p class="backed-up" role="status">
-                {{ outcome.message }} <a [routerLink]="['/design', outcome.presetId]" target="_blank">Open the backup</a>
+                {{ outcome.message }}
+                <a [routerLink]="['/design', outcome.presetId]" target="_blank">Open the backup</a>
               </p>
             } @else if (outcome.kind === 'downloaded') {
               <p class="backed-up" role="status">{{ outcome.message }}</p>
             } @else {
               <p class="no-answer" role="alert">{{ outcome.message }}</p>
-              <p>Send only if you do not need what program {{ data.program }} holds, or choose a free program in the output settings.</p>
+              <p>
+                Send only if you do not need what program {{ data.program }} holds, or choose a free
+                program in the output settings.
+              </p>
             }
           } @else if (asking()) {
             <p role="status">Asking {{ data.portName }} for tuning program {{ data.program }}…</p>
-            <mat-progress-bar mode="indeterminate" aria-label="Waiting for the instrument's answer" />
+            <mat-progress-bar
+              mode="indeterminate"
+              aria-label="Waiting for the instrument's answer"
+            />
           } @else {
-            <p>Keep a copy first: the instrument is asked for what program {{ data.program }} holds now.</p>
-            <button mat-stroked-button type="button" class="back-up" (click)="backUp()">Back up the instrument's tuning first</button>
+            <p>
+              Keep a copy first: the instrument is asked for what program {{ data.program }} holds
+              now.
+            </p>
+            <button mat-stroked-button type="button" class="back-up" (click)="backUp()">
+              Back up the instrument's tuning first
+            </button>
           }
         } @else {
           <p>Back it up first, or choose a tuning program that is free. {{ data.noBackup }}</p>
@@ -64,7 +82,13 @@ export interface OverwriteQuestion {
     </mat-dialog-content>
     <mat-dialog-actions align="end">
       <button mat-button type="button" [mat-dialog-close]="false">Cancel</button>
-      <button mat-flat-button type="button" class="send" [mat-dialog-close]="true" [disabled]="asking()">
+      <button
+        mat-flat-button
+        type="button"
+        class="send"
+        [mat-dialog-close]="true"
+        [disabled]="asking()"
+      >
         {{ withoutBackup() ? 'Send without a backup' : 'Send and replace' }}
       </button>
     </mat-dialog-actions>

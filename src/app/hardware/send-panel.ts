@@ -18,7 +18,11 @@ import { TuningSender } from './tuning-sender';
 
 /** Every byte as two hex digits, a message a line. */
 function hexLines(messages: Uint8Array[]): string {
-  return messages.map((message) => Array.from(message, (byte) => byte.toString(16).toUpperCase().padStart(2, '0')).join(' ')).join('\n');
+  return messages
+    .map((message) =>
+      Array.from(message, (byte) => byte.toString(16).toUpperCase().padStart(2, '0')).join(' '),
+    )
+    .join('\n');
 }
 
 /** Putting the tuning into a connected instrument over Web MIDI, once or following every edit. */
@@ -26,8 +30,14 @@ function hexLines(messages: Uint8Array[]): string {
   selector: 'app-send-panel',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    FormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, MatSelectModule,
-    MatSlideToggleModule, InstrumentSend,
+    FormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSlideToggleModule,
+    InstrumentSend,
   ],
   templateUrl: './send-panel.html',
   styleUrl: './send-panel.scss',
@@ -49,7 +59,11 @@ export class SendPanel {
     return built.ok ? built.messages.reduce((sum, message) => sum + message.length, 0) : 0;
   });
   protected readonly usesProgram = computed(() => !this.sender.form().startsWith('mts-octave'));
-  protected readonly usesBank = computed(() => this.sender.form() === 'mts-bulk-bank' || (this.sender.form() === 'mts-notes' && this.sender.bank() !== 0));
+  protected readonly usesBank = computed(
+    () =>
+      this.sender.form() === 'mts-bulk-bank' ||
+      (this.sender.form() === 'mts-notes' && this.sender.bank() !== 0),
+  );
 
   protected async connectMidi(): Promise<void> {
     if (!(await this.midi.open())) return;
@@ -76,9 +90,11 @@ export class SendPanel {
       backUp: canBackUp ? () => this.backup.backUp() : null,
       noBackup: this.midi.inputs().length
         ? 'To back it up from here, choose the instrument under "Answers from (MIDI input)".'
-        : 'To back it up from here, connect the instrument\'s MIDI output to this computer too.',
+        : "To back it up from here, connect the instrument's MIDI output to this computer too.",
     };
-    const answer = await firstValueFrom(this.dialog.open(OverwriteDialog, { data: question }).afterClosed());
+    const answer = await firstValueFrom(
+      this.dialog.open(OverwriteDialog, { data: question }).afterClosed(),
+    );
     if (answer === true) await this.sender.send();
   }
 

@@ -14,13 +14,21 @@ import { TuningSender } from './tuning-sender';
 
 /**
  * MIDI Tuning specification, bulk dump `F0 7E dev 08 01 tt name[16] (xx yy zz)x128 cs F7`, written
-  * out here by the rule:
+ * out here by the rule:
  * 12-tone equal, device 7F, program 0, name "12-TET" padded with spaces, entries `nn 00 00`, checksum the XOR of
  * every byte from 7E up to the last data byte, AND 7F. The published check value is 0x63, 408 bytes.
  */
 function twelveToneDump(program = 0): Uint8Array {
   const name = Array.from('12-TET'.padEnd(16, ' '), (character) => character.charCodeAt(0));
-  const body = [0x7e, 0x7f, 0x08, 0x01, program, ...name, ...Array.from({ length: 128 }, (_, key) => [key, 0, 0]).flat()];
+  const body = [
+    0x7e,
+    0x7f,
+    0x08,
+    0x01,
+    program,
+    ...name,
+    ...Array.from({ length: 128 }, (_, key) => [key, 0, 0]).flat(),
+  ];
   const checksum = body.reduce((sum, byte) => sum ^ byte, 0) & 0x7f;
   return Uint8Array.from([0xf0, ...body, checksum, 0xf7]);
 }
@@ -47,10 +55,26 @@ function connect(instrument: FakeInstrument): void {
 async function setUp(instrument: FakeInstrument, member: boolean) {
   connect(instrument);
   TestBed.configureTestingModule({
-    providers: [DesignState, MidiAccess, TuningSender, TuningBackup, provideHttpClient(), provideHttpClientTesting()],
+    providers: [
+      DesignState,
+      MidiAccess,
+      TuningSender,
+      TuningBackup,
+      provideHttpClient(),
+      provideHttpClientTesting(),
+    ],
   });
   TestBed.inject(Session).member.set(
-    member ? { id: 'u-ines', login: 'ines-coil', name: 'Ines Coil', email: null, avatarUrl: null, siteRole: 'member' } : null,
+    member
+      ? {
+          id: 'u-ines',
+          login: 'ines-coil',
+          name: 'Ines Coil',
+          email: null,
+          avatarUrl: null,
+          siteRole: 'member',
+        }
+      : null,
   );
   expect(await TestBed.inject(MidiAccess).open()).toBeTrue();
   TestBed.inject(TuningSender).outputId.set('out-1');
@@ -64,40 +88,59 @@ describe('TuningBackup', () => {
     expect(dump[406]).toBe(0x63);
   });
 
-  it('asks with the dump request for the program about to be overwritten and keeps the answer as a preset', async () => {
-    const instrument: FakeInstrument = { requests: [], answer: 'dump' };
-    const backup = await setUp(instrument, true);
-    TestBed.inject(DesignState).setOutputField('program', 5);
-    expect(backup.inputName()).toBe('Test synth');
-    const asked = backup.backUp();
-    const http = TestBed.inject(HttpTestingController);
-    const save = await waitFor('the backup to be saved', () => http.match('/api/presets')[0]);
-    // MIDI Tuning specification: dump request `F0 7E dev 08 00 tt F7`, device 7F (every device)
-    // unless set, tt the program.
-    expect(instrument.requests).toEqual([[0xf0, 0x7e, 0x7f, 0x08, 0x00, 0x05, 0xf7]]);
-    const body = save.request.body as { document: { name: string; scale: { kind: string; degrees?: string[] } }; note: string };
-    expect(body.document.name).toMatch(/^12-TET, backed up from Test synth program 5 \(\d{4}-\d\d-\d\d\)$/);
-    // The twelve keys of an octave, 100 cents apart, as read back from the dump.
-    expect(body.document.scale.degrees?.map((degree) => parseFloat(degree))).toEqual([100, 200, 300, 400, 500, 600, 700, 800, 900, 1000, 1100]);
-    expect(body.note).toContain('Backup of tuning program 5 on Test synth');
-    save.flush({ id: 'p-backup', revision: 1 });
-    const outcome = await asked;
-    expect(outcome.kind).toBe('kept');
-    expect(outcome.message).toContain('in your library');
-  }, patientSpecMs);
+  it(
+    'asks with the dump request for the program about to be overwritten and keeps the answer as a preset',
+    async () => {
+      const instrument: FakeInstrument = { requests: [], answer: 'dump' };
+      const backup = await setUp(instrument, true);
+      TestBed.inject(DesignState).setOutputField('program', 5);
+      expect(backup.inputName()).toBe('Test synth');
+      const asked = backup.backUp();
+      const http = TestBed.inject(HttpTestingController);
+      const save = await waitFor('the backup to be saved', () => http.match('/api/presets')[0]);
+      // MIDI Tuning specification: dump request `F0 7E dev 08 00 tt F7`, device 7F (every device)
+      // unless set, tt the program.
+      expect(instrument.requests).toEqual([[0xf0, 0x7e, 0x7f, 0x08, 0x00, 0x05, 0xf7]]);
+      const body = save.request.body as {
+        document: { name: string; scale: { kind: string; degrees?: string[] } };
+        note: string;
+      };
+      expect(body.document.name).toMatch(
+        /^12-TET, backed up from Test synth program 5 \(\d{4}-\d\d-\d\d\)$/,
+      );
+      // The twelve keys of an octave, 100 cents apart, as read back from the dump.
+      expect(body.document.scale.degrees?.map((degree) => parseFloat(degree))).toEqual([
+        100, 200, 300, 400, 500, 600, 700, 800, 900, 1000, 1100,
+      ]);
+      expect(body.note).toContain('Backup of tuning program 5 on Test synth');
+      save.flush({ id: 'p-backup', revision: 1 });
+      const outcome = await asked;
+      expect(outcome.kind).toBe('kept');
+      expect(outcome.message).toContain('in your library');
+    },
+    patientSpecMs,
+  );
 
-  it('downloads a guest\'s backup as the .syx it came as', async () => {
-    const instrument: FakeInstrument = { requests: [], answer: 'dump' };
-    const backup = await setUp(instrument, false);
-    const links: HTMLAnchorElement[] = [];
-    spyOn(HTMLAnchorElement.prototype, 'click').and.callFake(function (this: HTMLAnchorElement) {
-      links.push(this);
-    });
-    const outcome = await backup.backUp();
-    expect(outcome).toEqual({ kind: 'downloaded', fileName: 'backup-test-synth-program-0.syx', message: 'Backed up as backup-test-synth-program-0.syx (downloaded).' });
-    expect(links[0].download).toBe('backup-test-synth-program-0.syx');
-    TestBed.inject(HttpTestingController).expectNone('/api/presets');
-  }, patientSpecMs);
+  it(
+    "downloads a guest's backup as the .syx it came as",
+    async () => {
+      const instrument: FakeInstrument = { requests: [], answer: 'dump' };
+      const backup = await setUp(instrument, false);
+      const links: HTMLAnchorElement[] = [];
+      spyOn(HTMLAnchorElement.prototype, 'click').and.callFake(function (this: HTMLAnchorElement) {
+        links.push(this);
+      });
+      const outcome = await backup.backUp();
+      expect(outcome).toEqual({
+        kind: 'downloaded',
+        fileName: 'backup-test-synth-program-0.syx',
+        message: 'Backed up as backup-test-synth-program-0.syx (downloaded).',
+      });
+      expect(links[0].download).toBe('backup-test-synth-program-0.syx');
+      TestBed.inject(HttpTestingController).expectNone('/api/presets');
+    },
+    patientSpecMs,
+  );
 
   it('says plainly when the instrument does not answer, and keeps nothing', async () => {
     const instrument: FakeInstrument = { requests: [], answer: 'nothing' };
@@ -116,7 +159,11 @@ describe('OverwriteDialog', () => {
   function open(question: OverwriteQuestion) {
     TestBed.configureTestingModule({
       imports: [OverwriteDialog],
-      providers: [provideRouter([]), { provide: MAT_DIALOG_DATA, useValue: question }, { provide: MatDialogRef, useValue: { close: () => undefined } }],
+      providers: [
+        provideRouter([]),
+        { provide: MAT_DIALOG_DATA, useValue: question },
+        { provide: MatDialogRef, useValue: { close: () => undefined } },
+      ],
     });
     const fixture = TestBed.createComponent(OverwriteDialog);
     fixture.detectChanges();
@@ -124,17 +171,35 @@ describe('OverwriteDialog', () => {
   }
 
   it('offers the backup, and after no answer asks to send without one', async () => {
-    const silent = { kind: 'silent' as const, message: 'Test synth did not answer the dump request. Nothing was backed up.' };
-    const { fixture, element } = open({ portName: 'Test synth', program: 5, bank: null, backUp: async () => silent, noBackup: null });
+    const silent = {
+      kind: 'silent' as const,
+      message: 'Test synth did not answer the dump request. Nothing was backed up.',
+    };
+    const { fixture, element } = open({
+      portName: 'Test synth',
+      program: 5,
+      bank: null,
+      backUp: async () => silent,
+      noBackup: null,
+    });
     expect(element.querySelector('button.send')!.textContent!.trim()).toBe('Send and replace');
     element.querySelector<HTMLButtonElement>('button.back-up')!.click();
-    await waitFor('the answer', () => (fixture.detectChanges(), element.querySelector('.no-answer')));
+    await waitFor(
+      'the answer',
+      () => (fixture.detectChanges(), element.querySelector('.no-answer')),
+    );
     expect(element.querySelector('.no-answer')!.textContent).toContain('Nothing was backed up.');
     expect(element.querySelector('button.send')!.textContent!.trim()).toBe('Send without a backup');
   });
 
   it('says how to make a backup possible when no input from the instrument is chosen', () => {
-    const { element } = open({ portName: 'Test synth', program: 5, bank: null, backUp: null, noBackup: 'Connect the input.' });
+    const { element } = open({
+      portName: 'Test synth',
+      program: 5,
+      bank: null,
+      backUp: null,
+      noBackup: 'Connect the input.',
+    });
     expect(element.querySelector('button.back-up')).toBeNull();
     expect(element.textContent).toContain('Connect the input.');
   });

@@ -3,7 +3,12 @@ import type { Input, Listener, MessageEvent, Output } from 'webmidi';
 import { presetFromKeys } from '@shared/import/tuning-from-keys';
 import { decodeMtsMessage } from '@shared/midi/mts-decode';
 import { encodeDumpRequest } from '@shared/midi/mts-dump-request';
-import { type DecodedTuning, mtsForm, tuningSubId, universalNonRealTime } from '@shared/midi/mts-message';
+import {
+  type DecodedTuning,
+  mtsForm,
+  tuningSubId,
+  universalNonRealTime,
+} from '@shared/midi/mts-message';
 import { firstValueFrom } from 'rxjs';
 import { Session } from '../auth/session';
 import { draftFrom } from '../design/draft-document';
@@ -25,13 +30,21 @@ export type BackupOutcome =
 /** Whether a system exclusive message is an MTS bulk dump (08 01, or 08 04 with a bank). */
 function isBulkDump(data: Uint8Array): boolean {
   return (
-    data.length > 6 && data[0] === 0xf0 && data[1] === universalNonRealTime && data[3] === tuningSubId &&
+    data.length > 6 &&
+    data[0] === 0xf0 &&
+    data[1] === universalNonRealTime &&
+    data[3] === tuningSubId &&
     (data[4] === mtsForm.bulkDump || data[4] === mtsForm.bankedBulkDump)
   );
 }
 
 function fileNamePart(text: string): string {
-  return text.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'instrument';
+  return (
+    text
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '') || 'instrument'
+  );
 }
 
 /**
@@ -52,7 +65,9 @@ export class TuningBackup {
     const output = this.midi.outputs().find((port) => port.id === this.sender.outputId());
     return this.midi.inputs().find((port) => port.name === output?.name)?.id ?? null;
   });
-  readonly inputName = computed(() => this.midi.inputs().find((port) => port.id === this.inputId())?.name ?? null);
+  readonly inputName = computed(
+    () => this.midi.inputs().find((port) => port.id === this.inputId())?.name ?? null,
+  );
 
   /** Asks for the dump of the send's program and keeps it; `answerMs` is how long to wait. */
   async backUp(answerMs = backupAnswerMs): Promise<BackupOutcome> {
@@ -61,11 +76,19 @@ export class TuningBackup {
     const output = outputId ? this.midi.output(outputId) : null;
     const input = inputId ? this.midi.input(inputId) : null;
     if (!output || !input) {
-      return { kind: 'failed', message: 'Choose the instrument\'s MIDI output and input first: the backup asks on one and listens on the other.' };
+      return {
+        kind: 'failed',
+        message:
+          "Choose the instrument's MIDI output and input first: the backup asks on one and listens on the other.",
+      };
     }
     const { deviceId, program } = this.sender.target();
     const dump = await this.ask(output, input, deviceId, program, answerMs);
-    if (dump === 'refused') return { kind: 'failed', message: 'The MIDI port refused the dump request: reconnect the instrument and try again.' };
+    if (dump === 'refused')
+      return {
+        kind: 'failed',
+        message: 'The MIDI port refused the dump request: reconnect the instrument and try again.',
+      };
     if (dump === null) {
       return {
         kind: 'silent',
@@ -90,7 +113,12 @@ export class TuningBackup {
         const data = event.message.rawData;
         if (!data || !isBulkDump(data)) return;
         const decoded = decodeMtsMessage(data);
-        if (!decoded.ok || decoded.value.kind === 'dump-request' || decoded.value.program !== program) return;
+        if (
+          !decoded.ok ||
+          decoded.value.kind === 'dump-request' ||
+          decoded.value.program !== program
+        )
+          return;
         finish({ bytes: Uint8Array.from(data), tuning: decoded.value });
       };
       const timer = setTimeout(() => finish(null), answerMs);
@@ -110,9 +138,18 @@ export class TuningBackup {
   }
 
   /** A member's backup becomes a preset in their own library; a guest's is downloaded as it came, an .syx. */
-  private async keep(bytes: Uint8Array, tuning: DecodedTuning, portName: string, program: number): Promise<BackupOutcome> {
+  private async keep(
+    bytes: Uint8Array,
+    tuning: DecodedTuning,
+    portName: string,
+    program: number,
+  ): Promise<BackupOutcome> {
     const day = new Date().toISOString().slice(0, 10);
-    const name = `${tuning.name || 'Tuning'}, backed up from ${portName} program ${program} (${day})`.slice(0, 200);
+    const name =
+      `${tuning.name || 'Tuning'}, backed up from ${portName} program ${program} (${day})`.slice(
+        0,
+        200,
+      );
     const member = this.session.member();
     const imported = member ? presetFromKeys(tuning.keys, name) : null;
     if (imported?.ok) {
@@ -120,23 +157,47 @@ export class TuningBackup {
         const note = `Backup of tuning program ${program} on ${portName}, taken before sending a tuning there`;
         const saving = this.presets.create(draftFrom(imported.value.document), null, note);
         const saved = await firstValueFrom(saving);
-        return { kind: 'kept', presetId: saved.id, name, message: `Backed up as "${name}" in your library.` };
+        return {
+          kind: 'kept',
+          presetId: saved.id,
+          name,
+          message: `Backed up as "${name}" in your library.`,
+        };
       } catch (error) {
         const why = await apiErrorMessage(error, 'the library did not answer');
-        return this.download(bytes, portName, program, `Saving to your library failed (${why}), so it was downloaded instead.`);
+        return this.download(
+          bytes,
+          portName,
+          program,
+          `Saving to your library failed (${why}), so it was downloaded instead.`,
+        );
       }
     }
-    const reason = imported && !imported.ok ? `Its keys do not make a preset (${imported.errors[0].message}), so it was downloaded as it came.` : '';
+    const reason =
+      imported && !imported.ok
+        ? `Its keys do not make a preset (${imported.errors[0].message}), so it was downloaded as it came.`
+        : '';
     return this.download(bytes, portName, program, reason);
   }
 
-  private download(bytes: Uint8Array, portName: string, program: number, reason: string): BackupOutcome {
+  private download(
+    bytes: Uint8Array,
+    portName: string,
+    program: number,
+    reason: string,
+  ): BackupOutcome {
     const fileName = `backup-${fileNamePart(portName)}-program-${program}.syx`;
     const link = document.createElement('a');
-    link.href = URL.createObjectURL(new Blob([Uint8Array.from(bytes)], { type: 'application/octet-stream' }));
+    link.href = URL.createObjectURL(
+      new Blob([Uint8Array.from(bytes)], { type: 'application/octet-stream' }),
+    );
     link.download = fileName;
     link.click();
     setTimeout(() => URL.revokeObjectURL(link.href), 0);
-    return { kind: 'downloaded', fileName, message: `${reason ? `${reason} ` : ''}Backed up as ${fileName} (downloaded).`.trim() };
+    return {
+      kind: 'downloaded',
+      fileName,
+      message: `${reason ? `${reason} ` : ''}Backed up as ${fileName} (downloaded).`.trim(),
+    };
   }
 }

@@ -1,9 +1,17 @@
 import { renderExport } from '@shared/export/export-catalogue';
 import { parsePresetDocument, type ResolvedPreset } from '@shared/preset/preset-document';
 import { newDraft } from '../design/draft-document';
-import { cableMs, changedKeyMessages, keyPitches, splitSystemExclusive, tuningMessages } from './tuning-messages';
+import {
+  cableMs,
+  changedKeyMessages,
+  keyPitches,
+  splitSystemExclusive,
+  tuningMessages,
+} from './tuning-messages';
 
-function preset(edit: (draft: ReturnType<typeof newDraft>) => void = () => undefined): ResolvedPreset {
+function preset(
+  edit: (draft: ReturnType<typeof newDraft>) => void = () => undefined,
+): ResolvedPreset {
   const draft = newDraft();
   edit(draft);
   const parsed = parsePresetDocument(draft);
@@ -24,17 +32,32 @@ describe('tuning messages', () => {
 
   it('splits a .syx file into its whole F0…F7 messages', () => {
     const bytes = new Uint8Array([0xf0, 1, 2, 0xf7, 0xf0, 3, 0xf7]);
-    expect(splitSystemExclusive(bytes).map((message) => [...message])).toEqual([[0xf0, 1, 2, 0xf7], [0xf0, 3, 0xf7]]);
+    expect(splitSystemExclusive(bytes).map((message) => [...message])).toEqual([
+      [0xf0, 1, 2, 0xf7],
+      [0xf0, 3, 0xf7],
+    ]);
   });
 
   it('sends exactly the bytes of the export for each form', () => {
     // Scale/octave tuning fits 12-key layouts only: eleven fifths up make twelve degrees.
-    const design = preset((draft) => (draft.scale = { kind: 'generated', generator: '3/2', period: '2/1', up: 11, down: 0 }));
-    for (const form of ['mts-bulk', 'mts-notes', 'mts-octave-1', 'mts-octave-2', 'mts-bulk-bank'] as const) {
+    const design = preset(
+      (draft) =>
+        (draft.scale = { kind: 'generated', generator: '3/2', period: '2/1', up: 11, down: 0 }),
+    );
+    for (const form of [
+      'mts-bulk',
+      'mts-notes',
+      'mts-octave-1',
+      'mts-octave-2',
+      'mts-bulk-bank',
+    ] as const) {
       const sent = tuningMessages(design, form, design.output);
       const exported = renderExport(design, form);
       if (!sent.ok || !exported.ok) fail(`${form} did not render`);
-      else expect(joined(sent.value)).withContext(form).toEqual([...exported.value.bytes]);
+      else
+        expect(joined(sent.value))
+          .withContext(form)
+          .toEqual([...exported.value.bytes]);
     }
   });
 
@@ -47,15 +70,25 @@ describe('tuning messages', () => {
 
   it('sends single-note changes for only the keys whose pitch changed', () => {
     const before = keyPitches(preset())!;
-    const after = keyPitches(preset((draft) => (draft.mapping = { ...draft.mapping, rootKey: 60, rootHz: 262 })))!;
+    const after = keyPitches(
+      preset((draft) => (draft.mapping = { ...draft.mapping, rootKey: 60, rootHz: 262 })),
+    )!;
     expect(changedKeyMessages(before, before, { deviceId: 127, program: 0, bank: 0 })).toEqual([]);
-    const tweaked = before.map((entry) => (entry.key === 64 ? { ...entry, hz: entry.hz! * 1.001 } : entry));
-    const [message, ...rest] = changedKeyMessages(before, tweaked, { deviceId: 127, program: 5, bank: 0 });
+    const tweaked = before.map((entry) =>
+      entry.key === 64 ? { ...entry, hz: entry.hz! * 1.001 } : entry,
+    );
+    const [message, ...rest] = changedKeyMessages(before, tweaked, {
+      deviceId: 127,
+      program: 5,
+      bank: 0,
+    });
     // MIDI Tuning specification: F0 7F dev 08 02 tt ll (kk xx yy zz)xll F7, 8 + 4ll bytes.
     expect(rest).toEqual([]);
     expect([...message.subarray(0, 8)]).toEqual([0xf0, 0x7f, 0x7f, 0x08, 0x02, 5, 1, 64]);
     expect(message.length).toBe(12);
     const everyKey = changedKeyMessages(before, after, { deviceId: 127, program: 0, bank: 0 });
-    expect(everyKey.reduce((count, changes) => count + changes[6], 0)).toBe(after.filter((entry) => entry.hz !== null).length);
+    expect(everyKey.reduce((count, changes) => count + changes[6], 0)).toBe(
+      after.filter((entry) => entry.hz !== null).length,
+    );
   });
 });

@@ -49,7 +49,11 @@ export function splitSystemExclusive(bytes: Uint8Array): Uint8Array[] {
  * The messages that put `preset` into `target` in form `form`: exactly the bytes of the export that
  * form names, with the device id, program and bank given.
  */
-export function tuningMessages(preset: ResolvedPreset, form: MessageFormId, target: SendTarget): Result<Uint8Array[]> {
+export function tuningMessages(
+  preset: ResolvedPreset,
+  form: MessageFormId,
+  target: SendTarget,
+): Result<Uint8Array[]> {
   const aimed = { ...preset, output: { ...preset.output, ...target } };
   const rendered = renderExport(aimed, form);
   if (!rendered.ok) return rendered;
@@ -66,8 +70,14 @@ export function keyPitches(preset: ResolvedPreset): KeyPitch[] | null {
  * Real-time single-note changes (08 02) for the keys whose pitch differs between `before` and
  * `after`; keys that became unmapped are left as they sound.
  */
-export function changedKeyMessages(before: readonly KeyPitch[], after: readonly KeyPitch[], target: SendTarget): Uint8Array[] {
-  const changed = after.filter((entry, index) => entry.hz !== null && entry.hz !== before[index]?.hz);
+export function changedKeyMessages(
+  before: readonly KeyPitch[],
+  after: readonly KeyPitch[],
+  target: SendTarget,
+): Uint8Array[] {
+  const changed = after.filter(
+    (entry, index) => entry.hz !== null && entry.hz !== before[index]?.hz,
+  );
   if (changed.length === 0) return [];
   return encodeSingleNoteChanges(changed, target, { withBank: false }).messages;
 }

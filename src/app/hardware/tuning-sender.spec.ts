@@ -24,7 +24,9 @@ describe('TuningSender and LiveFollow', () => {
     port = standInOutput();
     access = standInAccess({ outputs: [port] });
     request = spyOn(navigator, 'requestMIDIAccess').and.callFake(() => Promise.resolve(access));
-    TestBed.configureTestingModule({ providers: [DesignState, MidiAccess, TuningSender, LiveFollow] });
+    TestBed.configureTestingModule({
+      providers: [DesignState, MidiAccess, TuningSender, LiveFollow],
+    });
     state = TestBed.inject(DesignState);
     sender = TestBed.inject(TuningSender);
     expect(await TestBed.inject(MidiAccess).open()).toBeTrue();
@@ -74,27 +76,38 @@ describe('TuningSender and LiveFollow', () => {
     expect(sender.fault()).toContain('The MIDI port disappeared while sending');
   });
 
-  it('live follow sends only the keys whose pitch changed, and counts them', async () => {
-    const follow = TestBed.inject(LiveFollow);
-    follow.start();
-    state.setMappingField('rootHz', 262);
-    TestBed.tick();
-    // A settled edit goes out in one go, so the first message means all of them are there.
-    await waitFor(`the changed keys, sent ${followDebounceMs} ms after the edit`, () => port.sent.length > 0);
-    const changedKeys = port.sent.reduce((count, message) => count + message[6], 0);
-    const mapped = state.shown()!.table.keys.filter((key) => key.hz !== null).length;
-    expect(changedKeys).toBe(mapped);
-    port.sent = [];
-    state.setScaleField('up', 6);
-    TestBed.tick();
-    await waitFor(`the keys the next edit changed, sent ${followDebounceMs} ms after it`, () => port.sent.length > 0);
-    expect(port.sent.length).toBeGreaterThan(0);
-    const keys = port.sent.flatMap((message) => Array.from({ length: message[6] }, (_, index) => message[7 + 4 * index]));
-    expect(keys.length).toBeLessThan(mapped);
-    expect(follow.messagesSent()).toBeGreaterThan(port.sent.length);
-    expect(follow.bytesSent()).toBeGreaterThan(0);
-  }, patientSpecMs);
-
+  it(
+    'live follow sends only the keys whose pitch changed, and counts them',
+    async () => {
+      const follow = TestBed.inject(LiveFollow);
+      follow.start();
+      state.setMappingField('rootHz', 262);
+      TestBed.tick();
+      // A settled edit goes out in one go, so the first message means all of them are there.
+      await waitFor(
+        `the changed keys, sent ${followDebounceMs} ms after the edit`,
+        () => port.sent.length > 0,
+      );
+      const changedKeys = port.sent.reduce((count, message) => count + message[6], 0);
+      const mapped = state.shown()!.table.keys.filter((key) => key.hz !== null).length;
+      expect(changedKeys).toBe(mapped);
+      port.sent = [];
+      state.setScaleField('up', 6);
+      TestBed.tick();
+      await waitFor(
+        `the keys the next edit changed, sent ${followDebounceMs} ms after it`,
+        () => port.sent.length > 0,
+      );
+      expect(port.sent.length).toBeGreaterThan(0);
+      const keys = port.sent.flatMap((message) =>
+        Array.from({ length: message[6] }, (_, index) => message[7 + 4 * index]),
+      );
+      expect(keys.length).toBeLessThan(mapped);
+      expect(follow.messagesSent()).toBeGreaterThan(port.sent.length);
+      expect(follow.bytesSent()).toBeGreaterThan(0);
+    },
+    patientSpecMs,
+  );
 });
 
 describe('MidiAccess', () => {

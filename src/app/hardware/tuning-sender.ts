@@ -8,7 +8,8 @@ export interface SendProgress {
   total: number;
 }
 
-const portGone = 'The MIDI port disappeared while sending: reconnect the instrument, choose the port again and resend.';
+const portGone =
+  'The MIDI port disappeared while sending: reconnect the instrument, choose the port again and resend.';
 
 function wait(ms: number): Promise<void> {
   return new Promise((resolve) => setTimeout(resolve, ms));
@@ -35,7 +36,11 @@ export class TuningSender {
   readonly deviceId = computed(() => this.aim()?.deviceId ?? 127);
   readonly program = computed(() => this.aim()?.program ?? 0);
   readonly bank = computed(() => this.aim()?.bank ?? 0);
-  readonly target = computed<SendTarget>(() => ({ deviceId: this.deviceId(), program: this.program(), bank: this.bank() }));
+  readonly target = computed<SendTarget>(() => ({
+    deviceId: this.deviceId(),
+    program: this.program(),
+    bank: this.bank(),
+  }));
   /** The messages for the current design, or why the form cannot carry it. */
   readonly messages = computed(() => {
     const preset = this.state.shown()?.preset;

@@ -28,9 +28,13 @@ export function importNotes(preset: ResolvedPreset, table: PreviewTable): string
         : `It repeats every ${periodText(table)} rather than every octave, ${keysPerPeriod} keys to the period.`,
     );
     if (unmapped > 0) {
-      notes.push(`${unmapped} of every ${keysPerPeriod} keys are left unmapped: the instrument keeps its own pitch for them.`);
+      notes.push(
+        `${unmapped} of every ${keysPerPeriod} keys are left unmapped: the instrument keeps its own pitch for them.`,
+      );
     }
   }
-  notes.push(`Degree 0 sounds on key ${rootKey} (${noteName(rootKey)}) at ${rootHz.toFixed(2)} Hz.`);
+  notes.push(
+    `Degree 0 sounds on key ${rootKey} (${noteName(rootKey)}) at ${rootHz.toFixed(2)} Hz.`,
+  );
   return [...notes, ...table.warnings.map((warning) => warning.message)];
 }

@@ -12,7 +12,11 @@ const fenFifthsList = {
     version: 1,
     name: 'Fen Fifths',
     notes: 'Imported from a list of intervals.',
-    scale: { kind: 'list', degrees: ['9/8', '81/64', '4/3', '3/2', '27/16', '243/128'], period: '2/1' },
+    scale: {
+      kind: 'list',
+      degrees: ['9/8', '81/64', '4/3', '3/2', '27/16', '243/128'],
+      period: '2/1',
+    },
     mapping: { rootKey: 60 },
   },
 };
@@ -37,12 +41,18 @@ describe('ImportPage', () => {
   async function drop(file: File) {
     const transfer = new DataTransfer();
     transfer.items.add(file);
-    page().querySelector('app-file-drop button')!.dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, cancelable: true }));
+    page()
+      .querySelector('app-file-drop button')!
+      .dispatchEvent(new DragEvent('drop', { dataTransfer: transfer, cancelable: true }));
     await settle();
   }
 
   it('shows the degrees of an imported list and opens it in the designer with the same scale', async () => {
-    await drop(new File(['# Fen Fifths\n9/8\n81/64\n4/3\n3/2\n27/16\n243/128\n'], 'fen-fifths.txt', { type: 'text/plain' }));
+    await drop(
+      new File(['# Fen Fifths\n9/8\n81/64\n4/3\n3/2\n27/16\n243/128\n'], 'fen-fifths.txt', {
+        type: 'text/plain',
+      }),
+    );
     expect(text('.chosen')).toContain('fen-fifths.txt');
     expect(text('.status')).toBe('Reading the file…');
     const request = http.expectOne('/api/import');
@@ -60,7 +70,15 @@ describe('ImportPage', () => {
     const rows = Array.from(page().querySelectorAll('app-degree-table tbody tr')).map((row) =>
       Array.from(row.children).map((cell) => cell.textContent!.trim()),
     );
-    expect(rows.map((row) => row[2])).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
+    expect(rows.map((row) => row[2])).toEqual([
+      '1/1',
+      '9/8',
+      '81/64',
+      '4/3',
+      '3/2',
+      '27/16',
+      '243/128',
+    ]);
     // 1200·log2(9/8) = 203.910 cents and 1200·log2(81/64) = 407.820 cents (from memory, checked by the shared tests).
     expect(rows[1][3]).toBe('203.910¢');
     expect(rows[2][3]).toBe('407.820¢');
@@ -76,20 +94,31 @@ describe('ImportPage', () => {
       expect(design.name).toBe('Fen Fifths');
       expect(design.mapping.rootKey).toBe(60);
     }
-    expect(new URL(page().querySelector<HTMLAnchorElement>('a.retune')!.href).searchParams.get('d')).toBe(address.searchParams.get('d'));
+    expect(
+      new URL(page().querySelector<HTMLAnchorElement>('a.retune')!.href).searchParams.get('d'),
+    ).toBe(address.searchParams.get('d'));
   });
 
-  it('shows the server\'s refusal, which names the line at fault', async () => {
-    await drop(new File(['9/8\n5/4\n1.5\n'], 'reed-hollow.txt', { type: 'text/plain' }));
-    // The message shared/tuning/interval.ts gives for a bare decimal, at the line shared/import/interval-list.ts names.
-    const message = 'line 3: 1.5 needs a unit: write 1.5c for cents or a ratio such as 3/2';
-    http.expectOne('/api/import').flush({ error: { code: 'invalid', message, field: 'line 3' } }, { status: 400, statusText: 'Bad Request' });
-    await waitFor('the refusal', () => page().querySelector('.refusal'), settle);
-    expect(text('.refusal h3')).toBe('This file could not be imported');
-    expect(text('.refusal-message')).toBe(message);
-    expect(text('.announcement')).toBe('');
-    expect(page().querySelector('a.open')).toBeNull();
-  }, patientSpecMs);
+  it(
+    "shows the server's refusal, which names the line at fault",
+    async () => {
+      await drop(new File(['9/8\n5/4\n1.5\n'], 'reed-hollow.txt', { type: 'text/plain' }));
+      // The message shared/tuning/interval.ts gives for a bare decimal, at the line shared/import/interval-list.ts names.
+      const message = 'line 3: 1.5 needs a unit: write 1.5c for cents or a ratio such as 3/2';
+      http
+        .expectOne('/api/import')
+        .flush(
+          { error: { code: 'invalid', message, field: 'line 3' } },
+          { status: 400, statusText: 'Bad Request' },
+        );
+      await waitFor('the refusal', () => page().querySelector('.refusal'), settle);
+      expect(text('.refusal h3')).toBe('This file could not be imported');
+      expect(text('.refusal-message')).toBe(message);
+      expect(text('.announcement')).toBe('');
+      expect(page().querySelector('a.open')).toBeNull();
+    },
+    patientSpecMs,
+  );
 
   it('refuses a file over 5 MB without sending it', async () => {
     await drop(new File([new Uint8Array(6 * 1024 * 1024)], 'copper-fen.syx'));

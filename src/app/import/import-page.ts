@@ -33,7 +33,15 @@ const kindNames: Record<ImportKind, string> = {
 @Component({
   selector: 'app-import-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, FileDrop, DegreeTable],
+  imports: [
+    DecimalPipe,
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    FileDrop,
+    DegreeTable,
+  ],
   templateUrl: './import-page.html',
   styleUrl: './import-page.scss',
 })

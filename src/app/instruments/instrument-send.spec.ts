@@ -65,7 +65,9 @@ describe('InstrumentSend in the send panel', () => {
       standInOutput('out-other', 'Other MIDI'),
     ];
     received = Object.fromEntries(outputs.map((output) => [output.id, output.sent]));
-    spyOn(navigator, 'requestMIDIAccess').and.returnValue(Promise.resolve(standInAccess({ outputs })));
+    spyOn(navigator, 'requestMIDIAccess').and.returnValue(
+      Promise.resolve(standInAccess({ outputs })),
+    );
     TestBed.configureTestingModule({
       imports: [SendPanel],
       providers: [

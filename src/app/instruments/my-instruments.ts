@@ -102,7 +102,9 @@ export class MyInstruments {
           return this.api.instruments().pipe(
             map((items) => items.map((item) => this.trimmed(item))),
             catchError((error: unknown) => {
-              void apiErrorMessage(error, 'Your instruments could not be loaded.').then((message) => this.failure.set(message));
+              void apiErrorMessage(error, 'Your instruments could not be loaded.').then((message) =>
+                this.failure.set(message),
+              );
               return of([]);
             }),
           );

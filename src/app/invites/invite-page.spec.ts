@@ -7,14 +7,26 @@ import { InviteSummary } from './invite-api';
 import { InvitePage } from './invite-page';
 import { PageTest } from '../testing/page-test';
 
-const ada: Member = { id: 'u-ada', login: 'ada-quill', name: 'Ada Quill', email: null, avatarUrl: null, siteRole: 'member' };
+const ada: Member = {
+  id: 'u-ada',
+  login: 'ada-quill',
+  name: 'Ada Quill',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member',
+};
 const invite: InviteSummary = {
-  bandName: 'Copper Fen', inviter: 'Mira Vale', role: 'editor', email: 'ada.quill@example.org',
-  expiresAt: '2026-11-27T10:00:00Z', status: 'pending',
+  bandName: 'Copper Fen',
+  inviter: 'Mira Vale',
+  role: 'editor',
+  email: 'ada.quill@example.org',
+  expiresAt: '2026-11-27T10:00:00Z',
+  status: 'pending',
 };
 
 @Component({
-  selector: 'app-band-stub', template: 'band',
+  selector: 'app-band-stub',
+  template: 'band',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 class BandStub {}
@@ -24,7 +36,10 @@ describe('InvitePage', () => {
   let pages: PageTest;
 
   beforeEach(() => {
-    pages = new PageTest([{ path: 'invites/:token', component: InvitePage }, { path: 'bands/:id', component: BandStub }]);
+    pages = new PageTest([
+      { path: 'invites/:token', component: InvitePage },
+      { path: 'bands/:id', component: BandStub },
+    ]);
     http = pages.http;
   });
 
@@ -68,15 +83,22 @@ describe('InvitePage', () => {
     expect(TestBed.inject(Router).url).toBe('/bands/b-fen');
   });
 
-  it('shows the server\'s message when the invite can no longer be accepted', async () => {
+  it("shows the server's message when the invite can no longer be accepted", async () => {
     await open(ada);
     page().querySelector<HTMLButtonElement>('button.join')!.click();
     http.expectOne('/api/invites/tok-abc/accept').flush(
-      { error: { code: 'invite_revoked', message: 'This invite was revoked; ask the band\'s owner for a new one.' } },
+      {
+        error: {
+          code: 'invite_revoked',
+          message: "This invite was revoked; ask the band's owner for a new one.",
+        },
+      },
       { status: 410, statusText: 'Gone' },
     );
     await settle();
-    expect(page().querySelector('[role="alert"]')!.textContent).toContain('This invite was revoked');
+    expect(page().querySelector('[role="alert"]')!.textContent).toContain(
+      'This invite was revoked',
+    );
     expect(TestBed.inject(Router).url).toBe('/invites/tok-abc');
   });
 
@@ -95,12 +117,16 @@ describe('InvitePage', () => {
 
   it('says when the invite link is not known', async () => {
     await pages.open('/invites/tok-abc', null);
-    http.expectOne('/api/invites/tok-abc').flush(
-      { error: { code: 'not_found', message: 'No such invite.' } },
-      { status: 404, statusText: 'Not Found' },
-    );
+    http
+      .expectOne('/api/invites/tok-abc')
+      .flush(
+        { error: { code: 'not_found', message: 'No such invite.' } },
+        { status: 404, statusText: 'Not Found' },
+      );
     await settle();
     expect(page().querySelector('h1')!.textContent).toContain('This invite does not work');
-    expect(page().querySelector('[role="alert"]')!.textContent).toContain('This invite link is not known');
+    expect(page().querySelector('[role="alert"]')!.textContent).toContain(
+      'This invite link is not known',
+    );
   });
 });

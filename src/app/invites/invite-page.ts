@@ -16,7 +16,14 @@ import { InviteApi, InviteSummary } from './invite-api';
 @Component({
   selector: 'app-invite-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt],
+  imports: [
+    DatePipe,
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    SignInPrompt,
+  ],
   templateUrl: './invite-page.html',
   styleUrl: './invite-page.scss',
 })

@@ -21,7 +21,10 @@ describe('KeyTable', () => {
   }
 
   it('lists all 128 keys with note, degree, Hz, cents from 12-TET and whether each is mapped', async () => {
-    const { rows } = await render({ rootKey: 60, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] });
+    const { rows } = await render({
+      rootKey: 60,
+      layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
+    });
     expect(rows.length).toBe(128);
     // arithmetic (MIDI convention): pure G above equal-tempered C4 is 392.4383 Hz, 1.955 cents
     // above equal-tempered G4.

@@ -28,18 +28,29 @@ interface KeyRow {
       </button>
       @if (open()) {
         <table class="keys">
-          <caption>Every key: the degree it plays, its pitch, and cents from its 12-tone equal-tempered pitch</caption>
+          <caption>
+            Every key: the degree it plays, its pitch, and cents from its 12-tone equal-tempered
+            pitch
+          </caption>
           <thead>
             <tr>
-              <th scope="col">Key</th><th scope="col">Note</th><th scope="col">Degree</th>
-              <th scope="col">Hz</th><th scope="col">Cents from 12-TET</th><th scope="col">Mapped</th>
+              <th scope="col">Key</th>
+              <th scope="col">Note</th>
+              <th scope="col">Degree</th>
+              <th scope="col">Hz</th>
+              <th scope="col">Cents from 12-TET</th>
+              <th scope="col">Mapped</th>
             </tr>
           </thead>
           <tbody>
             @for (row of rows(); track row.key) {
               <tr [class.unmapped]="!row.mapped">
-                <th scope="row">{{ row.key }}</th><td>{{ row.note }}</td><td>{{ row.degree }}</td>
-                <td class="number">{{ row.hz }}</td><td class="number">{{ row.offset }}</td><td>{{ row.mapped ? 'yes' : 'no' }}</td>
+                <th scope="row">{{ row.key }}</th>
+                <td>{{ row.note }}</td>
+                <td>{{ row.degree }}</td>
+                <td class="number">{{ row.hz }}</td>
+                <td class="number">{{ row.offset }}</td>
+                <td>{{ row.mapped ? 'yes' : 'no' }}</td>
               </tr>
             }
           </tbody>
@@ -48,14 +59,39 @@ interface KeyRow {
     </details>
   `,
   styles: `
-    :host { display: block; margin-top: 16px; }
-    summary { font: var(--mat-sys-title-small); cursor: pointer; }
-    .print { margin: 8px 0; }
-    .keys { border-collapse: collapse; font-variant-numeric: tabular-nums; font: var(--mat-sys-body-small); }
-    .keys caption { text-align: left; margin-bottom: 4px; color: var(--mat-sys-on-surface-variant); }
-    .keys th, .keys td { padding: 2px 12px 2px 0; text-align: left; border-bottom: 1px solid var(--mat-sys-outline-variant); }
-    .number { text-align: right; }
-    .unmapped { color: var(--mat-sys-on-surface-variant); }
+    :host {
+      display: block;
+      margin-top: 16px;
+    }
+    summary {
+      font: var(--mat-sys-title-small);
+      cursor: pointer;
+    }
+    .print {
+      margin: 8px 0;
+    }
+    .keys {
+      border-collapse: collapse;
+      font-variant-numeric: tabular-nums;
+      font: var(--mat-sys-body-small);
+    }
+    .keys caption {
+      text-align: left;
+      margin-bottom: 4px;
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .keys th,
+    .keys td {
+      padding: 2px 12px 2px 0;
+      text-align: left;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+    }
+    .number {
+      text-align: right;
+    }
+    .unmapped {
+      color: var(--mat-sys-on-surface-variant);
+    }
   `,
 })
 export class KeyTable {

@@ -35,11 +35,15 @@ describe('KeyboardStrip', () => {
   it('marks the key tuned to the reference pitch, and says so below', () => {
     const plain = render({ rootKey: 60 });
     expect(plain.element.querySelector('g.key.anchor')).toBeNull();
-    expect(plain.element.querySelector('.legend')?.textContent).not.toContain('tuned to the reference pitch');
+    expect(plain.element.querySelector('.legend')?.textContent).not.toContain(
+      'tuned to the reference pitch',
+    );
     const { element, key } = render({ rootKey: 60, anchor: { key: 69, hz: 415 } }, 69);
     expect(key(69).classList).toContain('anchor');
     expect(element.querySelectorAll('g.key.anchor').length).toBe(1);
-    expect(element.querySelector('.legend')?.textContent).toContain('key 69 is tuned to the reference pitch');
+    expect(element.querySelector('.legend')?.textContent).toContain(
+      'key 69 is tuned to the reference pitch',
+    );
   });
 
   it('marks unmapped keys, hatched and crossed, and says how many there are', () => {
@@ -51,6 +55,8 @@ describe('KeyboardStrip', () => {
     expect(key(61).querySelector('title')?.textContent).toContain('unmapped, plays nothing');
     expect(key(62).classList).not.toContain('unmapped');
     expect(element.querySelectorAll('g.key.unmapped').length).toBe(53);
-    expect(element.querySelector('svg')?.getAttribute('aria-label')).toContain('75 play a degree, 53 unmapped');
+    expect(element.querySelector('svg')?.getAttribute('aria-label')).toContain(
+      '75 play a degree, 53 unmapped',
+    );
   });
 });

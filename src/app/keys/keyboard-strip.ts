@@ -46,20 +46,50 @@ function fillFor(degree: number, size: number, black: boolean): string {
   selector: 'app-keyboard-strip',
   changeDetection: ChangeDetectionStrategy.OnPush,
   template: `
-    <div class="scroller" #scroller tabindex="0" role="region" aria-label="Keyboard, scrolls sideways">
-      <svg [attr.width]="width" [attr.height]="labelRow + 6" role="img" [attr.aria-label]="description()">
+    <div
+      class="scroller"
+      #scroller
+      tabindex="0"
+      role="region"
+      aria-label="Keyboard, scrolls sideways"
+    >
+      <svg
+        [attr.width]="width"
+        [attr.height]="labelRow + 6"
+        role="img"
+        [attr.aria-label]="description()"
+      >
         <defs>
-          <pattern id="unmapped-hatch" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
+          <pattern
+            id="unmapped-hatch"
+            width="6"
+            height="6"
+            patternUnits="userSpaceOnUse"
+            patternTransform="rotate(45)"
+          >
             <rect width="6" height="6" class="hatch-ground" />
             <line x1="0" y1="0" x2="0" y2="6" class="hatch-line" />
           </pattern>
         </defs>
         @for (key of drawn(); track key.key) {
-          <g class="key" [class.black]="key.black" [class.unmapped]="!key.mapped" [class.outside]="key.outside"
-             [class.root]="key.root" [class.anchor]="key.anchor" [attr.data-key]="key.key">
+          <g
+            class="key"
+            [class.black]="key.black"
+            [class.unmapped]="!key.mapped"
+            [class.outside]="key.outside"
+            [class.root]="key.root"
+            [class.anchor]="key.anchor"
+            [attr.data-key]="key.key"
+          >
             <title>{{ key.title }}</title>
-            <rect [attr.x]="key.x" y="0" [attr.width]="key.width" [attr.height]="key.height" rx="2"
-                  [attr.fill]="key.mapped ? key.fill : 'url(#unmapped-hatch)'" />
+            <rect
+              [attr.x]="key.x"
+              y="0"
+              [attr.width]="key.width"
+              [attr.height]="key.height"
+              rx="2"
+              [attr.fill]="key.mapped ? key.fill : 'url(#unmapped-hatch)'"
+            />
             <text [attr.x]="key.x + key.width / 2" [attr.y]="key.labelY">{{ key.label }}</text>
           </g>
         }
@@ -69,39 +99,110 @@ function fillFor(degree: number, size: number, black: boolean): string {
       </svg>
     </div>
     <p class="legend">
-      <span class="swatch unmapped-swatch" aria-hidden="true"></span> hatched keys are unmapped and play nothing;
-      <span class="swatch root-swatch" aria-hidden="true"></span> the root key plays degree 0.
+      <span class="swatch unmapped-swatch" aria-hidden="true"></span> hatched keys are unmapped and
+      play nothing; <span class="swatch root-swatch" aria-hidden="true"></span> the root key plays
+      degree 0.
       @if (anchorKey() !== null) {
-        <span class="swatch anchor-swatch" aria-hidden="true"></span> key {{ anchorKey() }} is tuned to the reference pitch.
+        <span class="swatch anchor-swatch" aria-hidden="true"></span> key {{ anchorKey() }} is tuned
+        to the reference pitch.
       }
       @if (outsideCount() > 0) {
         <strong class="outside-note">
-          {{ outsideCount() === 1 ? '1 key lies' : outsideCount() + ' keys lie' }} outside what MTS can express.
+          {{ outsideCount() === 1 ? '1 key lies' : outsideCount() + ' keys lie' }} outside what MTS
+          can express.
         </strong>
       }
     </p>
   `,
   styles: `
-    :host { display: block; }
-    .scroller { overflow-x: auto; max-width: 100%; padding-bottom: 4px; }
-    svg { display: block; font-family: inherit; }
-    .key rect { stroke: var(--mat-sys-outline); stroke-width: 1; }
-    .key text { font-size: 9px; text-anchor: middle; fill: #1b1b1f; pointer-events: none; }
-    .key.black text { fill: #fff; }
-    .key.unmapped text { fill: var(--mat-sys-on-surface-variant); }
-    .key.root rect { stroke: var(--mat-sys-tertiary); stroke-width: 3; }
-    .key.anchor rect { stroke: var(--mat-sys-primary); stroke-width: 3; stroke-dasharray: 4 2; }
-    .key.outside rect { stroke: var(--mat-sys-error); stroke-dasharray: 3 2; stroke-width: 2; }
-    .hatch-ground { fill: var(--mat-sys-surface-container-high); }
-    .key.black .hatch-ground { fill: var(--mat-sys-surface-container-highest); }
-    .hatch-line { stroke: var(--mat-sys-outline); stroke-width: 2; }
-    .octave { font-size: 10px; fill: var(--mat-sys-on-surface-variant); }
-    .legend { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); margin: 6px 0 0; }
-    .swatch { display: inline-block; width: 12px; height: 12px; vertical-align: -2px; border: 1px solid var(--mat-sys-outline); }
-    .unmapped-swatch { background: repeating-linear-gradient(45deg, var(--mat-sys-outline) 0 2px, transparent 2px 5px); }
-    .root-swatch { border: 3px solid var(--mat-sys-tertiary); width: 8px; height: 8px; }
-    .anchor-swatch { border: 3px dashed var(--mat-sys-primary); width: 8px; height: 8px; }
-    .outside-note { color: var(--mat-sys-error); }
+    :host {
+      display: block;
+    }
+    .scroller {
+      overflow-x: auto;
+      max-width: 100%;
+      padding-bottom: 4px;
+    }
+    svg {
+      display: block;
+      font-family: inherit;
+    }
+    .key rect {
+      stroke: var(--mat-sys-outline);
+      stroke-width: 1;
+    }
+    .key text {
+      font-size: 9px;
+      text-anchor: middle;
+      fill: #1b1b1f;
+      pointer-events: none;
+    }
+    .key.black text {
+      fill: #fff;
+    }
+    .key.unmapped text {
+      fill: var(--mat-sys-on-surface-variant);
+    }
+    .key.root rect {
+      stroke: var(--mat-sys-tertiary);
+      stroke-width: 3;
+    }
+    .key.anchor rect {
+      stroke: var(--mat-sys-primary);
+      stroke-width: 3;
+      stroke-dasharray: 4 2;
+    }
+    .key.outside rect {
+      stroke: var(--mat-sys-error);
+      stroke-dasharray: 3 2;
+      stroke-width: 2;
+    }
+    .hatch-ground {
+      fill: var(--mat-sys-surface-container-high);
+    }
+    .key.black .hatch-ground {
+      fill: var(--mat-sys-surface-container-highest);
+    }
+    .hatch-line {
+      stroke: var(--mat-sys-outline);
+      stroke-width: 2;
+    }
+    .octave {
+      font-size: 10px;
+      fill: var(--mat-sys-on-surface-variant);
+    }
+    .legend {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+      margin: 6px 0 0;
+    }
+    .swatch {
+      display: inline-block;
+      width: 12px;
+      height: 12px;
+      vertical-align: -2px;
+      border: 1px solid var(--mat-sys-outline);
+    }
+    .unmapped-swatch {
+      background: repeating-linear-gradient(
+        45deg,
+        var(--mat-sys-outline) 0 2px,
+        transparent 2px 5px
+      );
+    }
+    .root-swatch {
+      border: 3px solid var(--mat-sys-tertiary);
+      width: 8px;
+      height: 8px;
+    }
+    .anchor-swatch {
+      border: 3px dashed var(--mat-sys-primary);
+      width: 8px;
+      height: 8px;
+    }
+    .outside-note {
+      color: var(--mat-sys-error);
+    }
   `,
 })
 export class KeyboardStrip {
@@ -124,7 +225,9 @@ export class KeyboardStrip {
     const drawn = this.keys().map((entry) => this.draw(entry));
     return [...drawn.filter((key) => !key.black), ...drawn.filter((key) => key.black)];
   });
-  protected readonly outsideCount = computed(() => this.keys().filter((key) => key.outOfMtsRange).length);
+  protected readonly outsideCount = computed(
+    () => this.keys().filter((key) => key.outOfMtsRange).length,
+  );
   protected readonly description = computed(() => {
     const unmapped = this.keys().filter((key) => key.degree === null).length;
     const root = this.rootKey();

@@ -20,10 +20,25 @@ describe('LayoutEditor', () => {
     const { fixture, element, keys, state } = await render(true);
     expect(keys().length).toBe(12);
     expect(keys().map((key) => key.textContent?.replace(/\s+/g, ''))).toEqual([
-      'C40', 'C#4–', 'D41', 'D#4–', 'E42', 'F43', 'F#4–', 'G44', 'G#4–', 'A45', 'A#4–', 'B46',
+      'C40',
+      'C#4–',
+      'D41',
+      'D#4–',
+      'E42',
+      'F43',
+      'F#4–',
+      'G44',
+      'G#4–',
+      'A45',
+      'A#4–',
+      'B46',
     ]);
-    expect(element.querySelector('.notice')?.textContent).toContain('each degree starts on the key of its nearest');
-    const oneEach = Array.from(element.querySelectorAll('button')).find((b) => b.textContent?.trim() === 'One degree per key')!;
+    expect(element.querySelector('.notice')?.textContent).toContain(
+      'each degree starts on the key of its nearest',
+    );
+    const oneEach = Array.from(element.querySelectorAll('button')).find(
+      (b) => b.textContent?.trim() === 'One degree per key',
+    )!;
     oneEach.click();
     await fixture.whenStable();
     expect(state.layout()).toBeNull();
@@ -34,14 +49,19 @@ describe('LayoutEditor', () => {
   it('shows one period of keys from the root, each with the degree it plays and an accessible name', async () => {
     const { keys } = await render();
     expect(keys().length).toBe(7);
-    expect(keys()[1].getAttribute('aria-label')).toBe('C#4 1: key 2 of the period, plays degree 1; choose its degree');
+    expect(keys()[1].getAttribute('aria-label')).toBe(
+      'C#4 1: key 2 of the period, plays degree 1; choose its degree',
+    );
   });
 
   it('leaves a key unmapped when that is chosen from its menu', async () => {
     const { fixture, keys, state } = await render();
     keys()[1].click();
     await fixture.whenStable();
-    const items = await TestbedHarnessEnvironment.documentRootLoader(fixture).getAllHarnesses(MatMenuItemHarness);
+    const items =
+      await TestbedHarnessEnvironment.documentRootLoader(fixture).getAllHarnesses(
+        MatMenuItemHarness,
+      );
     expect(await items[0].getText()).toBe('Unmapped (plays nothing)');
     expect(items.length).toBe(8);
     await items[0].click();
@@ -66,6 +86,8 @@ describe('LayoutEditor', () => {
     state.assignKey(0, 0);
     state.setScaleField('up', 2);
     await fixture.whenStable();
-    expect(element.querySelector('.fault')?.textContent).toContain('Key 5 (E4): degree 4 does not exist');
+    expect(element.querySelector('.fault')?.textContent).toContain(
+      'Key 5 (E4): degree 4 does not exist',
+    );
   });
 });

@@ -6,7 +6,10 @@ const semitoneCents = 100;
  * one block spanning the period in semitones (12 keys for an octave): five fifths up and one down
  * land on the white keys. Null when two degrees would share a key or the period is under a semitone.
  */
-export function nearestKeyLayout(degreeCents: number[], periodCents: number): (number | null)[] | null {
+export function nearestKeyLayout(
+  degreeCents: number[],
+  periodCents: number,
+): (number | null)[] | null {
   const keys = Math.round(periodCents / semitoneCents);
   if (keys < 1 || keys > 128 || degreeCents.length > keys) return null;
   const layout: (number | null)[] = new Array(keys).fill(null);

@@ -5,5 +5,7 @@ import { noteName } from '@shared/tuning/twelve-edo';
 export function pitchWords(mapping: ResolvedPreset['mapping']): string {
   const { rootKey, rootHz, anchor } = mapping;
   const root = `key ${rootKey} (${noteName(rootKey)}) sounds ${rootHz.toFixed(4)} Hz.`;
-  return anchor ? `Key ${anchor.key} (${noteName(anchor.key)}) sounds ${anchor.hz} Hz; root ${root}` : `Root ${root}`;
+  return anchor
+    ? `Key ${anchor.key} (${noteName(anchor.key)}) sounds ${anchor.hz} Hz; root ${root}`
+    : `Root ${root}`;
 }

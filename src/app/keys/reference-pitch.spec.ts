@@ -9,7 +9,8 @@ describe('ReferencePitch', () => {
     await fixture.whenStable();
     const element = fixture.nativeElement as HTMLElement;
     const state = TestBed.inject(DesignState);
-    const button = (text: string) => Array.from(element.querySelectorAll('button')).find((b) => b.textContent?.trim() === text)!;
+    const button = (text: string) =>
+      Array.from(element.querySelectorAll('button')).find((b) => b.textContent?.trim() === text)!;
     const summary = () => element.querySelector('.summary')?.textContent?.trim();
     return { fixture, element, state, button, summary };
   }
@@ -40,7 +41,9 @@ describe('ReferencePitch', () => {
     const { fixture, element, button } = await render();
     button('Tune one key').click();
     await fixture.whenStable();
-    const quick = Array.from(element.querySelectorAll('[aria-label="Tune the A key to"] button')).map((b) => b.textContent?.trim());
+    const quick = Array.from(
+      element.querySelectorAll('[aria-label="Tune the A key to"] button'),
+    ).map((b) => b.textContent?.trim());
     expect(quick.slice(0, 5)).toEqual(['A = 415', 'A = 430', 'A = 432', 'A = 440', 'A = 442']);
   });
 
@@ -66,7 +69,9 @@ describe('ReferencePitch', () => {
     state.assignKey(1, null);
     state.setAnchor({ key: 61 });
     await fixture.whenStable();
-    const faults = Array.from(element.querySelectorAll('app-design-field')).map((f) => f.textContent ?? '');
+    const faults = Array.from(element.querySelectorAll('app-design-field')).map(
+      (f) => f.textContent ?? '',
+    );
     expect(faults.some((text) => text.includes('61 plays no degree in this layout'))).toBeTrue();
   });
 

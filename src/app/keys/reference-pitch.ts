@@ -22,42 +22,92 @@ const commonAs = [415, 430, 432, 440, 442];
     @let mapping = state.draft().mapping;
     <fieldset [disabled]="state.readOnly()">
       <legend>Reference pitch</legend>
-      <mat-button-toggle-group class="source" [value]="state.pitchSource()" (change)="choose($event.value)"
-                               [disabled]="state.readOnly()" aria-label="How the pitch is set">
+      <mat-button-toggle-group
+        class="source"
+        [value]="state.pitchSource()"
+        (change)="choose($event.value)"
+        [disabled]="state.readOnly()"
+        aria-label="How the pitch is set"
+      >
         <mat-button-toggle value="anchor">Tune one key</mat-button-toggle>
         <mat-button-toggle value="concert">Root from concert A</mat-button-toggle>
         <mat-button-toggle value="root">Type the root's pitch</mat-button-toggle>
       </mat-button-toggle-group>
       <div class="fields">
-        <app-design-field label="Root key" path="mapping.rootKey" inputMode="numeric" [value]="text(mapping.rootKey)"
-                          (edited)="state.setMappingField('rootKey', typedFrom($event))" [hint]="keyHint(mapping.rootKey, 'plays degree 0')" />
+        <app-design-field
+          label="Root key"
+          path="mapping.rootKey"
+          inputMode="numeric"
+          [value]="text(mapping.rootKey)"
+          (edited)="state.setMappingField('rootKey', typedFrom($event))"
+          [hint]="keyHint(mapping.rootKey, 'plays degree 0')"
+        />
         @switch (state.pitchSource()) {
           @case ('anchor') {
-            <app-design-field label="Key" path="mapping.anchor.key" inputMode="numeric" [value]="text(mapping.anchor?.key)"
-                              (edited)="state.setAnchor({ key: typedFrom($event) })" [hint]="keyHint(mapping.anchor?.key, 'is tuned')" />
-            <app-design-field label="sounds" path="mapping.anchor.hz" inputMode="decimal" suffix="Hz"
-                              [value]="text(mapping.anchor?.hz)" (edited)="state.setAnchor({ hz: typedFrom($event) })"
-                              hint="Exactly this pitch, in this tuning" />
+            <app-design-field
+              label="Key"
+              path="mapping.anchor.key"
+              inputMode="numeric"
+              [value]="text(mapping.anchor?.key)"
+              (edited)="state.setAnchor({ key: typedFrom($event) })"
+              [hint]="keyHint(mapping.anchor?.key, 'is tuned')"
+            />
+            <app-design-field
+              label="sounds"
+              path="mapping.anchor.hz"
+              inputMode="decimal"
+              suffix="Hz"
+              [value]="text(mapping.anchor?.hz)"
+              (edited)="state.setAnchor({ hz: typedFrom($event) })"
+              hint="Exactly this pitch, in this tuning"
+            />
           }
           @case ('root') {
-            <app-design-field label="Root pitch" path="mapping.rootHz" inputMode="decimal" suffix="Hz"
-                              [value]="text(mapping.rootHz)" (edited)="state.setMappingField('rootHz', typedFrom($event))"
-                              hint="The pitch the root key plays" />
+            <app-design-field
+              label="Root pitch"
+              path="mapping.rootHz"
+              inputMode="decimal"
+              suffix="Hz"
+              [value]="text(mapping.rootHz)"
+              (edited)="state.setMappingField('rootHz', typedFrom($event))"
+              hint="The pitch the root key plays"
+            />
           }
         }
-        <app-design-field label="Concert A" path="mapping.concertA" inputMode="decimal" suffix="Hz"
-                          [value]="text(mapping.concertA)" [placeholder]="'440'"
-                          (edited)="state.setMappingField('concertA', typedFrom($event))"
-                          hint="A4 of the equal-tempered reference, for offsets; empty means 440" />
+        <app-design-field
+          label="Concert A"
+          path="mapping.concertA"
+          inputMode="decimal"
+          suffix="Hz"
+          [value]="text(mapping.concertA)"
+          [placeholder]="'440'"
+          (edited)="state.setMappingField('concertA', typedFrom($event))"
+          hint="A4 of the equal-tempered reference, for offsets; empty means 440"
+        />
       </div>
       @if (state.pitchSource() === 'anchor') {
         <div class="quick" role="group" aria-label="Tune the A key to">
           @for (hz of commonAs; track hz) {
-            <button mat-stroked-button type="button" (click)="tuneA(hz)" [attr.aria-pressed]="isA(hz)">A = {{ hz }}</button>
+            <button
+              mat-stroked-button
+              type="button"
+              (click)="tuneA(hz)"
+              [attr.aria-pressed]="isA(hz)"
+            >
+              A = {{ hz }}
+            </button>
           }
-          <button mat-button type="button" (click)="state.pickingAnchorKey.set(!state.pickingAnchorKey())"
-                  [attr.aria-pressed]="state.pickingAnchorKey()">
-            {{ state.pickingAnchorKey() ? 'Press a key on the strip below…' : 'Pick the key on the strip' }}
+          <button
+            mat-button
+            type="button"
+            (click)="state.pickingAnchorKey.set(!state.pickingAnchorKey())"
+            [attr.aria-pressed]="state.pickingAnchorKey()"
+          >
+            {{
+              state.pickingAnchorKey()
+                ? 'Press a key on the strip below…'
+                : 'Pick the key on the strip'
+            }}
           </button>
         </div>
       }
@@ -65,13 +115,41 @@ const commonAs = [415, 430, 432, 440, 442];
     </fieldset>
   `,
   styles: `
-    fieldset { border: 0; padding: 0; margin: 0; min-width: 0; }
-    legend { font: var(--mat-sys-title-small); padding: 0; margin-bottom: 8px; }
-    .source { margin-bottom: 12px; flex-wrap: wrap; }
-    .fields { display: grid; gap: 4px 16px; grid-template-columns: repeat(auto-fill, minmax(150px, 1fr)); margin-bottom: 8px; }
-    .quick { display: flex; flex-wrap: wrap; gap: 8px; margin-bottom: 8px; }
-    .quick [aria-pressed='true'] { background: var(--mat-sys-secondary-container); color: var(--mat-sys-on-secondary-container); }
-    .summary { font: var(--mat-sys-body-medium); margin: 0; }
+    fieldset {
+      border: 0;
+      padding: 0;
+      margin: 0;
+      min-width: 0;
+    }
+    legend {
+      font: var(--mat-sys-title-small);
+      padding: 0;
+      margin-bottom: 8px;
+    }
+    .source {
+      margin-bottom: 12px;
+      flex-wrap: wrap;
+    }
+    .fields {
+      display: grid;
+      gap: 4px 16px;
+      grid-template-columns: repeat(auto-fill, minmax(150px, 1fr));
+      margin-bottom: 8px;
+    }
+    .quick {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 8px;
+      margin-bottom: 8px;
+    }
+    .quick [aria-pressed='true'] {
+      background: var(--mat-sys-secondary-container);
+      color: var(--mat-sys-on-secondary-container);
+    }
+    .summary {
+      font: var(--mat-sys-body-medium);
+      margin: 0;
+    }
   `,
 })
 export class ReferencePitch {
@@ -88,7 +166,9 @@ export class ReferencePitch {
 
   protected keyHint(key: unknown, what: string): string {
     const known = typeof key === 'number' && Number.isInteger(key) && key >= 0 && key <= 127;
-    return known ? `MIDI key ${key} is ${noteName(key)}; this key ${what}` : 'A MIDI key from 0 to 127; middle C is 60';
+    return known
+      ? `MIDI key ${key} is ${noteName(key)}; this key ${what}`
+      : 'A MIDI key from 0 to 127; middle C is 60';
   }
 
   protected choose(source: PitchSource): void {

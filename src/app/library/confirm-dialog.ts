@@ -24,7 +24,12 @@ export interface ConfirmDialogData {
       <button mat-flat-button [mat-dialog-close]="true" cdkFocusInitial>{{ data.confirm }}</button>
     </mat-dialog-actions>
   `,
-  styles: `p { max-width: 48ch; margin: 0; }`,
+  styles: `
+    p {
+      max-width: 48ch;
+      margin: 0;
+    }
+  `,
 })
 export class ConfirmDialog {
   protected readonly data = inject<ConfirmDialogData>(MAT_DIALOG_DATA);

@@ -23,7 +23,9 @@ export interface ForkDialogData {
   template: `
     <h2 mat-dialog-title>Fork “{{ data.name }}”</h2>
     <mat-dialog-content>
-      <p id="fork-where">A fork is a copy of the latest revision with a history of its own. Where should it go?</p>
+      <p id="fork-where">
+        A fork is a copy of the latest revision with a history of its own. Where should it go?
+      </p>
       <mat-radio-group class="targets" aria-labelledby="fork-where" [(ngModel)]="chosen">
         @for (target of data.targets; track target.bandId) {
           <mat-radio-button [value]="target.bandId">{{ target.label }}</mat-radio-button>
@@ -36,8 +38,14 @@ export interface ForkDialogData {
     </mat-dialog-actions>
   `,
   styles: `
-    p { max-width: 48ch; margin-top: 0; }
-    .targets { display: flex; flex-direction: column; }
+    p {
+      max-width: 48ch;
+      margin-top: 0;
+    }
+    .targets {
+      display: flex;
+      flex-direction: column;
+    }
   `,
 })
 export class ForkDialog {

@@ -5,16 +5,56 @@ import { HistoryPage } from './history-page';
 import { SavedPreset, RevisionEntry } from './library-api';
 import { PageTest } from '../testing/page-test';
 
-const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
+const mira: Member = {
+  id: 'u-mira',
+  login: 'mira-vale',
+  name: 'Mira Vale',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member',
+};
 const preset: SavedPreset = {
-  id: 'p1', name: 'Fen Fifths', bandId: 'b-fen', ownerId: 'u-mira', revision: 3, note: 'Wolf moved to G sharp',
-  document: {}, createdAt: '2026-11-01T10:00:00Z', updatedAt: '2026-11-20T09:30:00Z', deletedAt: null, forkedFrom: null,
+  id: 'p1',
+  name: 'Fen Fifths',
+  bandId: 'b-fen',
+  ownerId: 'u-mira',
+  revision: 3,
+  note: 'Wolf moved to G sharp',
+  document: {},
+  createdAt: '2026-11-01T10:00:00Z',
+  updatedAt: '2026-11-20T09:30:00Z',
+  deletedAt: null,
+  forkedFrom: null,
   access: 'edit',
 };
 const revisions: RevisionEntry[] = [
-  { revision: 3, note: 'Wolf moved to G sharp', authorId: 'u-tobias', authorLogin: 'tobias-reed', authorName: 'Tobias Reed', createdAt: '2026-11-20T09:30:00Z', name: 'Fen Fifths' },
-  { revision: 2, note: 'Twelve tones', authorId: 'u-mira', authorLogin: 'mira-vale', authorName: 'Mira Vale', createdAt: '2026-11-12T18:00:00Z', name: 'Fen Fifths' },
-  { revision: 1, note: null, authorId: 'u-mira', authorLogin: 'mira-vale', authorName: null, createdAt: '2026-11-01T11:00:00Z', name: 'Fifths from C' },
+  {
+    revision: 3,
+    note: 'Wolf moved to G sharp',
+    authorId: 'u-tobias',
+    authorLogin: 'tobias-reed',
+    authorName: 'Tobias Reed',
+    createdAt: '2026-11-20T09:30:00Z',
+    name: 'Fen Fifths',
+  },
+  {
+    revision: 2,
+    note: 'Twelve tones',
+    authorId: 'u-mira',
+    authorLogin: 'mira-vale',
+    authorName: 'Mira Vale',
+    createdAt: '2026-11-12T18:00:00Z',
+    name: 'Fen Fifths',
+  },
+  {
+    revision: 1,
+    note: null,
+    authorId: 'u-mira',
+    authorLogin: 'mira-vale',
+    authorName: null,
+    createdAt: '2026-11-01T11:00:00Z',
+    name: 'Fifths from C',
+  },
 ];
 
 describe('HistoryPage', () => {
@@ -44,7 +84,9 @@ describe('HistoryPage', () => {
   }
 
   async function selectRevision(n: number) {
-    options().find((o) => o.textContent!.includes(`Revision ${n}`))!.click();
+    options()
+      .find((o) => o.textContent!.includes(`Revision ${n}`))!
+      .click();
     await settle();
   }
 
@@ -62,7 +104,12 @@ describe('HistoryPage', () => {
   it('shows what the selected revision changed against the one before', async () => {
     await open();
     http.expectOne('/api/presets/p1/revisions/3/changes').flush({
-      from: 2, to: 3, lines: ['Degree 3/2 (701.96c) moved to 696.58c (-5.38c).', 'output.program changed from 0 to 4.'],
+      from: 2,
+      to: 3,
+      lines: [
+        'Degree 3/2 (701.96c) moved to 696.58c (-5.38c).',
+        'output.program changed from 0 to 4.',
+      ],
     });
     await settle();
     await selectRevision(2);
@@ -79,16 +126,22 @@ describe('HistoryPage', () => {
 
   it('says the first revision has nothing to compare with, without asking the server', async () => {
     await open();
-    http.expectOne('/api/presets/p1/revisions/3/changes').flush({ from: 2, to: 3, lines: ['No changes.'] });
+    http
+      .expectOne('/api/presets/p1/revisions/3/changes')
+      .flush({ from: 2, to: 3, lines: ['No changes.'] });
     await selectRevision(1);
     http.expectNone((request) => request.url.endsWith('/revisions/1/changes'));
-    expect(page().querySelector('.detail')!.textContent).toContain('nothing before it to compare with');
+    expect(page().querySelector('.detail')!.textContent).toContain(
+      'nothing before it to compare with',
+    );
     expect(page().querySelector('.detail')!.textContent).toContain('Fifths from C');
   });
 
   it('restores an old revision as a new one after saying nothing is overwritten', async () => {
     await open();
-    http.expectOne('/api/presets/p1/revisions/3/changes').flush({ from: 2, to: 3, lines: ['No changes.'] });
+    http
+      .expectOne('/api/presets/p1/revisions/3/changes')
+      .flush({ from: 2, to: 3, lines: ['No changes.'] });
     expect(page().querySelector('button.restore')).toBeNull();
     await selectRevision(1);
     page().querySelector<HTMLButtonElement>('button.restore')!.click();
@@ -106,18 +159,20 @@ describe('HistoryPage', () => {
     expect(restore.request.body).toEqual({ revision: 1 });
     restore.flush({ revision: 4 }, { status: 201, statusText: 'Created' });
     await settle();
-    expect(await pages.snackBar()).toContain(
-      'Revision 1 is saved again as revision 4.',
-    );
+    expect(await pages.snackBar()).toContain('Revision 1 is saved again as revision 4.');
     http.expectOne('/api/presets/p1');
     http.expectOne('/api/presets/p1/revisions');
   });
 
   it('does nothing when the restore is cancelled', async () => {
     await open();
-    http.expectOne('/api/presets/p1/revisions/3/changes').flush({ from: 2, to: 3, lines: ['No changes.'] });
+    http
+      .expectOne('/api/presets/p1/revisions/3/changes')
+      .flush({ from: 2, to: 3, lines: ['No changes.'] });
     await selectRevision(2);
-    http.expectOne('/api/presets/p1/revisions/2/changes').flush({ from: 1, to: 2, lines: ['No changes.'] });
+    http
+      .expectOne('/api/presets/p1/revisions/2/changes')
+      .flush({ from: 1, to: 2, lines: ['No changes.'] });
     page().querySelector<HTMLButtonElement>('button.restore')!.click();
     await settle();
     Array.from(document.querySelectorAll<HTMLButtonElement>('mat-dialog-container button'))
@@ -129,21 +184,29 @@ describe('HistoryPage', () => {
 
   it('offers no restore to a member who may only view', async () => {
     await open({ ...preset, access: 'read' });
-    http.expectOne('/api/presets/p1/revisions/3/changes').flush({ from: 2, to: 3, lines: ['No changes.'] });
+    http
+      .expectOne('/api/presets/p1/revisions/3/changes')
+      .flush({ from: 2, to: 3, lines: ['No changes.'] });
     await selectRevision(2);
-    http.expectOne('/api/presets/p1/revisions/2/changes').flush({ from: 1, to: 2, lines: ['No changes.'] });
+    http
+      .expectOne('/api/presets/p1/revisions/2/changes')
+      .flush({ from: 1, to: 2, lines: ['No changes.'] });
     expect(page().querySelector('button.restore')).toBeNull();
     expect(page().textContent).toContain('lets you see the history but not restore it');
   });
 
   it('says so when the preset cannot be seen', async () => {
     await pages.open('/library/p1/history', mira);
-    http.expectOne('/api/presets/p1').flush(
-      { error: { code: 'not_found', message: 'No such preset.' } },
-      { status: 404, statusText: 'Not Found' },
-    );
+    http
+      .expectOne('/api/presets/p1')
+      .flush(
+        { error: { code: 'not_found', message: 'No such preset.' } },
+        { status: 404, statusText: 'Not Found' },
+      );
     http.expectOne('/api/presets/p1/revisions');
     await settle();
-    expect(page().querySelector('[role="alert"]')!.textContent).toContain('There is no such preset');
+    expect(page().querySelector('[role="alert"]')!.textContent).toContain(
+      'There is no such preset',
+    );
   });
 });

@@ -1,5 +1,12 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  input,
+  linkedSignal,
+} from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
@@ -19,7 +26,15 @@ import { SignInPrompt } from './sign-in-prompt';
 @Component({
   selector: 'app-history-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
-  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, MatListModule, MatProgressBarModule, SignInPrompt],
+  imports: [
+    DatePipe,
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    MatListModule,
+    MatProgressBarModule,
+    SignInPrompt,
+  ],
   templateUrl: './history-page.html',
   styleUrl: './history-page.scss',
 })
@@ -66,7 +81,9 @@ export class HistoryPage {
     this.revisionChanges.loading() ? null : this.revisionChanges.failure(),
   );
 
-  protected readonly entry = computed(() => this.revisions().find((r) => r.revision === this.selected()) ?? null);
+  protected readonly entry = computed(
+    () => this.revisions().find((r) => r.revision === this.selected()) ?? null,
+  );
   protected readonly latest = computed(() => this.preset()?.revision ?? 0);
   protected readonly canRestore = computed(() => this.preset()?.access !== 'read');
 

@@ -23,7 +23,13 @@ export interface PresetQuery {
   trash: boolean;
 }
 
-export type { PresetPage, PresetRow, RevisionChanges, RevisionEntry, SavedPreset } from '@shared/api/presets';
+export type {
+  PresetPage,
+  PresetRow,
+  RevisionChanges,
+  RevisionEntry,
+  SavedPreset,
+} from '@shared/api/presets';
 
 /** The library of saved presets: mine and my bands', their revisions, forks and the trash. */
 @Injectable({ providedIn: 'root' })
@@ -53,7 +59,9 @@ export class LibraryApi {
 
   /** What changed from the revision before `revision` to it. */
   changes(id: string, revision: number): Observable<RevisionChanges> {
-    return this.http.get<RevisionChanges>(`/api/presets/${encodeURIComponent(id)}/revisions/${revision}/changes`);
+    return this.http.get<RevisionChanges>(
+      `/api/presets/${encodeURIComponent(id)}/revisions/${revision}/changes`,
+    );
   }
 
   /** Saves an old revision again as the newest one; answers the new revision's number. */
@@ -72,7 +80,9 @@ export class LibraryApi {
 
   /** Saves a preset document as a new preset in my library; answers its id. */
   saveCopy(document: unknown, note: string): Observable<string> {
-    return this.http.post<CreatedPreset>('/api/presets', { document, note }).pipe(map((answer) => answer.id));
+    return this.http
+      .post<CreatedPreset>('/api/presets', { document, note })
+      .pipe(map((answer) => answer.id));
   }
 
   moveToTrash(id: string): Observable<void> {
@@ -80,6 +90,8 @@ export class LibraryApi {
   }
 
   restoreFromTrash(id: string): Observable<void> {
-    return this.http.post(`/api/presets/${encodeURIComponent(id)}/untrash`, {}).pipe(map(() => undefined));
+    return this.http
+      .post(`/api/presets/${encodeURIComponent(id)}/untrash`, {})
+      .pipe(map(() => undefined));
   }
 }

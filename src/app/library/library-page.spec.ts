@@ -11,22 +11,53 @@ import { PresetRow } from './library-api';
 import { LibraryPage } from './library-page';
 import { PageTest } from '../testing/page-test';
 
-const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
+const mira: Member = {
+  id: 'u-mira',
+  login: 'mira-vale',
+  name: 'Mira Vale',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member',
+};
 const bands: BandSummary[] = [
   { id: 'b-fen', name: 'Copper Fen', role: 'editor', createdAt: '2026-11-01T10:00:00Z' },
   { id: 'b-reed', name: 'Reed Hollow', role: 'viewer', createdAt: '2026-11-02T10:00:00Z' },
 ];
 const fenFifths: PresetRow = {
-  id: 'p1', name: 'Fen Fifths', bandId: 'b-fen', bandName: 'Copper Fen', ownerId: 'u-mira', ownerLogin: 'mira-vale',
-  revision: 3, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null, access: 'edit',
+  id: 'p1',
+  name: 'Fen Fifths',
+  bandId: 'b-fen',
+  bandName: 'Copper Fen',
+  ownerId: 'u-mira',
+  ownerLogin: 'mira-vale',
+  revision: 3,
+  updatedAt: '2026-11-20T09:30:00Z',
+  deletedAt: null,
+  access: 'edit',
 };
 const reedOrgan: PresetRow = {
-  id: 'p2', name: 'Reed Organ Meantone', bandId: null, bandName: null, ownerId: 'u-mira', ownerLogin: 'mira-vale',
-  revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null, access: 'own',
+  id: 'p2',
+  name: 'Reed Organ Meantone',
+  bandId: null,
+  bandName: null,
+  ownerId: 'u-mira',
+  ownerLogin: 'mira-vale',
+  revision: 1,
+  updatedAt: '2026-11-18T15:00:00Z',
+  deletedAt: null,
+  access: 'own',
 };
 const hollowDrone: PresetRow = {
-  id: 'p3', name: 'Hollow Drone', bandId: 'b-reed', bandName: 'Reed Hollow', ownerId: 'u-tobias', ownerLogin: 'tobias-reed',
-  revision: 2, updatedAt: '2026-11-10T15:00:00Z', deletedAt: null, access: 'read',
+  id: 'p3',
+  name: 'Hollow Drone',
+  bandId: 'b-reed',
+  bandName: 'Reed Hollow',
+  ownerId: 'u-tobias',
+  ownerLogin: 'tobias-reed',
+  revision: 2,
+  updatedAt: '2026-11-10T15:00:00Z',
+  deletedAt: null,
+  access: 'read',
 };
 
 describe('LibraryPage', () => {
@@ -80,7 +111,7 @@ describe('LibraryPage', () => {
     expect(page().querySelector('table')).toBeNull();
   });
 
-  it('shows my presets and my bands\' from the server, newest first', async () => {
+  it("shows my presets and my bands' from the server, newest first", async () => {
     const request = await open('/library');
     expect(request.request.params.get('sort')).toBe('-updated');
     expect(request.request.params.get('page')).toBe('1');
@@ -93,8 +124,12 @@ describe('LibraryPage', () => {
     expect(rows[0]).toContain('you');
     expect(rows[1]).toContain('My library');
     expect(rows[2]).toContain('tobias-reed');
-    expect(page().querySelector<HTMLAnchorElement>('a.name')!.getAttribute('href')).toBe('/presets/p1');
-    expect(await (await pages.loader.getHarness(MatPaginatorHarness)).getRangeLabel()).toContain('41');
+    expect(page().querySelector<HTMLAnchorElement>('a.name')!.getAttribute('href')).toBe(
+      '/presets/p1',
+    );
+    expect(await (await pages.loader.getHarness(MatPaginatorHarness)).getRangeLabel()).toContain(
+      '41',
+    );
   });
 
   it('asks the server to sort by name when the name header is clicked', async () => {
@@ -148,7 +183,7 @@ describe('LibraryPage', () => {
     expect(page().querySelector('tr.empty')!.textContent).toContain('No presets match “fen”');
   });
 
-  it('shows only one band\'s presets when the address names the band', async () => {
+  it("shows only one band's presets when the address names the band", async () => {
     const request = await open('/library?band=b-fen');
     expect(request.request.params.get('bandId')).toBe('b-fen');
     expect(page().querySelector('caption')!.textContent).toContain('of Copper Fen');
@@ -156,10 +191,12 @@ describe('LibraryPage', () => {
 
   it('filters by band from the select and keeps the choice in the address', async () => {
     await open('/library');
-    expect(page().querySelector('mat-select')!.textContent).toContain('Mine and all my bands\'');
+    expect(page().querySelector('mat-select')!.textContent).toContain("Mine and all my bands'");
     page().querySelector<HTMLElement>('mat-select')!.click();
     await settle();
-    Array.from(document.querySelectorAll<HTMLElement>('mat-option')).find((o) => o.textContent!.includes('Copper Fen'))!.click();
+    Array.from(document.querySelectorAll<HTMLElement>('mat-option'))
+      .find((o) => o.textContent!.includes('Copper Fen'))!
+      .click();
     await settle();
     expect(TestBed.inject(Router).url).toBe('/library?band=b-fen');
     const request = presetRequest();
@@ -172,7 +209,11 @@ describe('LibraryPage', () => {
     const request = await open('/library?view=trash', [trashed]);
     expect(request.request.params.get('trash')).toBe('1');
     expect(page().textContent).toContain('wait here for 30 days');
-    page().querySelector<HTMLButtonElement>('button[aria-label="Restore Reed Organ Meantone from the trash"]')!.click();
+    page()
+      .querySelector<HTMLButtonElement>(
+        'button[aria-label="Restore Reed Organ Meantone from the trash"]',
+      )!
+      .click();
     const untrash = http.expectOne('/api/presets/p2/untrash');
     expect(untrash.request.method).toBe('POST');
     untrash.flush({ id: 'p2', deletedAt: null });
@@ -193,7 +234,9 @@ describe('LibraryPage', () => {
     presetRequest().flush({ items: [fenFifths], total: 1, page: 1, pageSize: 20 });
     await settle();
     const snackBar = await pages.loader.getHarness(MatSnackBarHarness);
-    expect(await snackBar.getMessage()).toContain('“Reed Organ Meantone” is in the trash for 30 days.');
+    expect(await snackBar.getMessage()).toContain(
+      '“Reed Organ Meantone” is in the trash for 30 days.',
+    );
     await snackBar.dismissWithAction();
     expect(http.expectOne('/api/presets/p2/untrash').request.method).toBe('POST');
   });
@@ -212,11 +255,15 @@ describe('LibraryPage', () => {
     await (await menuItem('Fork')).click();
     await settle();
     const dialog = document.querySelector('mat-dialog-container')!;
-    const options = Array.from(dialog.querySelectorAll('mat-radio-button')).map((o) => o.textContent!.trim());
+    const options = Array.from(dialog.querySelectorAll('mat-radio-button')).map((o) =>
+      o.textContent!.trim(),
+    );
     expect(options).toEqual(['My library', 'Copper Fen (band)']);
     dialog.querySelectorAll<HTMLInputElement>('mat-radio-button input')[1].click();
     await settle();
-    Array.from(dialog.querySelectorAll<HTMLButtonElement>('button')).find((b) => b.textContent!.trim() === 'Fork')!.click();
+    Array.from(dialog.querySelectorAll<HTMLButtonElement>('button'))
+      .find((b) => b.textContent!.trim() === 'Fork')!
+      .click();
     await settle();
     const fork = http.expectOne('/api/presets/p3/fork');
     expect(fork.request.body).toEqual({ bandId: 'b-fen' });
@@ -224,9 +271,7 @@ describe('LibraryPage', () => {
     await settle();
     presetRequest().flush({ items: [], total: 0, page: 1, pageSize: 20 });
     await settle();
-    expect(await pages.snackBar()).toContain(
-      'Forked “Hollow Drone” into Copper Fen (band).',
-    );
+    expect(await pages.snackBar()).toContain('Forked “Hollow Drone” into Copper Fen (band).');
   });
 
   it('opens the share dialog for a preset I may change', async () => {
@@ -234,11 +279,13 @@ describe('LibraryPage', () => {
     await openRowMenu('Fen Fifths');
     await (await menuItem('Share')).click();
     await settle();
-    expect(document.querySelector('mat-dialog-container h2')!.textContent).toContain('Share “Fen Fifths”');
+    expect(document.querySelector('mat-dialog-container h2')!.textContent).toContain(
+      'Share “Fen Fifths”',
+    );
     http.expectOne('/api/presets/p1/shares').flush({ items: [] });
   });
 
-  it('shows the server\'s message when the library cannot be read', async () => {
+  it("shows the server's message when the library cannot be read", async () => {
     await pages.open('/library', mira);
     http.expectOne('/api/bands').flush({ items: [] });
     presetRequest().flush(
@@ -246,6 +293,8 @@ describe('LibraryPage', () => {
       { status: 400, statusText: 'Bad Request' },
     );
     await settle();
-    expect(page().querySelector('[role="alert"]')!.textContent).toContain('pageSize: must be at most 100');
+    expect(page().querySelector('[role="alert"]')!.textContent).toContain(
+      'pageSize: must be at most 100',
+    );
   });
 });

@@ -32,8 +32,19 @@ const searchDelayMs = 300;
   selector: 'app-library-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatFormFieldModule, MatInputModule,
-    MatSelectModule, MatButtonModule, MatButtonToggleModule, MatIconModule, MatMenuModule, MatProgressBarModule,
+    DatePipe,
+    RouterLink,
+    MatTableModule,
+    MatSortModule,
+    MatPaginatorModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatButtonToggleModule,
+    MatIconModule,
+    MatMenuModule,
+    MatProgressBarModule,
     SignInPrompt,
   ],
   templateUrl: './library-page.html',
@@ -89,11 +100,18 @@ export class LibraryPage {
       ? ['name', 'library', 'owner', 'revision', 'deleted', 'actions']
       : ['name', 'library', 'owner', 'revision', 'updated', 'actions'],
   );
-  protected readonly filteredBandName = computed(() => this.bands().find((b) => b.id === this.bandId())?.name ?? null);
+  protected readonly filteredBandName = computed(
+    () => this.bands().find((b) => b.id === this.bandId())?.name ?? null,
+  );
 
   constructor() {
     toObservable(this.searchText)
-      .pipe(debounceTime(searchDelayMs), map((text) => text.trim()), distinctUntilChanged(), takeUntilDestroyed())
+      .pipe(
+        debounceTime(searchDelayMs),
+        map((text) => text.trim()),
+        distinctUntilChanged(),
+        takeUntilDestroyed(),
+      )
       .subscribe((q) => {
         this.pageIndex.set(0);
         this.q.set(q);
@@ -152,16 +170,21 @@ export class LibraryPage {
         .map((band) => ({ bandId: band.id, label: `${band.name} (band)` })),
     ];
     this.dialog
-      .open<ForkDialog, ForkDialogData, { bandId: string | null }>(ForkDialog, { data: { name: row.name, targets } })
+      .open<ForkDialog, ForkDialogData, { bandId: string | null }>(ForkDialog, {
+        data: { name: row.name, targets },
+      })
       .afterClosed()
       .pipe(
         filter((choice) => choice !== undefined),
-        switchMap((choice) => this.api.fork(row.id, choice.bandId).pipe(map((id) => ({ id, choice })))),
+        switchMap((choice) =>
+          this.api.fork(row.id, choice.bandId).pipe(map((id) => ({ id, choice }))),
+        ),
       )
       .subscribe({
         next: ({ id, choice }) => {
           this.reload();
-          const where = targets.find((target) => target.bandId === choice.bandId)?.label ?? 'My library';
+          const where =
+            targets.find((target) => target.bandId === choice.bandId)?.label ?? 'My library';
           this.snackBar
             .open(`Forked “${row.name}” into ${where}.`, 'Open the fork', { duration: 10000 })
             .onAction()

@@ -19,5 +19,7 @@ export class SignInPrompt {
   private readonly router = inject(Router);
   readonly label = input('Sign in with GitHub');
   readonly next = input<string>();
-  protected readonly href = computed(() => `/auth/github?next=${encodeURIComponent(this.next() ?? this.router.url)}`);
+  protected readonly href = computed(
+    () => `/auth/github?next=${encodeURIComponent(this.next() ?? this.router.url)}`,
+  );
 }

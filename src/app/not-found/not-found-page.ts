@@ -11,6 +11,10 @@ import { RouterLink } from '@angular/router';
     <p>There is no page at this address. It may have moved, or the link was mistyped.</p>
     <a mat-flat-button routerLink="/design">Go to Design</a>
   `,
-  styles: `h1 { font: var(--mat-sys-headline-small); }`,
+  styles: `
+    h1 {
+      font: var(--mat-sys-headline-small);
+    }
+  `,
 })
 export class NotFoundPage {}

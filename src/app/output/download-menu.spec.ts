@@ -10,7 +10,14 @@ import type { Instrument } from '@shared/api/instruments';
 import { type Member, Session } from '../auth/session';
 import { browserInstrumentsKey } from '../instruments/my-instruments';
 
-const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
+const mira: Member = {
+  id: 'u-mira',
+  login: 'mira-vale',
+  name: 'Mira Vale',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member',
+};
 
 /** Lets the download's promise chain finish before the test moves on. */
 async function settled(fixture: { whenStable(): Promise<unknown> }) {
@@ -31,7 +38,12 @@ describe('DownloadMenu', () => {
     const fixture = TestBed.createComponent(DownloadMenu);
     await fixture.whenStable();
     const element = fixture.nativeElement as HTMLElement;
-    return { fixture, element, button: element.querySelector<HTMLButtonElement>('button.download')!, state: TestBed.inject(DesignState) };
+    return {
+      fixture,
+      element,
+      button: element.querySelector<HTMLButtonElement>('button.download')!,
+      state: TestBed.inject(DesignState),
+    };
   }
 
   afterEach(() => http.verify());
@@ -40,10 +52,14 @@ describe('DownloadMenu', () => {
     const { fixture, button } = await render();
     button.click();
     await fixture.whenStable();
-    const items = Array.from(document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]'));
+    const items = Array.from(
+      document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]'),
+    );
     expect(items.length).toBe(14);
     expect(items[0].querySelector('.format-name')?.textContent).toContain('MTS bulk dump');
-    expect(items[0].querySelector('.format-use')?.textContent).toContain('All 128 keys in one message');
+    expect(items[0].querySelector('.format-use')?.textContent).toContain(
+      'All 128 keys in one message',
+    );
     expect(items[13].getAttribute('aria-label')).toContain('Bundle of everything (.zip)');
   });
 
@@ -53,8 +69,12 @@ describe('DownloadMenu', () => {
     state.setScaleField('divisions', 31);
     button.click();
     await fixture.whenStable();
-    const items = Array.from(document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]'));
-    const disabled = items.filter((item) => item.disabled).map((item) => item.querySelector('.format-name')?.textContent?.trim());
+    const items = Array.from(
+      document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]'),
+    );
+    const disabled = items
+      .filter((item) => item.disabled)
+      .map((item) => item.querySelector('.format-name')?.textContent?.trim());
     expect(disabled).toEqual(['MTS scale/octave, 1-byte .syx', 'MTS scale/octave, 2-byte .syx']);
     const octave = items.find((item) => item.disabled)!;
     expect(octave.querySelector('.format-use')?.textContent).toContain(
@@ -70,15 +90,20 @@ describe('DownloadMenu', () => {
     button.click();
     await fixture.whenStable();
     document.querySelector<HTMLButtonElement>('.download-formats button[mat-menu-item]')!.click();
-    http.expectOne({ method: 'GET', url: '/api/presets/p-3/export/mts-bulk' }).flush(new Blob(['x']));
+    http
+      .expectOne({ method: 'GET', url: '/api/presets/p-3/export/mts-bulk' })
+      .flush(new Blob(['x']));
     await settled(fixture);
-    const snackBar = await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatSnackBarHarness);
+    const snackBar =
+      await TestbedHarnessEnvironment.documentRootLoader(fixture).getHarness(MatSnackBarHarness);
     expect(await snackBar.getMessage()).toContain('Downloaded keyloom-mts-bulk.syx');
 
     state.rename('Changed');
     button.click();
     await fixture.whenStable();
-    document.querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]')[13].click();
+    document
+      .querySelectorAll<HTMLButtonElement>('.download-formats button[mat-menu-item]')[13]
+      .click();
     const request = http.expectOne({ method: 'POST', url: '/api/preview/export/bundle' });
     expect(request.request.body).toEqual(jasmine.objectContaining({ name: 'Changed' }));
     request.flush(new Blob(['PK']));
@@ -94,18 +119,40 @@ describe('DownloadMenu', () => {
   });
 
   const ondes: Instrument = {
-    id: 'i-ondes', name: 'Ondes', receives: 'mts-bulk', deviceId: 16, program: 5, bank: 0, bendRange: 2,
-    memberChannels: [2, 16], port: null, createdAt: '2026-11-01T10:00:00Z', updatedAt: '2026-11-01T10:00:00Z',
+    id: 'i-ondes',
+    name: 'Ondes',
+    receives: 'mts-bulk',
+    deviceId: 16,
+    program: 5,
+    bank: 0,
+    bendRange: 2,
+    memberChannels: [2, 16],
+    port: null,
+    createdAt: '2026-11-01T10:00:00Z',
+    updatedAt: '2026-11-01T10:00:00Z',
   };
-  const board: Instrument = { ...ondes, id: 'i-board', name: 'Lattice board', receives: 'mpe', bendRange: 48, memberChannels: [2, 9] };
+  const board: Instrument = {
+    ...ondes,
+    id: 'i-board',
+    name: 'Lattice board',
+    receives: 'mpe',
+    bendRange: 48,
+    memberChannels: [2, 9],
+  };
 
-  async function openInstrumentMenu(fixture: { whenStable(): Promise<unknown> }, element: HTMLElement) {
+  async function openInstrumentMenu(
+    fixture: { whenStable(): Promise<unknown> },
+    element: HTMLElement,
+  ) {
     element.querySelector<HTMLButtonElement>('button.for-instrument')!.click();
     await fixture.whenStable();
-    return () => Array.from(document.querySelectorAll<HTMLButtonElement>('.instrument-downloads button[mat-menu-item]'));
+    return () =>
+      Array.from(
+        document.querySelectorAll<HTMLButtonElement>('.instrument-downloads button[mat-menu-item]'),
+      );
   }
 
-  it('downloads a saved preset in each member instrument\'s own form, by its id, leaving the preset as it is', async () => {
+  it("downloads a saved preset in each member instrument's own form, by its id, leaving the preset as it is", async () => {
     const { fixture, element, state } = await render();
     TestBed.inject(Session).member.set(mira);
     state.open(newDraft(), { id: 'p-3', revision: 2, bandId: null, access: 'own' });
@@ -135,8 +182,12 @@ describe('DownloadMenu', () => {
     expect(state.dirty()).toBeFalse();
   });
 
-  it('sends a guest instrument\'s settings with a design that is not saved', async () => {
-    const { createdAt: _, updatedAt: __, ...settings } = { ...board, id: 'browser-1', receives: 'mts-bulk-bank', bank: 3 };
+  it("sends a guest instrument's settings with a design that is not saved", async () => {
+    const {
+      createdAt: _,
+      updatedAt: __,
+      ...settings
+    } = { ...board, id: 'browser-1', receives: 'mts-bulk-bank', bank: 3 };
     localStorage.setItem(browserInstrumentsKey, JSON.stringify([settings]));
     const { fixture, element, state } = await render();
     TestBed.inject(Session).member.set(null);

@@ -26,19 +26,42 @@ import { exportRefusals } from './export-refusals';
   imports: [MatButtonModule, MatIconModule, MatMenuModule, MatTooltipModule],
   template: `
     <span [matTooltip]="blocked() ?? ''" [matTooltipDisabled]="!blocked()">
-      <button mat-stroked-button class="download" [matMenuTriggerFor]="formatMenu" [disabled]="blocked() !== null || busy()"
-              (menuOpened)="menuOpen.set(true)"
-              [attr.aria-label]="blocked() ? 'Download (' + blocked() + ')' : 'Download'">
+      <button
+        mat-stroked-button
+        class="download"
+        [matMenuTriggerFor]="formatMenu"
+        [disabled]="blocked() !== null || busy()"
+        (menuOpened)="menuOpen.set(true)"
+        [attr.aria-label]="blocked() ? 'Download (' + blocked() + ')' : 'Download'"
+      >
         <mat-icon aria-hidden="true">download</mat-icon>
         <span class="label">{{ busy() ? 'Downloading…' : 'Download' }}</span>
       </button>
     </span>
-    <mat-menu #formatMenu="matMenu" class="download-formats" xPosition="before" (closed)="menuOpen.set(false)">
+    <mat-menu
+      #formatMenu="matMenu"
+      class="download-formats"
+      xPosition="before"
+      (closed)="menuOpen.set(false)"
+    >
       @for (format of formats; track format.id) {
         @let refused = refusals().get(format.id);
-        <button mat-menu-item class="format" (click)="downloadFormat(format)" [disabled]="!!refused"
-                [attr.aria-label]="format.label + ' (.' + format.extension + '): ' + (refused ? 'not for this design: ' + refused : format.use)">
-          <span class="format-name">{{ format.label }} <span class="extension">.{{ format.extension }}</span></span>
+        <button
+          mat-menu-item
+          class="format"
+          (click)="downloadFormat(format)"
+          [disabled]="!!refused"
+          [attr.aria-label]="
+            format.label +
+            ' (.' +
+            format.extension +
+            '): ' +
+            (refused ? 'not for this design: ' + refused : format.use)
+          "
+        >
+          <span class="format-name"
+            >{{ format.label }} <span class="extension">.{{ format.extension }}</span></span
+          >
           @if (refused) {
             <span class="format-use refused">Not for this design: {{ refused }}</span>
           } @else {
@@ -47,21 +70,36 @@ import { exportRefusals } from './export-refusals';
         </button>
       }
     </mat-menu>
-    <button mat-stroked-button class="for-instrument" type="button"
-            [matMenuTriggerFor]="instrumentMenu" [disabled]="blocked() !== null || busy()"
-            (menuOpened)="openInstruments()" [attr.aria-label]="instrumentLabel()">
+    <button
+      mat-stroked-button
+      class="for-instrument"
+      type="button"
+      [matMenuTriggerFor]="instrumentMenu"
+      [disabled]="blocked() !== null || busy()"
+      (menuOpened)="openInstruments()"
+      [attr.aria-label]="instrumentLabel()"
+    >
       <mat-icon aria-hidden="true">piano</mat-icon>
       <span class="label">For my instrument</span>
     </button>
-    <mat-menu #instrumentMenu="matMenu" class="instrument-downloads" xPosition="before"
-              (closed)="menuOpen.set(false)">
+    <mat-menu
+      #instrumentMenu="matMenu"
+      class="instrument-downloads"
+      xPosition="before"
+      (closed)="menuOpen.set(false)"
+    >
       @if (instruments.list() === null) {
         <span mat-menu-item disabled>Loading your instruments…</span>
       }
       @for (instrument of instruments.list() ?? []; track instrument.id) {
         @let format = exportOf(instrument);
         @let refused = refusals().get(format.id);
-        <button mat-menu-item class="format" (click)="downloadFor(instrument)" [disabled]="!!refused">
+        <button
+          mat-menu-item
+          class="format"
+          (click)="downloadFor(instrument)"
+          [disabled]="!!refused"
+        >
           <span class="format-name">For {{ instrument.name }}</span>
           @if (refused) {
             <span class="format-use refused">Not for this design: {{ refused }}</span>
@@ -79,15 +117,40 @@ import { exportRefusals } from './export-refusals';
     </mat-menu>
   `,
   styles: `
-    :host { display: inline-flex; flex-wrap: wrap; gap: 8px; }
-    .format { padding-block: 6px; line-height: 1.35; }
-    .format-name { display: block; font: var(--mat-sys-label-large); }
-    .extension { color: var(--mat-sys-on-surface-variant); }
-    .format-use { display: block; white-space: normal; font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
-    .format-use.refused { font-style: italic; }
+    :host {
+      display: inline-flex;
+      flex-wrap: wrap;
+      gap: 8px;
+    }
+    .format {
+      padding-block: 6px;
+      line-height: 1.35;
+    }
+    .format-name {
+      display: block;
+      font: var(--mat-sys-label-large);
+    }
+    .extension {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .format-use {
+      display: block;
+      white-space: normal;
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .format-use.refused {
+      font-style: italic;
+    }
     @media (max-width: 720px) {
-      .download .label, .for-instrument .label { display: none; }
-      .download mat-icon, .for-instrument mat-icon { margin: 0; }
+      .download .label,
+      .for-instrument .label {
+        display: none;
+      }
+      .download mat-icon,
+      .for-instrument mat-icon {
+        margin: 0;
+      }
     }
   `,
 })
@@ -107,11 +170,15 @@ export class DownloadMenu {
     return preset ? exportRefusals(preset) : new Map<string, string>();
   });
   /** Why nothing can be downloaded now, or null. */
-  protected readonly blocked = computed(() => (this.state.faults().length > 0 ? 'fix the faults in the design first' : null));
+  protected readonly blocked = computed(() =>
+    this.state.faults().length > 0 ? 'fix the faults in the design first' : null,
+  );
   /** A saved preset downloads as saved; a changed or unsaved design goes to the server as it stands. */
   private readonly source = computed<ExportSource>(() => {
     const origin = this.state.origin();
-    return origin && !this.state.dirty() ? { presetId: origin.id } : { document: this.state.draft() };
+    return origin && !this.state.dirty()
+      ? { presetId: origin.id }
+      : { document: this.state.draft() };
   });
 
   protected readonly instrumentLabel = computed(() => {
@@ -145,7 +212,8 @@ export class DownloadMenu {
     this.busy.set(true);
     try {
       const { name, warnings } = await this.downloads.download(format, this.source(), query);
-      if (warnings.length > 0) this.snackBar.open(`Downloaded ${name}. ${warnings.join(' ')}`, 'Dismiss');
+      if (warnings.length > 0)
+        this.snackBar.open(`Downloaded ${name}. ${warnings.join(' ')}`, 'Dismiss');
       else this.snackBar.open(`Downloaded ${name}.`, undefined, { duration: 4000 });
     } catch (error) {
       this.snackBar.open(await apiErrorMessage(error), 'Dismiss');

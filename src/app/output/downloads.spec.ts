@@ -15,7 +15,9 @@ describe('Downloads', () => {
   let clicked: HTMLAnchorElement[];
 
   beforeEach(() => {
-    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
+    TestBed.configureTestingModule({
+      providers: [provideHttpClient(), provideHttpClientTesting()],
+    });
     downloads = TestBed.inject(Downloads);
     http = TestBed.inject(HttpTestingController);
     clicked = [];
@@ -43,8 +45,12 @@ describe('Downloads', () => {
 
   it('fetches a saved preset by id, and its bundle from the bundle address', async () => {
     const sfz = downloads.download(format('sfz'), { presetId: 'p-1' });
-    http.expectOne({ method: 'GET', url: '/api/presets/p-1/export/sfz' }).flush(new Blob(['<region>']));
-    expect((await sfz).name).withContext('no Content-Disposition: a name of our own').toBe('keyloom-sfz.sfz');
+    http
+      .expectOne({ method: 'GET', url: '/api/presets/p-1/export/sfz' })
+      .flush(new Blob(['<region>']));
+    expect((await sfz).name)
+      .withContext('no Content-Disposition: a name of our own')
+      .toBe('keyloom-sfz.sfz');
 
     const bundle = downloads.download(format('bundle'), { presetId: 'p-1' });
     http.expectOne({ method: 'GET', url: '/api/presets/p-1/bundle' }).flush(new Blob(['PK']));
@@ -53,19 +59,34 @@ describe('Downloads', () => {
 
   it('passes on what the server says about a file it made', async () => {
     const done = downloads.download(format('mts-bulk'), { presetId: 'p-1' });
-    const warnings = encodeURIComponent(JSON.stringify(['mapping: key 127 lies outside the pitches MTS can express']));
-    http.expectOne('/api/presets/p-1/export/mts-bulk').flush(new Blob(['x']), { headers: new HttpHeaders({ 'Keyloom-Warnings': warnings }) });
-    expect((await done).warnings).toEqual(['mapping: key 127 lies outside the pitches MTS can express']);
+    const warnings = encodeURIComponent(
+      JSON.stringify(['mapping: key 127 lies outside the pitches MTS can express']),
+    );
+    http
+      .expectOne('/api/presets/p-1/export/mts-bulk')
+      .flush(new Blob(['x']), { headers: new HttpHeaders({ 'Keyloom-Warnings': warnings }) });
+    expect((await done).warnings).toEqual([
+      'mapping: key 127 lies outside the pitches MTS can express',
+    ]);
   });
 
-  it('passes on the server\'s refusal in its own words', async () => {
+  it("passes on the server's refusal in its own words", async () => {
     const done = downloads.download(format('mts-octave-1'), { document: newDraft() });
-    const refusal = { error: { code: 'not_twelve', message: 'Scale/octave tuning needs 12 keys per octave.', field: 'mapping' } };
+    const refusal = {
+      error: {
+        code: 'not_twelve',
+        message: 'Scale/octave tuning needs 12 keys per octave.',
+        field: 'mapping',
+      },
+    };
     http.expectOne('/api/preview/export/mts-octave-1').flush(new Blob([JSON.stringify(refusal)]), {
       status: 422,
       statusText: 'Unprocessable Content',
     });
-    const error = await done.then(() => null, (failure: unknown) => failure);
+    const error = await done.then(
+      () => null,
+      (failure: unknown) => failure,
+    );
     expect(error).toBeInstanceOf(HttpErrorResponse);
     expect(await apiErrorMessage(error)).toBe('Scale/octave tuning needs 12 keys per octave.');
     expect(clicked).toEqual([]);
@@ -73,23 +94,41 @@ describe('Downloads', () => {
 
   it('offers every export format, each with a line on what it is for', () => {
     expect(exportFormats.map((candidate) => candidate.id)).toEqual([
-      'mts-bulk', 'mts-bulk-bank', 'mts-notes', 'mts-octave-1', 'mts-octave-2', 'smf', 'mpe-smf', 'bend-csv',
-      'bend-json', 'key-csv', 'sfz', 'tuner-sheet', 'preset', 'bundle',
+      'mts-bulk',
+      'mts-bulk-bank',
+      'mts-notes',
+      'mts-octave-1',
+      'mts-octave-2',
+      'smf',
+      'mpe-smf',
+      'bend-csv',
+      'bend-json',
+      'key-csv',
+      'sfz',
+      'tuner-sheet',
+      'preset',
+      'bundle',
     ]);
     expect(exportFormats.every((candidate) => candidate.use.length > 20)).toBeTrue();
   });
 
   it('agrees with the shared export catalogue on every id and file ending', () => {
     for (const entry of catalogue) {
-      expect(exportFormats.find((candidate) => candidate.id === entry.id)?.extension).withContext(entry.id).toBe(entry.extension);
+      expect(exportFormats.find((candidate) => candidate.id === entry.id)?.extension)
+        .withContext(entry.id)
+        .toBe(entry.extension);
     }
   });
 });
 
 describe('fileNameFrom', () => {
   it('prefers the UTF-8 name and falls back to the plain one', () => {
-    expect(fileNameFrom(`attachment; filename="fifths.syx"; filename*=UTF-8''f%C3%BCnftel.syx`)).toBe('fünftel.syx');
-    expect(fileNameFrom(`attachment; filename*=UTF-8''%E0%A4%A; filename="plain.syx"`)).toBe('plain.syx');
+    expect(
+      fileNameFrom(`attachment; filename="fifths.syx"; filename*=UTF-8''f%C3%BCnftel.syx`),
+    ).toBe('fünftel.syx');
+    expect(fileNameFrom(`attachment; filename*=UTF-8''%E0%A4%A; filename="plain.syx"`)).toBe(
+      'plain.syx',
+    );
     expect(fileNameFrom('attachment; filename=bare.mid')).toBe('bare.mid');
     expect(fileNameFrom(null)).toBeNull();
   });

@@ -57,7 +57,9 @@ export class Downloads {
     query: Record<string, string> = {},
   ): Promise<DeliveredFile> {
     const response = await firstValueFrom(this.request(format.id, source, query));
-    const name = fileNameFrom(response.headers.get('Content-Disposition')) ?? `keyloom-${format.id}.${format.extension}`;
+    const name =
+      fileNameFrom(response.headers.get('Content-Disposition')) ??
+      `keyloom-${format.id}.${format.extension}`;
     this.deliver(response.body ?? new Blob([]), name);
     return { name, warnings: warningsFrom(response.headers.get('Keyloom-Warnings')) };
   }
@@ -72,7 +74,8 @@ export class Downloads {
       return this.http.post(`/api/preview/export/${format}`, source.document, options);
     }
     const id = encodeURIComponent(source.presetId);
-    const path = format === 'bundle' ? `/api/presets/${id}/bundle` : `/api/presets/${id}/export/${format}`;
+    const path =
+      format === 'bundle' ? `/api/presets/${id}/bundle` : `/api/presets/${id}/export/${format}`;
     return this.http.get(path, options);
   }
 

@@ -12,7 +12,9 @@ export function exportRefusals(preset: ResolvedPreset): Map<string, string> {
     const file = renderExport(preset, format.id);
     if (file.ok) continue;
     const [fault] = file.errors;
-    const words = fault.message.startsWith(`${fault.path}: `) ? fault.message.slice(fault.path.length + 2) : fault.message;
+    const words = fault.message.startsWith(`${fault.path}: `)
+      ? fault.message.slice(fault.path.length + 2)
+      : fault.message;
     refusals.set(format.id, words.charAt(0).toUpperCase() + words.slice(1));
   }
   return refusals;

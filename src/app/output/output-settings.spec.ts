@@ -23,8 +23,16 @@ describe('OutputSettings', () => {
 
   it('labels every output setting', async () => {
     const { element } = await render();
-    expect(Array.from(element.querySelectorAll('mat-label')).map((label) => label.textContent?.trim())).toEqual([
-      'Device id', 'Tuning program', 'Tuning bank', 'Tuning name', 'Bend range', 'First member channel', 'Last member channel',
+    expect(
+      Array.from(element.querySelectorAll('mat-label')).map((label) => label.textContent?.trim()),
+    ).toEqual([
+      'Device id',
+      'Tuning program',
+      'Tuning bank',
+      'Tuning name',
+      'Bend range',
+      'First member channel',
+      'Last member channel',
       'Samples',
     ]);
   });
@@ -32,19 +40,31 @@ describe('OutputSettings', () => {
   it('takes the samples of the SFZ map as typed, and names a bad file name', async () => {
     const { field, type, state } = await render();
     await type('Samples', '36 piano-c2.wav, 60 piano-c4.wav, ');
-    expect(state.draft().output.samples).toEqual([{ key: 36, file: 'piano-c2.wav' }, { key: 60, file: 'piano-c4.wav' }]);
-    expect(field('Samples').querySelector('input')!.value).toBe('36 piano-c2.wav, 60 piano-c4.wav, ');
-    expect(state.shown()!.preset.output.samples).toEqual([{ key: 36, file: 'piano-c2.wav' }, { key: 60, file: 'piano-c4.wav' }]);
+    expect(state.draft().output.samples).toEqual([
+      { key: 36, file: 'piano-c2.wav' },
+      { key: 60, file: 'piano-c4.wav' },
+    ]);
+    expect(field('Samples').querySelector('input')!.value).toBe(
+      '36 piano-c2.wav, 60 piano-c4.wav, ',
+    );
+    expect(state.shown()!.preset.output.samples).toEqual([
+      { key: 36, file: 'piano-c2.wav' },
+      { key: 60, file: 'piano-c4.wav' },
+    ]);
     await type('Samples', '36 ../secret');
-    expect(field('Samples').querySelector('mat-error')?.textContent).toContain('must be a plain file name');
+    expect(field('Samples').querySelector('mat-error')?.textContent).toContain(
+      'must be a plain file name',
+    );
     await type('Samples', '');
     expect(state.draft().output.samples).toBeUndefined();
   });
 
-  it('shows the schema\'s limits under the field as they are typed', async () => {
+  it("shows the schema's limits under the field as they are typed", async () => {
     const { field, type } = await render();
     await type('Device id', '200');
-    expect(field('Device id').querySelector('mat-error')?.textContent).toContain('must be at most 127 (got 200)');
+    expect(field('Device id').querySelector('mat-error')?.textContent).toContain(
+      'must be at most 127 (got 200)',
+    );
     await type('Tuning name', 'Fünfte Stimmung ohne Ende');
     expect(field('Tuning name').querySelector('mat-error')?.textContent).toContain('at most 16');
   });
@@ -59,6 +79,8 @@ describe('OutputSettings', () => {
   it('warns which tuning program a dump replaces on the instrument', async () => {
     const { element, type } = await render();
     await type('Tuning program', '5');
-    expect(element.querySelector('.caution')?.textContent).toContain('replaces tuning program 5 in bank 0');
+    expect(element.querySelector('.caution')?.textContent).toContain(
+      'replaces tuning program 5 in bank 0',
+    );
   });
 });

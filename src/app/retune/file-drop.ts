@@ -10,18 +10,35 @@ import { MatIconModule } from '@angular/material/icon';
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [MatIconModule],
   template: `
-    <button type="button" class="drop" [class.over]="over()" [attr.aria-describedby]="hintId"
-            (click)="picker.click()" (dragenter)="acceptDrag($event)" (dragover)="acceptDrag($event)"
-            (dragleave)="over.set(false)" (drop)="takeDropped($event)">
+    <button
+      type="button"
+      class="drop"
+      [class.over]="over()"
+      [attr.aria-describedby]="hintId"
+      (click)="picker.click()"
+      (dragenter)="acceptDrag($event)"
+      (dragover)="acceptDrag($event)"
+      (dragleave)="over.set(false)"
+      (drop)="takeDropped($event)"
+    >
       <mat-icon aria-hidden="true">{{ icon() }}</mat-icon>
       <span class="label">{{ label() }}</span>
       <span class="hint" [id]="hintId">{{ hint() }}</span>
     </button>
-    <input #picker type="file" class="visually-hidden" tabindex="-1" aria-hidden="true" [accept]="accept()"
-           (change)="takePicked(picker)">
+    <input
+      #picker
+      type="file"
+      class="visually-hidden"
+      tabindex="-1"
+      aria-hidden="true"
+      [accept]="accept()"
+      (change)="takePicked(picker)"
+    />
   `,
   styles: `
-    :host { display: block; }
+    :host {
+      display: block;
+    }
     .drop {
       display: flex;
       flex-direction: column;
@@ -37,12 +54,30 @@ import { MatIconModule } from '@angular/material/icon';
       text-align: center;
       cursor: pointer;
     }
-    .drop:hover { background: var(--mat-sys-surface-container); }
-    .drop:focus-visible { outline: 3px solid var(--mat-sys-primary); outline-offset: 2px; }
-    .drop.over { border-color: var(--mat-sys-primary); background: var(--mat-sys-primary-container); }
-    mat-icon { color: var(--mat-sys-primary); font-size: 32px; width: 32px; height: 32px; }
-    .label { font: var(--mat-sys-title-small); }
-    .hint { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
+    .drop:hover {
+      background: var(--mat-sys-surface-container);
+    }
+    .drop:focus-visible {
+      outline: 3px solid var(--mat-sys-primary);
+      outline-offset: 2px;
+    }
+    .drop.over {
+      border-color: var(--mat-sys-primary);
+      background: var(--mat-sys-primary-container);
+    }
+    mat-icon {
+      color: var(--mat-sys-primary);
+      font-size: 32px;
+      width: 32px;
+      height: 32px;
+    }
+    .label {
+      font: var(--mat-sys-title-small);
+    }
+    .hint {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
   `,
 })
 export class FileDrop {

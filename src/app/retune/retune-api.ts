@@ -28,7 +28,11 @@ export type RetuneStep =
 function songOf(answer: RetuneAnswer): RetunedSong {
   const binary = atob(answer.song);
   const bytes = Uint8Array.from(binary, (character) => character.charCodeAt(0));
-  return { blob: new Blob([bytes], { type: 'audio/midi' }), fileName: answer.fileName, report: answer.report };
+  return {
+    blob: new Blob([bytes], { type: 'audio/midi' }),
+    fileName: answer.fileName,
+    report: answer.report,
+  };
 }
 
 function stepOf(event: HttpEvent<RetuneAnswer>): RetuneStep | null {
@@ -41,7 +45,9 @@ function stepOf(event: HttpEvent<RetuneAnswer>): RetuneStep | null {
     case HttpEventType.ResponseHeader:
       return { kind: 'retuning' };
     case HttpEventType.Response:
-      return event.body ? { kind: 'done', song: songOf(event.body) } : { kind: 'refused', message: 'The server sent no song back.' };
+      return event.body
+        ? { kind: 'done', song: songOf(event.body) }
+        : { kind: 'refused', message: 'The server sent no song back.' };
     default:
       return null;
   }
@@ -51,7 +57,9 @@ function stepOf(event: HttpEvent<RetuneAnswer>): RetuneStep | null {
 async function refusalOf(error: unknown): Promise<RetuneStep> {
   const status = error instanceof HttpErrorResponse ? error.status : null;
   const fallback =
-    status === 413 ? uploadTooLarge : `The server did not retune the song (${status ?? 'no answer'}).`;
+    status === 413
+      ? uploadTooLarge
+      : `The server did not retune the song (${status ?? 'no answer'}).`;
   return { kind: 'refused', message: await apiErrorMessage(error, fallback) };
 }
 
@@ -63,7 +71,12 @@ async function refusalOf(error: unknown): Promise<RetuneStep> {
 export class RetuneApi {
   private readonly http = inject(HttpClient);
 
-  retune(song: File, tuning: RetuneTuning, mode: RetuneMode, leadInMs: number): Observable<RetuneStep> {
+  retune(
+    song: File,
+    tuning: RetuneTuning,
+    mode: RetuneMode,
+    leadInMs: number,
+  ): Observable<RetuneStep> {
     const form = new FormData();
     form.append('mode', mode);
     form.append('leadInMs', String(leadInMs));
@@ -71,7 +84,11 @@ export class RetuneApi {
     else form.append('preset', JSON.stringify(tuning.document));
     form.append('file', song, song.name);
     return this.http
-      .post<RetuneAnswer>('/api/retune', form, { reportProgress: true, observe: 'events', responseType: 'json' })
+      .post<RetuneAnswer>('/api/retune', form, {
+        reportProgress: true,
+        observe: 'events',
+        responseType: 'json',
+      })
       .pipe(
         map((event) => stepOf(event)),
         filter((step): step is RetuneStep => step !== null),

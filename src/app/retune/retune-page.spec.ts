@@ -16,14 +16,37 @@ import { SongReportHeader } from './retune-api';
 import { RetunePage } from './retune-page';
 import { PageTest } from '../testing/page-test';
 
-const mira: Member = { id: 'u-mira', login: 'mira-vale', name: 'Mira Vale', email: null, avatarUrl: null, siteRole: 'member' };
+const mira: Member = {
+  id: 'u-mira',
+  login: 'mira-vale',
+  name: 'Mira Vale',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member',
+};
 const fenFifths: PresetRow = {
-  id: 'p-fen', name: 'Fen Fifths', bandId: 'b-fen', bandName: 'Copper Fen', ownerId: 'u-mira', ownerLogin: 'mira-vale',
-  revision: 3, updatedAt: '2026-11-20T09:30:00Z', deletedAt: null, access: 'own',
+  id: 'p-fen',
+  name: 'Fen Fifths',
+  bandId: 'b-fen',
+  bandName: 'Copper Fen',
+  ownerId: 'u-mira',
+  ownerLogin: 'mira-vale',
+  revision: 3,
+  updatedAt: '2026-11-20T09:30:00Z',
+  deletedAt: null,
+  access: 'own',
 };
 const reedOrgan: PresetRow = {
-  id: 'p-reed', name: 'Reed Organ Meantone', bandId: null, bandName: null, ownerId: 'u-mira', ownerLogin: 'mira-vale',
-  revision: 1, updatedAt: '2026-11-18T15:00:00Z', deletedAt: null, access: 'own',
+  id: 'p-reed',
+  name: 'Reed Organ Meantone',
+  bandId: null,
+  bandName: null,
+  ownerId: 'u-mira',
+  ownerLogin: 'mira-vale',
+  revision: 1,
+  updatedAt: '2026-11-18T15:00:00Z',
+  deletedAt: null,
+  access: 'own',
 };
 const fenFifthsDocument = fifthsPreset('Fen Fifths');
 /** Fen Fifths on the white keys only: the black keys are left unmapped. */
@@ -40,11 +63,21 @@ const mpeReport: SongReportHeader = {
   mode: 'mpe',
   notesRetuned: 412,
   channelsUsed: [2, 3, 4, 5],
-  notesStolen: [{ track: 2, channel: 1, key: 61, startTick: 960, stolenAtTick: 1200, memberChannel: 3 }],
+  notesStolen: [
+    { track: 2, channel: 1, key: 61, startTick: 960, stolenAtTick: 1200, memberChannel: 3 },
+  ],
   notesStolenCount: 1,
   notesUnmappedCount: 2,
-  notesUnmapped: [{ track: 2, tick: 96, key: 61 }, { track: 2, tick: 288, key: 63 }],
-  warnings: [{ path: 'file.tracks[1]', message: 'file: track 2 bends its notes already; those bends were replaced.' }],
+  notesUnmapped: [
+    { track: 2, tick: 96, key: 61 },
+    { track: 2, tick: 288, key: 63 },
+  ],
+  warnings: [
+    {
+      path: 'file.tracks[1]',
+      message: 'file: track 2 bends its notes already; those bends were replaced.',
+    },
+  ],
   uploadSha256: 'ab'.repeat(32),
   leadIn: { ms: 100, ticks: 96 },
 };
@@ -126,11 +159,17 @@ describe('RetunePage', () => {
     expect(text('.chosen')).toContain('fen-song.mid');
     expect(text('.chosen')).toContain('14 bytes');
 
-    const select = await pages.loader.getHarness(MatSelectHarness.with({ selector: '.preset-field mat-select' }));
+    const select = await pages.loader.getHarness(
+      MatSelectHarness.with({ selector: '.preset-field mat-select' }),
+    );
     await select.open();
     await select.clickOptions({ text: /Fen Fifths/ });
     await answerPreset(fenFifths, fenFifthsDocument);
-    await (await pages.loader.getHarness(MatRadioButtonHarness.with({ label: 'One note per channel (MPE)' }))).check();
+    await (
+      await pages.loader.getHarness(
+        MatRadioButtonHarness.with({ label: 'One note per channel (MPE)' }),
+      )
+    ).check();
     await settle();
 
     const request = await retuneRequest();
@@ -162,12 +201,16 @@ describe('RetunePage', () => {
     expect(text('.channels-used')).toBe('2–5');
     expect(text('.notes-stolen')).toBe('1');
     expect(text('.notes-unmapped')).toBe('2');
-    const stolen = Array.from(page().querySelectorAll('table.stolen tbody td')).map((cell) => cell.textContent!.trim());
+    const stolen = Array.from(page().querySelectorAll('table.stolen tbody td')).map((cell) =>
+      cell.textContent!.trim(),
+    );
     expect(stolen).toEqual(['2', '1', '61 (C#4)', '960', '1200', '3']);
     expect(text('.warnings')).toContain('track 2 bends its notes already');
     expect(text('.lead-in-ms')).toBe('100 ms');
     expect(text('.lead-in-note')).toContain('The song starts 100 ms (96 ticks) later than written');
-    expect(page().querySelector('app-song-preview button.play')?.textContent).toContain('Hear it first');
+    expect(page().querySelector('app-song-preview button.play')?.textContent).toContain(
+      'Hear it first',
+    );
 
     const download = page().querySelector<HTMLAnchorElement>('a.download')!;
     expect(download.getAttribute('download')).toBe('fen-song-fen-fifths-mpe.mid');
@@ -177,59 +220,63 @@ describe('RetunePage', () => {
     expect(Array.from(downloaded)).toEqual(Array.from(midiBytes));
   });
 
-  it('draws the song, marks its notes on unmapped keys, then the retuned offsets', async () => {
-    // A song written with @tonejs/midi's writer: C4, D4, E4 and C♯4 on channel 1.
-    const midi = new Midi();
-    const track = midi.addTrack();
-    track.name = 'Tune';
-    [60, 62, 64, 61].forEach((key, index) =>
-      track.addNote({ midi: key, time: index * 0.5, duration: 0.5 }),
-    );
-    const bytes = new Uint8Array(midi.toArray());
-    await openSignedIn();
-    await choose(new File([bytes], 'fen-tune.mid', { type: 'audio/midi' }));
-    const roll = await waitFor(
-      'the roll of the chosen song',
-      () => page().querySelector('app-song-roll.written-roll svg.plot[role=img]'),
-      settle,
-    );
-    expect(roll.getAttribute('aria-label')).toBe(
-      'Piano roll of the song: 4 notes in 1 track, keys 60–64 (C4–E4)',
-    );
-    expect(page().querySelectorAll('.written-roll rect.note').length).toBe(4);
-    expect(text('.roll-hint')).toContain('Once a tuning is chosen');
+  it(
+    'draws the song, marks its notes on unmapped keys, then the retuned offsets',
+    async () => {
+      // A song written with @tonejs/midi's writer: C4, D4, E4 and C♯4 on channel 1.
+      const midi = new Midi();
+      const track = midi.addTrack();
+      track.name = 'Tune';
+      [60, 62, 64, 61].forEach((key, index) =>
+        track.addNote({ midi: key, time: index * 0.5, duration: 0.5 }),
+      );
+      const bytes = new Uint8Array(midi.toArray());
+      await openSignedIn();
+      await choose(new File([bytes], 'fen-tune.mid', { type: 'audio/midi' }));
+      const roll = await waitFor(
+        'the roll of the chosen song',
+        () => page().querySelector('app-song-roll.written-roll svg.plot[role=img]'),
+        settle,
+      );
+      expect(roll.getAttribute('aria-label')).toBe(
+        'Piano roll of the song: 4 notes in 1 track, keys 60–64 (C4–E4)',
+      );
+      expect(page().querySelectorAll('.written-roll rect.note').length).toBe(4);
+      expect(text('.roll-hint')).toContain('Once a tuning is chosen');
 
-    const select = await pages.loader.getHarness(MatSelectHarness);
-    await select.open();
-    await select.clickOptions({ text: /Fen Fifths/ });
-    await answerPreset(fenFifths, whiteKeysDocument);
-    expect(text('.written-roll .unmapped-count')).toBe('1');
-    expect(page().querySelectorAll('.written-roll rect.note.unmapped').length).toBe(1);
-    expect(roll.getAttribute('aria-label')).toContain(
-      '4 notes in 1 track, keys 60–64 (C4–E4), 1 on keys the tuning',
-    );
-    expect(page().querySelector('.roll-hint')).toBeNull();
+      const select = await pages.loader.getHarness(MatSelectHarness);
+      await select.open();
+      await select.clickOptions({ text: /Fen Fifths/ });
+      await answerPreset(fenFifths, whiteKeysDocument);
+      expect(text('.written-roll .unmapped-count')).toBe('1');
+      expect(page().querySelectorAll('.written-roll rect.note.unmapped').length).toBe(1);
+      expect(roll.getAttribute('aria-label')).toContain(
+        '4 notes in 1 track, keys 60–64 (C4–E4), 1 on keys the tuning',
+      );
+      expect(page().querySelector('.roll-hint')).toBeNull();
 
-    const parsed = parsePresetDocument(whiteKeysDocument);
-    const tuning = parsed.ok ? tuningOfPreset(parsed.value) : null;
-    if (!tuning?.ok) throw new Error('the preset does not build');
-    const retuned = retuneSong(bytes, tuning.value, 'mts', 0);
-    if (!retuned.ok) throw new Error(retuned.errors[0].message);
-    const request = await retuneRequest();
-    request.flush({
-      fileName: 'fen-tune-fen-fifths-mts.mid',
-      report: { ...mpeReport, mode: 'mts', notesStolen: [], notesStolenCount: 0 },
-      song: btoa(String.fromCharCode(...retuned.value.bytes)),
-    });
-    await until('the roll of the retuned song', () =>
-      page().querySelector('app-song-roll.retuned-roll svg.plot'),
-    );
-    // From memory: pure fifths from C give D = 9/8 (203.910 cents) and E = 81/64 (407.820 cents),
-    // +3.9 and +7.8 cents from 12-tone equal temperament; C4 is the root and C♯4, unmapped,
-    // keeps its equal-tempered pitch.
-    expect(text('.retuned-roll .cents-range')).toContain('from ±0.0¢ to +7.8¢');
-    expect(page().querySelectorAll('.retuned-roll rect.note').length).toBe(4);
-  }, patientSpecMs);
+      const parsed = parsePresetDocument(whiteKeysDocument);
+      const tuning = parsed.ok ? tuningOfPreset(parsed.value) : null;
+      if (!tuning?.ok) throw new Error('the preset does not build');
+      const retuned = retuneSong(bytes, tuning.value, 'mts', 0);
+      if (!retuned.ok) throw new Error(retuned.errors[0].message);
+      const request = await retuneRequest();
+      request.flush({
+        fileName: 'fen-tune-fen-fifths-mts.mid',
+        report: { ...mpeReport, mode: 'mts', notesStolen: [], notesStolenCount: 0 },
+        song: btoa(String.fromCharCode(...retuned.value.bytes)),
+      });
+      await until('the roll of the retuned song', () =>
+        page().querySelector('app-song-roll.retuned-roll svg.plot'),
+      );
+      // From memory: pure fifths from C give D = 9/8 (203.910 cents) and E = 81/64 (407.820 cents),
+      // +3.9 and +7.8 cents from 12-tone equal temperament; C4 is the root and C♯4, unmapped,
+      // keeps its equal-tempered pitch.
+      expect(text('.retuned-roll .cents-range')).toContain('from ±0.0¢ to +7.8¢');
+      expect(page().querySelectorAll('.retuned-roll rect.note').length).toBe(4);
+    },
+    patientSpecMs,
+  );
 
   it('retunes the same song again in the other mode without choosing it again', async () => {
     await openSignedIn();
@@ -240,12 +287,17 @@ describe('RetunePage', () => {
     await answerPreset(reedOrgan, { ...fenFifthsDocument, name: 'Reed Organ Meantone' });
     const first = await retuneRequest();
     expect((first.request.body as FormData).get('mode')).toBe('mts');
-    await answerWithSong(first, 'fen-song-reed-organ-meantone-mts.mid', { ...mpeReport, mode: 'mts', notesStolen: [], notesStolenCount: 0 });
+    await answerWithSong(first, 'fen-song-reed-organ-meantone-mts.mid', {
+      ...mpeReport,
+      mode: 'mts',
+      notesStolen: [],
+      notesStolenCount: 0,
+    });
     expect(text('.result h2')).toBe('Retuned with tuning messages (MTS)');
     expect(page().querySelector('table.stolen')).toBeNull();
 
-    const again = Array.from(page().querySelectorAll<HTMLButtonElement>('button.again')).find((button) =>
-      button.textContent!.includes('Retune again as one note per channel (MPE)'),
+    const again = Array.from(page().querySelectorAll<HTMLButtonElement>('button.again')).find(
+      (button) => button.textContent!.includes('Retune again as one note per channel (MPE)'),
     )!;
     again.click();
     await settle();
@@ -255,7 +307,9 @@ describe('RetunePage', () => {
     expect(form.get('presetId')).toBe('p-reed');
     expect((form.get('file') as File).name).toBe('fen-song.mid');
     await answerWithSong(second, 'fen-song-reed-organ-meantone-mpe.mid', mpeReport);
-    expect(page().querySelector('a.download')!.getAttribute('download')).toBe('fen-song-reed-organ-meantone-mpe.mid');
+    expect(page().querySelector('a.download')!.getAttribute('download')).toBe(
+      'fen-song-reed-organ-meantone-mpe.mid',
+    );
   });
 
   it('sends the lead-in as typed, refuses one out of range before sending, and says when there is none', async () => {
@@ -281,14 +335,22 @@ describe('RetunePage', () => {
     expect(page().querySelector('.lead-in-fault')).toBeNull();
     const request = await retuneRequest();
     expect((request.request.body as FormData).get('leadInMs')).toBe('0');
-    await answerWithSong(request, 'fen-song-fen-fifths-mts.mid', { ...mpeReport, mode: 'mts', leadIn: { ms: 0, ticks: 0 } });
+    await answerWithSong(request, 'fen-song-fen-fifths-mts.mid', {
+      ...mpeReport,
+      mode: 'mts',
+      leadIn: { ms: 0, ticks: 0 },
+    });
     expect(text('.lead-in-note')).toContain('No lead-in: the first note starts with the tuning');
   });
 
   it('refuses a 6 MB song without sending it', async () => {
     await openSignedIn();
-    await choose(new File([new Uint8Array(6 * 1024 * 1024)], 'copper-fen-live.mid', { type: 'audio/midi' }));
-    expect(text('.song-fault')).toContain('“copper-fen-live.mid” is 6.0 MB, larger than the limit of 5 MB, so it was not sent.');
+    await choose(
+      new File([new Uint8Array(6 * 1024 * 1024)], 'copper-fen-live.mid', { type: 'audio/midi' }),
+    );
+    expect(text('.song-fault')).toContain(
+      '“copper-fen-live.mid” is 6.0 MB, larger than the limit of 5 MB, so it was not sent.',
+    );
     expect(page().querySelector('.chosen')).toBeNull();
     pressRetune();
     await settle();
@@ -296,68 +358,119 @@ describe('RetunePage', () => {
     http.expectNone('/api/retune');
   });
 
-  it('sends the design from the designer\'s address as the preset document when signed out', async () => {
-    const d = encodeDesign(draftFrom(fenFifthsDocument));
-    await open(`/retune?d=${d}`, null);
-    http.expectNone((request) => request.url === '/api/presets');
-    expect(text('.tuning-name')).toBe('Fen Fifths');
-    expect(page().querySelector('a.sign-in-link')!.textContent).toContain('Sign in for your saved presets');
-    const back = new URL(page().querySelector<HTMLAnchorElement>('a.back')!.href);
-    expect(back.pathname).toBe('/design');
-    expect(back.searchParams.get('d')).toBe(d);
+  it(
+    "sends the design from the designer's address as the preset document when signed out",
+    async () => {
+      const d = encodeDesign(draftFrom(fenFifthsDocument));
+      await open(`/retune?d=${d}`, null);
+      http.expectNone((request) => request.url === '/api/presets');
+      expect(text('.tuning-name')).toBe('Fen Fifths');
+      expect(page().querySelector('a.sign-in-link')!.textContent).toContain(
+        'Sign in for your saved presets',
+      );
+      const back = new URL(page().querySelector<HTMLAnchorElement>('a.back')!.href);
+      expect(back.pathname).toBe('/design');
+      expect(back.searchParams.get('d')).toBe(d);
 
-    await choose(song());
-    await until('the song\'s fault', () => page().querySelector('.roll-fault'));
-    expect(text('.roll-fault')).toContain('This song cannot be drawn here');
-    const request = await retuneRequest();
-    const form = request.request.body as FormData;
-    expect(form.get('mode')).toBe('mts');
-    expect(form.get('presetId')).toBeNull();
-    expect(JSON.parse(form.get('preset') as string)).toEqual(jasmine.objectContaining({ name: 'Fen Fifths', scale: fenFifthsDocument.scale }));
-    request.flush(null, { status: 500, statusText: 'Server Error' });
-    await until('the refusal', () => page().querySelector('.refusal'));
-  }, patientSpecMs);
+      await choose(song());
+      await until("the song's fault", () => page().querySelector('.roll-fault'));
+      expect(text('.roll-fault')).toContain('This song cannot be drawn here');
+      const request = await retuneRequest();
+      const form = request.request.body as FormData;
+      expect(form.get('mode')).toBe('mts');
+      expect(form.get('presetId')).toBeNull();
+      expect(JSON.parse(form.get('preset') as string)).toEqual(
+        jasmine.objectContaining({ name: 'Fen Fifths', scale: fenFifthsDocument.scale }),
+      );
+      request.flush(null, { status: 500, statusText: 'Server Error' });
+      await until('the refusal', () => page().querySelector('.refusal'));
+    },
+    patientSpecMs,
+  );
 
-  it('shows the server\'s refusal in its own words', async () => {
-    await openSignedIn();
-    await choose(new File([new Uint8Array([0x50, 0x4b, 3, 4])], 'fen-song.mid'));
-    const select = await pages.loader.getHarness(MatSelectHarness);
-    await select.open();
-    await select.clickOptions({ text: /Fen Fifths/ });
-    await answerPreset(fenFifths, fenFifthsDocument);
-    const request = await retuneRequest();
-    // The refusal of server/routes/retune.ts for a file that starts with "PK".
-    const refusal = { error: { code: 'not_midi', message: 'file: is not a Standard MIDI File; it looks like a zip archive.', field: 'file' } };
-    request.flush(refusal, { status: 400, statusText: 'Bad Request' });
-    await until('the refusal\'s message', () => page().querySelector('.refusal-message'));
-    expect(text('.refusal h2')).toBe('The song was not retuned');
-    expect(text('.refusal-message')).toBe('file: is not a Standard MIDI File; it looks like a zip archive.');
-    expect(page().querySelector('a.download')).toBeNull();
-    expect(page().querySelector('button.retune')!.getAttribute('aria-disabled')).not.toBe('true');
-  }, patientSpecMs);
+  it(
+    "shows the server's refusal in its own words",
+    async () => {
+      await openSignedIn();
+      await choose(new File([new Uint8Array([0x50, 0x4b, 3, 4])], 'fen-song.mid'));
+      const select = await pages.loader.getHarness(MatSelectHarness);
+      await select.open();
+      await select.clickOptions({ text: /Fen Fifths/ });
+      await answerPreset(fenFifths, fenFifthsDocument);
+      const request = await retuneRequest();
+      // The refusal of server/routes/retune.ts for a file that starts with "PK".
+      const refusal = {
+        error: {
+          code: 'not_midi',
+          message: 'file: is not a Standard MIDI File; it looks like a zip archive.',
+          field: 'file',
+        },
+      };
+      request.flush(refusal, { status: 400, statusText: 'Bad Request' });
+      await until("the refusal's message", () => page().querySelector('.refusal-message'));
+      expect(text('.refusal h2')).toBe('The song was not retuned');
+      expect(text('.refusal-message')).toBe(
+        'file: is not a Standard MIDI File; it looks like a zip archive.',
+      );
+      expect(page().querySelector('a.download')).toBeNull();
+      expect(page().querySelector('button.retune')!.getAttribute('aria-disabled')).not.toBe('true');
+    },
+    patientSpecMs,
+  );
 
-  it('reads a chosen preset file in the browser and names its faults before anything is sent', async () => {
-    await open('/retune', null);
-    expect(await (await pages.loader.getHarness(MatRadioButtonHarness.with({ label: 'A preset file (.json)' }))).isChecked()).toBeTrue();
-    await choose(song());
-    const broken = { ...fenFifthsDocument, scale: { kind: 'generated', generator: '1.5', up: 5 } };
-    await choose(new File([JSON.stringify(broken)], 'fen-fifths.json', { type: 'application/json' }), 1);
-    await until('the preset file\'s faults', () => page().querySelector('.preset-faults'));
-    expect(text('.preset-faults')).toContain('scale.generator');
-    pressRetune();
-    await settle();
-    expect(text('.missing')).toContain('The preset file has faults');
-    http.expectNone('/api/retune');
+  it(
+    'reads a chosen preset file in the browser and names its faults before anything is sent',
+    async () => {
+      await open('/retune', null);
+      expect(
+        await (
+          await pages.loader.getHarness(
+            MatRadioButtonHarness.with({ label: 'A preset file (.json)' }),
+          )
+        ).isChecked(),
+      ).toBeTrue();
+      await choose(song());
+      const broken = {
+        ...fenFifthsDocument,
+        scale: { kind: 'generated', generator: '1.5', up: 5 },
+      };
+      await choose(
+        new File([JSON.stringify(broken)], 'fen-fifths.json', { type: 'application/json' }),
+        1,
+      );
+      await until("the preset file's faults", () => page().querySelector('.preset-faults'));
+      expect(text('.preset-faults')).toContain('scale.generator');
+      pressRetune();
+      await settle();
+      expect(text('.missing')).toContain('The preset file has faults');
+      http.expectNone('/api/retune');
 
-    await choose(new File([JSON.stringify(fenFifthsDocument)], 'fen-fifths.json', { type: 'application/json' }), 1);
-    await until(
-      'the preset file chosen',
-      () => page().querySelector('.chosen .file-name') && text('.card:nth-child(2) .chosen').includes('Fen Fifths'),
-    );
-    const request = await retuneRequest();
-    expect(JSON.parse((request.request.body as FormData).get('preset') as string)).toEqual(fenFifthsDocument);
-    request.flush({ fileName: 'fen-song-fen-fifths-mts.mid', report: { ...mpeReport, mode: 'mts' }, song: btoa(String.fromCharCode(...midiBytes)) });
-    await settle();
-    expect(page().querySelector('a.download')!.getAttribute('download')).toBe('fen-song-fen-fifths-mts.mid');
-  }, patientSpecMs);
+      await choose(
+        new File([JSON.stringify(fenFifthsDocument)], 'fen-fifths.json', {
+          type: 'application/json',
+        }),
+        1,
+      );
+      await until(
+        'the preset file chosen',
+        () =>
+          page().querySelector('.chosen .file-name') &&
+          text('.card:nth-child(2) .chosen').includes('Fen Fifths'),
+      );
+      const request = await retuneRequest();
+      expect(JSON.parse((request.request.body as FormData).get('preset') as string)).toEqual(
+        fenFifthsDocument,
+      );
+      request.flush({
+        fileName: 'fen-song-fen-fifths-mts.mid',
+        report: { ...mpeReport, mode: 'mts' },
+        song: btoa(String.fromCharCode(...midiBytes)),
+      });
+      await settle();
+      expect(page().querySelector('a.download')!.getAttribute('download')).toBe(
+        'fen-song-fen-fifths-mts.mid',
+      );
+    },
+    patientSpecMs,
+  );
 });

@@ -39,15 +39,29 @@ import { fileSize, uploadFault } from './upload-limit';
 
 type TuningSource = 'design' | 'saved' | 'file';
 
-const modeNames: Record<RetuneMode, string> = { mts: 'tuning messages (MTS)', mpe: 'one note per channel (MPE)' };
+const modeNames: Record<RetuneMode, string> = {
+  mts: 'tuning messages (MTS)',
+  mpe: 'one note per channel (MPE)',
+};
 
 /** Song retuning: choose a MIDI song, a tuning and a mode, watch it go, read the report, download the result. */
 @Component({
   selector: 'app-retune-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatProgressBarModule,
-    MatRadioModule, MatSelectModule, FileDrop, SignInPrompt, SongPreview, SongReport, SongRoll,
+    RouterLink,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatRadioModule,
+    MatSelectModule,
+    FileDrop,
+    SignInPrompt,
+    SongPreview,
+    SongReport,
+    SongRoll,
   ],
   providers: [RetuneApi],
   templateUrl: './retune-page.html',
@@ -108,10 +122,14 @@ export class RetunePage {
   protected readonly step = signal<RetuneStep | null>(null);
   protected readonly missing = signal<string | null>(null);
   protected readonly downloadUrl = signal<string | null>(null);
-  protected readonly busy = computed(() => ['sending', 'retuning'].includes(this.step()?.kind ?? ''));
+  protected readonly busy = computed(() =>
+    ['sending', 'retuning'].includes(this.step()?.kind ?? ''),
+  );
   protected readonly percentSent = computed(() => {
     const step = this.step();
-    return step?.kind === 'sending' && step.fraction !== null ? Math.round(step.fraction * 100) : null;
+    return step?.kind === 'sending' && step.fraction !== null
+      ? Math.round(step.fraction * 100)
+      : null;
   });
   /** What a screen reader hears as the retune goes: the steps, not every percent. */
   protected readonly announcement = computed(() => {
@@ -217,7 +235,11 @@ export class RetunePage {
     const song = this.song();
     const tuning = this.chosenTuning();
     const leadInFault = this.leadInFault();
-    const missing = !song ? 'Choose a song first.' : typeof tuning === 'string' ? tuning : leadInFault;
+    const missing = !song
+      ? 'Choose a song first.'
+      : typeof tuning === 'string'
+        ? tuning
+        : leadInFault;
     this.missing.set(missing);
     if (!song || typeof tuning === 'string' || leadInFault) return;
     this.running?.unsubscribe();
@@ -243,7 +265,8 @@ export class RetunePage {
         const design = this.design();
         if (!design) return 'Choose a tuning first.';
         if (typeof design === 'string') return design;
-        if (this.designFaults().length) return 'The design has faults; open it in the designer to put them right.';
+        if (this.designFaults().length)
+          return 'The design has faults; open it in the designer to put them right.';
         return { document: design };
       }
       case 'saved': {
@@ -253,7 +276,9 @@ export class RetunePage {
       case 'file': {
         const chosen = this.presetFile();
         if (!chosen) return 'Choose a preset file.';
-        return chosen.reading.ok ? { document: chosen.reading.document } : 'The preset file has faults (listed under it); choose another.';
+        return chosen.reading.ok
+          ? { document: chosen.reading.document }
+          : 'The preset file has faults (listed under it); choose another.';
       }
     }
   }

@@ -48,37 +48,75 @@ function clock(seconds: number): string {
       <label class="volume">
         <span id="song-volume-label">Volume</span>
         <mat-slider min="-60" max="0" step="1" discrete [displayWith]="volumeText">
-          <input matSliderThumb aria-labelledby="song-volume-label" [value]="volumeDb()" (valueChange)="setVolumeDb($event)" />
+          <input
+            matSliderThumb
+            aria-labelledby="song-volume-label"
+            [value]="volumeDb()"
+            (valueChange)="setVolumeDb($event)"
+          />
         </mat-slider>
         <span>{{ volumeDb() }} dB</span>
       </label>
       @if (sound(); as sound) {
-        <span class="clock" aria-label="Position in the song">{{ clock(position()) }} / {{ clock(sound.seconds) }}</span>
+        <span class="clock" aria-label="Position in the song"
+          >{{ clock(position()) }} / {{ clock(sound.seconds) }}</span
+        >
       }
     </div>
     @if (sound(); as sound) {
       <mat-progress-bar mode="determinate" [value]="percent()" aria-label="Position in the song" />
       <p class="hint">
-        {{ sound.notes.length }} notes, played as an instrument that follows the song's tuning messages and bends would
-        play them, with a plain tone.@if (sound.drumNotes) { {{ sound.drumNotes }} drum notes (channel 10) are left out.}
+        {{ sound.notes.length }} notes, played as an instrument that follows the song's tuning
+        messages and bends would play them, with a plain tone.
+        @if (sound.drumNotes) {
+          {{ sound.drumNotes }} drum notes (channel 10) are left out.
+        }
       </p>
     }
     @if (hasSounded()) {
       <p class="caution" role="status">
-        Keep the volume low, especially on headphones: it starts at {{ startingVolume }} dB and a limiter holds the peaks.
+        Keep the volume low, especially on headphones: it starts at {{ startingVolume }} dB and a
+        limiter holds the peaks.
       </p>
     }
-    @if (fault(); as fault) { <p class="fault" role="alert">{{ fault }}</p> }
+    @if (fault(); as fault) {
+      <p class="fault" role="alert">{{ fault }}</p>
+    }
   `,
   styles: `
-    :host { display: block; margin: 12px 0; }
-    .bar { display: flex; flex-wrap: wrap; align-items: center; gap: 8px 16px; }
-    .volume { display: flex; align-items: center; gap: 8px; }
-    .volume mat-slider { width: 160px; }
-    .clock { font-variant-numeric: tabular-nums; }
-    .hint, .caution { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); margin: 6px 0 0; }
-    .caution { color: var(--mat-sys-on-surface); }
-    .fault { color: var(--mat-sys-error); }
+    :host {
+      display: block;
+      margin: 12px 0;
+    }
+    .bar {
+      display: flex;
+      flex-wrap: wrap;
+      align-items: center;
+      gap: 8px 16px;
+    }
+    .volume {
+      display: flex;
+      align-items: center;
+      gap: 8px;
+    }
+    .volume mat-slider {
+      width: 160px;
+    }
+    .clock {
+      font-variant-numeric: tabular-nums;
+    }
+    .hint,
+    .caution {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+      margin: 6px 0 0;
+    }
+    .caution {
+      color: var(--mat-sys-on-surface);
+    }
+    .fault {
+      color: var(--mat-sys-error);
+    }
   `,
 })
 export class SongPreview {
@@ -179,7 +217,10 @@ export class SongPreview {
     if (!sound || !engine || !context) return;
     const now = context.currentTime - this.startedAt;
     this.position.set(Math.max(0, Math.min(now, sound.seconds)));
-    while (this.next < sound.notes.length && sound.notes[this.next].start < now + lookAheadSeconds) {
+    while (
+      this.next < sound.notes.length &&
+      sound.notes[this.next].start < now + lookAheadSeconds
+    ) {
       const note = sound.notes[this.next];
       const id = `song ${this.next}`;
       engine.start(id, note.hz, timbre, this.startedAt + note.start);

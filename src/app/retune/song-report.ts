@@ -46,22 +46,26 @@ function channelRuns(channels: readonly number[]): string {
     @if (summary.leadIn; as leadIn) {
       <p class="lead-in-note">
         @if (leadIn.ticks > 0) {
-          The song starts {{ leadIn.ms }} ms ({{ leadIn.ticks }} ticks) later than written, so the instrument takes the
-          tuning before the first note; every note keeps its place against the others.
+          The song starts {{ leadIn.ms }} ms ({{ leadIn.ticks }} ticks) later than written, so the
+          instrument takes the tuning before the first note; every note keeps its place against the
+          others.
         } @else {
-          No lead-in: the first note starts with the tuning, and some instruments need a moment to take it.
+          No lead-in: the first note starts with the tuning, and some instruments need a moment to
+          take it.
         }
       </p>
     }
 
     @if (summary.notesStolenCount > 0) {
       <p>
-        These notes were cut short because every member channel was already sounding when another note began.
-        More member channels in the preset's output settings leave room for them.
+        These notes were cut short because every member channel was already sounding when another
+        note began. More member channels in the preset's output settings leave room for them.
       </p>
       <div class="table-frame">
         <table class="stolen">
-          <caption class="visually-hidden">Notes cut short</caption>
+          <caption class="visually-hidden">
+            Notes cut short
+          </caption>
           <thead>
             <tr>
               <th scope="col" class="number">Track</th>
@@ -101,26 +105,73 @@ function channelRuns(channels: readonly number[]): string {
     }
   `,
   styles: `
-    :host { display: block; }
-    .figures { display: flex; flex-wrap: wrap; gap: 8px 32px; margin: 0 0 12px; }
-    dt { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }
-    dd { margin: 0; font: var(--mat-sys-title-large); font-variant-numeric: tabular-nums; }
-    h3 { font: var(--mat-sys-title-small); margin: 16px 0 4px; }
-    .table-frame { overflow-x: auto; }
-    table { border-collapse: collapse; font-variant-numeric: tabular-nums; }
-    th, td { padding: 4px 10px; text-align: start; border-bottom: 1px solid var(--mat-sys-outline-variant); white-space: nowrap; }
-    thead th { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); white-space: normal; }
-    .number { text-align: end; }
-    .unlisted { font: var(--mat-sys-body-small); color: var(--mat-sys-on-surface-variant); }
-    .warnings { margin: 0; padding-inline-start: 20px; }
-    @media (max-width: 480px) { th, td { padding: 4px 6px; } }
+    :host {
+      display: block;
+    }
+    .figures {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 8px 32px;
+      margin: 0 0 12px;
+    }
+    dt {
+      font: var(--mat-sys-label-medium);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    dd {
+      margin: 0;
+      font: var(--mat-sys-title-large);
+      font-variant-numeric: tabular-nums;
+    }
+    h3 {
+      font: var(--mat-sys-title-small);
+      margin: 16px 0 4px;
+    }
+    .table-frame {
+      overflow-x: auto;
+    }
+    table {
+      border-collapse: collapse;
+      font-variant-numeric: tabular-nums;
+    }
+    th,
+    td {
+      padding: 4px 10px;
+      text-align: start;
+      border-bottom: 1px solid var(--mat-sys-outline-variant);
+      white-space: nowrap;
+    }
+    thead th {
+      font: var(--mat-sys-label-medium);
+      color: var(--mat-sys-on-surface-variant);
+      white-space: normal;
+    }
+    .number {
+      text-align: end;
+    }
+    .unlisted {
+      font: var(--mat-sys-body-small);
+      color: var(--mat-sys-on-surface-variant);
+    }
+    .warnings {
+      margin: 0;
+      padding-inline-start: 20px;
+    }
+    @media (max-width: 480px) {
+      th,
+      td {
+        padding: 4px 6px;
+      }
+    }
   `,
 })
 export class SongReport {
   readonly report = input.required<SongReportHeader>();
 
   protected readonly channels = computed(() => channelRuns(this.report().channelsUsed));
-  protected readonly unlisted = computed(() => this.report().notesStolenCount - this.report().notesStolen.length);
+  protected readonly unlisted = computed(
+    () => this.report().notesStolenCount - this.report().notesStolen.length,
+  );
 
   protected keyName(key: number): string {
     return noteName(key);

@@ -7,5 +7,8 @@ import { EnvironmentProviders, makeEnvironmentProviders } from '@angular/core';
  * cross-site token interceptor as the app's.
  */
 export function provideUploadingHttpClient(): EnvironmentProviders {
-  return makeEnvironmentProviders([provideHttpClient(), { provide: HttpBackend, useExisting: HttpXhrBackend }]);
+  return makeEnvironmentProviders([
+    provideHttpClient(),
+    { provide: HttpBackend, useExisting: HttpXhrBackend },
+  ]);
 }

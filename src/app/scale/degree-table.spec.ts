@@ -16,13 +16,23 @@ describe('DegreeTable', () => {
     fixture.componentRef.setInput('rootHz', rootHz);
     fixture.detectChanges();
     const rows = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('tbody tr'));
-    return rows.map((row) => Array.from(row.querySelectorAll('td')).map((cell) => cell.textContent!.trim()));
+    return rows.map((row) =>
+      Array.from(row.querySelectorAll('td')).map((cell) => cell.textContent!.trim()),
+    );
   }
 
   it('shows the Pythagorean ratios of five fifths up and one down', () => {
     const rows = render({ kind: 'generated', generator: '3/2', up: 5, down: 1 });
     // Stacked fifths reduced into the octave: 1/1 9/8 81/64 4/3 3/2 27/16 243/128 (from memory).
-    expect(rows.map((cells) => cells[2])).toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
+    expect(rows.map((cells) => cells[2])).toEqual([
+      '1/1',
+      '9/8',
+      '81/64',
+      '4/3',
+      '3/2',
+      '27/16',
+      '243/128',
+    ]);
     expect(rows.map((cells) => cells[0])).toEqual(['0', '1', '2', '3', '4', '5', '6']);
     // Named along the chain of fifths from C: F C G D A E B (common practice).
     expect(rows.map((cells) => cells[1])).toEqual(['C', 'D', 'E', 'F', 'G', 'A', 'B']);

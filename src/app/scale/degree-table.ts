@@ -30,7 +30,11 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
   return {
     degree: degree.degree,
     name: degree.name,
-    ratio: degree.ratio ?? (approximation ? `≈ ${approximation.ratio} (${signedCentsText(approximation.errorCents)})` : '–'),
+    ratio:
+      degree.ratio ??
+      (approximation
+        ? `≈ ${approximation.ratio} (${signedCentsText(approximation.errorCents)})`
+        : '–'),
     approximate: degree.ratio === null,
     cents: centsText(degree.cents),
     step: sizeText(degree.step),
@@ -50,7 +54,13 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
   template: `
     <div class="scroller" tabindex="0" role="region" aria-label="Degrees, scrolls sideways">
       <table mat-table [dataSource]="rows()" [trackBy]="trackDegree" class="degrees">
-        <caption class="visually-hidden">Degrees of the scale played from {{ rootHz().toFixed(3) }} Hz</caption>
+        <caption class="visually-hidden">
+          Degrees of the scale played from
+          {{
+            rootHz().toFixed(3)
+          }}
+          Hz
+        </caption>
         <!-- The degree and its name stay in view while the table scrolls sideways on a phone. -->
         <ng-container matColumnDef="degree" sticky>
           <th mat-header-cell *matHeaderCellDef scope="col">Degree</th>
@@ -62,7 +72,9 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
         </ng-container>
         <ng-container matColumnDef="ratio">
           <th mat-header-cell *matHeaderCellDef scope="col">Ratio</th>
-          <td mat-cell *matCellDef="let row" [class.approximate]="row.approximate">{{ row.ratio }}</td>
+          <td mat-cell *matCellDef="let row" [class.approximate]="row.approximate">
+            {{ row.ratio }}
+          </td>
         </ng-container>
         <ng-container matColumnDef="cents">
           <th mat-header-cell *matHeaderCellDef scope="col">Cents</th>
@@ -85,11 +97,15 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
           <td mat-cell *matCellDef="let row">{{ row.hz }}</td>
         </ng-container>
         <ng-container matColumnDef="fifthBeats">
-          <th mat-header-cell *matHeaderCellDef scope="col"><abbr title="Beats per second of the fifth above">Fifth beats</abbr></th>
+          <th mat-header-cell *matHeaderCellDef scope="col">
+            <abbr title="Beats per second of the fifth above">Fifth beats</abbr>
+          </th>
           <td mat-cell *matCellDef="let row">{{ row.fifthBeats }}</td>
         </ng-container>
         <ng-container matColumnDef="thirdBeats">
-          <th mat-header-cell *matHeaderCellDef scope="col"><abbr title="Beats per second of the major third above">Third beats</abbr></th>
+          <th mat-header-cell *matHeaderCellDef scope="col">
+            <abbr title="Beats per second of the major third above">Third beats</abbr>
+          </th>
           <td mat-cell *matCellDef="let row">{{ row.thirdBeats }}</td>
         </ng-container>
         <tr mat-header-row *matHeaderRowDef="columns"></tr>
@@ -98,18 +114,48 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
     </div>
   `,
   styles: `
-    .scroller { overflow-x: auto; max-width: 100%; }
-    .degrees { min-width: 640px; font-variant-numeric: tabular-nums; }
-    .mat-mdc-cell, .mat-mdc-header-cell { padding: 0 10px; white-space: nowrap; }
-    .mat-mdc-table-sticky { background: var(--mat-sys-surface); }
-    .approximate { color: var(--mat-sys-on-surface-variant); font-style: italic; }
-    abbr { text-decoration: none; }
+    .scroller {
+      overflow-x: auto;
+      max-width: 100%;
+    }
+    .degrees {
+      min-width: 640px;
+      font-variant-numeric: tabular-nums;
+    }
+    .mat-mdc-cell,
+    .mat-mdc-header-cell {
+      padding: 0 10px;
+      white-space: nowrap;
+    }
+    .mat-mdc-table-sticky {
+      background: var(--mat-sys-surface);
+    }
+    .approximate {
+      color: var(--mat-sys-on-surface-variant);
+      font-style: italic;
+    }
+    abbr {
+      text-decoration: none;
+    }
   `,
 })
 export class DegreeTable {
   readonly degrees = input.required<PreviewDegree[]>();
   readonly rootHz = input.required<number>();
-  protected readonly columns = ['degree', 'name', 'ratio', 'cents', 'step', 'note', 'offset', 'hz', 'fifthBeats', 'thirdBeats'];
+  protected readonly columns = [
+    'degree',
+    'name',
+    'ratio',
+    'cents',
+    'step',
+    'note',
+    'offset',
+    'hz',
+    'fifthBeats',
+    'thirdBeats',
+  ];
   protected readonly trackDegree = (_index: number, row: DegreeRow) => row.degree;
-  protected readonly rows = computed(() => this.degrees().map((degree) => rowOf(degree, this.rootHz())));
+  protected readonly rows = computed(() =>
+    this.degrees().map((degree) => rowOf(degree, this.rootHz())),
+  );
 }

@@ -25,7 +25,9 @@ describe('GeneratedForm', () => {
 
   it('labels its fields in plain words', async () => {
     const { element } = await render();
-    const labels = Array.from(element.querySelectorAll('mat-label')).map((label) => label.textContent?.trim());
+    const labels = Array.from(element.querySelectorAll('mat-label')).map((label) =>
+      label.textContent?.trim(),
+    );
     expect(labels).toEqual(['Generator', 'Period', 'Generators up', 'Generators down']);
   });
 
@@ -33,7 +35,9 @@ describe('GeneratedForm', () => {
     const { field, type } = await render();
     await type('Generator', '1.5');
     const { formField, input } = field('Generator');
-    expect(formField.querySelector('mat-error')?.textContent).toContain('1.5 needs a unit: write 1.5c for cents');
+    expect(formField.querySelector('mat-error')?.textContent).toContain(
+      '1.5 needs a unit: write 1.5c for cents',
+    );
     expect(input.getAttribute('aria-invalid')).toBe('true');
 
     await type('Generator', '701.955c');
@@ -44,7 +48,9 @@ describe('GeneratedForm', () => {
   it('asks for a whole number of generators, keeping what was typed', async () => {
     const { field, type, state } = await render();
     await type('Generators up', '2.5');
-    expect(field('Generators up').formField.querySelector('mat-error')?.textContent).toContain('must be a whole number');
+    expect(field('Generators up').formField.querySelector('mat-error')?.textContent).toContain(
+      'must be a whole number',
+    );
     expect(field('Generators up').input.value).toBe('2.5');
     expect(state.draft().scale).toEqual(jasmine.objectContaining({ up: 2.5 }));
   });
@@ -55,7 +61,9 @@ describe('GeneratedForm', () => {
       .find((button) => button.textContent?.includes('Temper every generator alike'))!
       .click();
     await fixture.whenStable();
-    expect(state.draft().scale).toEqual(jasmine.objectContaining({ temper: { comma: '81/80', fraction: '1/4' } }));
+    expect(state.draft().scale).toEqual(
+      jasmine.objectContaining({ temper: { comma: '81/80', fraction: '1/4' } }),
+    );
     // 3/2 narrowed by 1/4 of 81/80 is 696.578c (standard acoustics texts: the quarter-comma fifth).
     expect(element.textContent).toContain('the generator becomes 696.578c');
   });

@@ -12,19 +12,42 @@ import { typedFrom, typedText } from '../design/draft-document';
   template: `
     @if (scale(); as scale) {
       <div class="fields">
-        <app-design-field label="From harmonic" path="scale.from" inputMode="numeric" [value]="text(scale.from)"
-                          (edited)="state.setScaleField('from', typedFrom($event))" hint="The tonic, such as 8" />
-        <app-design-field label="Up to harmonic" path="scale.to" inputMode="numeric" [value]="text(scale.to)"
-                          (edited)="state.setScaleField('to', typedFrom($event))" hint="The period's top, such as 16" />
+        <app-design-field
+          label="From harmonic"
+          path="scale.from"
+          inputMode="numeric"
+          [value]="text(scale.from)"
+          (edited)="state.setScaleField('from', typedFrom($event))"
+          hint="The tonic, such as 8"
+        />
+        <app-design-field
+          label="Up to harmonic"
+          path="scale.to"
+          inputMode="numeric"
+          [value]="text(scale.to)"
+          (edited)="state.setScaleField('to', typedFrom($event))"
+          hint="The period's top, such as 16"
+        />
       </div>
-      <mat-checkbox [checked]="!!scale.sub" (change)="state.setScaleField('sub', $event.checked)" [disabled]="state.readOnly()">
+      <mat-checkbox
+        [checked]="!!scale.sub"
+        (change)="state.setScaleField('sub', $event.checked)"
+        [disabled]="state.readOnly()"
+      >
         Subharmonics (the segment mirrored)
       </mat-checkbox>
     }
   `,
   styles: `
-    .fields { display: grid; gap: 4px 16px; grid-template-columns: repeat(auto-fill, minmax(150px, 1fr)); }
-    mat-checkbox { display: block; margin-left: -8px; }
+    .fields {
+      display: grid;
+      gap: 4px 16px;
+      grid-template-columns: repeat(auto-fill, minmax(150px, 1fr));
+    }
+    mat-checkbox {
+      display: block;
+      margin-left: -8px;
+    }
   `,
 })
 export class HarmonicForm {

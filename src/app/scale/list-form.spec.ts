@@ -16,14 +16,19 @@ describe('ListForm', () => {
       field.dispatchEvent(new Event('input'));
       await fixture.whenStable();
     };
-    const notices = () => Array.from(element.querySelectorAll('.notices li')).map((li) => li.textContent?.trim());
+    const notices = () =>
+      Array.from(element.querySelectorAll('.notices li')).map((li) => li.textContent?.trim());
     return { state, field, type, notices };
   }
 
   it('reads a list pasted on one line, drops the leading 1/1, takes the closing 2/1 as the period, and says so', async () => {
     const { state, field, type, notices } = await render();
     await type('1/1, 9/8, 5/4, 4/3, 3/2, 5/3, 15/8, 2/1');
-    expect(state.draft().scale).toEqual({ kind: 'list', degrees: ['9/8', '5/4', '4/3', '3/2', '5/3', '15/8'], period: '2/1' });
+    expect(state.draft().scale).toEqual({
+      kind: 'list',
+      degrees: ['9/8', '5/4', '4/3', '3/2', '5/3', '15/8'],
+      period: '2/1',
+    });
     expect(state.faults()).toEqual([]);
     expect(field.value).toBe('1/1, 9/8, 5/4, 4/3, 3/2, 5/3, 15/8, 2/1');
     expect(notices()).toEqual([
@@ -35,7 +40,11 @@ describe('ListForm', () => {
   it('says nothing more for a list typed one a line', async () => {
     const { state, type, notices } = await render();
     await type('9/8\n5/4\n\n3/2\n');
-    expect(state.draft().scale).toEqual({ kind: 'list', degrees: ['9/8', '5/4', '3/2'], period: '2/1' });
+    expect(state.draft().scale).toEqual({
+      kind: 'list',
+      degrees: ['9/8', '5/4', '3/2'],
+      period: '2/1',
+    });
     expect(notices()).toEqual([]);
   });
 });

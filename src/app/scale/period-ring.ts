@@ -30,11 +30,23 @@ function pointAt(fraction: number, radius: number): Point {
     <svg [attr.viewBox]="'0 0 ' + size + ' ' + size" role="img" [attr.aria-label]="description()">
       <circle class="ring" [attr.cx]="centre" [attr.cy]="centre" [attr.r]="ringRadius" />
       @for (tick of ticks(); track $index) {
-        <line class="tick" [attr.x1]="tick.inner.x" [attr.y1]="tick.inner.y" [attr.x2]="tick.outer.x" [attr.y2]="tick.outer.y" />
+        <line
+          class="tick"
+          [attr.x1]="tick.inner.x"
+          [attr.y1]="tick.inner.y"
+          [attr.x2]="tick.outer.x"
+          [attr.y2]="tick.outer.y"
+        />
       }
       <polygon class="shape" [attr.points]="outline()" />
       @for (point of points(); track $index) {
-        <circle class="degree" [class.tonic]="$index === 0" [attr.cx]="point.at.x" [attr.cy]="point.at.y" r="4.5" />
+        <circle
+          class="degree"
+          [class.tonic]="$index === 0"
+          [attr.cx]="point.at.x"
+          [attr.cy]="point.at.y"
+          r="4.5"
+        />
         @if (point.label !== null) {
           <text [attr.x]="point.labelAt.x" [attr.y]="point.labelAt.y + 4">{{ point.label }}</text>
         }
@@ -42,14 +54,40 @@ function pointAt(fraction: number, radius: number): Point {
     </svg>
   `,
   styles: `
-    :host { display: block; max-width: 300px; }
-    svg { display: block; width: 100%; height: auto; }
-    .ring { fill: none; stroke: var(--mat-sys-outline-variant); stroke-width: 1.5; }
-    .tick { stroke: var(--mat-sys-outline); stroke-width: 1; }
-    .shape { fill: color-mix(in srgb, var(--mat-sys-primary) 12%, transparent); stroke: var(--mat-sys-primary); stroke-width: 1; }
-    .degree { fill: var(--mat-sys-primary); }
-    .degree.tonic { fill: var(--mat-sys-tertiary); }
-    text { fill: var(--mat-sys-on-surface); font-size: 10px; text-anchor: middle; }
+    :host {
+      display: block;
+      max-width: 300px;
+    }
+    svg {
+      display: block;
+      width: 100%;
+      height: auto;
+    }
+    .ring {
+      fill: none;
+      stroke: var(--mat-sys-outline-variant);
+      stroke-width: 1.5;
+    }
+    .tick {
+      stroke: var(--mat-sys-outline);
+      stroke-width: 1;
+    }
+    .shape {
+      fill: color-mix(in srgb, var(--mat-sys-primary) 12%, transparent);
+      stroke: var(--mat-sys-primary);
+      stroke-width: 1;
+    }
+    .degree {
+      fill: var(--mat-sys-primary);
+    }
+    .degree.tonic {
+      fill: var(--mat-sys-tertiary);
+    }
+    text {
+      fill: var(--mat-sys-on-surface);
+      font-size: 10px;
+      text-anchor: middle;
+    }
   `,
 })
 export class PeriodRing {
@@ -71,7 +109,11 @@ export class PeriodRing {
       };
     });
   });
-  protected readonly outline = computed(() => this.points().map(({ at }) => `${at.x.toFixed(1)},${at.y.toFixed(1)}`).join(' '));
+  protected readonly outline = computed(() =>
+    this.points()
+      .map(({ at }) => `${at.x.toFixed(1)},${at.y.toFixed(1)}`)
+      .join(' '),
+  );
   protected readonly ticks = computed(() => {
     const count = Math.round(this.periodCents() / semitoneCents);
     return Array.from({ length: count }, (_, index) => ({

@@ -20,24 +20,46 @@ interface KindChoice {
   template: `
     <fieldset [disabled]="state.readOnly()">
       <legend class="visually-hidden">Scale</legend>
-      <mat-button-toggle-group class="kinds" aria-label="Kind of scale" hideSingleSelectionIndicator
-                               [value]="state.draft().scale.kind" (change)="state.chooseKind($event.value)"
-                               [disabled]="state.readOnly()">
+      <mat-button-toggle-group
+        class="kinds"
+        aria-label="Kind of scale"
+        hideSingleSelectionIndicator
+        [value]="state.draft().scale.kind"
+        (change)="state.chooseKind($event.value)"
+        [disabled]="state.readOnly()"
+      >
         @for (choice of kinds; track choice.kind) {
           <mat-button-toggle [value]="choice.kind">{{ choice.label }}</mat-button-toggle>
         }
       </mat-button-toggle-group>
       @switch (state.draft().scale.kind) {
-        @case ('generated') { <app-generated-form /> }
-        @case ('equal') { <app-equal-form /> }
-        @case ('list') { <app-list-form /> }
-        @case ('harmonic') { <app-harmonic-form /> }
+        @case ('generated') {
+          <app-generated-form />
+        }
+        @case ('equal') {
+          <app-equal-form />
+        }
+        @case ('list') {
+          <app-list-form />
+        }
+        @case ('harmonic') {
+          <app-harmonic-form />
+        }
       }
     </fieldset>
   `,
   styles: `
-    fieldset { border: 0; padding: 0; margin: 0; min-width: 0; }
-    .kinds { margin-bottom: 16px; flex-wrap: wrap; max-width: 100%; }
+    fieldset {
+      border: 0;
+      padding: 0;
+      margin: 0;
+      min-width: 0;
+    }
+    .kinds {
+      margin-bottom: 16px;
+      flex-wrap: wrap;
+      max-width: 100%;
+    }
   `,
 })
 export class ScaleForm {

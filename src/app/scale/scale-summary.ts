@@ -13,21 +13,31 @@ function sizeText(size: SizeJson): string {
   template: `
     @let analysis = table().analysis;
     <dl>
-      <div><dt>Degrees</dt><dd>{{ analysis.size }} in a period of {{ period() }}</dd></div>
+      <div>
+        <dt>Degrees</dt>
+        <dd>{{ analysis.size }} in a period of {{ period() }}</dd>
+      </div>
       <div>
         <dt>Step pattern</dt>
         <dd>
           <span class="pattern">{{ analysis.stepPattern.pattern }}</span>
-          @if (analysis.stepPattern.isMos) { <span class="badge">MOS</span> }
+          @if (analysis.stepPattern.isMos) {
+            <span class="badge">MOS</span>
+          }
           <ul class="steps">
             @for (size of analysis.stepPattern.sizes; track size.letter) {
-              <li><b>{{ size.letter }}</b> = {{ sizeOf(size) }} × {{ size.count }}</li>
+              <li>
+                <b>{{ size.letter }}</b> = {{ sizeOf(size) }} × {{ size.count }}
+              </li>
             }
           </ul>
         </dd>
       </div>
       @if (analysis.stack; as stack) {
-        <div><dt>Generator in the period</dt><dd>{{ sizeOf(stack.reducedGenerator) }}</dd></div>
+        <div>
+          <dt>Generator in the period</dt>
+          <dd>{{ sizeOf(stack.reducedGenerator) }}</dd>
+        </div>
         <div>
           <dt>Comma</dt>
           <dd>{{ sizeOf(stack.comma) }}</dd>
@@ -37,8 +47,8 @@ function sizeText(size: SizeJson): string {
           <dd>
             @if (stack.wolf; as wolf) {
               @if (wolf.name) {
-                the {{ wolf.name }} (degree {{ wolf.from }} to degree {{ wolf.to }}) is {{ sizeOf(wolf) }},
-                {{ wideOrNarrow(wolf.deviationCents) }} of the fifth
+                the {{ wolf.name }} (degree {{ wolf.from }} to degree {{ wolf.to }}) is
+                {{ sizeOf(wolf) }}, {{ wideOrNarrow(wolf.deviationCents) }} of the fifth
               } @else {
                 degree {{ wolf.from }} to degree {{ wolf.to }}: {{ sizeOf(wolf) }},
                 {{ wideOrNarrow(wolf.deviationCents) }} of the generator
@@ -56,15 +66,47 @@ function sizeText(size: SizeJson): string {
     </dl>
   `,
   styles: `
-    dl { margin: 0; display: grid; gap: 8px; }
-    dl > div { display: grid; grid-template-columns: minmax(9em, auto) 1fr; gap: 12px; }
-    dt { color: var(--mat-sys-on-surface-variant); }
-    dd { margin: 0; font-variant-numeric: tabular-nums; }
-    .pattern { font: var(--mat-sys-title-medium); letter-spacing: 0.08em; word-break: break-all; }
-    .badge { margin-left: 8px; padding: 2px 8px; border-radius: 8px; font: var(--mat-sys-label-small);
-      background: var(--mat-sys-secondary-container); color: var(--mat-sys-on-secondary-container); }
-    .steps { list-style: none; padding: 0; margin: 4px 0 0; }
-    @media (max-width: 480px) { dl > div { grid-template-columns: 1fr; gap: 0; } }
+    dl {
+      margin: 0;
+      display: grid;
+      gap: 8px;
+    }
+    dl > div {
+      display: grid;
+      grid-template-columns: minmax(9em, auto) 1fr;
+      gap: 12px;
+    }
+    dt {
+      color: var(--mat-sys-on-surface-variant);
+    }
+    dd {
+      margin: 0;
+      font-variant-numeric: tabular-nums;
+    }
+    .pattern {
+      font: var(--mat-sys-title-medium);
+      letter-spacing: 0.08em;
+      word-break: break-all;
+    }
+    .badge {
+      margin-left: 8px;
+      padding: 2px 8px;
+      border-radius: 8px;
+      font: var(--mat-sys-label-small);
+      background: var(--mat-sys-secondary-container);
+      color: var(--mat-sys-on-secondary-container);
+    }
+    .steps {
+      list-style: none;
+      padding: 0;
+      margin: 4px 0 0;
+    }
+    @media (max-width: 480px) {
+      dl > div {
+        grid-template-columns: 1fr;
+        gap: 0;
+      }
+    }
   `,
 })
 export class ScaleSummary {

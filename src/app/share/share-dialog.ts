@@ -25,8 +25,15 @@ export interface ShareDialogData {
   selector: 'app-share-dialog',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    DatePipe, FormsModule, ClipboardModule, MatDialogModule, MatButtonModule, MatFormFieldModule, MatIconModule,
-    MatInputModule, MatRadioModule,
+    DatePipe,
+    FormsModule,
+    ClipboardModule,
+    MatDialogModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatIconModule,
+    MatInputModule,
+    MatRadioModule,
   ],
   templateUrl: './share-dialog.html',
   styleUrl: './share-dialog.scss',
@@ -68,7 +75,9 @@ export class ShareDialog {
     this.api.revokeLink(link.id).subscribe({
       next: () => {
         if (this.created()?.id === link.id) this.created.set(null);
-        this.snackBar.open('Link revoked: it no longer opens the preset.', 'Close', { duration: 6000 });
+        this.snackBar.open('Link revoked: it no longer opens the preset.', 'Close', {
+          duration: 6000,
+        });
         this.existing.reload();
       },
       error: (error: unknown) => void this.tellFailure(error, 'The link could not be revoked.'),
@@ -76,7 +85,9 @@ export class ShareDialog {
   }
 
   protected reportCopy(copied: boolean): void {
-    const message = copied ? 'Link copied.' : 'The link could not be copied: select it and copy it by hand.';
+    const message = copied
+      ? 'Link copied.'
+      : 'The link could not be copied: select it and copy it by hand.';
     this.snackBar.open(message, 'Close', { duration: 4000 });
   }
 

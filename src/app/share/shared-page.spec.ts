@@ -9,13 +9,31 @@ import type { Instrument } from '@shared/api/instruments';
 import { browserInstrumentsKey } from '../instruments/my-instruments';
 import { waitFor } from '../testing/wait-for';
 
-const tobias: Member = { id: 'u-tobias', login: 'tobias-reed', name: 'Tobias Reed', email: null, avatarUrl: null, siteRole: 'member' };
+const tobias: Member = {
+  id: 'u-tobias',
+  login: 'tobias-reed',
+  name: 'Tobias Reed',
+  email: null,
+  avatarUrl: null,
+  siteRole: 'member',
+};
 const fenFifths = {
   ...fifthsPreset('Fen Fifths'),
   notes: 'Stacked pure fifths from C for the drone pieces.',
-  mapping: { rootKey: 60, concertA: 440, keysPerPeriod: 12, layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6] },
+  mapping: {
+    rootKey: 60,
+    concertA: 440,
+    keysPerPeriod: 12,
+    layout: [0, null, 1, null, 2, 3, null, 4, null, 5, null, 6],
+  },
 };
-const shared: SharedPreset = { name: 'Fen Fifths', revision: 3, pinned: true, savedAt: '2026-11-20T09:30:00Z', document: fenFifths };
+const shared: SharedPreset = {
+  name: 'Fen Fifths',
+  revision: 3,
+  pinned: true,
+  savedAt: '2026-11-20T09:30:00Z',
+  document: fenFifths,
+};
 
 describe('SharedPage', () => {
   let http: HttpTestingController;
@@ -35,7 +53,11 @@ describe('SharedPage', () => {
 
   const settle = () => pages.settle();
 
-  async function open(member: Member | null, answer: SharedPreset = shared, instruments: Instrument[] = []) {
+  async function open(
+    member: Member | null,
+    answer: SharedPreset = shared,
+    instruments: Instrument[] = [],
+  ) {
     await pages.open('/s/tok-123', member);
     http.expectOne('/api/shared/tok-123').flush(answer);
     if (member) http.expectOne('/api/instruments').flush({ items: instruments });
@@ -50,10 +72,14 @@ describe('SharedPage', () => {
     expect(page().querySelector('.summary')!.textContent).toContain('7 degrees in a period of 2/1');
     expect(page().querySelector('.summary')!.textContent).toContain('LLsLLLs');
     // Middle C at A4 = 440 Hz is 261.6256 Hz (MIDI convention).
-    expect(page().querySelector('.summary .pitch')!.textContent).toBe('Root key 60 (C4) sounds 261.6256 Hz.');
+    expect(page().querySelector('.summary .pitch')!.textContent).toBe(
+      'Root key 60 (C4) sounds 261.6256 Hz.',
+    );
     // The tuning can be heard here: the play panel (with its volume caution) and the keys to play.
     expect(page().querySelector('.listen app-play-panel')).not.toBeNull();
-    const hint = page().querySelector('.listen app-play-panel .hint')?.textContent?.replace(/\s+/g, ' ');
+    const hint = page()
+      .querySelector('.listen app-play-panel .hint')
+      ?.textContent?.replace(/\s+/g, ' ');
     expect(hint).toContain('Click or touch the keys below.');
     expect(hint).not.toContain('Keys tab');
     expect(page().querySelectorAll('.listen app-keyboard-strip g.key').length).toBe(128);
@@ -71,21 +97,32 @@ describe('SharedPage', () => {
 
   it('offers every format of the export catalogue and the tuner sheet through the share link, the bundle first', async () => {
     await open(null);
-    expect(page().querySelector<HTMLAnchorElement>('a.bundle')!.getAttribute('href')).toBe('/api/shared/tok-123/bundle');
-    const hrefs = Array.from(page().querySelectorAll<HTMLAnchorElement>('.downloads li a')).map((a) => a.getAttribute('href'));
-    const expected = [...catalogue.map((format) => format.id), 'tuner-sheet'].map((id) => `/api/shared/tok-123/export/${id}`);
+    expect(page().querySelector<HTMLAnchorElement>('a.bundle')!.getAttribute('href')).toBe(
+      '/api/shared/tok-123/bundle',
+    );
+    const hrefs = Array.from(page().querySelectorAll<HTMLAnchorElement>('.downloads li a')).map(
+      (a) => a.getAttribute('href'),
+    );
+    const expected = [...catalogue.map((format) => format.id), 'tuner-sheet'].map(
+      (id) => `/api/shared/tok-123/export/${id}`,
+    );
     expect([...hrefs].sort()).toEqual(expected.sort());
   });
 
   it('names the scale/octave formats without a link for a layout that is not twelve keys per octave, saying why', async () => {
     const seven = { ...fenFifths, mapping: { rootKey: 60 } };
     await open(null, { ...shared, document: seven });
-    const hrefs = Array.from(page().querySelectorAll<HTMLAnchorElement>('.downloads li a')).map((a) => a.getAttribute('href'));
+    const hrefs = Array.from(page().querySelectorAll<HTMLAnchorElement>('.downloads li a')).map(
+      (a) => a.getAttribute('href'),
+    );
     expect(hrefs.some((href) => href!.includes('mts-octave'))).toBeFalse();
     expect(hrefs.length).toBe(11);
-    const refused = Array.from(page().querySelectorAll('.downloads li')).filter((li) => li.querySelector('.refused-format'));
+    const refused = Array.from(page().querySelectorAll('.downloads li')).filter((li) =>
+      li.querySelector('.refused-format'),
+    );
     expect(refused.map((li) => li.querySelector('.refused-format')!.textContent!.trim())).toEqual([
-      'MTS scale/octave, 1-byte (.syx)', 'MTS scale/octave, 2-byte (.syx)',
+      'MTS scale/octave, 1-byte (.syx)',
+      'MTS scale/octave, 2-byte (.syx)',
     ]);
     expect(refused[0].textContent).toContain(
       'Not for this preset: This layout repeats every 7 keys, and scale/octave tuning needs 12 keys an octave',
@@ -113,10 +150,12 @@ describe('SharedPage', () => {
 
   it('says plainly when the link was revoked or never existed', async () => {
     await pages.open('/s/tok-123', null);
-    http.expectOne('/api/shared/tok-123').flush(
-      { error: { code: 'not_found', message: 'No such shared preset.' } },
-      { status: 404, statusText: 'Not Found' },
-    );
+    http
+      .expectOne('/api/shared/tok-123')
+      .flush(
+        { error: { code: 'not_found', message: 'No such shared preset.' } },
+        { status: 404, statusText: 'Not Found' },
+      );
     await settle();
     expect(page().querySelector('h1')!.textContent).toContain('This share link does not work');
     expect(page().querySelector('[role="alert"]')!.textContent).toContain('it was revoked');
@@ -129,21 +168,46 @@ describe('SharedPage', () => {
   });
 
   const ondes: Instrument = {
-    id: 'i-ondes', name: 'Ondes', receives: 'mts-bulk', deviceId: 16, program: 5, bank: 0, bendRange: 2,
-    memberChannels: [2, 16], port: null, createdAt: '2026-11-01T10:00:00Z', updatedAt: '2026-11-01T10:00:00Z',
+    id: 'i-ondes',
+    name: 'Ondes',
+    receives: 'mts-bulk',
+    deviceId: 16,
+    program: 5,
+    bank: 0,
+    bendRange: 2,
+    memberChannels: [2, 16],
+    port: null,
+    createdAt: '2026-11-01T10:00:00Z',
+    updatedAt: '2026-11-01T10:00:00Z',
   };
-  const board: Instrument = { ...ondes, id: 'i-board', name: 'Lattice board', receives: 'mpe', bendRange: 48, memberChannels: [2, 9] };
+  const board: Instrument = {
+    ...ondes,
+    id: 'i-board',
+    name: 'Lattice board',
+    receives: 'mpe',
+    bendRange: 48,
+    memberChannels: [2, 9],
+  };
 
-  it('gives a member the file each of their instruments takes, by the instrument\'s id', async () => {
+  it("gives a member the file each of their instruments takes, by the instrument's id", async () => {
     await open(tobias, shared, [ondes, board]);
-    const link = () => page().querySelector<HTMLAnchorElement>('.for-instrument a.instrument-file')!;
-    expect(link().getAttribute('href')).toBe('/api/shared/tok-123/export/mts-bulk?instrument=i-ondes');
+    const link = () =>
+      page().querySelector<HTMLAnchorElement>('.for-instrument a.instrument-file')!;
+    expect(link().getAttribute('href')).toBe(
+      '/api/shared/tok-123/export/mts-bulk?instrument=i-ondes',
+    );
     expect(link().textContent).toContain('MTS bulk dump (.syx) for Ondes');
-    page().querySelector<HTMLElement>('.for-instrument mat-select .mat-mdc-select-trigger')!.click();
+    page()
+      .querySelector<HTMLElement>('.for-instrument mat-select .mat-mdc-select-trigger')!
+      .click();
     await settle();
-    Array.from(document.querySelectorAll<HTMLElement>('mat-option')).find((o) => o.textContent!.includes('Lattice board'))!.click();
+    Array.from(document.querySelectorAll<HTMLElement>('mat-option'))
+      .find((o) => o.textContent!.includes('Lattice board'))!
+      .click();
     await settle();
-    expect(link().getAttribute('href')).toBe('/api/shared/tok-123/export/mpe-smf?instrument=i-board');
+    expect(link().getAttribute('href')).toBe(
+      '/api/shared/tok-123/export/mpe-smf?instrument=i-board',
+    );
     expect(link().textContent).toContain('MPE MIDI file (.mid) for Lattice board');
   });
 
@@ -155,7 +219,9 @@ describe('SharedPage', () => {
     const dialog = document.querySelector('mat-dialog-container')!;
     expect(dialog.textContent).toContain('kept in this browser only');
     const type = (label: string, value: string) => {
-      const field = Array.from(dialog.querySelectorAll('mat-form-field')).find((f) => f.querySelector('mat-label')!.textContent!.trim() === label)!;
+      const field = Array.from(dialog.querySelectorAll('mat-form-field')).find(
+        (f) => f.querySelector('mat-label')!.textContent!.trim() === label,
+      )!;
       const input = field.querySelector('input')!;
       input.value = value;
       input.dispatchEvent(new Event('input'));
@@ -164,8 +230,14 @@ describe('SharedPage', () => {
     type('Device id', '16');
     type('Tuning program', '5');
     type('Last member channel', '9');
-    Array.from(dialog.querySelectorAll('button')).find((b) => b.textContent!.includes('Add instrument'))!.click();
-    const link = await waitFor('the file for the new instrument', () => page().querySelector<HTMLAnchorElement>('a.instrument-file'), settle);
+    Array.from(dialog.querySelectorAll('button'))
+      .find((b) => b.textContent!.includes('Add instrument'))!
+      .click();
+    const link = await waitFor(
+      'the file for the new instrument',
+      () => page().querySelector<HTMLAnchorElement>('a.instrument-file'),
+      settle,
+    );
     expect(link.getAttribute('href')).toBe(
       '/api/shared/tok-123/export/mts-bulk?receives=mts-bulk&deviceId=16&program=5&bank=0&bendRange=2&memberChannels=2-9',
     );

@@ -1,6 +1,14 @@
 import { DatePipe, DecimalPipe } from '@angular/common';
 import { HttpParams } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, computed, inject, input, linkedSignal, signal } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  computed,
+  inject,
+  input,
+  linkedSignal,
+  signal,
+} from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -43,8 +51,19 @@ import { KeyboardStrip } from '../keys/keyboard-strip';
   selector: 'app-shared-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
-    DatePipe, DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, SignInPrompt, DegreeTable,
-    PlayPanel, KeyboardStrip, StripPlaying, MatFormFieldModule, MatSelectModule,
+    DatePipe,
+    DecimalPipe,
+    RouterLink,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    SignInPrompt,
+    DegreeTable,
+    PlayPanel,
+    KeyboardStrip,
+    StripPlaying,
+    MatFormFieldModule,
+    MatSelectModule,
   ],
   providers: [DesignState, Audition, MidiAccess, ControllerInput],
   templateUrl: './shared-page.html',
@@ -92,7 +111,11 @@ export class SharedPage {
     const refusals = preset ? exportRefusals(preset) : new Map<string, string>();
     return exportFormats
       .filter((format) => format.id !== 'bundle')
-      .map((format) => ({ ...format, href: this.shareApi.exportUrl(this.token(), format.id), refused: refusals.get(format.id) ?? null }));
+      .map((format) => ({
+        ...format,
+        href: this.shareApi.exportUrl(this.token(), format.id),
+        refused: refusals.get(format.id) ?? null,
+      }));
   });
   protected readonly bundleHref = computed(() => this.shareApi.bundleUrl(this.token()));
   /** The player's instruments (a guest's are kept in this browser) and the one the file is for. */

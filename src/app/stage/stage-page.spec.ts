@@ -258,7 +258,11 @@ describe('StagePage', () => {
       expect(test.text('.instruments')).toContain('cannot be sent over MIDI');
 
       buttonNamed('Connect MIDI')!.click();
-      await waitFor('MIDI to open', () => !buttonNamed('Connect MIDI'), () => test.settle());
+      await waitFor(
+        'MIDI to open',
+        () => !buttonNamed('Connect MIDI'),
+        () => test.settle(),
+      );
       (test.page().querySelector('.follow button') as HTMLButtonElement).click();
       await test.settle();
       const [stream] = streams;
@@ -269,7 +273,11 @@ describe('StagePage', () => {
       expect(test.text('.current')).toBe('Nineteen');
       expect(test.text('.place')).toBe('2 of 3');
       expect(facts()[0]).toBe('19');
-      await waitFor('the bulk dump', () => synth.sent.length > 0, () => test.settle());
+      await waitFor(
+        'the bulk dump',
+        () => synth.sent.length > 0,
+        () => test.settle(),
+      );
       expect(questions.length).toBe(1);
       expect(questions[0]).toEqual([
         { name: 'Lead', port: 'Stage synth', replaces: 'tuning program 5' },
@@ -289,7 +297,11 @@ describe('StagePage', () => {
 
       // A later move goes out without asking again.
       stream.tell({ position: 0, presetId: 'p1', revision: 1, document: pythagorean });
-      await waitFor('the second dump', () => synth.sent.length === 2, () => test.settle());
+      await waitFor(
+        'the second dump',
+        () => synth.sent.length === 2,
+        () => test.settle(),
+      );
       await test.settle();
       expect(questions.length).toBe(1);
       expect(test.text('.current')).toBe('Fen Fifths');
@@ -299,7 +311,7 @@ describe('StagePage', () => {
   );
 
   it(
-    'says in red when an instrument\'s port is gone, and sends again when it returns',
+    "says in red when an instrument's port is gone, and sends again when it returns",
     async () => {
       const synth = standInOutput('out-1', 'Stage synth');
       const access = standInAccess({ outputs: [synth] });
@@ -313,7 +325,11 @@ describe('StagePage', () => {
       });
       await openStage(setlist('read'), [bank]);
       buttonNamed('Connect MIDI')!.click();
-      await waitFor('MIDI to open', () => !buttonNamed('Connect MIDI'), () => test.settle());
+      await waitFor(
+        'MIDI to open',
+        () => !buttonNamed('Connect MIDI'),
+        () => test.settle(),
+      );
       (test.page().querySelector('.follow button') as HTMLButtonElement).click();
       await test.settle();
       plug(access, synth, 'disconnected');
@@ -327,7 +343,11 @@ describe('StagePage', () => {
       expect(synth.sent).toEqual([]);
 
       plug(access, synth, 'connected');
-      await waitFor('the resend', () => synth.sent.length > 0, () => test.settle());
+      await waitFor(
+        'the resend',
+        () => synth.sent.length > 0,
+        () => test.settle(),
+      );
       // MIDI Tuning specification, key-based dump with bank: F0 7E <device> 08 04 <bank> <program>.
       expect(synth.sent[0].slice(0, 7)).toEqual([0xf0, 0x7e, 3, 0x08, 0x04, 2, 9]);
       const sent = () => test.page().querySelector('.instruments .sent');
@@ -337,7 +357,7 @@ describe('StagePage', () => {
   );
 
   it(
-    'moves for an editor on a program change that is an entry\'s trigger, and on the footswitch',
+    "moves for an editor on a program change that is an entry's trigger, and on the footswitch",
     async () => {
       const pedal = standInInput('in-1', 'Foot controller');
       spyOn(navigator, 'requestMIDIAccess').and.returnValue(
@@ -345,7 +365,11 @@ describe('StagePage', () => {
       );
       await openStage(setlist('edit'));
       buttonNamed('Connect MIDI')!.click();
-      await waitFor('MIDI to open', () => !buttonNamed('Connect MIDI'), () => test.settle());
+      await waitFor(
+        'MIDI to open',
+        () => !buttonNamed('Connect MIDI'),
+        () => test.settle(),
+      );
       const select = await test.loader.getHarness(
         MatSelectHarness.with({ selector: '.pedal mat-select' }),
       );

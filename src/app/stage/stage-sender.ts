@@ -140,8 +140,7 @@ export class StageSender {
     const port = this.midi.outputs().find((candidate) => candidate.name === instrument.port);
     const output = port ? this.midi.output(port.id) : null;
     if (!output) {
-      const message =
-        `Its port "${instrument.port}" is not connected: the tuning goes out when it returns.`;
+      const message = `Its port "${instrument.port}" is not connected: the tuning goes out when it returns.`;
       return this.record(instrument, { kind: 'waiting', message });
     }
     const { deviceId, program, bank } = instrument;
@@ -155,8 +154,7 @@ export class StageSender {
     try {
       for (const message of messages.value) output.send(message);
     } catch {
-      const message =
-        `Sending to "${instrument.port}" failed: it goes out again when the port returns.`;
+      const message = `Sending to "${instrument.port}" failed: it goes out again when the port returns.`;
       return this.record(instrument, { kind: 'failed', message });
     }
     const message = `Sent "${preset.name}" to "${instrument.port}".`;

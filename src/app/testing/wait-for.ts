@@ -18,7 +18,8 @@ export async function waitFor<T>(
   for (;;) {
     const seen = condition();
     if (seen) return seen as NonNullable<T>;
-    if (performance.now() > deadline) throw new Error(`Waited ${waitLimitMs} ms for ${what}, in vain.`);
+    if (performance.now() > deadline)
+      throw new Error(`Waited ${waitLimitMs} ms for ${what}, in vain.`);
     await new Promise((resolve) => setTimeout(resolve, 10));
     await step();
   }

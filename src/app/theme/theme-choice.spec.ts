@@ -17,8 +17,12 @@ describe('ThemeChoice', () => {
   it('follows the system until a theme is chosen, setting no class of its own', () => {
     const themes = TestBed.inject(ThemeChoice);
     TestBed.tick();
-    expect(themes.theme()).toBe(matchMedia('(prefers-color-scheme: dark)').matches ? 'dark' : 'light');
-    expect(root.classList.contains('light-theme') || root.classList.contains('dark-theme')).toBeFalse();
+    expect(themes.theme()).toBe(
+      matchMedia('(prefers-color-scheme: dark)').matches ? 'dark' : 'light',
+    );
+    expect(
+      root.classList.contains('light-theme') || root.classList.contains('dark-theme'),
+    ).toBeFalse();
   });
 
   it('switches to the other theme, marks <html> and remembers the choice', () => {

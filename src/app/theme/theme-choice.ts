@@ -27,7 +27,9 @@ export class ThemeChoice {
   readonly theme = computed(() => this.chosen() ?? this.system());
 
   constructor() {
-    this.systemQuery.addEventListener('change', (change) => this.system.set(change.matches ? 'dark' : 'light'));
+    this.systemQuery.addEventListener('change', (change) =>
+      this.system.set(change.matches ? 'dark' : 'light'),
+    );
     effect(() => {
       const chosen = this.chosen();
       this.root.classList.toggle('light-theme', chosen === 'light');
