@@ -122,7 +122,7 @@ function sentBytes(page: Page): Promise<number[][]> {
 }
 
 async function presetDocument(page: Page): Promise<Record<string, unknown>> {
-  await page.getByRole('button', { name: 'Download' }).click();
+  await page.getByRole('button', { name: 'Download', exact: true }).click();
   const [download] = await Promise.all([
     page.waitForEvent('download'),
     page.getByRole('menuitem', { name: /^Preset document \(\.json\)/ }).click(),

@@ -59,7 +59,7 @@ describe('journey 1: a composer designs signed out and downloads an MTS bulk dum
     const column = (n: number) =>
       page.locator('table').first().locator(`tbody tr td:nth-child(${n})`);
     await expect
-      .poll(() => column(3).allTextContents())
+      .poll(async () => (await column(3).allTextContents()).map((text) => text.trim()))
       .toEqual(['1/1', '9/8', '81/64', '4/3', '3/2', '27/16', '243/128']);
     // Each degree named along the chain of fifths from C (common practice).
     expect((await column(2).allTextContents()).map((name) => name.trim())).toEqual([
@@ -77,7 +77,7 @@ describe('journey 1: a composer designs signed out and downloads an MTS bulk dum
     await page.reload();
     await expect.poll(() => page.getByLabel('Preset name').inputValue()).toBe('Journey Fifths');
 
-    await page.getByRole('button', { name: 'Download' }).click();
+    await page.getByRole('button', { name: 'Download', exact: true }).click();
     const file = await downloaded(page, () =>
       page.getByRole('menuitem', { name: /^MTS bulk dump \(\.syx\)/ }).click(),
     );
@@ -156,7 +156,7 @@ describe('journeys 2 to 4: a band saves, invites, shares', () => {
 
     await guest.page.goto(`${inject('appUrl')}${presetPath}`);
     const bundle = await downloaded(guest.page, async () => {
-      await guest.page.getByRole('button', { name: 'Download' }).click();
+      await guest.page.getByRole('button', { name: 'Download', exact: true }).click();
       await guest.page.getByRole('menuitem', { name: /^Bundle of everything/ }).click();
     });
     expect(bundle.name).toMatch(/\.zip$/);

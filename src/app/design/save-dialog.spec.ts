@@ -34,7 +34,7 @@ describe('SaveDialog', () => {
       bands,
       nextRevision: null,
     });
-    expect(element.querySelector('h2')?.textContent).toBe('Save preset');
+    expect(element.querySelector('h2')?.textContent?.trim()).toBe('Save preset');
     expect(element.querySelector('mat-select')?.textContent).toContain('My library');
     saveButton().click();
     expect(close).toHaveBeenCalledWith({ name: 'Fifths', bandId: null, note: '' });
@@ -52,7 +52,7 @@ describe('SaveDialog', () => {
 
   it('names the revision a saved preset will get, and asks for no library', async () => {
     const { element } = await render({ name: 'Fifths', bands: null, nextRevision: 5 });
-    expect(element.querySelector('h2')?.textContent).toBe('Save revision 5');
+    expect(element.querySelector('h2')?.textContent?.trim()).toBe('Save revision 5');
     expect(element.querySelector('mat-select')).toBeNull();
   });
 

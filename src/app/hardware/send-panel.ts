@@ -64,6 +64,14 @@ export class SendPanel {
       this.sender.form() === 'mts-bulk-bank' ||
       (this.sender.form() === 'mts-notes' && this.sender.bank() !== 0),
   );
+  /** Where the send goes, in one sentence: "To device 16, tuning program 5, bank 2." */
+  protected readonly target = computed(() => {
+    const device = this.sender.deviceId();
+    const parts = [`To device ${device}${device === 127 ? ' (every device)' : ''}`];
+    if (this.usesProgram()) parts.push(`tuning program ${this.sender.program()}`);
+    if (this.usesBank()) parts.push(`bank ${this.sender.bank()}`);
+    return `${parts.join(', ')}.`;
+  });
 
   protected async connectMidi(): Promise<void> {
     if (!(await this.midi.open())) return;

@@ -22,12 +22,12 @@ describe('IntervalMatrix', () => {
       (row) => row.querySelectorAll('td')[6],
     );
     // Eleven pure fifths of 702.0c and a wolf narrower by the Pythagorean comma, 678.5c (from memory).
-    const wolves = fifths.filter((cell) => cell.textContent === '678.5');
+    const wolves = fifths.filter((cell) => cell.textContent?.trim() === '678.5');
     expect(wolves.length).toBe(1);
     expect(Number(wolves[0].getAttribute('data-shade'))).toBe(-4);
     expect(
       fifths
-        .filter((cell) => cell.textContent === '702.0')
+        .filter((cell) => cell.textContent?.trim() === '702.0')
         .every((cell) => cell.getAttribute('data-shade') === '0'),
     ).toBeTrue();
   });
