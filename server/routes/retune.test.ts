@@ -324,4 +324,65 @@ describe('POST /api/retune', () => {
     });
     expect(rows[0].sha256).toMatch(/^[0-9a-f]{64}$/);
   });
+  it("retunes for the caller's own instrument: its member channels and bend range, MPE as it takes; another's is 404", async () => {
+    const ines = await server.signIn('retune-instrument-owner');
+    const otto = await server.signIn('retune-instrument-other');
+    const created = await ines.agent
+      .post('/api/instruments')
+      .set('X-XSRF-TOKEN', ines.xsrf)
+      .send({ name: 'Wide bender', receives: 'mpe', memberChannels: [2, 9], bendRange: 48 })
+      .expect(201);
+    const id = created.body.id as string;
+    // The preset's own output block asks for other channels and another range, so that only the
+    // instrument's settings can explain what comes back.
+    const own = { ...preset, output: { bendRange: 12, memberChannels: [10, 16] } };
+    const res = await asBytes(
+      ines.agent
+        .post('/api/retune')
+        .set('X-XSRF-TOKEN', ines.xsrf)
+        .attach('file', song(), 'for-instrument.mid')
+        .field('preset', JSON.stringify(own))
+        .field('instrument', id),
+    );
+    expect(res.status).toBe(200);
+    // Read back with midi-file, an independent reader. MPE specification: member channels carry
+    // one note each; MIDI 1.0 specification: RPN 0 (CC 101 = 0, CC 100 = 0) then data entry
+    // (CC 6) sets the pitch bend sensitivity in semitones.
+    const tuned = parseMidi(res.body);
+    const noteChannels = new Set<number>();
+    const ranges = new Map<number, number>();
+    for (const track of tuned.tracks) {
+      const rpn = new Map<number, string>();
+      for (const e of track as (MidiEvent & {
+        channel: number;
+        value: number;
+        controllerType: number;
+        velocity: number;
+      })[]) {
+        if (e.type === 'controller' && e.controllerType === 0x65)
+          rpn.set(e.channel, `${e.value},${rpn.get(e.channel)?.split(',')[1] ?? 127}`);
+        if (e.type === 'controller' && e.controllerType === 0x64)
+          rpn.set(e.channel, `${rpn.get(e.channel)?.split(',')[0] ?? 127},${e.value}`);
+        if (e.type === 'controller' && e.controllerType === 0x06 && rpn.get(e.channel) === '0,0')
+          ranges.set(e.channel, e.value);
+        if (e.type === 'noteOn' && e.velocity > 0 && e.channel !== 9) noteChannels.add(e.channel);
+      }
+    }
+    // midi-file numbers channels from 0: member channels 2-9 are 1-8.
+    expect(noteChannels.size).toBeGreaterThan(1);
+    for (const channel of noteChannels) {
+      expect(channel).toBeGreaterThanOrEqual(1);
+      expect(channel).toBeLessThanOrEqual(8);
+      expect(ranges.get(channel)).toBe(48);
+    }
+    expect([...ranges.values()].every((range) => range === 48)).toBe(true);
+
+    const refused = await otto.agent
+      .post('/api/retune')
+      .set('X-XSRF-TOKEN', otto.xsrf)
+      .attach('file', song(), 'not-mine.mid')
+      .field('preset', JSON.stringify(own))
+      .field('instrument', id);
+    expect(refused.status).toBe(404);
+  });
 });

@@ -11,7 +11,10 @@ import { HttpError } from '../http/errors';
 import { recordUpload, requireFile, singleUpload } from '../http/uploads';
 import { ValidationError, valueOrThrow } from '../http/validation';
 import { readRevision } from '../library/revisions';
-import { authorizePreset } from '../policy/policy';
+import { authorizeInstrument, authorizePreset } from '../policy/policy';
+import { presetForInstrument } from '../../shared/api/preset-for-instrument';
+import type { InstrumentSettings } from '../../shared/api/instruments';
+import { settingsOf } from './instruments';
 import { retuneOffThread } from '../work/worker-pool';
 
 /** What a file that is not MIDI looks like, so the refusal can say so. */
@@ -64,10 +67,28 @@ export function retuneRouter(db: Database): Router {
     return parsed.value;
   }
 
+  /** The caller's own instrument named by the `instrument` field (404 when it is not theirs), or null. */
+  async function instrumentFor(
+    fields: Record<string, unknown>,
+    user: Express.User | undefined,
+  ): Promise<InstrumentSettings | null> {
+    const id = fields['instrument'];
+    if (id === undefined || id === '') return null;
+    return settingsOf(await authorizeInstrument(db, user, typeof id === 'string' ? id : ''));
+  }
+
   router.post('/api/retune', ...singleUpload('file'), async (req, res) => {
     const file = requireFile(req.file);
     const fields = (req.body ?? {}) as Record<string, unknown>;
-    const mode = fields['mode'] ?? 'mts';
+    const instrument = await instrumentFor(fields, req.user);
+    // Unless the player says otherwise, an MPE instrument takes the song as MPE, any other as MTS.
+    const modeText = fields['mode'];
+    const mode =
+      modeText === undefined || modeText === ''
+        ? instrument?.receives === 'mpe'
+          ? 'mpe'
+          : 'mts'
+        : modeText;
     if (mode !== 'mts' && mode !== 'mpe') {
       throw new HttpError(
         400,
@@ -92,7 +113,9 @@ export function retuneRouter(db: Database): Router {
         'file',
       );
     }
-    const preset = await presetFor(fields, req.user);
+    const own = await presetFor(fields, req.user);
+    // The instrument's settings stand in for the preset's output block; the preset is not changed.
+    const preset = instrument ? presetForInstrument(own, instrument) : own;
     const tuning = valueOrThrow(tuningOfPreset(preset));
     const retuned = await retuneOffThread({
       song: new Uint8Array(file.buffer),

@@ -285,6 +285,45 @@ describe('LibraryPage', () => {
     http.expectOne('/api/presets/p1/shares').flush({ items: [] });
   });
 
+  it("downloads a preset for one of my instruments in its own form, by the instrument's id", async () => {
+    await open('/library');
+    await openRowMenu('Fen Fifths');
+    await (await menuItem('Download for my instrument')).click();
+    await settle();
+    const ondes = {
+      id: 'i-ondes',
+      name: 'Ondes',
+      receives: 'mts-bulk',
+      deviceId: 16,
+      program: 5,
+      bank: 0,
+      bendRange: 2,
+      memberChannels: [2, 16],
+      port: null,
+    };
+    const board = { ...ondes, id: 'i-board', name: 'Lattice board', receives: 'mpe' };
+    http.expectOne({ method: 'GET', url: '/api/instruments' }).flush({ items: [ondes, board] });
+    await settle();
+    const labels = Array.from(
+      document.querySelectorAll('.instrument-downloads [mat-menu-item]'),
+      (item) => item.textContent!.replace(/\s+/g, ' ').trim(),
+    );
+    expect(labels).toEqual([
+      'For Ondes MTS bulk dump .syx',
+      'For Lattice board MPE MIDI file .mid',
+    ]);
+    await (await menuItem('For Lattice board')).click();
+    const request = http.expectOne((r) => r.url === '/api/presets/p1/export/mpe-smf');
+    expect(request.request.method).toBe('GET');
+    expect(request.request.urlWithParams).toBe('/api/presets/p1/export/mpe-smf?instrument=i-board');
+    request.flush(new Blob(['MThd']), {
+      headers: { 'Content-Disposition': 'attachment; filename="fen-fifths-mpe.mid"' },
+    });
+    await settle();
+    const snackBar = await pages.loader.getHarness(MatSnackBarHarness);
+    expect(await snackBar.getMessage()).toContain('Downloaded fen-fifths-mpe.mid');
+  });
+
   it("shows the server's message when the library cannot be read", async () => {
     await pages.open('/library', mira);
     http.expectOne('/api/bands').flush({ items: [] });

@@ -20,6 +20,12 @@ import { apiErrorMessage } from '../api/api-error';
 import { loader } from '../api/loader';
 import { Session } from '../auth/session';
 import { BandSummary, BandsApi } from '../bands/bands-api';
+import {
+  type MyInstrument,
+  MyInstruments,
+  exportOfInstrument,
+} from '../instruments/my-instruments';
+import { DownloadNotice } from '../output/download-notice';
 import { ShareDialog, ShareDialogData } from '../share/share-dialog';
 import { ForkDialog, ForkDialogData, ForkTarget } from './fork-dialog';
 import { LibraryApi, PresetPage, PresetRow, PresetSort } from './library-api';
@@ -57,6 +63,9 @@ export class LibraryPage {
   private readonly dialog = inject(MatDialog);
   private readonly snackBar = inject(MatSnackBar);
   protected readonly session = inject(Session);
+  protected readonly instruments = inject(MyInstruments);
+  private readonly notice = inject(DownloadNotice);
+  protected readonly exportOf = exportOfInstrument;
 
   /** `?band=<id>`: only that band's presets. */
   readonly band = input<string>();
@@ -192,6 +201,11 @@ export class LibraryPage {
         },
         error: (error: unknown) => void this.tellFailure(error, 'The fork could not be made.'),
       });
+  }
+
+  /** The preset's latest revision in the instrument's own form, with its settings in place of the output block. */
+  protected downloadFor(row: PresetRow, instrument: MyInstrument): Promise<void> {
+    return this.notice.forInstrument(instrument, { presetId: row.id });
   }
 
   protected sharePreset(row: PresetRow): void {

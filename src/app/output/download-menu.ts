@@ -2,9 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
-import { MatSnackBar } from '@angular/material/snack-bar';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { apiErrorMessage } from '../api/api-error';
 import { MatDialog } from '@angular/material/dialog';
 import { firstValueFrom } from 'rxjs';
 import { InstrumentDialog } from '../instruments/instrument-dialog';
@@ -14,8 +12,8 @@ import {
   exportOfInstrument,
 } from '../instruments/my-instruments';
 import { DesignState } from '../design/design-state';
+import { DownloadNotice } from './download-notice';
 import type { ExportSource } from './downloads';
-import { Downloads } from './downloads';
 import { type ExportFormat, exportFormats } from './export-formats';
 import { exportRefusals } from './export-refusals';
 
@@ -156,8 +154,7 @@ import { exportRefusals } from './export-refusals';
 })
 export class DownloadMenu {
   private readonly state = inject(DesignState);
-  private readonly downloads = inject(Downloads);
-  private readonly snackBar = inject(MatSnackBar);
+  private readonly notice = inject(DownloadNotice);
   private readonly dialog = inject(MatDialog);
   protected readonly instruments = inject(MyInstruments);
   protected readonly exportOf = exportOfInstrument;
@@ -192,9 +189,13 @@ export class DownloadMenu {
   }
 
   /** The instrument's own export, made with its settings in place of the design's output ones. */
-  protected downloadFor(instrument: MyInstrument): Promise<void> {
-    const query = this.instruments.downloadQuery(instrument);
-    return this.downloadFormat(exportOfInstrument(instrument), query);
+  protected async downloadFor(instrument: MyInstrument): Promise<void> {
+    this.busy.set(true);
+    try {
+      await this.notice.forInstrument(instrument, this.source());
+    } finally {
+      this.busy.set(false);
+    }
   }
 
   protected async setUpInstrument(): Promise<void> {
@@ -205,18 +206,10 @@ export class DownloadMenu {
     if (instrument) await this.downloadFor(instrument);
   }
 
-  protected async downloadFormat(
-    format: ExportFormat,
-    query: Record<string, string> = {},
-  ): Promise<void> {
+  protected async downloadFormat(format: ExportFormat): Promise<void> {
     this.busy.set(true);
     try {
-      const { name, warnings } = await this.downloads.download(format, this.source(), query);
-      if (warnings.length > 0)
-        this.snackBar.open(`Downloaded ${name}. ${warnings.join(' ')}`, 'Dismiss');
-      else this.snackBar.open(`Downloaded ${name}.`, undefined, { duration: 4000 });
-    } catch (error) {
-      this.snackBar.open(await apiErrorMessage(error), 'Dismiss');
+      await this.notice.download(format, this.source());
     } finally {
       this.busy.set(false);
     }

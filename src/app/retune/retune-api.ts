@@ -76,9 +76,12 @@ export class RetuneApi {
     tuning: RetuneTuning,
     mode: RetuneMode,
     leadInMs: number,
+    instrument: string | null = null,
   ): Observable<RetuneStep> {
     const form = new FormData();
     form.append('mode', mode);
+    // The caller's own instrument: its settings stand in for the preset's output block.
+    if (instrument) form.append('instrument', instrument);
     form.append('leadInMs', String(leadInMs));
     if ('presetId' in tuning) form.append('presetId', tuning.presetId);
     else form.append('preset', JSON.stringify(tuning.document));

@@ -15,6 +15,7 @@ import { PresetRow } from '../library/library-api';
 import { SongReportHeader } from './retune-api';
 import { RetunePage } from './retune-page';
 import { PageTest } from '../testing/page-test';
+import { browserInstrumentsKey } from '../instruments/my-instruments';
 
 const mira: Member = {
   id: 'u-mira',
@@ -310,6 +311,102 @@ describe('RetunePage', () => {
     expect(page().querySelector('a.download')!.getAttribute('download')).toBe(
       'fen-song-reed-organ-meantone-mpe.mid',
     );
+  });
+
+  const ondes = {
+    id: 'i-ondes',
+    name: 'Ondes',
+    receives: 'mts-bulk',
+    deviceId: 16,
+    program: 5,
+    bank: 0,
+    bendRange: 2,
+    memberChannels: [2, 16],
+    port: null,
+  };
+  const board = {
+    ...ondes,
+    id: 'i-board',
+    name: 'Lattice board',
+    receives: 'mpe',
+    bendRange: 48,
+    memberChannels: [2, 9],
+  };
+
+  function instrumentSelect(): Promise<MatSelectHarness> {
+    return pages.loader.getHarness(MatSelectHarness.with({ selector: '.instrument-select' }));
+  }
+
+  it("retunes for a member's instrument by its id, in the mode it takes unless the player changes it", async () => {
+    await openSignedIn();
+    await choose(song());
+    const presets = await pages.loader.getHarness(
+      MatSelectHarness.with({ selector: '.preset-field mat-select' }),
+    );
+    await presets.open();
+    await presets.clickOptions({ text: /Fen Fifths/ });
+    await answerPreset(fenFifths, fenFifthsDocument);
+
+    const select = await instrumentSelect();
+    await select.open();
+    http.expectOne({ method: 'GET', url: '/api/instruments' }).flush({ items: [ondes, board] });
+    await settle();
+    await select.clickOptions({ text: 'Lattice board' });
+    await settle();
+    expect(text('.instrument-summary')).toContain('channels 2-9');
+    const mpe = await pages.loader.getHarness(
+      MatRadioButtonHarness.with({ label: 'One note per channel (MPE)' }),
+    );
+    expect(await mpe.isChecked()).toBeTrue();
+
+    const first = await retuneRequest();
+    let form = first.request.body as FormData;
+    expect(form.get('instrument')).toBe('i-board');
+    expect(form.get('mode')).toBe('mpe');
+    expect(form.get('presetId')).toBe('p-fen');
+    await answerWithSong(first, 'fen-song-fen-fifths-mpe.mid', mpeReport);
+
+    await (
+      await pages.loader.getHarness(MatRadioButtonHarness.with({ label: 'Tuning messages (MTS)' }))
+    ).check();
+    await settle();
+    const second = await retuneRequest();
+    form = second.request.body as FormData;
+    expect(form.get('mode')).toBe('mts');
+    expect(form.get('instrument')).toBe('i-board');
+    await answerWithSong(second, 'fen-song-fen-fifths-mts.mid', { ...mpeReport, mode: 'mts' });
+
+    await select.open();
+    await select.clickOptions({ text: /None/ });
+    await settle();
+    const third = await retuneRequest();
+    expect((third.request.body as FormData).get('instrument')).toBeNull();
+    await answerWithSong(third, 'fen-song-fen-fifths-mts.mid', { ...mpeReport, mode: 'mts' });
+  });
+
+  it("lays a guest's instrument, kept in this browser, over the design's output settings", async () => {
+    localStorage.setItem(browserInstrumentsKey, JSON.stringify([ondes, board]));
+    try {
+      const d = encodeDesign(draftFrom(fenFifthsDocument));
+      await open(`/retune?d=${d}`, null);
+      await choose(song());
+      const select = await instrumentSelect();
+      await select.open();
+      await select.clickOptions({ text: 'Ondes' });
+      await settle();
+      const request = await retuneRequest();
+      const form = request.request.body as FormData;
+      expect(form.get('instrument')).toBeNull();
+      expect(form.get('mode')).toBe('mts');
+      const sent = JSON.parse(form.get('preset') as string) as { name: string; output: object };
+      expect(sent.name).toBe('Fen Fifths');
+      expect(sent.output).toEqual(
+        jasmine.objectContaining({ deviceId: 16, program: 5, memberChannels: [2, 16] }),
+      );
+      await answerWithSong(request, 'fen-song-fen-fifths-mts.mid', { ...mpeReport, mode: 'mts' });
+    } finally {
+      localStorage.removeItem(browserInstrumentsKey);
+    }
   });
 
   it('sends the lead-in as typed, refuses one out of range before sending, and says when there is none', async () => {

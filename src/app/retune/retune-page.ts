@@ -28,6 +28,7 @@ import { Session } from '../auth/session';
 import { decodeDesign } from '../design/design-address';
 import { LibraryApi, PresetRow } from '../library/library-api';
 import { SignInPrompt } from '../library/sign-in-prompt';
+import { MyInstruments, instrumentSummary } from '../instruments/my-instruments';
 import { FileDrop } from './file-drop';
 import { PresetFile, readPresetFile } from './preset-file';
 import { RetuneApi, RetuneStep, RetuneTuning } from './retune-api';
@@ -72,6 +73,7 @@ export class RetunePage {
   private readonly library = inject(LibraryApi);
   private readonly destroyRef = inject(DestroyRef);
   private readonly session = inject(Session);
+  protected readonly instruments = inject(MyInstruments);
 
   /** `?d=`: the design the designer sent along, in its own address encoding. */
   readonly d = input<string>();
@@ -110,7 +112,16 @@ export class RetunePage {
   protected readonly source = linkedSignal<TuningSource>(() =>
     this.d() ? 'design' : this.signedIn() ? 'saved' : 'file',
   );
-  protected readonly mode = signal<RetuneMode>('mts');
+  /** "For my instrument": the instrument whose settings stand in for the preset's output block. */
+  protected readonly instrumentId = signal<string | null>(null);
+  protected readonly instrument = computed(
+    () => this.instruments.list()?.find((each) => each.id === this.instrumentId()) ?? null,
+  );
+  protected readonly summary = instrumentSummary;
+  /** Follows the instrument (MPE for one that takes MPE, MTS otherwise) until the player changes it. */
+  protected readonly mode = linkedSignal<RetuneMode>(() =>
+    this.instrument()?.receives === 'mpe' ? 'mpe' : 'mts',
+  );
   /** The time the instrument gets to apply the tuning before the first note, as typed. */
   protected readonly leadInText = signal(String(defaultLeadInMs));
   protected readonly leadInFault = computed(() => {
@@ -245,7 +256,7 @@ export class RetunePage {
     this.running?.unsubscribe();
     this.replaceDownload(null);
     this.running = this.api
-      .retune(song, tuning, this.mode(), Number(this.leadInText()))
+      .retune(song, tuning, this.mode(), Number(this.leadInText()), this.instrumentSent())
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe((step) => {
         if (step.kind === 'done') this.replaceDownload(URL.createObjectURL(step.song.blob));
@@ -258,8 +269,30 @@ export class RetunePage {
     this.retuneSong();
   }
 
-  /** The tuning the musician chose, ready to send, or what is still to be chosen. */
+  /** The instrument the server knows (kept in the account) goes by its id. */
+  private instrumentSent(): string | null {
+    const instrument = this.instrument();
+    return instrument && this.instruments.keptIn() === 'account' ? instrument.id : null;
+  }
+
+  /**
+   * The tuning the musician chose, ready to send, or what is still to be chosen. A guest's
+   * instrument (kept in this browser; a guest has no saved presets) is laid over the document's
+   * output block here, as the server does for a member's.
+   */
   private chosenTuning(): RetuneTuning | string {
+    const tuning = this.ownTuning();
+    const instrument = this.instrument();
+    if (typeof tuning === 'string' || !instrument || this.instruments.keptIn() === 'account')
+      return tuning;
+    if (!('document' in tuning)) return tuning;
+    const document = tuning.document as { output?: object };
+    const { deviceId, program, bank, bendRange, memberChannels } = instrument;
+    const output = { ...document.output, deviceId, program, bank, bendRange, memberChannels };
+    return { document: { ...document, output } };
+  }
+
+  private ownTuning(): RetuneTuning | string {
     switch (this.source()) {
       case 'design': {
         const design = this.design();
