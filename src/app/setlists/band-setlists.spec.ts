@@ -1,3 +1,4 @@
+import { provideRouter } from '@angular/router';
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
@@ -65,6 +66,7 @@ describe('BandSetlists', () => {
   beforeEach(() => {
     TestBed.configureTestingModule({
       providers: [
+        provideRouter([]),
         provideHttpClient(),
         provideHttpClientTesting(),
         { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
@@ -116,6 +118,10 @@ describe('BandSetlists', () => {
     ]);
     expect(element().querySelectorAll('input, mat-select, button').length).toBe(0);
     expect(element().querySelector('form.create')).toBeNull();
+    // Every member may open the setlist on the stage page.
+    const stage = element().querySelector<HTMLAnchorElement>('a.stage-link')!;
+    expect(stage.textContent).toContain(`Open ${friday.name} on stage`);
+    expect(new URL(stage.href).pathname).toBe(`/stage/${friday.id}`);
   });
 
   it('starts a setlist only with a name the schema takes', async () => {

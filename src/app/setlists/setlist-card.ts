@@ -1,3 +1,4 @@
+import { RouterLink } from '@angular/router';
 import {
   CdkDrag,
   CdkDragDrop,
@@ -59,6 +60,7 @@ function typedNumber(text: string): number | null {
     MatIconModule,
     MatInputModule,
     MatSelectModule,
+    RouterLink,
   ],
   templateUrl: './setlist-card.html',
   styleUrl: './setlist-card.scss',
