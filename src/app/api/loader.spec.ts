@@ -68,7 +68,7 @@ describe('loader', () => {
     'reads the error body of a Blob request',
     async () => {
       const file = TestBed.runInInjectionContext(() =>
-        loader(() => client.get('/api/presets/p-1/export/scl', { responseType: 'blob' }), {
+        loader(() => client.get('/api/presets/p-1/export/mts-bulk', { responseType: 'blob' }), {
           fallback: 'The file could not be made.',
         }),
       );
@@ -77,7 +77,7 @@ describe('loader', () => {
       const refusal = { error: { code: 'not_found', message: 'No such preset.' } };
       const body = new Blob([JSON.stringify(refusal)], { type: 'application/json' });
       http
-        .expectOne('/api/presets/p-1/export/scl')
+        .expectOne('/api/presets/p-1/export/mts-bulk')
         .flush(body, { status: 404, statusText: 'Not Found' });
       expect(await waitFor('the failure', () => file.failure())).toBe('No such preset.');
     },
