@@ -92,6 +92,19 @@ describe('auditSentence', () => {
     );
   });
 
+  it('names the setlist started, changed or deleted', () => {
+    const friday = { setlistId: 's1', name: 'Friday', entries: 3 };
+    expect(auditSentence(entry('setlist.create', friday, null), names)).toBe(
+      'Mira Vale started the setlist Friday.',
+    );
+    expect(auditSentence(entry('setlist.change', friday, null), names)).toBe(
+      'Mira Vale changed the setlist Friday.',
+    );
+    expect(
+      auditSentence(entry('setlist.delete', { setlistId: 's1', name: 'Friday' }, null), names),
+    ).toBe('Mira Vale deleted the setlist Friday.');
+  });
+
   it('falls back to plain placeholders for what it cannot name', () => {
     const unknown = {
       ...entry('preset.delete', null, 'p-gone'),

@@ -21,6 +21,7 @@ export function auditSentence(entry: AuditEntry, names: AuditNames): string {
   const member = names.members.get(String(detail['userId'])) ?? 'a former member';
   const email = text(detail['email']) ?? 'someone';
   const revision = detail['revision'];
+  const setlist = text(detail['name']) ?? 'a setlist';
   switch (entry.action) {
     case 'band.create':
       return `${actor} started the band${text(detail['name']) ? ` ${detail['name']}` : ''}.`;
@@ -67,6 +68,12 @@ export function auditSentence(entry: AuditEntry, names: AuditNames): string {
     }
     case 'share.revoke':
       return `${actor} revoked a share link to ${preset}.`;
+    case 'setlist.create':
+      return `${actor} started the setlist ${setlist}.`;
+    case 'setlist.change':
+      return `${actor} changed the setlist ${setlist}.`;
+    case 'setlist.delete':
+      return `${actor} deleted the setlist ${setlist}.`;
     default:
       return `${actor}: ${entry.action}.`;
   }
