@@ -1,6 +1,6 @@
 import { fail, fieldError, type Result, succeed } from '../result';
 import { messageKind, metaEvent, noteOn, tempoMeta } from './midi-bytes';
-import { readSong } from './smf-reader';
+import { defaultMicrosecondsPerQuarter, readSong, ticksPerSecond } from './smf-reader';
 import { ByteBuffer } from './smf-writer';
 
 /**
@@ -19,19 +19,8 @@ export interface LeadIn {
   ticks: number;
 }
 
-/** A tempo of 120 quarter notes a minute, which SMF 1.0 assumes until a tempo event says otherwise. */
-const defaultMicrosecondsPerQuarter = 500_000;
 /** The longest delta time four bytes of a variable-length quantity hold. */
 const longestDelta = 0x0fffffff;
-
-/** Ticks a second for the header's division: ticks per quarter note at `tempo`, or frames times ticks per frame. */
-function ticksPerSecond(division: number, microsecondsPerQuarter: number): number {
-  if (division & 0x8000) {
-    const frames = 256 - (division >> 8);
-    return (frames === 29 ? 29.97 : frames) * (division & 0xff);
-  }
-  return (division * 1_000_000) / microsecondsPerQuarter;
-}
 
 /** The lead-in time as a whole field fault, or null when `ms` is one. */
 export function leadInFault(ms: unknown): string | null {

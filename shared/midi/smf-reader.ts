@@ -14,6 +14,24 @@ import {
  * bytes give an error, never a hang.
  */
 
+/** A tempo of 120 quarter notes a minute, which SMF 1.0 assumes until a tempo event says otherwise. */
+export const defaultMicrosecondsPerQuarter = 500_000;
+
+/**
+ * Ticks a second for a header's division: ticks per quarter note at `microsecondsPerQuarter`, or, in the SMPTE
+ * form, frames a second times ticks a frame (SMF 1.0; the -29 frame rate is 29.97 drop-frame).
+ */
+export function ticksPerSecond(
+  division: number,
+  microsecondsPerQuarter = defaultMicrosecondsPerQuarter,
+): number {
+  if (division & 0x8000) {
+    const frames = 256 - (division >> 8);
+    return (frames === 29 ? 29.97 : frames) * (division & 0xff);
+  }
+  return (division * 1_000_000) / microsecondsPerQuarter;
+}
+
 export interface SongChunk {
   /** `MTrk` chunks are tracks; any other chunk is passed over, as SMF 1.0 asks of readers. */
   isTrack: boolean;

@@ -12,7 +12,7 @@ import {
 } from './midi-bytes';
 import { decodeMtsMessage } from './mts-decode';
 import { drumChannelIndex } from './retune-report';
-import { readSong } from './smf-reader';
+import { defaultMicrosecondsPerQuarter, readSong, ticksPerSecond } from './smf-reader';
 
 /**
  * What a song sounds like on an instrument that follows the MIDI Tuning Standard and pitch bend, note by note:
@@ -45,7 +45,6 @@ export interface SongSound {
   drumNotes: number;
 }
 
-const defaultMicrosecondsPerQuarter = 500_000;
 const generalMidiBendRange = 2;
 
 interface TimedEvent {
@@ -63,8 +62,7 @@ function tempoMap(
   tempos: { tick: number; microseconds: number }[],
 ): (tick: number) => number {
   if (division & 0x8000) {
-    const frames = 256 - (division >> 8);
-    const perSecond = (frames === 29 ? 29.97 : frames) * (division & 0xff);
+    const perSecond = ticksPerSecond(division);
     return (tick) => tick / perSecond;
   }
   const sorted = [...tempos].sort((a, b) => a.tick - b.tick);
