@@ -34,7 +34,7 @@ function channelRuns(channels: readonly number[]): string {
       </div>
       <div>
         <dt>Notes on unmapped keys</dt>
-        <dd class="notes-unmapped">{{ summary.notesUnmappedCount ?? 0 }}</dd>
+        <dd class="notes-unmapped">{{ summary.notesUnmappedCount }}</dd>
       </div>
       @if (summary.leadIn; as leadIn) {
         <div>
