@@ -4,6 +4,7 @@ import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { MATERIAL_ANIMATIONS } from '@angular/material/core';
 import { provideRouter } from '@angular/router';
 import type { Instrument } from '@shared/api/instruments';
+import { ondes as exampleOndes } from '../testing/example-instruments';
 import { waitFor } from '../testing/wait-for';
 import { type Member, Session } from '../auth/session';
 import { InstrumentsPage } from './instruments-page';
@@ -17,19 +18,7 @@ const mira: Member = {
   avatarUrl: null,
   siteRole: 'member',
 };
-const ondes: Instrument = {
-  id: 'i-ondes',
-  name: 'Ondes',
-  receives: 'mts-bulk',
-  deviceId: 16,
-  program: 5,
-  bank: 0,
-  bendRange: 2,
-  memberChannels: [2, 16],
-  port: 'Ondes MIDI 1',
-  createdAt: '2026-11-01T10:00:00Z',
-  updatedAt: '2026-11-01T10:00:00Z',
-};
+const ondes: Instrument = { ...exampleOndes, port: 'Ondes MIDI 1' };
 
 describe('InstrumentsPage', () => {
   let http: HttpTestingController;

@@ -10,6 +10,7 @@ import { BandSummary } from '../bands/bands-api';
 import { PresetRow } from './library-api';
 import { LibraryPage } from './library-page';
 import { PageTest } from '../testing/page-test';
+import { latticeBoard, ondes } from '../testing/example-instruments';
 
 const mira: Member = {
   id: 'u-mira',
@@ -290,19 +291,9 @@ describe('LibraryPage', () => {
     await openRowMenu('Fen Fifths');
     await (await menuItem('Download for my instrument')).click();
     await settle();
-    const ondes = {
-      id: 'i-ondes',
-      name: 'Ondes',
-      receives: 'mts-bulk',
-      deviceId: 16,
-      program: 5,
-      bank: 0,
-      bendRange: 2,
-      memberChannels: [2, 16],
-      port: null,
-    };
-    const board = { ...ondes, id: 'i-board', name: 'Lattice board', receives: 'mpe' };
-    http.expectOne({ method: 'GET', url: '/api/instruments' }).flush({ items: [ondes, board] });
+    http
+      .expectOne({ method: 'GET', url: '/api/instruments' })
+      .flush({ items: [ondes, latticeBoard] });
     await settle();
     const labels = Array.from(
       document.querySelectorAll('.instrument-downloads [mat-menu-item]'),

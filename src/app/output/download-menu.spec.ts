@@ -9,6 +9,7 @@ import { DownloadMenu } from './download-menu';
 import type { Instrument } from '@shared/api/instruments';
 import { type Member, Session } from '../auth/session';
 import { browserInstrumentsKey } from '../instruments/my-instruments';
+import { latticeBoard, ondes } from '../testing/example-instruments';
 
 const mira: Member = {
   id: 'u-mira',
@@ -118,28 +119,6 @@ describe('DownloadMenu', () => {
     expect(button.getAttribute('aria-label')).toBe('Download (fix the faults in the design first)');
   });
 
-  const ondes: Instrument = {
-    id: 'i-ondes',
-    name: 'Ondes',
-    receives: 'mts-bulk',
-    deviceId: 16,
-    program: 5,
-    bank: 0,
-    bendRange: 2,
-    memberChannels: [2, 16],
-    port: null,
-    createdAt: '2026-11-01T10:00:00Z',
-    updatedAt: '2026-11-01T10:00:00Z',
-  };
-  const board: Instrument = {
-    ...ondes,
-    id: 'i-board',
-    name: 'Lattice board',
-    receives: 'mpe',
-    bendRange: 48,
-    memberChannels: [2, 9],
-  };
-
   async function openInstrumentMenu(
     fixture: { whenStable(): Promise<unknown> },
     element: HTMLElement,
@@ -158,7 +137,9 @@ describe('DownloadMenu', () => {
     state.open(newDraft(), { id: 'p-3', revision: 2, bandId: null, access: 'own' });
     const output = structuredClone(state.draft().output);
     let items = await openInstrumentMenu(fixture, element);
-    http.expectOne({ method: 'GET', url: '/api/instruments' }).flush({ items: [ondes, board] });
+    http
+      .expectOne({ method: 'GET', url: '/api/instruments' })
+      .flush({ items: [ondes, latticeBoard] });
     await fixture.whenStable();
     expect(items().map((item) => item.textContent!.replace(/\s+/g, ' ').trim())).toEqual([
       'For Ondes MTS bulk dump .syx, with its own settings',
@@ -187,7 +168,7 @@ describe('DownloadMenu', () => {
       createdAt: _,
       updatedAt: __,
       ...settings
-    } = { ...board, id: 'browser-1', receives: 'mts-bulk-bank', bank: 3 };
+    } = { ...latticeBoard, id: 'browser-1', receives: 'mts-bulk-bank', bank: 3 };
     localStorage.setItem(browserInstrumentsKey, JSON.stringify([settings]));
     const { fixture, element, state } = await render();
     TestBed.inject(Session).member.set(null);

@@ -16,6 +16,7 @@ import { SongReportHeader } from './retune-api';
 import { RetunePage } from './retune-page';
 import { PageTest } from '../testing/page-test';
 import { browserInstrumentsKey } from '../instruments/my-instruments';
+import { latticeBoard, ondes } from '../testing/example-instruments';
 
 const mira: Member = {
   id: 'u-mira',
@@ -313,26 +314,6 @@ describe('RetunePage', () => {
     );
   });
 
-  const ondes = {
-    id: 'i-ondes',
-    name: 'Ondes',
-    receives: 'mts-bulk',
-    deviceId: 16,
-    program: 5,
-    bank: 0,
-    bendRange: 2,
-    memberChannels: [2, 16],
-    port: null,
-  };
-  const board = {
-    ...ondes,
-    id: 'i-board',
-    name: 'Lattice board',
-    receives: 'mpe',
-    bendRange: 48,
-    memberChannels: [2, 9],
-  };
-
   function instrumentSelect(): Promise<MatSelectHarness> {
     return pages.loader.getHarness(MatSelectHarness.with({ selector: '.instrument-select' }));
   }
@@ -349,7 +330,9 @@ describe('RetunePage', () => {
 
     const select = await instrumentSelect();
     await select.open();
-    http.expectOne({ method: 'GET', url: '/api/instruments' }).flush({ items: [ondes, board] });
+    http
+      .expectOne({ method: 'GET', url: '/api/instruments' })
+      .flush({ items: [ondes, latticeBoard] });
     await settle();
     await select.clickOptions({ text: 'Lattice board' });
     await settle();
@@ -385,7 +368,9 @@ describe('RetunePage', () => {
   });
 
   it("lays a guest's instrument, kept in this browser, over the design's output settings", async () => {
-    localStorage.setItem(browserInstrumentsKey, JSON.stringify([ondes, board]));
+    // A guest's instruments are kept without the server's times.
+    const kept = [ondes, latticeBoard].map(({ createdAt, updatedAt, ...instrument }) => instrument);
+    localStorage.setItem(browserInstrumentsKey, JSON.stringify(kept));
     try {
       const d = encodeDesign(draftFrom(fenFifthsDocument));
       await open(`/retune?d=${d}`, null);

@@ -8,6 +8,7 @@ import { PageTest } from '../testing/page-test';
 import type { Instrument } from '@shared/api/instruments';
 import { browserInstrumentsKey } from '../instruments/my-instruments';
 import { waitFor } from '../testing/wait-for';
+import { latticeBoard, ondes } from '../testing/example-instruments';
 
 const tobias: Member = {
   id: 'u-tobias',
@@ -167,30 +168,8 @@ describe('SharedPage', () => {
     expect(page().querySelector('app-degree-table')).toBeNull();
   });
 
-  const ondes: Instrument = {
-    id: 'i-ondes',
-    name: 'Ondes',
-    receives: 'mts-bulk',
-    deviceId: 16,
-    program: 5,
-    bank: 0,
-    bendRange: 2,
-    memberChannels: [2, 16],
-    port: null,
-    createdAt: '2026-11-01T10:00:00Z',
-    updatedAt: '2026-11-01T10:00:00Z',
-  };
-  const board: Instrument = {
-    ...ondes,
-    id: 'i-board',
-    name: 'Lattice board',
-    receives: 'mpe',
-    bendRange: 48,
-    memberChannels: [2, 9],
-  };
-
   it("gives a member the file each of their instruments takes, by the instrument's id", async () => {
-    await open(tobias, shared, [ondes, board]);
+    await open(tobias, shared, [ondes, latticeBoard]);
     const link = () =>
       page().querySelector<HTMLAnchorElement>('.for-instrument a.instrument-file')!;
     expect(link().getAttribute('href')).toBe(
