@@ -1,3 +1,4 @@
+import { MatInputHarness } from '@angular/material/input/testing';
 import { TestBed } from '@angular/core/testing';
 import { MatDialog } from '@angular/material/dialog';
 import { MatSelectHarness } from '@angular/material/select/testing';
@@ -9,6 +10,7 @@ import { of } from 'rxjs';
 import type { Member } from '../auth/session';
 import { tuningMessages } from '../hardware/tuning-messages';
 import { plug, standInAccess, standInInput, standInOutput } from '../testing/midi-stand-in';
+import { stageControlsKey } from './stage-controls';
 import { PageTest } from '../testing/page-test';
 import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { STAGE_EVENT_SOURCE, type StageStream } from './stage-link';
@@ -393,6 +395,89 @@ describe('StagePage', () => {
       test.http.expectOne('/api/presets/p3/revisions/1').flush({ document: pythagorean });
       await test.settle();
       expect(test.text('.place')).toBe('3 of 3');
+    },
+    patientSpecMs,
+  );
+
+  it(
+    'keeps the input and footswitch a player chose in this browser',
+    async () => {
+      localStorage.removeItem(stageControlsKey);
+      try {
+        const pedal = standInInput('in-1', 'Foot controller');
+        const keys = standInInput('in-2', 'Key bed');
+        spyOn(navigator, 'requestMIDIAccess').and.returnValue(
+          Promise.resolve(standInAccess({ inputs: [keys, pedal] })),
+        );
+        await openStage(setlist('edit'));
+        buttonNamed('Connect MIDI')!.click();
+        await waitFor(
+          'MIDI to open',
+          () => !buttonNamed('Connect MIDI'),
+          () => test.settle(),
+        );
+        const select = await test.loader.getHarness(
+          MatSelectHarness.with({ selector: '.pedal mat-select' }),
+        );
+        await select.clickOptions({ text: 'Foot controller' });
+        const controller = await test.loader.getHarness(
+          MatInputHarness.with({ selector: '.controller input' }),
+        );
+        await controller.setValue('67');
+        await test.settle();
+        expect(JSON.parse(localStorage.getItem(stageControlsKey)!)).toEqual({
+          inputName: 'Foot controller',
+          footswitch: 67,
+        });
+      } finally {
+        localStorage.removeItem(stageControlsKey);
+      }
+    },
+    patientSpecMs,
+  );
+
+  it(
+    'listens again to the input kept from an earlier visit, with its footswitch, once MIDI is connected',
+    async () => {
+      localStorage.setItem(
+        stageControlsKey,
+        JSON.stringify({ inputName: 'Foot controller', footswitch: 67 }),
+      );
+      try {
+        const pedal = standInInput('in-1', 'Foot controller');
+        const keys = standInInput('in-2', 'Key bed');
+        spyOn(navigator, 'requestMIDIAccess').and.returnValue(
+          Promise.resolve(standInAccess({ inputs: [keys, pedal] })),
+        );
+        await openStage(setlist('edit'));
+        buttonNamed('Connect MIDI')!.click();
+        await waitFor(
+          'MIDI to open',
+          () => !buttonNamed('Connect MIDI'),
+          () => test.settle(),
+        );
+        const select = await test.loader.getHarness(
+          MatSelectHarness.with({ selector: '.pedal mat-select' }),
+        );
+        expect(await select.getValueText()).toBe('Foot controller');
+        const controller = await test.loader.getHarness(
+          MatInputHarness.with({ selector: '.controller input' }),
+        );
+        expect(await controller.getValue()).toBe('67');
+        // MIDI 1.0 Detailed Specification: control change Bn cc vv; controller 67 at 127 is the kept pedal, pressed.
+        pedal.receive([0xb0, 64, 127]);
+        await test.settle();
+        test.http.expectNone('/api/setlists/s1/position');
+        pedal.receive([0xb0, 67, 127]);
+        await test.settle();
+        const next = test.http.expectOne('/api/setlists/s1/position');
+        expect(next.request.body).toEqual({ position: 1 });
+        next.flush(setlist('edit', 1));
+        await test.settle();
+        test.http.expectOne('/api/presets/p2/revisions/1').flush({ document: nineteen });
+      } finally {
+        localStorage.removeItem(stageControlsKey);
+      }
     },
     patientSpecMs,
   );

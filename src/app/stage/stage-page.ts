@@ -26,6 +26,7 @@ import { MidiAccess, midiAccessFaults } from '../hardware/midi-access';
 import { SignInPrompt } from '../library/sign-in-prompt';
 import { type Setlist, type SetlistEntry, StageApi, type StagePosition } from './stage-api';
 import { stageFacts } from './stage-facts';
+import { type StageControls, keepStageControls, keptStageControls } from './stage-controls';
 import { StageLink, linkWords } from './stage-link';
 import { StageSender } from './stage-sender';
 
@@ -124,9 +125,13 @@ export class StagePage implements OnDestroy {
     return document === undefined ? null : stageFacts(document);
   });
 
-  /** The MIDI input that may move the stage, and the footswitch controller that means Next. */
+  /**
+   * The MIDI input that may move the stage, and the footswitch controller that means Next; both are kept in this
+   * browser, and the kept input is listened to again as soon as a port of that name is connected.
+   */
+  private readonly kept = signal(keptStageControls());
   protected readonly inputId = signal<string | null>(null);
-  protected readonly footswitch = signal(64);
+  protected readonly footswitch = computed(() => this.kept().footswitch);
   private inputListeners: Listener[] = [];
 
   constructor() {
@@ -137,6 +142,11 @@ export class StagePage implements OnDestroy {
         this.setlist.set(setlist);
         this.position.set(setlist.position);
       });
+    });
+    effect(() => {
+      const name = this.kept().inputName;
+      const port = this.editor() && name && this.midi.inputs().find((input) => input.name === name);
+      if (port && untracked(this.inputId) !== port.id) untracked(() => this.listenTo(port.id));
     });
     effect(() => {
       const instruments = this.instrumentsLoaded.value();
@@ -209,11 +219,29 @@ export class StagePage implements OnDestroy {
     }
   }
 
+  /** The player's choice of input: listened to, and kept for the next visit. */
+  protected chooseInput(id: string | null): void {
+    const name = id ? (this.midi.inputs().find((port) => port.id === id)?.name ?? null) : null;
+    this.keep({ ...this.kept(), inputName: name });
+    this.listenTo(id);
+  }
+
+  protected chooseFootswitch(controller: number | null): void {
+    if (controller === null || !Number.isInteger(controller) || controller < 0 || controller > 127)
+      return;
+    this.keep({ ...this.kept(), footswitch: controller });
+  }
+
+  private keep(controls: StageControls): void {
+    this.kept.set(controls);
+    keepStageControls(controls);
+  }
+
   /**
    * Listens to MIDI input `id` (null: to none): a program change selects the entry whose trigger
    * it is; the footswitch controller at 64 or above means Next.
    */
-  protected listenTo(id: string | null): void {
+  private listenTo(id: string | null): void {
     for (const listener of this.inputListeners) listener.remove();
     this.inputListeners = [];
     this.inputId.set(id);
