@@ -19,10 +19,12 @@ export function withGeneratorWithinHalfPeriod(tuned: PeriodAndGenerator): Period
   const [sign, periods] = remainder <= period / 2 ? [1, -below] : [-1, below + 1];
   return {
     mapping: [
-      mapping[0].map((a, i) => a - sign * periods * mapping[1][i]),
-      mapping[1].map((b) => sign * b),
+      // (+ 0 turns a negative zero into zero)
+      mapping[0].map((a, i) => a - sign * periods * mapping[1][i] + 0),
+      mapping[1].map((b) => sign * b + 0),
     ],
     period,
-    generator: sign * generator + periods * period,
+    // Rounding can leave a hair below zero when the generator is a whole number of periods.
+    generator: Math.max(0, sign * generator + periods * period),
   };
 }
