@@ -38,8 +38,8 @@ describe('MOS sizes', () => {
   it('stops at an equal division: 500-cent fourths close after 12 notes of one size', () => {
     // arithmetic: 12 fourths of 500 c return to the start, so 12 notes have one step and more repeat notes;
     // 11 notes have ten steps of 100 c and one of 200 c; 8 notes have two sizes, unevenly spread
-    // (100 200 200 100 200 200 100 100 c from the start: the last two and the first make three small steps in a
-    // row, while no span of three steps elsewhere holds fewer than one large)
+    // (100 200 200 100 200 200 100 100 c from the start: three steps in a row hold no large step where the last
+    // two meet the first, and two large steps elsewhere)
     expect(mosSizes(1200, 500, 1, 100)).toEqual([2, 3, 5, 7, 11]);
   });
 
