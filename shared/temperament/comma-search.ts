@@ -29,11 +29,25 @@ function greatestCommonDivisor(a: number, b: number): number {
   return b === 0 ? Math.abs(a) : greatestCommonDivisor(b, a % b);
 }
 
+/** The small simple commas of each subgroup searched so far: a subgroup's list never changes, so it is made once. */
+const commasBySubgroup = new Map<string, SimpleComma[]>();
+
 /**
  * Every comma over `primes` (2 first) smaller than `largestCommaCents`, no more complex than `mostComplexComma`
  * and no power of a simpler one, written upward, from the simplest; with `val`, only those it maps to zero steps.
  */
 export function simpleCommas(primes: readonly number[], val?: readonly number[]): SimpleComma[] {
+  const key = primes.join('.');
+  let all = commasBySubgroup.get(key);
+  if (!all) {
+    all = searchSubgroup(primes);
+    commasBySubgroup.set(key, all);
+  }
+  if (!val) return [...all];
+  return all.filter((comma) => comma.monzo.reduce((sum, e, i) => sum + e * val[i], 0) === 0);
+}
+
+function searchSubgroup(primes: readonly number[]): SimpleComma[] {
   const odd = primes.slice(1);
   const logs = odd.map(Math.log2);
   const found: SimpleComma[] = [];
@@ -63,7 +77,6 @@ export function simpleCommas(primes: readonly number[], val?: readonly number[])
     if (exponents.reduce(greatestCommonDivisor, octaves) !== 1) return;
     let monzo = [octaves, ...exponents];
     if (cents < 0) [monzo, cents] = [monzo.map((e) => -e), -cents];
-    if (val && monzo.reduce((sum, e, i) => sum + e * val[i], 0) !== 0) return;
     found.push({ monzo, ratio: monzoRatio(monzo, primes), cents, complexity });
   };
   walk(0, mostComplexComma, false);

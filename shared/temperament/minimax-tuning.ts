@@ -5,17 +5,17 @@
 // are equal in size (or one is zero). The method checks every such candidate, exactly; no iteration.
 import { type Monzo, monzoCents } from './monzo';
 
-/** error_i(g) = slope_i · g + offset_i in cents, for one target. */
+/** error(g) = slope · g + offset in cents, for one target; written with slope > 0. */
 interface ErrorLine {
   slope: number;
   offset: number;
 }
 
-function largestError(lines: readonly ErrorLine[], generator: number): number {
-  return lines.reduce(
-    (most, line) => Math.max(most, Math.abs(line.slope * generator + line.offset)),
-    0,
-  );
+function largestError(lines: readonly ErrorLine[], fixed: number, generator: number): number {
+  let most = fixed;
+  for (const { slope, offset } of lines)
+    most = Math.max(most, Math.abs(slope * generator + offset));
+  return most;
 }
 
 /**
@@ -28,26 +28,38 @@ export function minimaxTuning(
   targets: readonly Monzo[],
   fallbackGenerator: number,
 ): [number, number] {
-  const octave = mapping[0][0];
-  const period = 1200 / octave;
+  const period = 1200 / mapping[0][0];
   const dot = (row: readonly number[], monzo: Monzo) =>
     row.reduce((sum, e, i) => sum + e * monzo[i], 0);
-  const lines = targets.map((target) => ({
-    slope: dot(mapping[1], target),
-    offset: dot(mapping[0], target) * period - monzoCents(target, primes),
-  }));
-  const moving = lines.filter((line) => line.slope !== 0);
-  if (moving.length === 0) return [period, fallbackGenerator];
+  // Targets the generator leaves alone err by the same whatever it is; an interval and its inverse (or any two
+  // targets on one line up to sign) count once.
+  let fixed = 0;
+  const seen = new Set<string>();
+  const lines: ErrorLine[] = [];
+  for (const target of targets) {
+    const slope = dot(mapping[1], target);
+    const offset = dot(mapping[0], target) * period - monzoCents(target, primes);
+    if (slope === 0) {
+      fixed = Math.max(fixed, Math.abs(offset));
+      continue;
+    }
+    const line = slope > 0 ? { slope, offset } : { slope: -slope, offset: -offset };
+    const key = `${line.slope}:${line.offset.toFixed(9)}`;
+    if (seen.has(key)) continue;
+    seen.add(key);
+    lines.push(line);
+  }
+  if (lines.length === 0) return [period, fallbackGenerator];
   let best = Infinity;
   let bestGenerator = fallbackGenerator;
-  for (let i = 0; i < moving.length; i++) {
-    for (let j = i; j < moving.length; j++) {
+  for (let i = 0; i < lines.length; i++) {
+    for (let j = i; j < lines.length; j++) {
       for (const sign of [1, -1]) {
         // slope_i g + offset_i = sign (slope_j g + offset_j)
-        const coefficient = moving[i].slope - sign * moving[j].slope;
+        const coefficient = lines[i].slope - sign * lines[j].slope;
         if (coefficient === 0) continue;
-        const generator = (sign * moving[j].offset - moving[i].offset) / coefficient;
-        const error = largestError(lines, generator);
+        const generator = (sign * lines[j].offset - lines[i].offset) / coefficient;
+        const error = largestError(lines, fixed, generator);
         if (error < best) [best, bestGenerator] = [error, generator];
       }
     }
@@ -56,12 +68,11 @@ export function minimaxTuning(
   // take the middle of the span, so that the answer does not hang on the order of the targets.
   let low = -Infinity;
   let high = Infinity;
-  for (const line of moving) {
-    const a = (-best - line.offset) / line.slope;
-    const b = (best - line.offset) / line.slope;
-    low = Math.max(low, Math.min(a, b));
-    high = Math.min(high, Math.max(a, b));
+  for (const { slope, offset } of lines) {
+    low = Math.max(low, (-best - offset) / slope);
+    high = Math.min(high, (best - offset) / slope);
   }
   const middle = (low + high) / 2;
-  return [period, low <= high && largestError(lines, middle) <= best ? middle : bestGenerator];
+  const inSpan = low <= high && largestError(lines, fixed, middle) <= best;
+  return [period, inSpan ? middle : bestGenerator];
 }

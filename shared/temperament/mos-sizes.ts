@@ -6,24 +6,30 @@ import { isBalanced } from '../tuning/step-pattern';
 /** Steps closer than this (in cents) are one size: far below hearing, far above rounding in doubles. */
 const sameStepCents = 1e-6;
 
-function isMos(notes: number, period: number, generator: number): boolean {
-  const degrees = Array.from({ length: notes }, (_, i) => {
-    const cents = (i * generator) % period;
-    return cents < 0 ? cents + period : cents;
-  }).sort((a, b) => a - b);
-  const steps = degrees.map((cents, i) => (degrees[i + 1] ?? period) - cents);
-  const smallest = Math.min(...steps);
-  const largest = Math.max(...steps);
+/** Whether the notes of a scale (cents from its first, in order, within `period`) step in two sizes, evenly spread. */
+function isMos(degrees: readonly number[], period: number): boolean {
+  const step = (i: number) => (i + 1 < degrees.length ? degrees[i + 1] : period) - degrees[i];
+  let smallest = Infinity;
+  let largest = -Infinity;
+  for (let i = 0; i < degrees.length; i++) {
+    smallest = Math.min(smallest, step(i));
+    largest = Math.max(largest, step(i));
+  }
   // A chain that comes back to a note it has played (a generator a whole fraction of the period) is no scale.
   if (smallest <= sameStepCents || largest - smallest <= sameStepCents) return false;
-  const large = steps.map((step) => largest - step <= sameStepCents);
-  const twoSizes = steps.every((step, i) => large[i] || step - smallest <= sameStepCents);
-  return twoSizes && isBalanced(large);
+  const large: boolean[] = [];
+  for (let i = 0; i < degrees.length; i++) {
+    const size = step(i);
+    large.push(largest - size <= sameStepCents);
+    if (!large[i] && size - smallest > sameStepCents) return false;
+  }
+  return isBalanced(large);
 }
 
 /**
  * The scale sizes up to `largest` notes per octave at which the chain of `generator` within `period` gives
- * exactly two step sizes, evenly spread; each size counts the notes of every period in the octave (`periodsPerOctave`).
+ * exactly two step sizes, evenly spread; each size counts the notes of every period in the octave
+ * (`periodsPerOctave`).
  */
 export function mosSizes(
   period: number,
@@ -32,7 +38,14 @@ export function mosSizes(
   largest: number,
 ): number[] {
   const sizes: number[] = [];
-  for (let notes = 2; notes * periodsPerOctave <= largest; notes++)
-    if (isMos(notes, period, generator)) sizes.push(notes * periodsPerOctave);
+  // The chain's notes within the period, kept in order as each new one is put in its place.
+  const degrees = [0];
+  for (let notes = 2; notes * periodsPerOctave <= largest; notes++) {
+    const cents = ((((notes - 1) * generator) % period) + period) % period;
+    let at = degrees.length;
+    while (at > 0 && degrees[at - 1] > cents) at--;
+    degrees.splice(at, 0, cents);
+    if (isMos(degrees, period)) sizes.push(notes * periodsPerOctave);
+  }
   return sizes;
 }
