@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { largestCommaCents, mostComplexComma, patentVal, simpleCommas } from './comma-search';
+import { patentVal, simpleCommas } from './comma-search';
 
 describe('comma suggestions', () => {
   it('writes the patent val of 12 equal steps', () => {
@@ -34,8 +34,9 @@ describe('comma suggestions', () => {
     expect(found.map((comma) => comma.ratio)).not.toContain('6561/6400');
     for (const [i, comma] of found.entries()) {
       expect(comma.cents).toBeGreaterThan(0);
-      expect(comma.cents).toBeLessThan(largestCommaCents);
-      expect(comma.complexity).toBeLessThanOrEqual(mostComplexComma);
+      // under a quarter tone (common practice), no more complex than log2(n·d) = 40
+      expect(comma.cents).toBeLessThan(50);
+      expect(comma.complexity).toBeLessThanOrEqual(40);
       if (i > 0) expect(comma.complexity).toBeGreaterThanOrEqual(found[i - 1].complexity);
       const [n, d] = comma.ratio.split('/').map(BigInt);
       expect(1200 * Math.log2(Number(n) / Number(d))).toBeCloseTo(comma.cents, 6);

@@ -1,7 +1,7 @@
 // The commas worth tempering out: small intervals between simple ratios of a subgroup's primes, the simplest
 // (smallest Tenney height) first, and, for a count of notes, only those that the count's equal division of the
 // octave maps to zero steps.
-import { type Monzo, monzoRatio } from './monzo';
+import { type Monzo, monzoRatio, tenneyHeight } from './monzo';
 
 /** A small comma of the subgroup. */
 export interface SimpleComma {
@@ -13,12 +13,12 @@ export interface SimpleComma {
 }
 
 /** Commas are smaller than this: a quarter tone (common practice; the syntonic comma is 21.5 cents). */
-export const largestCommaCents = 50;
+const largestCommaCents = 50;
 /**
  * The most complex comma searched, as a Tenney height log2(n·d): past the Pythagorean comma (about 38) and the
  * schisma (about 30).
  */
-export const mostComplexComma = 40;
+const mostComplexComma = 40;
 
 /** The patent val of `count` equal steps to the octave: each prime's size in steps, rounded to the nearest. */
 export function patentVal(count: number, primes: readonly number[]): number[] {
@@ -71,11 +71,10 @@ function searchSubgroup(primes: readonly number[]): SimpleComma[] {
     const octaves = -Math.round(oddOctaves);
     let cents = 1200 * (octaves + oddOctaves);
     if (Math.abs(cents) >= largestCommaCents) return;
-    const complexity =
-      Math.abs(octaves) + exponents.reduce((sum, e, i) => sum + Math.abs(e) * logs[i], 0);
+    let monzo = [octaves, ...exponents];
+    const complexity = tenneyHeight(monzo, primes);
     if (complexity > mostComplexComma) return;
     if (exponents.reduce(greatestCommonDivisor, octaves) !== 1) return;
-    let monzo = [octaves, ...exponents];
     if (cents < 0) [monzo, cents] = [monzo.map((e) => -e), -cents];
     found.push({ monzo, ratio: monzoRatio(monzo, primes), cents, complexity });
   };

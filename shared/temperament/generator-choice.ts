@@ -2,7 +2,7 @@
 // generator plus or minus whole periods, or its inverse), the one from 0 up to half a period.
 
 /** A temperament's mapping rows and their sizes in cents: the period row first, then the generator row. */
-export interface PeriodAndGenerator {
+interface PeriodAndGenerator {
   mapping: [number[], number[]];
   period: number;
   generator: number;

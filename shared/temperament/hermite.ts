@@ -73,20 +73,18 @@ function rowReduce(rows: readonly (readonly bigint[])[], columns: number): Reduc
   return { hermite, transform, rank: pivotRow };
 }
 
-const toBig = (rows: readonly (readonly number[])[]) => rows.map((row) => row.map(BigInt));
+type IntegerRows = readonly (readonly (number | bigint)[])[];
+const toBig = (rows: IntegerRows) => rows.map((row) => row.map((entry) => BigInt(entry)));
 const toNumbers = (rows: bigint[][]) => rows.map((row) => row.map(Number));
 
 /** The Hermite normal form of integer rows `columns` wide, its zero rows left out. */
-export function hermiteNormalForm(
-  rows: readonly (readonly number[])[],
-  columns: number,
-): number[][] {
+export function hermiteNormalForm(rows: IntegerRows, columns: number): number[][] {
   const { hermite, rank } = rowReduce(toBig(rows), columns);
   return toNumbers(hermite.slice(0, rank));
 }
 
 /** The rank of integer rows `columns` wide. */
-export function integerRank(rows: readonly (readonly number[])[], columns: number): number {
+export function integerRank(rows: IntegerRows, columns: number): number {
   return rowReduce(toBig(rows), columns).rank;
 }
 
@@ -103,7 +101,5 @@ export function integerNullSpace(
     vectors.map((vector) => BigInt(vector[i])),
   );
   const { transform, rank } = rowReduce(transposed, vectors.length);
-  const basis = transform.slice(rank);
-  const reduced = rowReduce(basis, size);
-  return toNumbers(reduced.hermite.slice(0, reduced.rank));
+  return hermiteNormalForm(transform.slice(rank), size);
 }

@@ -9,7 +9,7 @@ export const searchPrimes = [2, 3, 5, 7, 11, 13] as const;
 export type Monzo = number[];
 
 /** A ratio's exponents over `searchPrimes`, and whether a prime above 13 is left over. */
-export interface Factored {
+interface Factored {
   exponents: Monzo;
   beyondThirteen: boolean;
 }

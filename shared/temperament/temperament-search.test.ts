@@ -1,5 +1,6 @@
 import * as fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { firstNonFinite } from '../tuning/finite-numbers';
 import { simpleCommas } from './comma-search';
 import { primeCents } from './monzo';
 import {
@@ -358,6 +359,60 @@ describe('properties of the generator search', () => {
         expect(moved).toBeGreaterThanOrEqual(best - 1e-9);
       }),
       { numRuns: 60 },
+    );
+  });
+});
+
+/** A ratio of primes up to 17 (17 lies beyond every limit), written n/d, of up to 40 characters. */
+const anyRatio = fc
+  .tuple(
+    fc.array(fc.integer({ min: -8, max: 8 }), { minLength: 6, maxLength: 6 }),
+    fc.oneof(
+      { weight: 5, arbitrary: fc.constant(0) },
+      { weight: 1, arbitrary: fc.integer({ min: -2, max: 2 }) },
+    ),
+  )
+  .map(([low, seventeen]) => [...low.map((e, i) => (i > 1 && Math.abs(e) > 3 ? 0 : e)), seventeen])
+  .map((exponents) => {
+    const primes = [2, 3, 5, 7, 11, 13, 17];
+    let [n, d] = [1n, 1n];
+    exponents.forEach((e, i) => {
+      if (e > 0) n *= BigInt(primes[i]) ** BigInt(e);
+      else d *= BigInt(primes[i]) ** BigInt(-e);
+    });
+    return `${n}/${d}`;
+  })
+  .filter((ratio) => ratio.length <= 40);
+
+describe('the generator search on any question the schema lets through', () => {
+  it('answers with finite numbers or with faults naming a field, and never throws', () => {
+    fc.assert(
+      fc.property(
+        fc.option(fc.constantFrom(3, 5, 7, 11, 13), { nil: undefined }),
+        fc.option(fc.array(anyRatio, { minLength: 1, maxLength: 4 }), { nil: undefined }),
+        fc.option(fc.array(anyRatio, { maxLength: 5 }), { nil: undefined }),
+        fc.option(fc.integer({ min: 2, max: 100 }), { nil: undefined }),
+        (limit, targets, commas, count) => {
+          const found = searchTemperaments({
+            limit,
+            targets,
+            commas,
+            count,
+            tunings: ['TE', 'POTE', 'minimax'],
+          });
+          if (!found.ok) {
+            for (const error of found.errors)
+              expect(error.path).toMatch(/^(limit|targets|commas)(\[\d+\])?$/);
+            return;
+          }
+          expect(firstNonFinite(found.value)).toBeNull();
+          for (const result of found.value.results) {
+            expect(result.generator).toBeGreaterThanOrEqual(0);
+            expect(result.generator).toBeLessThanOrEqual(result.period / 2 + 1e-9);
+          }
+        },
+      ),
+      { numRuns: 300 },
     );
   });
 });
