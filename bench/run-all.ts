@@ -14,6 +14,10 @@ const benches: [string, string][] = [
     'server-load.bench.ts',
     'preview and shared-preset throughput against a constant route; bundle generation',
   ],
+  [
+    'temperament-search.bench.ts',
+    'POST /api/temperaments: 13-limit searches against a constant route (target: under 20 ms)',
+  ],
   ['designer-recompute.bench.ts', 'recomputing a 72-tone design in Chromium (target: under 16 ms)'],
   [
     'app-bundle.bench.ts',

@@ -16,6 +16,7 @@ import { jsonBodies } from './http/bodies';
 import { healthRouter } from './routes/health';
 import { meRouter } from './routes/me';
 import { previewRouter } from './routes/preview';
+import { temperamentsRouter } from './routes/temperaments';
 import { bandsRouter } from './routes/bands';
 import { invitesRouter } from './routes/invites';
 import { presetsRouter } from './routes/presets';
@@ -143,6 +144,7 @@ export function createApp({ db, config, mailer, stage }: AppDependencies): Expre
   app.use(jsonBodies);
   app.use(meRouter());
   app.use(previewRouter());
+  app.use(temperamentsRouter());
   app.use(presetsRouter(db));
   app.use(sharesRouter(db, config));
   app.use(bandsRouter(db));

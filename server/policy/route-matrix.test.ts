@@ -71,6 +71,11 @@ const matrix: Record<string, Case> = {
     path: () => '/api/preview/table',
     body: () => doc,
   },
+  'POST /api/temperaments': {
+    allowed: everyone,
+    path: () => '/api/temperaments',
+    body: () => ({ limit: 5, commas: ['81/80'] }),
+  },
   'POST /api/presets': {
     allowed: editors,
     path: () => '/api/presets',

@@ -20,8 +20,9 @@ const ratioText = storableString().trim().min(1, { error: 'must not be empty' })
 
 /**
  * The question. Either `limit` or `targets` says which intervals matter (with both, the targets are measured and the
- * limit bounds the primes). Without `commas`, `count` (notes per period wanted) asks for the simplest commas worth
- * tempering out. Interval texts use the interval syntax (ratios such as `81/80`).
+ * limit bounds the primes). Without `commas`, `count` (notes per octave wanted) asks for the simplest commas worth
+ * tempering out that its equal division maps to zero steps. Interval texts use the interval syntax (ratios such as
+ * `81/80`).
  */
 export const temperamentRequest = z.strictObject({
   limit: z.literal(primeLimits, { error: `must be one of ${primeLimits.join(', ')}` }).optional(),
@@ -55,7 +56,10 @@ export interface TemperamentResult {
   tuning: TemperamentTuning;
   /** The primes the mapping's columns stand for, in order. */
   primes: number[];
-  /** Two rows over `primes`: periods, then generators (Hermite normal form, generator within half a period). */
+  /**
+   * Two rows over `primes`: periods, then generators (the Hermite normal form, its generator brought within half a
+   * period): prime j is `mapping[0][j]` periods plus `mapping[1][j]` generators of this result's sizes.
+   */
   mapping: [number[], number[]];
   /** The commas tempered out, as given or as suggested. */
   commas: string[];

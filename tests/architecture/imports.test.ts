@@ -20,6 +20,7 @@ const sides = ['shared', 'server', 'src'] as const;
 const sharedLayers: readonly (readonly string[])[] = [
   ['result.ts', 'text'],
   ['tuning'],
+  ['temperament'],
   ['midi'],
   ['preset'],
   ['import', 'export'],

@@ -66,6 +66,16 @@ const jsonRoutes: Record<string, JsonRoute> = {
     body: () => listDoc,
     query: () => ({ instrument: ids.instrumentId }),
   },
+  'POST /api/temperaments': {
+    method: 'post',
+    path: () => '/api/temperaments',
+    body: () => ({
+      limit: 13,
+      targets: ['3/2', '11/8', '13/8', '13/11'],
+      commas: ['243/242', '144/143'],
+      tunings: ['TE', 'POTE', 'minimax'],
+    }),
+  },
   'POST /api/presets': {
     method: 'post',
     path: () => '/api/presets',
