@@ -43,13 +43,14 @@ export function mappingText(mapping: [number[], number[]]): string {
 
 const tuningNames: Record<TemperamentResult['tuning'], string> = {
   TE: 'Tenney-Euclidean',
-  POTE: 'Tenney-Euclidean, pure octaves',
+  POTE: 'Tenney-Euclidean, pure period',
   minimax: 'Minimax',
 };
 
 /**
- * One temperament: its commas and mapping, then a row per tuning with its period and generator, the error of each
- * target interval, and its MOS sizes as chips to choose one from.
+ * One temperament: its commas and mapping, then a row per tuning with its period and generator and the error of each
+ * target interval, and under the table each tuning's MOS sizes as chips to choose one from (outside the table, so
+ * that they stay in view on a phone while the figures scroll sideways).
  */
 @Component({
   selector: 'app-temperament-table',
@@ -79,11 +80,8 @@ const tuningNames: Record<TemperamentResult['tuning'], string> = {
             <th scope="col" class="number">Period</th>
             <th scope="col" class="number">Generator</th>
             @for (interval of targets(); track interval) {
-              <th scope="col" class="number error">
-                <span class="visually-hidden">Error of </span>{{ interval }}
-              </th>
+              <th scope="col" class="number error">Error of {{ interval }}</th>
             }
-            <th scope="col" class="sizes">MOS sizes</th>
           </tr>
         </thead>
         <tbody>
@@ -98,21 +96,27 @@ const tuningNames: Record<TemperamentResult['tuning'], string> = {
               @for (interval of targets(); track interval) {
                 <td class="number error">{{ errorOf(result, interval) }}</td>
               }
-              <td class="sizes">
-                <mat-chip-listbox
-                  [attr.aria-label]="'MOS sizes of the ' + result.tuning + ' tuning'"
-                  [value]="chosenSizeOf(result)"
-                  (change)="choose(result, $event.value)"
-                >
-                  @for (size of result.mosSizes; track size) {
-                    <mat-chip-option [value]="size">{{ size }}</mat-chip-option>
-                  }
-                </mat-chip-listbox>
-              </td>
             </tr>
           }
         </tbody>
       </table>
+    </div>
+    <div class="sizes">
+      <h4 class="sizes-heading">MOS sizes: choose one to open as a scale</h4>
+      @for (result of temperament.tunings; track result.tuning) {
+        <div class="sizes-line">
+          <span class="sizes-tuning" aria-hidden="true">{{ result.tuning }}</span>
+          <mat-chip-listbox
+            [attr.aria-label]="'MOS sizes of the ' + result.tuning + ' tuning'"
+            [value]="chosenSizeOf(result)"
+            (change)="choose(result, $event.value)"
+          >
+            @for (size of result.mosSizes; track size) {
+              <mat-chip-option [value]="size">{{ size }}</mat-chip-option>
+            }
+          </mat-chip-listbox>
+        </div>
+      }
     </div>
   `,
   styles: `
@@ -134,10 +138,11 @@ const tuningNames: Record<TemperamentResult['tuning'], string> = {
     }
     .frame {
       overflow-x: auto;
+      /* Holds the visually hidden headings, which would otherwise widen the page from outside the scroller. */
+      position: relative;
     }
     table {
       border-collapse: collapse;
-      width: 100%;
       font-variant-numeric: tabular-nums;
     }
     th,
@@ -156,14 +161,20 @@ const tuningNames: Record<TemperamentResult['tuning'], string> = {
       text-align: right;
       white-space: nowrap;
     }
+    thead th.error {
+      white-space: normal;
+      min-width: 4.5em;
+    }
     th.tuning {
       position: sticky;
+      z-index: 1;
       left: 0;
       background: var(--mat-sys-surface-container-low);
       font-weight: normal;
     }
     thead th:first-child {
       position: sticky;
+      z-index: 1;
       left: 0;
       background: var(--mat-sys-surface-container-low);
     }
@@ -177,8 +188,25 @@ const tuningNames: Record<TemperamentResult['tuning'], string> = {
       color: var(--mat-sys-on-surface-variant);
       min-width: 9em;
     }
-    td.sizes {
-      min-width: 240px;
+    .sizes {
+      margin-top: 12px;
+    }
+    .sizes-heading {
+      font: var(--mat-sys-title-small);
+      margin: 0 0 4px;
+    }
+    .sizes-line {
+      display: flex;
+      align-items: flex-start;
+      gap: 0 12px;
+    }
+    .sizes-tuning {
+      flex: none;
+      width: 4.5em;
+      /* Level with the first row of chips. */
+      padding-top: 10px;
+      font: var(--mat-sys-label-large);
+      color: var(--mat-sys-on-surface-variant);
     }
   `,
 })

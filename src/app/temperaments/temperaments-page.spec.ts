@@ -152,7 +152,6 @@ describe('TemperamentsPage', () => {
       'Error of 3/2',
       'Error of 5/4',
       'Error of 6/5',
-      'MOS sizes',
     ]);
     const [teRow, poteRow] = rows();
     expect(teRow.slice(0, 6)).toEqual([
@@ -164,7 +163,7 @@ describe('TemperamentsPage', () => {
       '−3.99¢',
     ]);
     expect(poteRow.slice(0, 6)).toEqual([
-      'POTE Tenney-Euclidean, pure octaves',
+      'POTE Tenney-Euclidean, pure period',
       '1200.00¢',
       '696.24¢',
       '−5.72¢',
