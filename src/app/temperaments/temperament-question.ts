@@ -12,7 +12,7 @@ export type Measure = 'limit' | 'targets';
 export type CommaSource = 'commas' | 'suggest';
 
 /** The search form as the composer left it: lists still as typed. */
-export interface QuestionForm {
+interface QuestionForm {
   measure: Measure;
   limit: PrimeLimit;
   targets: string;
@@ -23,7 +23,7 @@ export interface QuestionForm {
 }
 
 /** The fields of the form, named as the request names them. */
-export const questionFields = ['limit', 'targets', 'commas', 'count', 'tunings'] as const;
+const questionFields = ['limit', 'targets', 'commas', 'count', 'tunings'] as const;
 export type QuestionField = (typeof questionFields)[number];
 
 /** A fault to show: beside its field, or (field null) for the question as a whole. */

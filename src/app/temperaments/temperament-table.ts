@@ -37,7 +37,7 @@ export function temperamentsOf(results: TemperamentResult[]): Temperament[] {
 }
 
 /** A mapping written as the trade writes it: its two rows as vals, `[⟨1 1 0], ⟨0 1 4]⟩`. */
-export function mappingText(mapping: [number[], number[]]): string {
+function mappingText(mapping: [number[], number[]]): string {
   return `[${mapping.map((row) => `⟨${row.join(' ')}]`).join(', ')}⟩`;
 }
 

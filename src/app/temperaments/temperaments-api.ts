@@ -4,7 +4,6 @@ import type { TemperamentRequest, TemperamentsAnswer } from '@shared/api/tempera
 import { Observable } from 'rxjs';
 
 export type {
-  CommaSuggestion,
   TemperamentRequest,
   TemperamentResult,
   TemperamentsAnswer,

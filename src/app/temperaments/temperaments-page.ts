@@ -44,9 +44,9 @@ import {
 } from './temperament-question';
 import { type ChosenSize, TemperamentTable, temperamentsOf } from './temperament-table';
 import {
-  TemperamentRequest,
-  TemperamentResult,
-  TemperamentsAnswer,
+  type TemperamentRequest,
+  type TemperamentResult,
+  type TemperamentsAnswer,
   TemperamentsApi,
 } from './temperaments-api';
 
