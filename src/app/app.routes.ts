@@ -30,6 +30,11 @@ export const routes: Routes = [
     loadComponent: () => import('./retune/retune-page').then((m) => m.RetunePage),
   },
   {
+    path: 'temperaments',
+    title: 'Generator search · Keyloom',
+    loadComponent: () => import('./temperaments/temperaments-page').then((m) => m.TemperamentsPage),
+  },
+  {
     path: 'import',
     title: 'Import · Keyloom',
     loadComponent: () => import('./import/import-page').then((m) => m.ImportPage),

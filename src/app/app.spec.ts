@@ -36,7 +36,7 @@ describe('App shell', () => {
     return { fixture, element: fixture.nativeElement as HTMLElement };
   }
 
-  it('links to Design, Library, Retune and Bands from the main navigation', async () => {
+  it('links to Design, Library, Retune, Generator search and Bands from the main navigation', async () => {
     const { element } = await render({ user: null });
     const links = Array.from(
       element.querySelectorAll<HTMLAnchorElement>('nav[aria-label="Main"] a'),
@@ -45,18 +45,21 @@ describe('App shell', () => {
       'Design',
       'Library',
       'Retune',
+      'Generator search',
       'Bands',
     ]);
     expect(links.map((a) => a.getAttribute('aria-label'))).toEqual([
       'Design',
       'Library',
       'Retune',
+      'Generator search',
       'Bands',
     ]);
     expect(links.map((a) => new URL(a.href).pathname)).toEqual([
       '/design',
       '/library',
       '/retune',
+      '/temperaments',
       '/bands',
     ]);
   });

@@ -50,6 +50,7 @@ export class App implements OnInit {
     { path: '/design', label: 'Design', icon: 'tune' },
     { path: '/library', label: 'Library', icon: 'library_music' },
     { path: '/retune', label: 'Retune', icon: 'queue_music' },
+    { path: '/temperaments', label: 'Generator search', icon: 'manage_search' },
     { path: '/bands', label: 'Bands', icon: 'groups' },
   ];
 

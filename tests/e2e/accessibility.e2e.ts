@@ -100,6 +100,7 @@ describe('accessibility of every page and tab (axe-core)', () => {
     ['/retune', 'Retune a song'],
     ['/bands', 'Bands'],
     ['/import', 'Import a tuning'],
+    ['/temperaments', 'Generator search'],
     ['/instruments', 'My instruments'],
     ['/no/such/page', 'Nothing plays on this key'],
   ]) {
