@@ -46,13 +46,14 @@ describe('generator search', () => {
       const page = await searchPage();
       await temperOut(page, '81/80');
       expect(await page.locator('app-temperament-table .mapping').textContent()).toContain(
-        // Meantone's mapping: the fifth as generator, four fifths to 5/1 (from memory).
-        '[⟨1 1 0], ⟨0 1 4]⟩',
+        // Meantone's mapping with the fourth as generator, the fifth's complement within half an octave: 3/1 is
+        // two octaves less a fourth, 5/1 four octaves less four fourths (from memory).
+        '[⟨1 2 4], ⟨0 -1 -4]⟩',
       );
       const [period, generator] = await rowOf(page, 'POTE');
       expect(cents(period)).toBe(1200);
-      // The POTE fifth of meantone is about 696.24 cents (from memory).
-      expect(Math.abs(cents(generator) - 696.24)).toBeLessThan(0.01);
+      // The POTE fifth of meantone is about 696.24 cents (from memory), so its fourth is 503.76.
+      expect(Math.abs(1200 - cents(generator) - 696.24)).toBeLessThan(0.01);
 
       const sizes = page.getByRole('listbox', { name: 'MOS sizes of the POTE tuning' });
       // 12 and 19 are among meantone's well-formed scale sizes (from memory).
@@ -70,7 +71,7 @@ describe('generator search', () => {
       await expect.poll(() => summary.textContent()).toContain(`${size} in a period of 2/1`);
       expect(await summary.locator('.pattern').textContent()).toBe(pattern);
       expect(await page.getByLabel('Generator', { exact: true }).inputValue()).toMatch(
-        /^696\.2\d*c$/,
+        /^503\.7\d*c$/,
       );
       await screenshot(page, `temperaments-meantone-${size}-designer`);
       await page.context().close();

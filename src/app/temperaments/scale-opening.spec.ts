@@ -64,7 +64,7 @@ describe('Opening a tempered result as a scale', () => {
     ]);
     expect(opening.pattern.sizes[0].cents).toBeCloseTo(3600 - 5 * 696.238659035547, 6);
     expect(opening.pattern.sizes[1].cents).toBeCloseTo(7 * 696.238659035547 - 4800, 6);
-    expect(opening.notesPerOctave).toBe(12);
+    expect(opening.perPeriod).toBe(12);
   });
 
   it('lays a scale of fewer than twelve notes in a pure octave on its nearest keys, as the designer does', () => {
@@ -108,11 +108,12 @@ describe('Opening a tempered result as a scale', () => {
       periodsPerOctave: 2,
       period: 600,
       generator: 105.21,
-      mosSizes: [2, 3, 4, 5, 6, 11, 17],
+      // Sizes are notes an octave: two periods of 1, 2, 3, 5, 6, 11 and 17 notes.
+      mosSizes: [2, 4, 6, 10, 12, 22, 34],
     };
-    const { opening, scale } = opened(halfOctave, 6);
+    const { opening, scale } = opened(halfOctave, 12);
     expect(scale.period).toBe('600c');
-    expect(opening.notesPerOctave).toBe(12);
+    expect(opening.perPeriod).toBe(6);
     expect(opening.pattern.pattern.length).toBe(6);
   });
 

@@ -10,10 +10,10 @@ import { nearestKeyLayout } from '../keys/nearest-key-layout';
 
 /** A tempered result as a scale of one of its MOS sizes, ready to open in the designer. */
 export interface ScaleOpening {
-  /** Notes in one period: the MOS size chosen. */
+  /** Notes in an octave: the MOS size chosen, as the search lists them. */
   size: number;
-  /** Notes in an octave (more than `size` when the period divides the octave). */
-  notesPerOctave: number;
+  /** Notes in one period (fewer than `size` when the period divides the octave). */
+  perPeriod: number;
   /** The generator and period as the design writes them, in the interval syntax. */
   generator: string;
   period: string;
@@ -44,7 +44,8 @@ function periodText(periodCents: number): string {
 }
 
 /**
- * Opens `result` as a `generated` design of `size` notes a period: the tempered generator (brought into the period)
+ * Opens `result` as a `generated` design of `size` notes an octave (`size` divided by the periods in the octave
+ * are built in each period): the tempered generator (brought into the period)
  * and period in cents, the chain laid around the tonic, the step pattern it makes. A scale of fewer than 12 notes
  * in a pure octave goes on its nearest keys, as the designer lays out such scales. Says why in words when the
  * result makes no scale (a generator that lands on the tonic).
@@ -55,9 +56,13 @@ export function scaleOpening(result: TemperamentResult, size: number): ScaleOpen
   if (generatorCents < sameSizeCents || periodCents - generatorCents < sameSizeCents) {
     return 'The generator of this tuning spans whole periods, so its chain makes no scale.';
   }
+  const perPeriod = size / result.periodsPerOctave;
+  if (!Number.isInteger(perPeriod)) {
+    return `${size} notes do not share out evenly over ${result.periodsPerOctave} periods.`;
+  }
   const generator = centsToString(generatorCents);
   const period = periodText(periodCents);
-  const { up, down } = chainAround(size, generatorCents, periodCents);
+  const { up, down } = chainAround(perPeriod, generatorCents, periodCents);
   const built = buildScale({ kind: 'generated', generator, period, up, down });
   if (!built.ok) return built.errors[0].message;
   const { degrees } = built.value;
@@ -87,7 +92,7 @@ export function scaleOpening(result: TemperamentResult, size: number): ScaleOpen
   };
   return {
     size,
-    notesPerOctave: size * result.periodsPerOctave,
+    perPeriod,
     generator,
     period,
     up,
