@@ -68,7 +68,7 @@ export interface TemperamentResult {
   period: number;
   generator: number;
   errors: TargetError[];
-  /** The scale sizes, up to `largestMosSize`, where the generator chain makes a two-step-size scale. */
+  /** The scale sizes in notes an octave, up to `largestMosSize`, where the generator chain makes a two-step-size scale. */
   mosSizes: number[];
 }
 
