@@ -4,6 +4,7 @@ import { TestBed } from '@angular/core/testing';
 import { MAT_DIALOG_DATA, MatDialogRef } from '@angular/material/dialog';
 import { provideRouter } from '@angular/router';
 import { standInAccess, standInInput, standInOutput } from '../testing/midi-stand-in';
+import { twelveToneDump } from '../testing/tuning-dumps';
 import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { Session } from '../auth/session';
 import { DesignState } from '../design/design-state';
@@ -11,27 +12,6 @@ import { MidiAccess } from './midi-access';
 import { OverwriteDialog, type OverwriteQuestion } from './overwrite-dialog';
 import { TuningBackup } from './tuning-backup';
 import { TuningSender } from './tuning-sender';
-
-/**
- * MIDI Tuning specification, bulk dump `F0 7E dev 08 01 tt name[16] (xx yy zz)x128 cs F7`, written
- * out here by the rule:
- * 12-tone equal, device 7F, program 0, name "12-TET" padded with spaces, entries `nn 00 00`, checksum the XOR of
- * every byte from 7E up to the last data byte, AND 7F. The published check value is 0x63, 408 bytes.
- */
-function twelveToneDump(program = 0): Uint8Array {
-  const name = Array.from('12-TET'.padEnd(16, ' '), (character) => character.charCodeAt(0));
-  const body = [
-    0x7e,
-    0x7f,
-    0x08,
-    0x01,
-    program,
-    ...name,
-    ...Array.from({ length: 128 }, (_, key) => [key, 0, 0]).flat(),
-  ];
-  const checksum = body.reduce((sum, byte) => sum ^ byte, 0) & 0x7f;
-  return Uint8Array.from([0xf0, ...body, checksum, 0xf7]);
-}
 
 interface FakeInstrument {
   requests: number[][];

@@ -56,13 +56,14 @@ function fileNamePart(text: string): string {
 @Injectable()
 export class TuningBackup {
   private readonly midi = inject(MidiAccess);
-  private readonly sender = inject(TuningSender);
+  /** The designer's sender, whose output and program `backUp()` asks about; the stage names its own with `backUpFrom`. */
+  private readonly sender = inject(TuningSender, { optional: true });
   private readonly session = inject(Session);
   private readonly presets = inject(PresetApi);
 
   /** The input the instrument answers on: by default the input named as the chosen output, as one device shows both. */
   readonly inputId = linkedSignal<string | null>(() => {
-    const output = this.midi.outputs().find((port) => port.id === this.sender.outputId());
+    const output = this.midi.outputs().find((port) => port.id === this.sender?.outputId());
     return this.midi.inputs().find((port) => port.name === output?.name)?.id ?? null;
   });
   readonly inputName = computed(
@@ -70,9 +71,18 @@ export class TuningBackup {
   );
 
   /** Asks for the dump of the send's program and keeps it; `answerMs` is how long to wait. */
-  async backUp(answerMs = backupAnswerMs): Promise<BackupOutcome> {
-    const outputId = this.sender.outputId();
-    const inputId = this.inputId();
+  backUp(answerMs = backupAnswerMs): Promise<BackupOutcome> {
+    const { deviceId, program } = this.sender?.target() ?? { deviceId: 127, program: 0 };
+    const target = { outputId: this.sender?.outputId() ?? null, inputId: this.inputId() };
+    return this.backUpFrom({ ...target, deviceId, program }, answerMs);
+  }
+
+  /** Asks the instrument on `outputId` for tuning program `program`, listens on `inputId`, and keeps the dump. */
+  async backUpFrom(
+    target: { outputId: string | null; inputId: string | null; deviceId: number; program: number },
+    answerMs = backupAnswerMs,
+  ): Promise<BackupOutcome> {
+    const { outputId, inputId, deviceId, program } = target;
     const output = outputId ? this.midi.output(outputId) : null;
     const input = inputId ? this.midi.input(inputId) : null;
     if (!output || !input) {
@@ -82,7 +92,6 @@ export class TuningBackup {
           "Choose the instrument's MIDI output and input first: the backup asks on one and listens on the other.",
       };
     }
-    const { deviceId, program } = this.sender.target();
     const dump = await this.ask(output, input, deviceId, program, answerMs);
     if (dump === 'refused')
       return {

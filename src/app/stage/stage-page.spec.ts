@@ -6,7 +6,7 @@ import type { Instrument } from '@shared/api/instruments';
 import { presetForInstrument } from '@shared/api/preset-for-instrument';
 import type { Setlist, StagePosition } from '@shared/api/setlists';
 import { parsePresetDocument } from '@shared/preset/preset-document';
-import { of } from 'rxjs';
+import { from } from 'rxjs';
 import type { Member } from '../auth/session';
 import { tuningMessages } from '../hardware/tuning-messages';
 import { plug, standInAccess, standInInput, standInOutput } from '../testing/midi-stand-in';
@@ -14,7 +14,8 @@ import { stageControlsKey } from './stage-controls';
 import { PageTest } from '../testing/page-test';
 import { patientSpecMs, waitFor } from '../testing/wait-for';
 import { STAGE_EVENT_SOURCE, type StageStream } from './stage-link';
-import type { StageOverwrite } from './stage-confirm-dialog';
+import type { StageBackup, StageQuestion } from './stage-confirm-dialog';
+import { twelveToneDump } from '../testing/tuning-dumps';
 import { StagePage } from './stage-page';
 
 const member: Member = {
@@ -118,15 +119,18 @@ class FakeStream implements StageStream {
 describe('StagePage', () => {
   let test: PageTest;
   let streams: FakeStream[];
-  let questions: StageOverwrite[][];
+  let questions: StageQuestion[];
+  /** What the player does in the dialog before answering it; by default nothing. */
+  let inDialog: (question: StageQuestion) => Promise<unknown>;
 
   beforeEach(() => {
     streams = [];
     questions = [];
+    inDialog = async () => undefined;
     const dialog = {
-      open: (_: unknown, config: { data: StageOverwrite[] }) => {
+      open: (_: unknown, config: { data: StageQuestion }) => {
         questions.push(config.data);
-        return { afterClosed: () => of(true) };
+        return { afterClosed: () => from(inDialog(config.data).then(() => true)) };
       },
     };
     test = new PageTest(
@@ -281,8 +285,8 @@ describe('StagePage', () => {
         () => test.settle(),
       );
       expect(questions.length).toBe(1);
-      expect(questions[0]).toEqual([
-        { name: 'Lead', port: 'Stage synth', replaces: 'tuning program 5' },
+      expect(questions[0].overwrites).toEqual([
+        { name: 'Lead', port: 'Stage synth', replaces: 'tuning program 5', canBackUp: false },
       ]);
       // MIDI Tuning specification, bulk tuning dump: F0 7E <device> 08 01 <program> name[16] ...
       const [dump] = synth.sent;
@@ -339,8 +343,13 @@ describe('StagePage', () => {
       const missed = () => test.page().querySelector('.instruments .waiting');
       await waitFor('the port to be missed', missed, () => test.settle());
       expect(test.text('.instruments .waiting')).toContain('"Stage synth" is not connected');
-      expect(questions[0]).toEqual([
-        { name: 'Keys', port: 'Stage synth', replaces: 'tuning program 9 in bank 2' },
+      expect(questions[0].overwrites).toEqual([
+        {
+          name: 'Keys',
+          port: 'Stage synth',
+          replaces: 'tuning program 9 in bank 2',
+          canBackUp: false,
+        },
       ]);
       expect(synth.sent).toEqual([]);
 
@@ -478,6 +487,88 @@ describe('StagePage', () => {
       } finally {
         localStorage.removeItem(stageControlsKey);
       }
+    },
+    patientSpecMs,
+  );
+
+  it(
+    'backs up, when asked, what each instrument that can answer holds, and sends only after that',
+    async () => {
+      const synth = standInOutput('out-1', 'Stage synth');
+      const synthInput = standInInput('in-1', 'Stage synth');
+      const sendToSynth = synth.send.bind(synth);
+      spyOn(synth, 'send').and.callFake((bytes: Uint8Array | number[]) => {
+        sendToSynth(bytes);
+        // MIDI Tuning specification: a dump request F0 7E dev 08 00 tt F7 is answered by the dump of program tt.
+        if (bytes[3] === 0x08 && bytes[4] === 0x00) {
+          setTimeout(() => synthInput.receive(twelveToneDump(bytes[5])), 5);
+        }
+      });
+      const octaves = standInOutput('out-2', 'Other synth');
+      spyOn(navigator, 'requestMIDIAccess').and.returnValue(
+        Promise.resolve(standInAccess({ inputs: [synthInput], outputs: [synth, octaves] })),
+      );
+      const lead = instrument('Lead', {
+        receives: 'mts-bulk',
+        deviceId: 16,
+        program: 5,
+        port: 'Stage synth',
+      });
+      const organ = instrument('Organ', { receives: 'mts-octave-1', port: 'Other synth' });
+      let outcomes: StageBackup[] = [];
+      inDialog = async (question) => {
+        outcomes = await question.backUp();
+      };
+      await openStage(setlist('read'), [lead, organ]);
+      buttonNamed('Connect MIDI')!.click();
+      await waitFor(
+        'MIDI to open',
+        () => !buttonNamed('Connect MIDI'),
+        () => test.settle(),
+      );
+      (test.page().querySelector('.follow button') as HTMLButtonElement).click();
+      await test.settle();
+      streams[0].open();
+      streams[0].tell({ position: 1, presetId: 'p2', revision: 1, document: nineteen });
+
+      const save = await waitFor(
+        'the backup to be saved',
+        () => test.http.match('/api/presets')[0],
+        () => test.settle(),
+      );
+      expect(questions[0].overwrites.map(({ name, canBackUp }) => [name, canBackUp])).toEqual([
+        ['Lead', true],
+        ['Organ', false],
+      ]);
+      // Nothing is sent but the dump request (MIDI Tuning specification: F0 7E dev 08 00 tt F7) until the
+      // backup is done and the player has answered.
+      expect(synth.sent).toEqual([[0xf0, 0x7e, 0x10, 0x08, 0x00, 0x05, 0xf7]]);
+      expect(octaves.sent).toEqual([]);
+      expect((save.request.body as { note: string }).note).toContain(
+        'Backup of tuning program 5 on Stage synth',
+      );
+      save.flush({ id: 'p-backup', revision: 1 });
+
+      await waitFor(
+        'the bulk dump',
+        () => synth.sent.length > 1,
+        () => test.settle(),
+      );
+      expect(outcomes.map(({ name, backedUp }) => [name, backedUp])).toEqual([
+        ['Lead', true],
+        ['Organ', false],
+      ]);
+      expect(outcomes[0].message).toContain('in your library');
+      expect(outcomes[1].message).toContain('no tuning program to ask for');
+      // MIDI Tuning specification, bulk tuning dump: F0 7E <device> 08 01 <program> ...
+      expect(synth.sent[1].slice(0, 6)).toEqual([0xf0, 0x7e, 0x10, 0x08, 0x01, 5]);
+      // Nineteen notes to the octave do not fit a scale/octave tuning of twelve: said once, not retried.
+      await waitFor(
+        "the organ's fault",
+        () => test.text('.instruments').includes('Could not build the tuning'),
+        () => test.settle(),
+      );
+      expect(octaves.sent).toEqual([]);
     },
     patientSpecMs,
   );

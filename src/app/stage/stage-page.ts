@@ -29,6 +29,7 @@ import { stageFacts } from './stage-facts';
 import { type StageControls, keepStageControls, keptStageControls } from './stage-controls';
 import { StageLink, linkWords } from './stage-link';
 import { StageSender } from './stage-sender';
+import { TuningBackup } from '../hardware/tuning-backup';
 
 /** Keys that move the stage: the arrows, and the page keys foot pedals send. */
 const backKeys = new Set(['ArrowLeft', 'PageUp']);
@@ -53,7 +54,7 @@ const onKeys = new Set(['ArrowRight', 'PageDown']);
     MatSlideToggleModule,
     SignInPrompt,
   ],
-  providers: [MidiAccess, StageLink, StageSender],
+  providers: [MidiAccess, StageLink, StageSender, TuningBackup],
   templateUrl: './stage-page.html',
   styleUrl: './stage-page.scss',
   host: { '(document:keydown)': 'onKey($event)' },

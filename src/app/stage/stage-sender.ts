@@ -5,8 +5,14 @@ import { presetForInstrument } from '@shared/api/preset-for-instrument';
 import type { ResolvedPreset } from '@shared/preset/preset-document';
 import { firstValueFrom } from 'rxjs';
 import { MidiAccess } from '../hardware/midi-access';
+import { TuningBackup } from '../hardware/tuning-backup';
 import { type MessageFormId, messageForms, tuningMessages } from '../hardware/tuning-messages';
-import { type StageOverwrite, StageConfirmDialog } from './stage-confirm-dialog';
+import {
+  type StageBackup,
+  StageConfirmDialog,
+  type StageOverwrite,
+  type StageQuestion,
+} from './stage-confirm-dialog';
 
 /** Where an instrument stands with the stage's tunings. */
 export interface InstrumentStatus {
@@ -22,6 +28,9 @@ const liveForms = new Set<string>(messageForms.map((form) => form.id));
 export function takesLiveTuning(form: ReceiveForm): form is MessageFormId & ReceiveForm {
   return liveForms.has(form);
 }
+
+/** The forms that overwrite one tuning program, which the MTS dump request can ask the instrument for. */
+const programForms = new Set<ReceiveForm>(['mts-bulk', 'mts-notes']);
 
 /** What a send overwrites on an instrument that takes it in `form`. */
 export function whatIsReplaced(instrument: Instrument): string {
@@ -39,7 +48,8 @@ export function whatIsReplaced(instrument: Instrument): string {
 }
 
 interface Outcome {
-  kind: 'sent' | 'failed' | 'waiting';
+  /** `failed` and `waiting` are sent again when the port returns; `cannot` waits for a tuning it can take. */
+  kind: 'sent' | 'failed' | 'waiting' | 'cannot';
   message: string;
 }
 
@@ -52,6 +62,7 @@ interface Outcome {
 export class StageSender {
   private readonly midi = inject(MidiAccess);
   private readonly dialog = inject(MatDialog);
+  private readonly backup = inject(TuningBackup);
   private latest: ResolvedPreset | null = null;
   private asking = false;
   readonly instruments = signal<Instrument[]>([]);
@@ -113,11 +124,13 @@ export class StageSender {
       if (this.asking) return;
       this.asking = true;
       try {
-        const question: StageOverwrite[] = targets.map((instrument) => ({
+        const overwrites: StageOverwrite[] = targets.map((instrument) => ({
           name: instrument.name,
           port: instrument.port!,
           replaces: whatIsReplaced(instrument),
+          canBackUp: this.canBackUp(instrument),
         }));
+        const question: StageQuestion = { overwrites, backUp: () => this.backUpAll(targets) };
         const ref = this.dialog.open(StageConfirmDialog, { data: question, maxWidth: '560px' });
         this.agreed.set((await firstValueFrom(ref.afterClosed())) === true);
       } finally {
@@ -126,6 +139,41 @@ export class StageSender {
       if (!this.agreed()) return;
     }
     for (const instrument of targets) this.sendTo(instrument);
+  }
+
+  /** An instrument answers a dump request on the input of its port's name, for a program form. */
+  private canBackUp(instrument: Instrument): boolean {
+    return (
+      programForms.has(instrument.receives) &&
+      this.midi.inputs().some((port) => port.name === instrument.port)
+    );
+  }
+
+  /** Backs up, one after another, what each instrument holds in the program a send would replace. */
+  private async backUpAll(targets: Instrument[]): Promise<StageBackup[]> {
+    const outcomes: StageBackup[] = [];
+    for (const instrument of targets) {
+      const port = instrument.port!;
+      const told = (backedUp: boolean, message: string) =>
+        outcomes.push({ port, name: instrument.name, backedUp, message });
+      if (!this.canBackUp(instrument)) {
+        told(
+          false,
+          programForms.has(instrument.receives)
+            ? `No MIDI input named "${port}" to hear an answer on: not backed up.`
+            : 'Its form has no tuning program to ask for: not backed up.',
+        );
+        continue;
+      }
+      const outcome = await this.backup.backUpFrom({
+        outputId: this.midi.outputs().find((candidate) => candidate.name === port)?.id ?? null,
+        inputId: this.midi.inputs().find((candidate) => candidate.name === port)?.id ?? null,
+        deviceId: instrument.deviceId,
+        program: instrument.program,
+      });
+      told(outcome.kind === 'kept' || outcome.kind === 'downloaded', outcome.message);
+    }
+    return outcomes;
   }
 
   /** Asks again before the next send (after the player said no). */
@@ -149,7 +197,7 @@ export class StageSender {
     if (!messages.ok) {
       const why = messages.errors.map((error) => error.message).join('; ');
       const message = `Could not build the tuning: ${why}`;
-      return this.record(instrument, { kind: 'failed', message });
+      return this.record(instrument, { kind: 'cannot', message });
     }
     try {
       for (const message of messages.value) output.send(message);
