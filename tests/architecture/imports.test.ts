@@ -20,7 +20,7 @@ const sides = ['shared', 'server', 'src'] as const;
 const sharedLayers: readonly (readonly string[])[] = [
   ['result.ts', 'text'],
   ['tuning'],
-  ['midi'],
+  ['midi', 'tuner'],
   ['preset'],
   ['import', 'export'],
   ['library'],
