@@ -8,7 +8,14 @@ export function signedCents(cents: number): string {
   return `${sign}${Math.abs(rounded).toFixed(1)}`;
 }
 
-/** The tuner's reading in words: the key by name, its degree and the offset, `E4 · degree 4 · +5.0 cents`. */
-export function readingText(match: Pick<TunerMatch, 'key' | 'degree' | 'cents'>): string {
-  return `${noteName(match.key)} · degree ${match.degree} · ${signedCents(match.cents)} cents`;
+type Reading = Pick<TunerMatch, 'key' | 'degree' | 'cents'>;
+
+/** The three parts of the reading: the key by name, its degree and the offset, `E4`, `degree 4`, `+5.0 cents`. */
+export function readingParts(match: Reading): [key: string, degree: string, offset: string] {
+  return [noteName(match.key), `degree ${match.degree}`, `${signedCents(match.cents)} cents`];
+}
+
+/** The tuner's reading in words: its parts between middle dots, `E4 · degree 4 · +5.0 cents`. */
+export function readingText(match: Reading): string {
+  return readingParts(match).join(' · ');
 }
