@@ -117,7 +117,7 @@ export class TunerNeedle {
 
   protected readonly angle = computed(() => {
     const cents = this.cents();
-    return cents === null ? 0 : angleOf(cents);
+    return cents === null ? 0 : Math.round(angleOf(cents) * 1000) / 1000;
   });
   protected readonly tuned = computed(() => {
     const cents = this.cents();
