@@ -15,6 +15,10 @@ export const highestHz = 4200;
 export const clarityNeeded = 0.9;
 /** A frame quieter than this (RMS level against full scale) is quiet: -50 dBFS, a soft note well off the microphone. */
 export const quietestDb = -50;
+/** A sample louder than this amplitude is sound: the quiet level as an amplitude, 10^(-50/20) = 0.0032. */
+const quietestAmplitude = 10 ** (quietestDb / 20);
+/** A sound that starts within a frame is read over the frame's last quarter at least, in eighths of the frame. */
+const tailSteps = 8;
 /** The NSDF at a multiple of the period must stay this high for that multiple to refine the period. */
 const refiningClarity = 0.8;
 /** Periods are refined at multiples of the period up to this share of the frame (a third: two thirds overlap). */
@@ -98,24 +102,48 @@ function refinedPeriod(samples: Float32Array, period: number): number {
   return refined;
 }
 
+/** The index of the first sample louder than the quietest sound read, or -1 in a frame of quiet. */
+export function firstSound(samples: Float32Array): number {
+  return samples.findIndex((sample) => Math.abs(sample) > quietestAmplitude);
+}
+
 /**
- * A reader of frames of `frameLength` samples (see `frameLengthFor`). It holds pitchy's working buffers, so
+ * A reader of frames of `frameLength` samples (see `frameLengthFor`). When a sound starts (or stops) within the
+ * frame, only the sound is read: the longest part of 1/4, 3/8 ... 8/8 of the frame that holds no silence before
+ * (or after) it, because silence lowers the NSDF at the period (pairs of a silent and a sounding sample count in
+ * its denominator only) and would delay the first reading and bend the last. A sound shorter than a quarter of
+ * the frame is not read yet. It holds pitchy's working buffers (in
+ * double precision: the NSDF's running sums in single precision can blow up near the end of the frame), so
  * that reading a frame allocates nothing; keep one per stream of frames.
  */
 export function pitchReader(frameLength: number): FrameReader {
-  const detector = PitchDetector.forFloat32Array(frameLength);
-  detector.clarityThreshold = clarityNeeded;
+  const step = Math.max(1, Math.floor(frameLength / tailSteps));
+  const detectors: PitchDetector<Float64Array>[] = [];
+  for (let length = frameLength; length >= frameLength / 4; length -= step) {
+    const detector = PitchDetector.forFloat64Array(length);
+    detector.clarityThreshold = clarityNeeded;
+    detectors.push(detector);
+  }
   return (samples, sampleRate) => {
     if (samples.length !== frameLength) {
       throw new Error(`a frame of ${samples.length} samples, not ${frameLength}`);
     }
-    const level = levelDb(samples);
+    const start = firstSound(samples);
+    if (start < 0) return { kind: 'quiet', levelDb: levelDb(samples) };
+    let end = frameLength;
+    while (!(Math.abs(samples[end - 1]) > quietestAmplitude)) end--;
+    const sounding = end - start;
+    const detector = detectors.find((candidate) => candidate.inputLength <= sounding);
+    const tail = samples.subarray(end - (detector?.inputLength ?? sounding), end);
+    const level = levelDb(tail);
     if (!(level >= quietestDb)) return { kind: 'quiet', levelDb: level };
-    const [hz, clarity] = detector.findPitch(samples, sampleRate);
+    // Too little of a starting sound to read yet: its period would come out wrong.
+    if (!detector) return { kind: 'unclear', clarity: 0, levelDb: level };
+    const [hz, clarity] = detector.findPitch(tail, sampleRate);
     if (clarity < clarityNeeded || !(hz >= lowestHz && hz <= highestHz)) {
       return { kind: 'unclear', clarity, levelDb: level };
     }
-    const period = refinedPeriod(samples, sampleRate / hz);
+    const period = refinedPeriod(tail, sampleRate / hz);
     return { kind: 'pitch', hz: sampleRate / period, clarity, levelDb: level };
   };
 }

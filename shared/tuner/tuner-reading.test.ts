@@ -6,7 +6,11 @@ describe('the reading in words', () => {
     // MIDI convention: key 64 is E4 (middle C, key 60, is C4).
     expect(readingText({ key: 64, degree: 4, cents: 5.04 })).toBe('E4 · degree 4 · +5.0 cents');
     expect(readingText({ key: 61, degree: 1, cents: -12.36 })).toBe('C#4 · degree 1 · −12.4 cents');
-    expect(readingParts({ key: 57, degree: 9, cents: 0.25 })).toEqual(['A3', 'degree 9', '+0.3 cents']);
+    expect(readingParts({ key: 57, degree: 9, cents: 0.25 })).toEqual([
+      'A3',
+      'degree 9',
+      '+0.3 cents',
+    ]);
   });
 
   it('writes a sign on every offset, a true minus below and ± for what rounds to zero', () => {

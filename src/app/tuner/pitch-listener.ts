@@ -2,9 +2,9 @@ import { DestroyRef, Injectable, inject, signal } from '@angular/core';
 import {
   type FrameReader,
   type HeardFrame,
+  firstSound,
   frameLengthFor,
   pitchReader,
-  quietestDb,
 } from '@shared/tuner/pitch-detector';
 import { type PitchTrack, followPitch, silentTrack } from '@shared/tuner/pitch-track';
 
@@ -15,9 +15,6 @@ export type ListeningState =
 /** Performance marks the page leaves, for the benchmark: a sound starting after quiet, and its first reading. */
 export const onsetMark = 'keyloom:tuner-onset';
 export const steadyMark = 'keyloom:tuner-steady';
-
-/** The sample level above which a sample counts as sound: the quiet threshold as an amplitude. */
-const soundAmplitude = 10 ** (quietestDb / 20);
 
 /** The browser's refusal, by the DOMException's name, as a state. */
 function refusalState(error: unknown): ListeningState {
@@ -137,8 +134,7 @@ export class PitchListener {
   private markOnset(heard: HeardFrame, sampleRate: number): void {
     const sounding = heard.kind !== 'quiet';
     if (sounding && !this.sounding && this.track.hz === null) {
-      const first = this.samples.findIndex((sample) => Math.abs(sample) > soundAmplitude);
-      const after = this.samples.length - Math.max(0, first);
+      const after = this.samples.length - Math.max(0, firstSound(this.samples));
       performance.mark(onsetMark, { startTime: performance.now() - (1000 * after) / sampleRate });
       this.awaitingReading = true;
     }
