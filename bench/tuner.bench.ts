@@ -15,7 +15,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import { extname, join, normalize } from 'node:path';
 import { PitchDetector } from 'pitchy';
 import { type Page, chromium } from 'playwright-core';
@@ -239,7 +239,6 @@ try {
       await page.getByRole('link', { name: /^Tuner/ }).click();
       await page.getByRole('button', { name: 'Start listening' }).waitFor();
 
-      const resting = await frameRate(page, 5);
       await page.evaluate(() => {
         const timings: Timings = { onsets: [], readings: [] };
         (window as unknown as { timings: Timings }).timings = timings;
@@ -248,13 +247,25 @@ try {
           timings.readings.push({ at: performance.now(), text: reading.textContent?.trim() ?? '' });
         }).observe(reading, { subtree: true, childList: true, characterData: true });
       });
+      // The frame rate at rest and while listening, in turns, so that other work on the machine weighs on both.
+      const resting: number[] = [];
+      const listening: { fps: number; longestMs: number }[] = [];
+      for (let turn = 0; turn < 3; turn++) {
+        resting.push((await frameRate(page, 3)).fps);
+        await page.getByRole('button', { name: 'Start listening' }).click();
+        await page.getByRole('button', { name: 'Stop listening' }).waitFor();
+        listening.push(await frameRate(page, 3));
+        await page.getByRole('button', { name: 'Stop listening' }).click();
+      }
       await page.getByRole('button', { name: 'Start listening' }).click();
+      const before = await page.evaluate(
+        () => performance.getEntriesByName('keyloom:tuner-onset').length,
+      );
       await page.waitForFunction(
-        (loops) => performance.getEntriesByName('keyloom:tuner-onset').length > loops,
-        loops,
+        (wanted) => performance.getEntriesByName('keyloom:tuner-onset').length >= wanted,
+        before + loops + 1,
         { timeout: (loops + 4) * (silenceSeconds + toneSeconds) * 1000 },
       );
-      const listening = await frameRate(page, 5);
       const { onsets, readings } = await page.evaluate(() => {
         const timings = (window as unknown as { timings: Timings }).timings;
         return {
@@ -262,11 +273,16 @@ try {
           readings: timings.readings,
         };
       });
-      const latencies = onsets.map((onset) => {
+      // Each tone of the last run, from its onset to its first reading before the next onset (none: a tone
+      // missed, counted as infinitely late).
+      const latencies = onsets.slice(before, before + loops).map((onset, index) => {
+        const next = onsets[before + index + 1];
         const first = readings.find((seen) => seen.at > onset && pattern.test(seen.text));
-        return first ? first.at - onset : Infinity;
+        return first && first.at < next ? first.at - onset : Infinity;
       });
-      const frameMs = 1000 / listening.fps;
+      const listeningFps = median(listening.map((turn) => turn.fps));
+      const restingFps = median(resting);
+      const frameMs = 1000 / listeningFps;
       const worst = Math.max(...latencies);
       line(
         `first steady reading in Chromium, ${name}`,
@@ -276,13 +292,15 @@ try {
         ` (median ${median(latencies).toFixed(1)} ms over ${latencies.length} tones; ` +
           `${(worst / frameMs).toFixed(1)} frames of ${frameMs.toFixed(1)} ms)`,
       );
+      const ratio = listeningFps / restingFps;
+      const load = loadavg()[0].toFixed(1);
       line(
         `frame rate while listening, ${name}`,
-        `${listening.fps.toFixed(1)} fps`,
+        `${listeningFps.toFixed(1)} fps`,
         '60 fps',
-        listening.fps >= 59,
-        ` (${(listening.fps / resting.fps).toFixed(3)} of the page at rest, ${resting.fps.toFixed(1)} fps;` +
-          ` longest frame ${listening.longestMs.toFixed(1)} ms)`,
+        listeningFps >= 59 || (restingFps < 59 && ratio >= 0.98),
+        ` (${ratio.toFixed(3)} of the page at rest, ${restingFps.toFixed(1)} fps; longest frame ` +
+          `${Math.max(...listening.map((turn) => turn.longestMs)).toFixed(1)} ms; machine load ${load})`,
       );
       await context.close();
     } finally {
