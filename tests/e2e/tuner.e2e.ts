@@ -110,6 +110,17 @@ describe('the tuner with a fake microphone', () => {
     await expect.poll(() => reading.textContent()).toContain('No clear pitch');
     await expect.poll(() => reading.textContent()).toContain('E4 · degree 4 ·');
 
+    // Locked to the key it hears, for tuning one string; the help says how the reading is smoothed.
+    await guest.getByRole('button', { name: 'Lock to E4' }).click();
+    await expect
+      .poll(() => guest.locator('.locked').textContent())
+      .toContain('Locked to E4 (key 64)');
+    await guest.getByRole('button', { name: 'How the tuner listens' }).click();
+    await expect
+      .poll(() => guest.getByText(/the average of the last 5 readings/).isVisible())
+      .toBe(true);
+    await screenshot(guest, 'tuner-shared-locked');
+
     await guest.setViewportSize({ width: 390, height: 844 });
     await expect
       .poll(() => guest.evaluate(() => document.documentElement.scrollWidth))
@@ -119,6 +130,11 @@ describe('the tuner with a fake microphone', () => {
     await screenshot(guest, 'tuner-shared-390-dark');
     await guest.setViewportSize({ width: 1280, height: 900 });
     await screenshot(guest, 'tuner-shared-dark');
+    await guest.getByRole('button', { name: 'Stop listening' }).click();
+    await expect.poll(() => reading.textContent()).toContain('Not listening');
+    await guest.goto(share.url);
+    await guest.getByRole('link', { name: 'Tune with a microphone' }).waitFor();
+    await screenshot(guest, 'tuner-shared-page-dark');
     await guest.context().close();
   });
 
@@ -127,6 +143,12 @@ describe('the tuner with a fake microphone', () => {
     const preset = await fenFifths(member);
     await member.goto(`${inject('appUrl')}/presets/${preset.id}`);
     await expect.poll(() => member.getByRole('status').first().textContent()).toContain('Revision');
+    await member.setViewportSize({ width: 390, height: 844 });
+    await expect
+      .poll(() => member.evaluate(() => document.documentElement.scrollWidth))
+      .toBeLessThanOrEqual(390);
+    await screenshot(member, 'tuner-link-designer-390');
+    await member.setViewportSize({ width: 1280, height: 900 });
     await member.getByRole('link', { name: /^Tuner/ }).click();
     await member.waitForURL(new RegExp(`/tuner\\?preset=${preset.id}&revision=\\d+`));
     await readsFiveCentsSharp(member, 'E4', 4);
@@ -150,6 +172,7 @@ describe('the tuner with a fake microphone', () => {
     });
     await owner.goto(`${inject('appUrl')}/stage/${setlist.id}`);
     await expect.poll(() => owner.locator('.current').textContent()).toContain('Fen Fifths');
+    await screenshot(owner, 'tuner-link-stage');
     await owner.getByRole('link', { name: 'Tune with a microphone' }).click();
     await owner.waitForURL(new RegExp(`/tuner\\?preset=${preset.id}&revision=\\d+`));
     await readsFiveCentsSharp(owner, 'E4', 4);

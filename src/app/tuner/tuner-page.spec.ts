@@ -321,5 +321,6 @@ describe('TunerPage', () => {
     expect(help).toContain('the average of the last 5 readings that agree within 10 cents');
     expect(help).toContain('shows only once 3 of them agree');
     expect(help).toContain('holds for 6 more readings (about 100 ms at 60 frames a second)');
+    expect(help).toContain('A sound quieter than 50 dB below full scale');
   });
 });
