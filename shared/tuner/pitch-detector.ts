@@ -12,7 +12,7 @@ export const lowestHz = 30;
 /** The highest pitch read: above C8 (4186 Hz), the top of a piano. */
 export const highestHz = 4200;
 /** A frame whose clarity (the NSDF's value at the period, 1 for a perfectly periodic sound) is lower is unclear. */
-export const clarityNeeded = 0.9;
+const clarityNeeded = 0.9;
 /** A frame quieter than this (RMS level against full scale) is quiet: -50 dBFS, a soft note well off the microphone. */
 export const quietestDb = -50;
 /** A sample louder than this amplitude is sound: the quiet level as an amplitude, 10^(-50/20) = 0.0032. */

@@ -36,6 +36,7 @@ function rounded(values: (number | null)[]): (number | null)[] {
 describe('the reading of a stream of frames', () => {
   it('shows nothing until three frames agree, then their mean', () => {
     expect(agreeingFrames).toBe(3);
+    // (5 + 6 + 7) / 3 = 6 and (5 + 6 + 7 + 8) / 4 = 6.5 (arithmetic).
     expect(rounded(readings([at(5), at(6), at(7), at(8)]))).toEqual([null, null, 6, 6.5]);
   });
 

@@ -10,7 +10,7 @@ export const agreeingFrames = 3;
 /** Frames agree when they lie within this many cents of the median of the recent frames. */
 export const agreementCents = 10;
 /** A frame further than this from the median of the recent frames starts a new note. */
-export const newNoteCents = 40;
+const newNoteCents = 40;
 /** Frames in a row without a steady pitch that the last reading outlasts before "no clear pitch". */
 export const heldFrames = 6;
 

@@ -12,9 +12,8 @@ import { type PitchTrack, followPitch, silentTrack } from '@shared/tuner/pitch-t
 export type ListeningState =
   'idle' | 'asking' | 'listening' | 'refused' | 'no-input' | 'busy' | 'ended' | 'unsupported';
 
-/** Performance marks the page leaves, for the benchmark: a sound starting after quiet, and its first reading. */
-export const onsetMark = 'keyloom:tuner-onset';
-export const steadyMark = 'keyloom:tuner-steady';
+/** The performance mark of a sound starting after quiet, which the benchmark reads (bench/tuner.bench.ts). */
+const onsetMark = 'keyloom:tuner-onset';
 
 /** The browser's refusal, by the DOMException's name, as a state. */
 function refusalState(error: unknown): ListeningState {
@@ -46,7 +45,6 @@ export class PitchListener {
   private track: PitchTrack = silentTrack;
   private animation = 0;
   private sounding = false;
-  private awaitingReading = false;
   /** Counts starts, so that a start overtaken by a stop (or another start) lets its stream go. */
   private attempt = 0;
 
@@ -120,10 +118,6 @@ export class PitchListener {
     this.track = followPitch(this.track, heard);
     this.lastFrame.set(heard.kind);
     this.hz.set(this.track.hz);
-    if (this.awaitingReading && this.track.hz !== null) {
-      this.awaitingReading = false;
-      performance.mark(steadyMark);
-    }
     this.animation = requestAnimationFrame(() => this.hearFrame());
   }
 
@@ -136,7 +130,6 @@ export class PitchListener {
     if (sounding && !this.sounding && this.track.hz === null) {
       const after = this.samples.length - Math.max(0, firstSound(this.samples));
       performance.mark(onsetMark, { startTime: performance.now() - (1000 * after) / sampleRate });
-      this.awaitingReading = true;
     }
     this.sounding = sounding;
   }
