@@ -17,7 +17,10 @@ export interface ToneWav {
 export function writeToneWav(path: string, wav: ToneWav): void {
   const { hz, harmonics = 1, silenceSeconds, toneSeconds, sampleRate = 48000, peak = 0.5 } = wav;
   const silence = Math.round(silenceSeconds * sampleRate);
-  const tone = harmonicTone(hz, sampleRate, Math.round(toneSeconds * sampleRate), { harmonics, peak });
+  const tone = harmonicTone(hz, sampleRate, Math.round(toneSeconds * sampleRate), {
+    harmonics,
+    peak,
+  });
   const fade = Math.round(0.002 * sampleRate);
   for (let i = 0; i < fade; i++) {
     tone[i] *= i / fade;
