@@ -45,6 +45,7 @@ export class PitchListener {
   private track: PitchTrack = silentTrack;
   private animation = 0;
   private sounding = false;
+  private wakeLock: WakeLockSentinel | null = null;
   /** Counts starts, so that a start overtaken by a stop (or another start) lets its stream go. */
   private attempt = 0;
 
@@ -62,20 +63,26 @@ export class PitchListener {
     }
     const attempt = ++this.attempt;
     this.state.set('asking');
+    // The audio context is made while the press that started this still counts as the player's gesture: some
+    // browsers keep a context made later silent.
+    const context = new AudioContext();
+    void context.resume();
     let stream: MediaStream;
     try {
       stream = await devices.getUserMedia({
         audio: { echoCancellation: false, noiseSuppression: false, autoGainControl: false },
       });
     } catch (error) {
+      void context.close();
       if (attempt === this.attempt) this.state.set(refusalState(error));
       return;
     }
     if (attempt !== this.attempt) {
+      void context.close();
       for (const track of stream.getTracks()) track.stop();
       return;
     }
-    this.listenTo(stream);
+    this.listenTo(stream, context);
   }
 
   /** Stops listening and lets the microphone go. */
@@ -85,9 +92,7 @@ export class PitchListener {
     this.state.set('idle');
   }
 
-  private listenTo(stream: MediaStream): void {
-    const context = new AudioContext();
-    void context.resume();
+  private listenTo(stream: MediaStream, context: AudioContext): void {
     const analyser = context.createAnalyser();
     analyser.fftSize = frameLengthFor(context.sampleRate);
     context.createMediaStreamSource(stream).connect(analyser);
@@ -107,6 +112,18 @@ export class PitchListener {
     this.sounding = false;
     this.state.set('listening');
     this.animation = requestAnimationFrame(() => this.hearFrame());
+    void this.keepScreenOn();
+  }
+
+  /** Keeps a phone's screen from dimming while it listens, where the browser allows it; else nothing. */
+  private async keepScreenOn(): Promise<void> {
+    try {
+      const lock = await navigator.wakeLock?.request('screen');
+      if (this.state() === 'listening') this.wakeLock = lock ?? null;
+      else void lock?.release();
+    } catch {
+      // Refused (a hidden page, a saving mode): the screen follows its own settings.
+    }
   }
 
   private hearFrame(): void {
@@ -138,6 +155,8 @@ export class PitchListener {
     cancelAnimationFrame(this.animation);
     for (const track of this.stream?.getTracks() ?? []) track.stop();
     void this.context?.close();
+    void this.wakeLock?.release();
+    this.wakeLock = null;
     this.stream = null;
     this.context = null;
     this.analyser = null;

@@ -183,7 +183,12 @@ export class TunerPage {
         'or the address is not complete.',
     },
   );
-  protected readonly loading = this.loaded.loading;
+  /** Loading, or waiting to know who is signed in before a saved preset can be asked for. */
+  protected readonly loading = computed(
+    () =>
+      this.loaded.loading() ||
+      (!this.share() && Boolean(this.preset()) && this.session.member() === undefined),
+  );
   protected readonly loadFailure = this.loaded.failure;
 
   protected readonly tuning = computed<TunerTuning | null>(() => {
