@@ -9,7 +9,7 @@
 //    its analyser) to the first reading on screen (a MutationObserver on "Tuner reading"), against 150 ms and
 //    in frames of the display measured in the same run; and the frame rate while listening over 5 s
 //    (requestAnimationFrame count) against the same page at rest (the floor) and 60 frames a second.
-// Run: npx tsx bench/tuner.bench.ts
+// Run: npx tsx bench/tuner.bench.ts (TUNER_DEBUG=1 prints what the reading said after each tone's start)
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
@@ -52,7 +52,7 @@ for (const harmonics of [1, 10]) {
   for (const sampleRate of [44100, 48000]) {
     const length = frameLengthFor(sampleRate);
     const read = pitchReader(length);
-    const parabola = PitchDetector.forFloat32Array(length);
+    const parabola = PitchDetector.forFloat64Array(length);
     for (const hz of pitches) {
       const tone = harmonicTone(hz, sampleRate, length, { harmonics, phase: 6 * random() });
       const heard = read(tone, sampleRate);
@@ -69,7 +69,7 @@ for (const harmonics of [1, 10]) {
     `${worst.toFixed(3)} cents`,
     '0.5 cents',
     worst <= 0.5,
-    ` (${(worst / 0.5).toFixed(2)} of the target; pitchy's parabola alone ${worstParabola.toFixed(3)})`,
+    ` (${(worst / 0.5).toFixed(2)} of the target; pitchy's own parabola ${worstParabola.toFixed(3)})`,
   );
 }
 
@@ -278,6 +278,16 @@ try {
       const latencies = onsets.slice(before, before + loops).map((onset, index) => {
         const next = onsets[before + index + 1];
         const first = readings.find((seen) => seen.at > onset && pattern.test(seen.text));
+        if (process.env['TUNER_DEBUG']) {
+          console.log(
+            'onset',
+            onset.toFixed(1),
+            readings
+              .filter((seen) => seen.at > onset - 50 && seen.at < onset + 400)
+              .map((seen) => `${(seen.at - onset).toFixed(0)}:${seen.text}`)
+              .join(' | '),
+          );
+        }
         return first && first.at < next ? first.at - onset : Infinity;
       });
       const listeningFps = median(listening.map((turn) => turn.fps));
