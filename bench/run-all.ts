@@ -20,6 +20,10 @@ const benches: [string, string][] = [
   ],
   ['designer-recompute.bench.ts', 'recomputing a 72-tone design in Chromium (target: under 16 ms)'],
   [
+    'tuner.bench.ts',
+    'tuner accuracy (target 0.5 cents), first reading (150 ms) and frame rate (60 fps) with a fake microphone',
+  ],
+  [
     'app-bundle.bench.ts',
     'the initial JavaScript against a bare Material shell (builds twice: a few minutes)',
   ],

@@ -65,6 +65,11 @@ export const routes: Routes = [
     loadComponent: () => import('./stage/stage-page').then((m) => m.StagePage),
   },
   {
+    path: 'tuner',
+    title: 'Tuner · Keyloom',
+    loadComponent: () => import('./tuner/tuner-page').then((m) => m.TunerPage),
+  },
+  {
     path: 's/:token',
     title: 'Shared preset · Keyloom',
     loadComponent: () => import('./share/shared-page').then((m) => m.SharedPage),

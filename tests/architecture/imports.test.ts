@@ -21,7 +21,7 @@ const sharedLayers: readonly (readonly string[])[] = [
   ['result.ts', 'text'],
   ['tuning'],
   ['temperament'],
-  ['midi'],
+  ['midi', 'tuner'],
   ['preset'],
   ['import', 'export'],
   ['library'],

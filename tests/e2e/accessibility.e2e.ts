@@ -1,45 +1,15 @@
 // Every page and tab checked with axe-core, the general-purpose accessibility checker: no serious or critical
 // violation anywhere. axe is injected into the page, so the browser profile bypasses the app's content policy.
-import { createRequire } from 'node:module';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { type Violation, axeSource, seriousViolations } from './axe';
 import { launchChromium, newContext } from './browser';
-
-const axeSource = createRequire(import.meta.url).resolve('axe-core/axe.min.js');
-
-interface Violation {
-  id: string;
-  impact: string | null;
-  help: string;
-  nodes: { target: string[] }[];
-}
 
 let browser: Browser;
 beforeAll(async () => {
   browser = await launchChromium();
 });
 afterAll(() => browser.close());
-
-/** The serious and critical violations axe finds on the page as it is now, one line each. */
-async function seriousViolations(page: Page): Promise<string[]> {
-  // Contrast is measured on the page at rest: wait for its own signal that no animation (a tab sliding in) runs.
-  await page.waitForFunction(() =>
-    document.getAnimations().every((animation) => animation.playState !== 'running'),
-  );
-  await page.addScriptTag({ path: axeSource });
-  const violations = await page.evaluate(async () => {
-    const axe = (
-      window as unknown as { axe: { run(context: Document): Promise<{ violations: Violation[] }> } }
-    ).axe;
-    return (await axe.run(document)).violations;
-  });
-  return violations
-    .filter((violation) => violation.impact === 'serious' || violation.impact === 'critical')
-    .map(
-      (violation) =>
-        `${violation.id} (${violation.impact}): ${violation.help} at ${violation.nodes.map((n) => n.target.join(' ')).join(', ')}`,
-    );
-}
 
 async function opened(path: string, heading: string, login?: string): Promise<Page> {
   const context = await newContext(browser, {
@@ -102,6 +72,7 @@ describe('accessibility of every page and tab (axe-core)', () => {
     ['/import', 'Import a tuning'],
     ['/temperaments', 'Generator search'],
     ['/instruments', 'My instruments'],
+    ['/tuner', 'Tuner'],
     ['/no/such/page', 'Nothing plays on this key'],
   ]) {
     it(`finds no serious or critical violation on ${path}`, async () => {

@@ -12,7 +12,8 @@ import { repoRoot } from '../../scripts/stack/postgres';
 
 export const screenshotDir = join(repoRoot, 'tests/e2e/screenshots');
 
-export function launchChromium(): Promise<Browser> {
+/** Chromium with the project's flags, and `extraArgs` (a fake microphone, say) after them. */
+export function launchChromium(extraArgs: string[] = []): Promise<Browser> {
   return chromium.launch({
     executablePath: process.env['CHROME_BIN'] ?? '/usr/bin/chromium',
     args: [
@@ -25,6 +26,7 @@ export function launchChromium(): Promise<Browser> {
       '--no-first-run',
       '--disable-quic',
       '--disable-dev-shm-usage',
+      ...extraArgs,
     ],
   });
 }

@@ -108,6 +108,33 @@ describe('DesignPage', () => {
     patientSpecMs,
   );
 
+  it('links to the tuner with the design on screen', async () => {
+    const { element } = await open('/design', null);
+    const tuner = new URL(element.querySelector<HTMLAnchorElement>('a.tuner')!.href);
+    expect(tuner.pathname).toBe('/tuner');
+    expect(decodeDesign(tuner.searchParams.get('d')!)).toEqual(newDraft());
+  });
+
+  it(
+    'links to the tuner with a saved preset’s id and revision while it is unchanged',
+    async () => {
+      const opening = open('/presets/p-9', member);
+      (await requestFor('/api/presets/p-9')).flush({
+        id: 'p-9',
+        name: 'Reed set',
+        bandId: null,
+        revision: 5,
+        document: { ...newDraft(), name: 'Reed set' },
+        access: 'edit',
+      });
+      const { harness, element } = await opening;
+      await harness.fixture.whenStable();
+      const tuner = new URL(element.querySelector<HTMLAnchorElement>('a.tuner')!.href);
+      expect(tuner.pathname + tuner.search).toBe('/tuner?preset=p-9&revision=5');
+    },
+    patientSpecMs,
+  );
+
   it('says so when the address holds a design it cannot read, and starts a new one', async () => {
     const { element } = await open('/design?d=1.broken', null);
     expect(element.querySelector('[role="alert"]')?.textContent).toContain('damaged');

@@ -14,6 +14,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTabsModule } from '@angular/material/tabs';
+import { RouterLink } from '@angular/router';
 import { Audition } from '../audition/audition';
 import { ControllerInput } from '../audition/controller-input';
 import { PlayPanel } from '../audition/play-panel';
@@ -37,7 +38,7 @@ import { OffsetChart } from '../scale/offset-chart';
 import { PeriodRing } from '../scale/period-ring';
 import { ScaleForm } from '../scale/scale-form';
 import { ScaleSummary } from '../scale/scale-summary';
-import { DesignAddress } from './design-address';
+import { DesignAddress, encodeDesign } from './design-address';
 import { DesignField } from './design-field';
 import { DesignState } from './design-state';
 import { SavedPreset } from './saved-preset';
@@ -62,6 +63,7 @@ function isTyping(target: EventTarget | null): boolean {
   selector: 'app-design-page',
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
+    RouterLink,
     MatButtonModule,
     MatIconModule,
     MatProgressBarModule,
@@ -112,6 +114,12 @@ export class DesignPage {
   protected readonly ringCents = computed(
     () => this.state.shown()?.table.degrees.map((degree) => degree.cents) ?? [],
   );
+  /** The tuner for what is on screen: the saved revision as it stands, else the design in the address's encoding. */
+  protected readonly tunerQuery = computed(() => {
+    const origin = this.state.origin();
+    if (origin && !this.state.dirty()) return { preset: origin.id, revision: origin.revision };
+    return { d: encodeDesign(this.state.draft()) };
+  });
   /** Why the design in the address could not be opened, if it could not. */
   protected readonly addressFault = signal<string | null>(null);
   private readonly help = viewChild.required<ElementRef<HTMLElement>>('help');

@@ -5,6 +5,7 @@ import type {
   ForkedPreset,
   PresetPage,
   RevisionChanges,
+  RevisionDocument,
   RevisionEntry,
   SavedPreset,
   SavedRevision,
@@ -49,6 +50,13 @@ export class LibraryApi {
 
   preset(id: string): Observable<SavedPreset> {
     return this.http.get<SavedPreset>(`/api/presets/${encodeURIComponent(id)}`);
+  }
+
+  /** One revision of a preset, its document as saved. */
+  revision(id: string, revision: number): Observable<RevisionDocument> {
+    return this.http.get<RevisionDocument>(
+      `/api/presets/${encodeURIComponent(id)}/revisions/${revision}`,
+    );
   }
 
   revisions(id: string): Observable<RevisionEntry[]> {

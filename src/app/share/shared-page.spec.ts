@@ -65,6 +65,13 @@ describe('SharedPage', () => {
     await settle();
   }
 
+  it('links to the tuner with the link’s token, for anyone', async () => {
+    await open(null);
+    const tuner = page().querySelector<HTMLAnchorElement>('a.tuner')!;
+    expect(tuner.textContent).toContain('Tune with a microphone');
+    expect(new URL(tuner.href).pathname + new URL(tuner.href).search).toBe('/tuner?share=tok-123');
+  });
+
   it('shows the shared preset read-only with its degrees worked out in the browser', async () => {
     await open(null);
     expect(page().querySelector('h1')!.textContent).toContain('Fen Fifths');

@@ -182,6 +182,14 @@ describe('StagePage', () => {
     expect(facts()).toEqual(['7', '1200.0 ¢ (2/1)', '261.63 Hz on key 60']);
   });
 
+  it('links to the tuner at the revision on stage', async () => {
+    await openStage(setlist('read'));
+    const tuner = test.page().querySelector<HTMLAnchorElement>('.now a.tuner')!;
+    expect(tuner.textContent).toContain('Tune with a microphone');
+    const address = new URL(tuner.href);
+    expect(address.pathname + address.search).toBe('/tuner?preset=p1&revision=1');
+  });
+
   it('gives viewers no move controls, and the keys do nothing for them', async () => {
     await openStage(setlist('read'));
     expect(test.page().querySelector('.moves')).toBeNull();

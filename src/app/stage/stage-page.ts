@@ -17,6 +17,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import { RouterLink } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 import type { Listener } from 'webmidi';
 import { apiErrorMessage } from '../api/api-error';
@@ -45,6 +46,7 @@ const onKeys = new Set(['ArrowRight', 'PageDown']);
   changeDetection: ChangeDetectionStrategy.OnPush,
   imports: [
     FormsModule,
+    RouterLink,
     MatButtonModule,
     MatFormFieldModule,
     MatIconModule,
@@ -121,6 +123,13 @@ export class StagePage implements OnDestroy {
     },
     { fallback: 'The tuning of this entry could not be loaded.' },
   );
+  /** The tuner for the current entry, at the revision on stage. */
+  protected readonly tunerQuery = computed(() => {
+    const told = this.tellsNow();
+    if (told) return { preset: told.presetId, revision: told.revision };
+    const wanted = this.wanted();
+    return wanted && { preset: wanted.presetId, revision: wanted.revision };
+  });
   protected readonly facts = computed(() => {
     const document = this.tellsNow()?.document ?? this.documentLoaded.value();
     return document === undefined ? null : stageFacts(document);
