@@ -19,7 +19,7 @@ import { previewRouter } from './routes/preview';
 import { bandsRouter } from './routes/bands';
 import { invitesRouter } from './routes/invites';
 import { presetsRouter } from './routes/presets';
-import { sharesRouter } from './routes/shares';
+import { sharedLinkRouter, sharesRouter } from './routes/shares';
 import { importsRouter } from './routes/imports';
 import { exportsRouter } from './routes/exports';
 import { instrumentsRouter } from './routes/instruments';
@@ -107,6 +107,9 @@ export function createApp({ db, config, mailer, stage }: AppDependencies): Expre
     app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
 
   app.use(healthRouter(db));
+  // What a posted share link opens needs no session: before the session middleware, a stranger's click reads no
+  // session row, gets no cookie, and its answer may be kept by caches (server/routes/shares.ts).
+  app.use(sharedLinkRouter(db));
 
   app.use(cookieParser());
   const PgStore = connectPgSimple(session);
