@@ -1,15 +1,10 @@
 // The printable tuner sheet: the degrees of a preset, what to dial into a chromatic tuner for each key of one
 // period, and a chart of those offsets. A PDF made with pdfkit and the Roboto font the project ships.
-import { join } from 'node:path';
 import PDFDocument from 'pdfkit';
 import type { ResolvedPreset } from '../../shared/preset/preset-document';
 import { nearestEqualTemperedNote, noteName } from '../../shared/tuning/twelve-edo';
 import { previewTable } from '../../shared/tuning/preview';
-import { repoRoot } from '../config';
-
-const fontDir = join(repoRoot, 'node_modules/@fontsource/roboto/files');
-const regular = join(fontDir, 'roboto-latin-400-normal.woff');
-const bold = join(fontDir, 'roboto-latin-700-normal.woff');
+import { sheetFonts } from './sheet-fonts';
 
 export interface SheetRevision {
   revision: number | null;
@@ -90,8 +85,9 @@ export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Pro
       ModDate: created,
     },
   });
-  doc.registerFont('regular', regular);
-  doc.registerFont('bold', bold);
+  const fonts = sheetFonts();
+  doc.registerFont('regular', fonts.regular);
+  doc.registerFont('bold', fonts.bold);
   const chunks: Buffer[] = [];
   doc.on('data', (chunk: Buffer) => chunks.push(chunk));
   const done = new Promise<Buffer>((resolve, reject) => {
