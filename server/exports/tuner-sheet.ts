@@ -19,9 +19,12 @@ export interface TunerRow {
   offsetCents: number;
 }
 
-/** One period of keys from the root key: what each plays and where a chromatic tuner shows it. */
-export function tunerRows(preset: ResolvedPreset): TunerRow[] {
-  const { keys } = previewTable(preset);
+/**
+ * One period of keys from the root key: what each plays and where a chromatic tuner shows it. `table`: the
+ * preset's preview table, when the caller has it already.
+ */
+export function tunerRows(preset: ResolvedPreset, table = previewTable(preset)): TunerRow[] {
+  const { keys } = table;
   const { rootKey, keysPerPeriod, concertA } = preset.mapping;
   const rows: TunerRow[] = [];
   for (let key = rootKey; key < Math.min(128, rootKey + keysPerPeriod); key++) {
@@ -71,7 +74,7 @@ interface Column {
 /** Renders the sheet. The creation date is the revision's own, so the same revision always gives the same bytes. */
 export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Promise<Buffer> {
   const table = previewTable(preset);
-  const rows = tunerRows(preset);
+  const rows = tunerRows(preset, table);
   const created = at.savedAt ?? new Date(0);
   const doc = new PDFDocument({
     size: 'A4',
