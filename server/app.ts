@@ -122,6 +122,7 @@ export function createApp({ db, config, mailer, stage }: AppDependencies): Expre
   app.use(sharedLinkRouter(db));
   const preview = previewRouter();
   app.use((req, res, next) => (carriesSession(req) ? next() : preview(req, res, next)));
+  if (config.benchRoutes) app.use(benchFloorRouter('before-session'));
 
   app.use(cookieParser());
   const PgStore = connectPgSimple(session);
@@ -165,7 +166,7 @@ export function createApp({ db, config, mailer, stage }: AppDependencies): Expre
   app.use(exportsRouter(db));
   app.use(instrumentsRouter(db));
   app.use(setlistsRouter(db, stage ?? createStageHub(config.databaseUrl, db)));
-  if (config.benchRoutes) app.use(benchFloorRouter());
+  if (config.benchRoutes) app.use(benchFloorRouter('after-session'));
   app.use('/api', apiNotFound);
   app.use(builtApp(config.staticDir));
   app.use(uploadErrors);
