@@ -42,7 +42,7 @@ function shareQuery(db: Database) {
 
 const preparedShareQueries = new WeakMap<Database, ReturnType<typeof shareQuery>>();
 
-export interface SharedRevision {
+interface SharedRevision {
   shareId: string;
   /** The revision the link is pinned to; null when it follows the latest. */
   pinned: number | null;
