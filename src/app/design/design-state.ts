@@ -380,8 +380,12 @@ export class DesignState {
    */
   private followNearestKeys(): void {
     if (!this.nearestKeysByDefault() || this.readOnly()) return;
-    const { keysPerPeriod: _, layout: __, ...mapping } = this.draft().mapping;
-    const parsed = parsePresetAndScale({ ...this.draft(), mapping });
+    const { keysPerPeriod, layout: written, ...mapping } = this.draft().mapping;
+    // Without a layout the draft is what the pictures are about to read: its reading serves here too.
+    const parsed =
+      keysPerPeriod === undefined && written === undefined
+        ? this.parsed()
+        : parsePresetAndScale({ ...this.draft(), mapping });
     if (!parsed.ok) return;
     const { degrees, period } = parsed.value.scale;
     const octave = Math.abs(period.cents - 1200) < 1e-6;
@@ -392,7 +396,7 @@ export class DesignState {
             period.cents,
           )
         : null;
-    this.writeLayout(layout);
+    if (layout || written !== undefined || keysPerPeriod !== undefined) this.writeLayout(layout);
   }
 
   private consecutiveLayout(): (number | null)[] {
