@@ -3,7 +3,9 @@
 // the shared computation alone (parsePresetDocument + previewTable, bundled into the page), which
 // is what every keystroke recomputes (target under 16 ms, one frame at 60 Hz); and the whole edit
 // as the musician sees it, from the input event until the degree table shows the new cents
-// (recompute, change detection and the DOM of every picture on the Scale tab).
+// (recompute, change detection and the DOM of every picture on the Scale tab), with its target of one frame at the
+// 95th percentile; and, for information, until the frame that shows it has been drawn (layout and paint included).
+// Each figure is printed as a ratio against the 16 ms frame, with met / NOT MET; the run fails when one is not met.
 // Run: npx tsx bench/designer-recompute.bench.ts
 import { execFileSync } from 'node:child_process';
 import { readFile } from 'node:fs/promises';
@@ -66,11 +68,27 @@ async function sharedScript(): Promise<string> {
   return bundled.outputFiles[0].text;
 }
 
-function summary(times: number[]): string {
+/** One frame at 60 Hz: the time a keystroke's change has to be on the page. */
+const frameMs = 16;
+let failed = false;
+
+function percentile(times: number[], p: number): number {
   const sorted = [...times].sort((a, b) => a - b);
-  const median = sorted[Math.floor(sorted.length / 2)];
-  const slowest = sorted[Math.floor(sorted.length * 0.95)];
-  return `median ${median.toFixed(2)} ms, 95th percentile ${slowest.toFixed(2)} ms (${sorted.length} runs)`;
+  return sorted[Math.floor(sorted.length * p)];
+}
+
+function summary(times: number[]): string {
+  return (
+    `median ${percentile(times, 0.5).toFixed(2)} ms, 95th percentile ${percentile(times, 0.95).toFixed(2)} ms ` +
+    `(${times.length} runs)`
+  );
+}
+
+/** The 95th percentile against the frame, with the target beside it. */
+function judged(times: number[]): string {
+  const ratio = percentile(times, 0.95) / frameMs;
+  failed ||= ratio > 1;
+  return `: ratio ${ratio.toFixed(2)} of a ${frameMs} ms frame (target at most 1: ${ratio <= 1 ? 'met' : 'NOT MET'})`;
 }
 
 const output = mkdtempSync(join(tmpdir(), 'keyloom-recompute-'));
@@ -137,6 +155,7 @@ try {
     const cell = () =>
       document.querySelector('app-degree-table tbody tr:nth-child(2) td:nth-child(3)')!;
     const times: number[] = [];
+    const drawn: number[] = [];
     for (let run = 0; run < warmUp + runs; run++) {
       const before = cell().textContent;
       const start = performance.now();
@@ -154,18 +173,40 @@ try {
           childList: true,
         });
       });
-      if (run >= warmUp) times.push(performance.now() - start);
+      const updated = performance.now() - start;
+      // A task queued from the next animation frame runs once that frame's layout and paint are done.
+      await new Promise((resolve) =>
+        requestAnimationFrame(() => {
+          const channel = new MessageChannel();
+          channel.port1.onmessage = resolve;
+          channel.port2.postMessage(null);
+        }),
+      );
+      if (run >= warmUp) {
+        times.push(updated);
+        drawn.push(performance.now() - start);
+      }
       await new Promise((resolve) => setTimeout(resolve, 20));
     }
-    return times;
+    return { times, drawn };
   }, editRuns);
 
   console.log(
-    `72-tone recompute in Chromium (shared code)   ${summary(computeTimes)}; target under 16 ms`,
+    `72-tone recompute in Chromium (shared code)   ${summary(computeTimes)}${judged(computeTimes)}`,
   );
-  console.log(`72-tone edit to updated page (whole designer) ${summary(editTimes)}`);
+  console.log(
+    `72-tone edit to updated page (whole designer) ${summary(editTimes.times)}${judged(editTimes.times)}`,
+  );
+  console.log(
+    `  and until its frame is drawn (layout and paint) ${summary(editTimes.drawn)}: ratio ` +
+      `${(percentile(editTimes.drawn, 0.95) / frameMs).toFixed(2)} of a frame (no target; for information)`,
+  );
 } finally {
   server.close();
   await browser.close();
   rmSync(output, { recursive: true, force: true });
+}
+if (failed) {
+  console.error('designer-recompute: a target was not met (see the figures above)');
+  process.exitCode = 1;
 }

@@ -1,6 +1,8 @@
 // The long runs that `npm test` makes short (tests/faults/): 100 concurrent players for 60 seconds mixing reads,
 // saves and exports; then the same with the server killed by SIGKILL 20 seconds in and started again. Prints what
-// happened and fails loudly if an error reached a player or an acknowledged save was lost.
+// happened and fails loudly if an error reached a player or an acknowledged save was lost. The server's resident
+// memory is read before the first run and after it, each time once a garbage collection has run (the server is
+// started with --expose-gc for that), and set against its target: after at most 1.5 times before.
 // Run: npx tsx bench/long-load.bench.ts (about three minutes)
 import { missingSaves, runMixedLoad } from '../tests/support/mixed-load';
 import { startServerProcess } from '../tests/support/server-process';
@@ -10,9 +12,20 @@ const clients = Number(process.env['BENCH_CLIENTS'] ?? 100);
 const seconds = Number(process.env['BENCH_SECONDS'] ?? 60);
 let failed = false;
 
-const stack = await startBenchStack('longload');
+/** Resident memory may grow by at most this factor over the 100-player run. */
+const memoryTarget = 1.5;
+const mb = (bytes: number) => `${(bytes / 1024 / 1024).toFixed(1)} MB`;
+
+const stack = await startBenchStack('longload', { NODE_OPTIONS: '--expose-gc' });
 try {
   let server = stack.server;
+  /** The server's memory once it has collected its garbage. */
+  const memory = async () =>
+    (await (await fetch(`${server.url}/api/bench/memory?gc=1`)).json()) as NodeJS.MemoryUsage;
+  // Started and settled: one request of each kind the players make has been answered, so that what is loaded on
+  // first use (the export code, the preview) counts as the server's size, not as growth.
+  await runMixedLoad({ appUrl: () => server.url, clients: 1, seconds: 2, loginPrefix: 'settle' });
+  const before = await memory();
   const started = Date.now();
   const steady = await runMixedLoad({
     appUrl: () => server.url,
@@ -27,6 +40,21 @@ try {
       `${steady.acknowledged.length} saves acknowledged, ${lost.length} of them lost`,
   );
   failed ||= steady.failures.length > 0 || lost.length > 0;
+  const after = await memory();
+  const ratio = after.rss / before.rss;
+  console.log(
+    `  Resident memory: ${mb(before.rss)} before, ${mb(after.rss)} right after (heap used ${mb(before.heapUsed)}, ` +
+      `then ${mb(after.heapUsed)}): ratio ${ratio.toFixed(2)} (target at most ${memoryTarget}: ` +
+      `${ratio <= memoryTarget ? 'met' : 'NOT MET'})`,
+  );
+  // For information: what stays once the server has idled a moment (V8 gives back the room it took under load).
+  await new Promise((resolve) => setTimeout(resolve, 5000));
+  const settled = await memory();
+  console.log(
+    `  and 5 s later ${mb(settled.rss)} (heap committed ${mb(settled.heapTotal)}, ${mb(after.heapTotal)} right ` +
+      `after): ratio ${(settled.rss / before.rss).toFixed(2)}`,
+  );
+  failed ||= ratio > memoryTarget;
 
   let down = false;
   let restartedAt = 0;

@@ -20,7 +20,7 @@ import { temperamentsRouter } from './routes/temperaments';
 import { bandsRouter } from './routes/bands';
 import { invitesRouter } from './routes/invites';
 import { presetsRouter } from './routes/presets';
-import { sharesRouter } from './routes/shares';
+import { sharedLinkRouter, sharesRouter } from './routes/shares';
 import { importsRouter } from './routes/imports';
 import { exportsRouter } from './routes/exports';
 import { instrumentsRouter } from './routes/instruments';
@@ -96,6 +96,14 @@ function builtApp(staticDir: string): express.Router {
   return router;
 }
 
+/** The session cookie in a raw Cookie header (for routes mounted before the cookie parser). */
+const sessionCookieInHeader = new RegExp(`(?:^|;\\s*)${sessionCookie.replace('.', '\\.')}=`);
+
+/** Whether the request carries the session cookie. */
+function carriesSession(req: express.Request): boolean {
+  return sessionCookieInHeader.test(req.headers.cookie ?? '');
+}
+
 export function createApp({ db, config, mailer, stage }: AppDependencies): Express {
   const app = express();
   app.disable('x-powered-by');
@@ -108,6 +116,14 @@ export function createApp({ db, config, mailer, stage }: AppDependencies): Expre
     app.use(morgan(':method :url :status :res[content-length] - :response-time ms'));
 
   app.use(healthRouter(db));
+  // What a posted share link opens, and the preview of an unsaved design, need no session: before the session
+  // middleware, a stranger's request reads no session row and gets no cookie, and a link's answer may be kept by
+  // caches (server/routes/shares.ts, server/routes/preview.ts). A preview sent with the session cookie goes the
+  // long way round, through the cross-site token check that every POST carrying that cookie passes.
+  app.use(sharedLinkRouter(db));
+  const preview = previewRouter();
+  app.use((req, res, next) => (carriesSession(req) ? next() : preview(req, res, next)));
+  if (config.benchRoutes) app.use(benchFloorRouter('before-session'));
 
   app.use(cookieParser());
   const PgStore = connectPgSimple(session);
@@ -143,7 +159,7 @@ export function createApp({ db, config, mailer, stage }: AppDependencies): Expre
   app.use(retuneRouter(db));
   app.use(jsonBodies);
   app.use(meRouter());
-  app.use(previewRouter());
+  app.use(preview);
   app.use(temperamentsRouter());
   app.use(presetsRouter(db));
   app.use(sharesRouter(db, config));
@@ -152,7 +168,7 @@ export function createApp({ db, config, mailer, stage }: AppDependencies): Expre
   app.use(exportsRouter(db));
   app.use(instrumentsRouter(db));
   app.use(setlistsRouter(db, stage ?? createStageHub(config.databaseUrl, db)));
-  if (config.benchRoutes) app.use(benchFloorRouter());
+  if (config.benchRoutes) app.use(benchFloorRouter('after-session'));
   app.use('/api', apiNotFound);
   app.use(builtApp(config.staticDir));
   app.use(uploadErrors);

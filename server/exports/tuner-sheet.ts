@@ -1,15 +1,10 @@
 // The printable tuner sheet: the degrees of a preset, what to dial into a chromatic tuner for each key of one
 // period, and a chart of those offsets. A PDF made with pdfkit and the Roboto font the project ships.
-import { join } from 'node:path';
 import PDFDocument from 'pdfkit';
 import type { ResolvedPreset } from '../../shared/preset/preset-document';
 import { nearestEqualTemperedNote, noteName } from '../../shared/tuning/twelve-edo';
 import { previewTable } from '../../shared/tuning/preview';
-import { repoRoot } from '../config';
-
-const fontDir = join(repoRoot, 'node_modules/@fontsource/roboto/files');
-const regular = join(fontDir, 'roboto-latin-400-normal.woff');
-const bold = join(fontDir, 'roboto-latin-700-normal.woff');
+import { sheetFonts } from './sheet-fonts';
 
 export interface SheetRevision {
   revision: number | null;
@@ -24,9 +19,12 @@ export interface TunerRow {
   offsetCents: number;
 }
 
-/** One period of keys from the root key: what each plays and where a chromatic tuner shows it. */
-export function tunerRows(preset: ResolvedPreset): TunerRow[] {
-  const { keys } = previewTable(preset);
+/**
+ * One period of keys from the root key: what each plays and where a chromatic tuner shows it. `table`: the
+ * preset's preview table, when the caller has it already.
+ */
+export function tunerRows(preset: ResolvedPreset, table = previewTable(preset)): TunerRow[] {
+  const { keys } = table;
   const { rootKey, keysPerPeriod, concertA } = preset.mapping;
   const rows: TunerRow[] = [];
   for (let key = rootKey; key < Math.min(128, rootKey + keysPerPeriod); key++) {
@@ -76,7 +74,7 @@ interface Column {
 /** Renders the sheet. The creation date is the revision's own, so the same revision always gives the same bytes. */
 export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Promise<Buffer> {
   const table = previewTable(preset);
-  const rows = tunerRows(preset);
+  const rows = tunerRows(preset, table);
   const created = at.savedAt ?? new Date(0);
   const doc = new PDFDocument({
     size: 'A4',
@@ -90,8 +88,9 @@ export function renderTunerSheet(preset: ResolvedPreset, at: SheetRevision): Pro
       ModDate: created,
     },
   });
-  doc.registerFont('regular', regular);
-  doc.registerFont('bold', bold);
+  const fonts = sheetFonts();
+  doc.registerFont('regular', fonts.regular);
+  doc.registerFont('bold', fonts.bold);
   const chunks: Buffer[] = [];
   doc.on('data', (chunk: Buffer) => chunks.push(chunk));
   const done = new Promise<Buffer>((resolve, reject) => {

@@ -133,7 +133,7 @@ export function exportsRouter(db: Database): Router {
   });
 
   router.get('/api/shared/:token/export/:format', async (req, res) => {
-    const { revision } = await resolveShareToken(db, req.params['token']);
+    const revision = await resolveShareToken(db, req.params['token']);
     const at = { revision: revision.revision, savedAt: revision.createdAt };
     const instrument = await instrumentOf(db, req);
     const shared = documentOrThrow(revision.document, 'document');
@@ -141,7 +141,7 @@ export function exportsRouter(db: Database): Router {
   });
 
   router.get('/api/shared/:token/bundle', async (req, res) => {
-    const { revision } = await resolveShareToken(db, req.params['token']);
+    const revision = await resolveShareToken(db, req.params['token']);
     const at = { revision: revision.revision, savedAt: revision.createdAt };
     const instrument = await instrumentOf(db, req);
     await sendExport(res, documentOrThrow(revision.document, 'document'), 'bundle', at, instrument);

@@ -68,4 +68,42 @@ describe('POST /api/preview/table', () => {
       expect(res.body.error.message.length).toBeGreaterThan(10);
     }
   });
+
+  it('answers the same bytes for documents that differ only in what the table does not show, and new ones for a new mapping', async () => {
+    const post = (body: object) => request(server.app).post('/api/preview/table').send(body);
+    const first = await post(fifths(5, 1)).expect(200);
+    expect(first.headers['content-type']).toBe('application/json; charset=utf-8');
+    const renamed = await post({ ...fifths(5, 1), name: 'Another Name', notes: 'kept apart' });
+    expect(renamed.text).toBe(first.text);
+    const moved = await post({ ...fifths(5, 1), mapping: { rootKey: 62 } }).expect(200);
+    expect(moved.body.keys[62]).toMatchObject({ degree: 0, cents: 0 });
+    expect(moved.body.keys[60].degree).toBe(5);
+    // The first table is still there, untouched by the second.
+    const again = await post(fifths(5, 1));
+    expect(again.text).toBe(first.text);
+    expect(again.body.keys[60]).toMatchObject({ degree: 0, cents: 0 });
+  });
+
+  it('checks every document in full, even one whose table was drawn before', async () => {
+    const post = (body: object) => request(server.app).post('/api/preview/table').send(body);
+    await post(fifths(5, 1)).expect(200);
+    const res = await post({ ...fifths(5, 1), name: '' }).expect(400);
+    expect(res.body.error.field).toBe('name');
+  });
+
+  it('costs a stranger no session and no cookie, while a request with the session cookie still needs the cross-site token', async () => {
+    const stranger = await request(server.app)
+      .post('/api/preview/table')
+      .send(fifths(5, 1))
+      .expect(200);
+    expect(stranger.headers['set-cookie']).toBeUndefined();
+    const member = await server.signIn('preview-member');
+    await member.agent.post('/api/preview/table').send(fifths(5, 1)).expect(403);
+    const signed = await member.agent
+      .post('/api/preview/table')
+      .set('X-XSRF-TOKEN', member.xsrf)
+      .send(fifths(5, 1))
+      .expect(200);
+    expect(signed.text).toBe(stranger.text);
+  });
 });

@@ -3,7 +3,7 @@ import { type FieldError, fieldError, type Result, succeed, fail } from '../resu
 import { readInterval } from '../tuning/interval';
 import { keyPlace, layoutFaults } from '../tuning/key-table';
 import { buildScale } from '../tuning/scale';
-import type { ScaleSpec } from '../tuning/scale-spec';
+import type { Scale, ScaleSpec } from '../tuning/scale-spec';
 import { largestScale } from '../tuning/scale-degrees';
 import { storableString } from '../text/plain-text';
 import { equalTemperedHz } from '../tuning/twelve-edo';
@@ -196,6 +196,17 @@ function versionFault(input: unknown): FieldError | null {
  * before anything else is read. Every fault names its field; nothing is thrown.
  */
 export function parsePresetDocument(input: unknown): Result<ResolvedPreset> {
+  const read = parsePresetAndScale(input);
+  return read.ok ? succeed(read.value.preset) : read;
+}
+
+/**
+ * parsePresetDocument, and the scale it built on the way to check the mapping, for whoever goes on
+ * to draw the preview table (previewTable takes it rather than building it again).
+ */
+export function parsePresetAndScale(
+  input: unknown,
+): Result<{ preset: ResolvedPreset; scale: Scale }> {
   const wrongVersion = versionFault(input);
   if (wrongVersion) return fail([wrongVersion]);
   const parsed = presetDocumentSchema.safeParse(input, { reportInput: true });
@@ -239,7 +250,7 @@ export function parsePresetDocument(input: unknown): Result<ResolvedPreset> {
       return fail([fieldError('mapping.anchor.hz', fault)]);
     }
   }
-  return succeed({
+  const preset: ResolvedPreset = {
     ...about,
     scale: scaleSpec,
     mapping: {
@@ -251,5 +262,6 @@ export function parsePresetDocument(input: unknown): Result<ResolvedPreset> {
       layout,
     },
     output: { ...output, tuningName: output.tuningName ?? tuningNameFrom(about.name) },
-  });
+  };
+  return succeed({ preset, scale: scale.value });
 }

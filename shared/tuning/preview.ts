@@ -76,6 +76,12 @@ export interface PreviewTable {
   warnings: FieldError[];
 }
 
+function builtOrThrow(spec: ScaleSpec): Scale {
+  const built = buildScale(spec);
+  if (!built.ok) throw new Error(built.errors.map((error) => error.message).join('; '));
+  return built.value;
+}
+
 function sizeJson(size: IntervalSize): SizeJson {
   return { ratio: size.ratio ? ratioToString(size.ratio) : null, cents: size.cents };
 }
@@ -114,12 +120,13 @@ function chainJson(scale: Scale): NonNullable<PreviewTable['analysis']['stack']>
  * The body of `POST /api/preview/table`: the scale's degrees with their analysis, the scale-wide
  * analysis and the 128-key table, all JSON-safe (ratios as text, cents and Hz as numbers). Takes
  * the scale and mapping of what `parsePresetDocument` returned; a preset that did not come through
- * it may not build, and then this throws.
+ * it may not build, and then this throws. `scale`: the scale `parsePresetAndScale` built from the
+ * same spec, so that it is not built twice.
  */
-export function previewTable(preset: { scale: ScaleSpec; mapping: KeyMapping }): PreviewTable {
-  const built = buildScale(preset.scale);
-  if (!built.ok) throw new Error(built.errors.map((error) => error.message).join('; '));
-  const scale = built.value;
+export function previewTable(
+  preset: { scale: ScaleSpec; mapping: KeyMapping },
+  scale: Scale = builtOrThrow(preset.scale),
+): PreviewTable {
   const analysis = analyzeScale(scale, preset.mapping);
   const table = mapKeys(scale, preset.mapping);
   const { stack, stepPattern } = analysis;

@@ -45,14 +45,17 @@ export interface StackAnalysis {
  */
 function mosSizes(reducedGeneratorCents: number, periodCents: number): number[] {
   const sizes: number[] = [];
-  const positions = [0];
-  const steps: number[] = [];
+  // The stack's positions in the period, kept in order as each generator is added, and the steps between them.
+  const positions = new Float64Array(largestMosSize);
+  const steps = new Float64Array(largestMosSize);
   for (let count = 2; count <= largestMosSize; count++) {
     const position = ((count - 1) * reducedGeneratorCents) % periodCents;
-    let place = positions.length;
+    let place = count - 1;
     while (place > 0 && positions[place - 1] > position) place--;
-    positions.splice(place, 0, position);
-    let [smallest, largest] = [Infinity, -Infinity];
+    positions.copyWithin(place + 1, place, count - 1);
+    positions[place] = position;
+    let smallest = Infinity;
+    let largest = -Infinity;
     for (let index = 0; index < count; index++) {
       const step = (index + 1 < count ? positions[index + 1] : periodCents) - positions[index];
       steps[index] = step;
@@ -60,10 +63,10 @@ function mosSizes(reducedGeneratorCents: number, periodCents: number): number[] 
       if (step > largest) largest = step;
     }
     if (smallest < sameSizeCents || largest - smallest < sameSizeCents) continue;
-    const large: boolean[] = [];
+    const large: boolean[] = new Array(count);
     let twoSizes = true;
     for (let index = 0; index < count && twoSizes; index++) {
-      large.push(largest - steps[index] < sameSizeCents);
+      large[index] = largest - steps[index] < sameSizeCents;
       twoSizes = large[index] || steps[index] - smallest < sameSizeCents;
     }
     if (twoSizes && isBalanced(large)) sizes.push(count);

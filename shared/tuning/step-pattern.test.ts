@@ -5,7 +5,7 @@ import { intervalBetween } from './interval-size';
 import type { Scale } from './scale-spec';
 import { builtScale, stack } from './scale.testing';
 import { analyzeStack } from './stack-analysis';
-import { stepPattern } from './step-pattern';
+import { isBalanced, stepPattern } from './step-pattern';
 
 function patternOf(scale: Scale) {
   const { degrees, period } = scale;
@@ -91,5 +91,70 @@ describe('stepPattern', () => {
         expect(pattern.isMos).toBe(true);
       }),
     );
+  });
+});
+
+/** Balance as defined: every run of k consecutive steps, read round the cycle, holds as many large steps as any other, give or take one. */
+function balancedByDefinition(large: boolean[]): boolean {
+  const length = large.length;
+  for (let span = 1; span < length; span++) {
+    const counts = Array.from({ length }, (_, start) => {
+      let count = 0;
+      for (let i = 0; i < span; i++) if (large[(start + i) % length]) count++;
+      return count;
+    });
+    if (Math.max(...counts) - Math.min(...counts) > 1) return false;
+  }
+  return true;
+}
+
+describe('isBalanced', () => {
+  it('agrees with the definition on every cyclic word of up to 14 steps', () => {
+    let balanced = 0;
+    for (let length = 1; length <= 14; length++) {
+      for (let bits = 0; bits < 2 ** length; bits++) {
+        const large = Array.from({ length }, (_, i) => ((bits >> i) & 1) === 1);
+        const expected = balancedByDefinition(large);
+        if (isBalanced(large) !== expected)
+          expect({ large, balanced: isBalanced(large) }).toEqual({ large, balanced: expected });
+        if (expected) balanced++;
+      }
+    }
+    // Both answers come up, so agreeing means something: of the 32,766 words a few hundred are balanced.
+    expect(balanced).toBeGreaterThan(300);
+    expect(balanced).toBeLessThan(3000);
+  });
+
+  it('agrees with the definition on longer words, as long as scales get', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 15, max: 256 }).chain((length) =>
+          fc.oneof(
+            fc.array(fc.boolean(), { minLength: length, maxLength: length }),
+            // Balanced words are rare among random ones: rotations of evenly spread words, some with one step flipped.
+            fc
+              .tuple(fc.integer({ min: 0, max: length }), fc.nat(), fc.nat(), fc.boolean())
+              .map(([count, turn, flip, flipped]) => {
+                const even = Array.from(
+                  { length },
+                  (_, i) =>
+                    Math.floor(((i + 1) * count) / length) > Math.floor((i * count) / length),
+                );
+                const turned = even.map((_, i) => even[(i + turn) % length]);
+                if (flipped) turned[flip % length] = !turned[flip % length];
+                return turned;
+              }),
+          ),
+        ),
+        (large) => {
+          expect(isBalanced(large)).toBe(balancedByDefinition(large));
+        },
+      ),
+    );
+  });
+
+  it('calls the diatonic pattern balanced and a bunched one not (the MOS condition, common practice)', () => {
+    expect(isBalanced([...'LLsLLLs'].map((step) => step === 'L'))).toBe(true);
+    expect(isBalanced([...'LLLss'].map((step) => step === 'L'))).toBe(false);
   });
 });

@@ -28,21 +28,23 @@ function lettersFor(count: number): string[] {
 /**
  * Whether a cyclic word of two letters is balanced: every run of k consecutive steps holds the same
  * number of large steps, give or take one. Balanced two-size patterns are exactly the MOS patterns.
+ * A cyclic word with a large steps in n is balanced exactly when it is a rotation of the one word
+ * that spreads them most evenly, whose step i is large when floor((i + 1) a / n) passes floor(i a / n)
+ * (a power of a Christoffel word): one pass to write that word and one search of it written twice,
+ * rather than counting every run of every length.
  */
 export function isBalanced(large: boolean[]): boolean {
   const length = large.length;
-  for (let span = 1; span < length; span++) {
-    let count = 0;
-    for (let i = 0; i < span; i++) count += large[i] ? 1 : 0;
-    let [fewest, most] = [count, count];
-    for (let start = 1; start < length; start++) {
-      count += (large[(start + span - 1) % length] ? 1 : 0) - (large[start - 1] ? 1 : 0);
-      fewest = Math.min(fewest, count);
-      most = Math.max(most, count);
-      if (most - fewest > 1) return false;
-    }
+  let count = 0;
+  for (const step of large) if (step) count++;
+  if (count === 0 || count === length) return true;
+  let even = '';
+  let given = '';
+  for (let i = 0; i < length; i++) {
+    even += Math.floor(((i + 1) * count) / length) > Math.floor((i * count) / length) ? 'L' : 's';
+    given += large[i] ? 'L' : 's';
   }
-  return true;
+  return (even + even).includes(given);
 }
 
 /** Groups the steps of a scale (from each degree to the next, the last to the period) by size. */

@@ -166,7 +166,7 @@ describe('imports', () => {
     const retune = files.find((file) => file.path === 'shared/midi/song-retune.ts');
     expect(retune?.imports).toContain('shared/midi/smf-writer.ts');
     const design = files.find((file) => file.path === 'src/app/design/design-state.ts');
-    expect(design?.imports).toContain('shared/tuning/scale.ts');
+    expect(design?.imports).toContain('shared/preset/preset-document.ts');
   });
 
   it('form no cycle', () => {

@@ -123,4 +123,29 @@ describe('DesignState', () => {
     state.setScaleField('up', 2);
     expect(state.draft()).toEqual(saved);
   });
+
+  it('keeps the parts of the preview an edit leaves as they were, so that their pictures are not redrawn', () => {
+    const first = state.shown()!.table;
+    state.rename('Another name');
+    expect(state.shown()!.table).withContext('a new name changes no picture').toBe(first);
+
+    state.assignKey(1, 0);
+    const moved = state.shown()!.table;
+    expect(moved.keys)
+      .withContext('the second key of each block plays another degree')
+      .not.toBe(first.keys);
+    expect(moved.keys[61].degree).toBe(0);
+    expect(moved.degrees).withContext('the degrees did not change').toBe(first.degrees);
+    expect(moved.analysis.intervalMatrix).toBe(first.analysis.intervalMatrix);
+
+    state.setScaleField('generator', '696.6c');
+    const tempered = state.shown()!.table;
+    expect(tempered.degrees).not.toBe(moved.degrees);
+    expect(tempered.analysis.intervalMatrix).not.toBe(moved.analysis.intervalMatrix);
+    // 696.6 cents is a tempered fifth: the degree two fifths up (less an octave) is 193.2 cents (arithmetic).
+    expect(tempered.degrees.find((degree) => degree.stackPosition === 2)!.cents).toBeCloseTo(
+      193.2,
+      9,
+    );
+  });
 });

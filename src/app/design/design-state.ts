@@ -1,9 +1,9 @@
 import type { PresetAccess } from '@shared/api/roles';
 import { Injectable, computed, linkedSignal, signal } from '@angular/core';
-import { type ResolvedPreset, parsePresetDocument } from '@shared/preset/preset-document';
+import { type ResolvedPreset, parsePresetAndScale } from '@shared/preset/preset-document';
 import type { FieldError } from '@shared/result';
-import { type PreviewTable, previewTable } from '@shared/tuning/preview';
-import { buildScale } from '@shared/tuning/scale';
+import type { PreviewTable } from '@shared/tuning/preview';
+import { keptTable } from './kept-table';
 import { nearestKeyLayout } from '../keys/nearest-key-layout';
 import {
   type DraftDocument,
@@ -129,14 +129,19 @@ export class DesignState {
 
   readonly draft = this.draftDocument.asReadonly();
   readonly origin = signal<SavedOrigin | null>(null);
-  readonly parsed = computed(() => parsePresetDocument(this.draft()));
-  /** The last design that built: while a field is being retyped, the pictures keep showing it. */
-  readonly shown = linkedSignal<ReturnType<typeof parsePresetDocument>, ShownDesign | null>({
+  /** The checked document, and the scale built on the way, which the preview table takes rather than building again. */
+  private readonly parsed = computed(() => parsePresetAndScale(this.draft()));
+  /**
+   * The last design that built: while a field is being retyped, the pictures keep showing it. Parts of the table an
+   * edit left as they were stay the same objects (kept-table.ts), so the pictures of those parts are not redrawn.
+   */
+  readonly shown = linkedSignal<ReturnType<typeof parsePresetAndScale>, ShownDesign | null>({
     source: this.parsed,
-    computation: (parsed, previous) =>
-      parsed.ok
-        ? { preset: parsed.value, table: previewTable(parsed.value) }
-        : (previous?.value ?? null),
+    computation: (parsed, previous) => {
+      if (!parsed.ok) return previous?.value ?? null;
+      const { preset, scale } = parsed.value;
+      return { preset, table: keptTable(previous?.value ?? null, preset, scale) };
+    },
   }).asReadonly();
   readonly stale = computed(() => !this.parsed().ok);
   readonly faults = computed<FieldError[]>(() => {
@@ -375,12 +380,14 @@ export class DesignState {
    */
   private followNearestKeys(): void {
     if (!this.nearestKeysByDefault() || this.readOnly()) return;
-    const { keysPerPeriod: _, layout: __, ...mapping } = this.draft().mapping;
-    const parsed = parsePresetDocument({ ...this.draft(), mapping });
+    const { keysPerPeriod, layout: written, ...mapping } = this.draft().mapping;
+    // Without a layout the draft is what the pictures are about to read: its reading serves here too.
+    const parsed =
+      keysPerPeriod === undefined && written === undefined
+        ? this.parsed()
+        : parsePresetAndScale({ ...this.draft(), mapping });
     if (!parsed.ok) return;
-    const built = buildScale(parsed.value.scale);
-    if (!built.ok) return;
-    const { degrees, period } = built.value;
+    const { degrees, period } = parsed.value.scale;
     const octave = Math.abs(period.cents - 1200) < 1e-6;
     const layout =
       octave && degrees.length < 12
@@ -389,7 +396,7 @@ export class DesignState {
             period.cents,
           )
         : null;
-    this.writeLayout(layout);
+    if (layout || written !== undefined || keysPerPeriod !== undefined) this.writeLayout(layout);
   }
 
   private consecutiveLayout(): (number | null)[] {

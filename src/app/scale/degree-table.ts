@@ -61,12 +61,16 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
           }}
           Hz
         </caption>
-        <!-- The degree and its name stay in view while the table scrolls sideways on a phone. -->
-        <ng-container matColumnDef="degree" sticky>
+        <!--
+          The degree and its name stay in view while the table scrolls sideways on a phone: sticky by CSS (styles
+          below), with the degree column's width fixed, rather than by the table's sticky columns, which measure and
+          restyle every row's cells on every keystroke.
+        -->
+        <ng-container matColumnDef="degree">
           <th mat-header-cell *matHeaderCellDef scope="col">Degree</th>
           <td mat-cell *matCellDef="let row">{{ row.degree }}</td>
         </ng-container>
-        <ng-container matColumnDef="name" sticky>
+        <ng-container matColumnDef="name">
           <th mat-header-cell *matHeaderCellDef scope="col">Name</th>
           <td mat-cell *matCellDef="let row">{{ row.name }}</td>
         </ng-container>
@@ -127,8 +131,27 @@ function rowOf(degree: PreviewDegree, rootHz: number): DegreeRow {
       padding: 0 10px;
       white-space: nowrap;
     }
-    .mat-mdc-table-sticky {
-      background: var(--mat-sys-surface);
+    /* Sticky only when the table is wider than its box and scrolls; at full width they would cost every frame. */
+    .scroller {
+      container-type: inline-size;
+    }
+    @container (max-width: 639px) {
+      .mat-column-degree,
+      .mat-column-name {
+        position: sticky;
+        z-index: 1;
+        background: var(--mat-sys-surface);
+      }
+      .mat-column-degree {
+        left: 0;
+        box-sizing: border-box;
+        width: 76px;
+        min-width: 76px;
+        max-width: 76px;
+      }
+      .mat-column-name {
+        left: 76px;
+      }
     }
     .approximate {
       color: var(--mat-sys-on-surface-variant);
