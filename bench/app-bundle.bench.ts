@@ -141,7 +141,8 @@ try {
   const ratio = app.rawBytes / shell.rawBytes;
   const gzipRatio = app.gzipBytes / shell.gzipBytes;
   console.log(
-    `ratio ${ratio.toFixed(2)} raw, ${gzipRatio.toFixed(2)} gzip (target at most ${target})`,
+    `ratio ${ratio.toFixed(2)} raw, ${gzipRatio.toFixed(2)} gzip (target at most ${target}: ` +
+      `${ratio <= target ? 'met' : 'NOT MET'})`,
   );
   console.log(
     `ratio to the shell without the menu ${(app.rawBytes / smallShell.rawBytes).toFixed(2)} raw`,

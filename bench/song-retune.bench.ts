@@ -170,9 +170,11 @@ console.log(`parse with midi-file + write back with the linear writer: ${baselin
 for (const mode of ['mts', 'mpe'] as const) {
   const time = median(times[mode]);
   const { report } = retune(mode);
+  const met = time / baseline <= 1.5;
+  if (!met) process.exitCode = 1;
   console.log(
     `retune ${mode}: ${time.toFixed(0)} ms, ` +
-      `ratio ${(time / baseline).toFixed(2)} (target <= 1.5); ` +
+      `ratio ${(time / baseline).toFixed(2)} (target <= 1.5: ${met ? 'met' : 'NOT MET'}); ` +
       `${report.notesRetuned} notes retuned, ${report.notesStolen.length} stolen; ` +
       `memory: ${memory[mode]}`,
   );
