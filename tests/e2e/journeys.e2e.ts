@@ -73,7 +73,15 @@ describe('journey 1: a composer designs signed out and downloads an MTS bulk dum
     ]);
     await screenshot(page, 'journey-1-design');
 
-    await expect.poll(() => new URL(page.url()).searchParams.get('d')).toBeTruthy();
+    // The page's own signal that the design is kept: the address holds it, name and chain as typed (the `d`
+    // parameter is "1." and the design's JSON, short field names, in base64url).
+    const addressed = () => {
+      const d = new URL(page.url()).searchParams.get('d');
+      if (!d?.startsWith('1.')) return null;
+      const design = JSON.parse(Buffer.from(d.slice(2), 'base64url').toString('utf8'));
+      return { name: design.n, up: design.s?.u, down: design.s?.d };
+    };
+    await expect.poll(addressed).toEqual({ name: 'Journey Fifths', up: 5, down: 1 });
     await page.reload();
     await expect.poll(() => page.getByLabel('Preset name').inputValue()).toBe('Journey Fifths');
 
