@@ -12,7 +12,9 @@ interface Recorded {
 
 /**
  * Runs in the page before the app: a Web MIDI access with one output, "Stage synth", that records
- * every message sent. The port carries what webmidi reads and sets on a browser's.
+ * every message sent, and the synth's own output as an input of the same name, which answers the MTS
+ * dump request with a dump of the program asked for. The ports carry what webmidi reads and sets on a
+ * browser's.
  */
 function standInMidi(): void {
   const page = window as unknown as Recorded;
@@ -31,11 +33,38 @@ function standInMidi(): void {
     close: async () => ((output.connection = 'closed'), output),
     send(bytes: Uint8Array | number[]) {
       page.sent.push(Array.from(bytes));
+      // MIDI Tuning specification: the dump request F0 7E dev 08 00 tt F7 asks for program tt.
+      if (bytes[0] === 0xf0 && bytes[3] === 0x08 && bytes[4] === 0x00) {
+        const dump = dumpOf(bytes[5]);
+        setTimeout(() => input.onmidimessage?.({ data: dump, timeStamp: performance.now() }), 20);
+      }
     },
+  };
+  const input = {
+    ...output,
+    id: 'stage-in',
+    type: 'input',
+    onmidimessage: null as ((event: { data: Uint8Array; timeStamp: number }) => void) | null,
+    open: async () => ((input.connection = 'open'), input),
+    close: async () => ((input.connection = 'closed'), input),
+  };
+  /** A 12-tone equal bulk dump of `program`, by the layout and checksum rule of the MIDI Tuning specification. */
+  const dumpOf = (program: number) => {
+    const name = Array.from('STAGE SYNTH'.padEnd(16, ' '), (character) => character.charCodeAt(0));
+    const body = [
+      0x7e,
+      0x7f,
+      0x08,
+      0x01,
+      program,
+      ...name,
+      ...Array.from({ length: 128 }, (_, key) => [key, 0, 0]).flat(),
+    ];
+    return Uint8Array.from([0xf0, ...body, body.reduce((sum, byte) => sum ^ byte, 0) & 0x7f, 0xf7]);
   };
   const access = {
     sysexEnabled: true,
-    inputs: new Map(),
+    inputs: new Map([[input.id, input]]),
     outputs: new Map([[output.id, output]]),
     onstatechange: null as Handler,
   };
@@ -75,16 +104,29 @@ function sentBytes(page: Page): Promise<number[][]> {
   return page.evaluate(() => (window as unknown as Recorded).sent);
 }
 
-/** Connects MIDI, follows, and agrees to the one question before the first send. */
-async function follow(page: Page, setlistId: string): Promise<void> {
+/**
+ * Connects MIDI, follows, and agrees to the one question before the first send; with `backUp`, backs the
+ * instrument up first and waits for the tuning to follow the dump request.
+ */
+async function follow(page: Page, setlistId: string, backUp = false): Promise<void> {
   await page.goto(`${inject('appUrl')}/stage/${setlistId}`);
   await page.getByRole('button', { name: 'Connect MIDI' }).click();
   await page.getByRole('switch', { name: 'Follow' }).click();
   await expect.poll(() => page.getByRole('status').filter({ hasText: 'In step' }).count()).toBe(1);
   const dialog = page.getByRole('dialog');
   await expect.poll(() => dialog.textContent()).toContain('Stage synth');
+  if (backUp) {
+    await dialog.getByRole('button', { name: 'Back up first' }).click();
+    await expect.poll(() => dialog.locator('.outcome').textContent()).toContain('in your library');
+    expect(await dialog.locator('.advice').textContent()).toContain(
+      'Every instrument is backed up.',
+    );
+    // Nothing but the dump request has gone out yet (MIDI Tuning specification: F0 7E dev 08 00 tt F7).
+    expect(await sentBytes(page)).toEqual([[0xf0, 0x7e, 16, 0x08, 0x00, 5, 0xf7]]);
+    await screenshot(page, 'stage-backed-up');
+  }
   await dialog.getByRole('button', { name: 'Send and replace' }).click();
-  await expect.poll(async () => (await sentBytes(page)).length).toBeGreaterThan(0);
+  await expect.poll(async () => (await sentBytes(page)).length).toBeGreaterThan(backUp ? 1 : 0);
 }
 
 describe('the stage', () => {
@@ -114,7 +156,7 @@ describe('the stage', () => {
       entries: presets.slice(0, 2).map((preset) => ({ presetId: preset.id })),
     });
 
-    await follow(owner, setlist.id);
+    await follow(owner, setlist.id, true);
     await follow(editor, setlist.id);
     await expect.poll(() => editor.locator('.current').textContent()).toContain(presets[0].name);
     await expect.poll(() => editor.getByRole('button', { name: 'Next' }).count()).toBe(1);

@@ -57,7 +57,7 @@ describe('StageConfirmDialog', () => {
     expect(button('Send and replace')!.disabled).toBeTrue();
     answer([
       { ...lead, backedUp: true, message: 'Backed up as "12-TET, backed up" in your library.' },
-      { ...organ, backedUp: false, message: 'Its form has no tuning program to ask for.' },
+      { ...organ, backedUp: false, message: 'Its form cannot be asked for the tuning it holds.' },
     ]);
     await waitFor('the outcomes', () => element.querySelector('.outcome'), settle);
     const outcomes = Array.from(element.querySelectorAll('li .outcome'), (item) => [
@@ -66,7 +66,7 @@ describe('StageConfirmDialog', () => {
     ]);
     expect(outcomes).toEqual([
       ['Backed up as "12-TET, backed up" in your library.', true],
-      ['Its form has no tuning program to ask for.', false],
+      ['Its form cannot be asked for the tuning it holds.', false],
     ]);
     expect(element.querySelector('.advice')!.textContent).toContain(
       '1 of 2 could not be backed up',

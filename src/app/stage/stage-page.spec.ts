@@ -567,7 +567,7 @@ describe('StagePage', () => {
         ['Organ', false],
       ]);
       expect(outcomes[0].message).toContain('in your library');
-      expect(outcomes[1].message).toContain('no tuning program to ask for');
+      expect(outcomes[1].message).toContain('cannot be asked for the tuning it holds');
       // MIDI Tuning specification, bulk tuning dump: F0 7E <device> 08 01 <program> ...
       expect(synth.sent[1].slice(0, 6)).toEqual([0xf0, 0x7e, 0x10, 0x08, 0x01, 5]);
       // Nineteen notes to the octave do not fit a scale/octave tuning of twelve: said once, not retried.

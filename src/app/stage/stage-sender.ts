@@ -161,7 +161,7 @@ export class StageSender {
           false,
           programForms.has(instrument.receives)
             ? `No MIDI input named "${port}" to hear an answer on: not backed up.`
-            : 'Its form has no tuning program to ask for: not backed up.',
+            : 'Its form cannot be asked for the tuning it holds: not backed up.',
         );
         continue;
       }
