@@ -8,48 +8,19 @@
 // Each figure is printed as a ratio against the 16 ms frame, with met / NOT MET; the run fails when one is not met.
 // Run: npx tsx bench/designer-recompute.bench.ts
 import { execFileSync } from 'node:child_process';
-import { readFile } from 'node:fs/promises';
-import { createServer } from 'node:http';
 import { mkdtempSync, rmSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
-import { extname, join, normalize } from 'node:path';
+import { join } from 'node:path';
 import { build } from 'esbuild';
-import { chromium } from 'playwright-core';
+import { launchChromium } from '../tests/e2e/browser';
+import { serveBuiltApp } from './support/built-app-server';
 
 const repo = join(import.meta.dirname, '..');
 /** The shared code runs back to back; the first few dozen runs are slow while the JIT warms up. */
 const computeRuns = { runs: 300, warmUp: 100 };
 /** Edits wait for the page to settle between them, as keystrokes do. */
 const editRuns = { runs: 60, warmUp: 10 };
-const contentTypes: Record<string, string> = {
-  '.html': 'text/html',
-  '.js': 'text/javascript',
-  '.css': 'text/css',
-  '.svg': 'image/svg+xml',
-  '.woff2': 'font/woff2',
-};
-
-function serve(root: string) {
-  return createServer(async (request, response) => {
-    const path = decodeURIComponent(new URL(request.url ?? '/', 'http://bench').pathname);
-    if (path.startsWith('/api/')) {
-      response.setHeader('content-type', 'application/json');
-      response.end(
-        path === '/api/me' ? '{"user":null}' : '{"error":{"code":"not_found","message":"none"}}',
-      );
-      return;
-    }
-    const file = join(root, normalize(path));
-    const body = await readFile(file).catch(() => null);
-    response.setHeader(
-      'content-type',
-      body ? (contentTypes[extname(file)] ?? 'application/octet-stream') : 'text/html',
-    );
-    response.end(body ?? (await readFile(join(root, 'index.html'))));
-  }).listen(0, '127.0.0.1');
-}
-
 /** The shared tuning code as one script that puts the two functions on `window.keyloomPreview`. */
 async function sharedScript(): Promise<string> {
   const bundled = await build({
@@ -92,21 +63,8 @@ function judged(times: number[]): string {
 }
 
 const output = mkdtempSync(join(tmpdir(), 'keyloom-recompute-'));
-const browser = await chromium.launch({
-  executablePath: '/usr/bin/chromium',
-  args: [
-    '--no-sandbox',
-    '--headless',
-    '--disable-gpu',
-    '--disable-background-networking',
-    '--disable-component-update',
-    '--disable-sync',
-    '--no-first-run',
-    '--disable-quic',
-    '--disable-dev-shm-usage',
-  ],
-});
-const server = serve(join(output, 'browser'));
+const browser = await launchChromium();
+const server = serveBuiltApp(join(output, 'browser'));
 try {
   execFileSync('npx', ['ng', 'build', '--configuration', 'production', '--output-path', output], {
     cwd: repo,

@@ -12,13 +12,11 @@
 // Run: npx tsx bench/tuner.bench.ts (TUNER_DEBUG=1 prints what the reading said after each tone's start)
 import { execFileSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
-import { readFile } from 'node:fs/promises';
-import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { loadavg, tmpdir } from 'node:os';
-import { extname, join, normalize } from 'node:path';
+import { join } from 'node:path';
 import { PitchDetector } from 'pitchy';
-import { type Page, chromium } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { parsePresetDocument } from '../shared/preset/preset-document';
 import { nearestTarget, tunerTargets } from '../shared/tuner/nearest-target';
 import { frameLengthFor, pitchReader } from '../shared/tuner/pitch-detector';
@@ -26,6 +24,8 @@ import { followPitch, silentTrack } from '../shared/tuner/pitch-track';
 import { harmonicTone, seededRandom } from '../shared/tuner/tones.testing';
 import { previewTable } from '../shared/tuning/preview';
 import { writeToneWav } from '../tests/support/tone-wav';
+import { launchChromium } from '../tests/e2e/browser';
+import { serveBuiltApp } from './support/built-app-server';
 
 const repo = join(import.meta.dirname, '..');
 let failed = false;
@@ -133,34 +133,6 @@ for (const [name, hz] of [
 }
 
 // 2. Chromium with a fake microphone.
-const contentTypes: Record<string, string> = {
-  '.html': 'text/html',
-  '.js': 'text/javascript',
-  '.css': 'text/css',
-  '.svg': 'image/svg+xml',
-  '.woff2': 'font/woff2',
-};
-
-function serve(root: string) {
-  return createServer(async (request, response) => {
-    const path = decodeURIComponent(new URL(request.url ?? '/', 'http://bench').pathname);
-    if (path.startsWith('/api/')) {
-      response.setHeader('content-type', 'application/json');
-      response.end(
-        path === '/api/me' ? '{"user":null}' : '{"error":{"code":"not_found","message":"none"}}',
-      );
-      return;
-    }
-    const file = join(root, normalize(path));
-    const body = await readFile(file).catch(() => null);
-    response.setHeader(
-      'content-type',
-      body ? (contentTypes[extname(file)] ?? 'application/octet-stream') : 'text/html',
-    );
-    response.end(body ?? (await readFile(join(root, 'index.html'))));
-  }).listen(0, '127.0.0.1');
-}
-
 interface Timings {
   onsets: number[];
   readings: { at: number; text: string }[];
@@ -195,7 +167,7 @@ const loops = 8;
 const silenceSeconds = 0.6;
 const toneSeconds = 1.0;
 const output = mkdtempSync(join(tmpdir(), 'keyloom-tuner-bench-'));
-const server = serve(join(output, 'browser'));
+const server = serveBuiltApp(join(output, 'browser'));
 try {
   execFileSync('npx', ['ng', 'build', '--configuration', 'production', '--output-path', output], {
     cwd: repo,
@@ -212,23 +184,11 @@ try {
   ] as const) {
     const wav = join(output, 'tone.wav');
     writeToneWav(wav, { hz, harmonics: 10, silenceSeconds, toneSeconds });
-    const browser = await chromium.launch({
-      executablePath: '/usr/bin/chromium',
-      args: [
-        '--no-sandbox',
-        '--headless',
-        '--disable-gpu',
-        '--disable-background-networking',
-        '--disable-component-update',
-        '--disable-sync',
-        '--no-first-run',
-        '--disable-quic',
-        '--disable-dev-shm-usage',
-        '--use-fake-device-for-media-stream',
-        '--use-fake-ui-for-media-stream',
-        `--use-file-for-fake-audio-capture=${wav}`,
-      ],
-    });
+    const browser = await launchChromium([
+      '--use-fake-device-for-media-stream',
+      '--use-fake-ui-for-media-stream',
+      `--use-file-for-fake-audio-capture=${wav}`,
+    ]);
     try {
       const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
       await context.grantPermissions(['microphone']);
