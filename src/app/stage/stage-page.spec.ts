@@ -169,6 +169,16 @@ describe('StagePage', () => {
       button.textContent?.includes(name),
     );
 
+  /** Presses Connect MIDI and waits for the page to have opened it. */
+  async function connectMidi(): Promise<void> {
+    buttonNamed('Connect MIDI')!.click();
+    await waitFor(
+      'MIDI to open',
+      () => !buttonNamed('Connect MIDI'),
+      () => test.settle(),
+    );
+  }
+
   const facts = () =>
     Array.from(test.page().querySelectorAll('.facts dd')).map((dd) => dd.textContent?.trim());
 
@@ -271,12 +281,7 @@ describe('StagePage', () => {
       await openStage(setlist('read'), [bulk, mpe]);
       expect(test.text('.instruments')).toContain('cannot be sent over MIDI');
 
-      buttonNamed('Connect MIDI')!.click();
-      await waitFor(
-        'MIDI to open',
-        () => !buttonNamed('Connect MIDI'),
-        () => test.settle(),
-      );
+      await connectMidi();
       (test.page().querySelector('.follow button') as HTMLButtonElement).click();
       await test.settle();
       const [stream] = streams;
@@ -338,12 +343,7 @@ describe('StagePage', () => {
         port: 'Stage synth',
       });
       await openStage(setlist('read'), [bank]);
-      buttonNamed('Connect MIDI')!.click();
-      await waitFor(
-        'MIDI to open',
-        () => !buttonNamed('Connect MIDI'),
-        () => test.settle(),
-      );
+      await connectMidi();
       (test.page().querySelector('.follow button') as HTMLButtonElement).click();
       await test.settle();
       plug(access, synth, 'disconnected');
@@ -383,12 +383,7 @@ describe('StagePage', () => {
         Promise.resolve(standInAccess({ inputs: [pedal] })),
       );
       await openStage(setlist('edit'));
-      buttonNamed('Connect MIDI')!.click();
-      await waitFor(
-        'MIDI to open',
-        () => !buttonNamed('Connect MIDI'),
-        () => test.settle(),
-      );
+      await connectMidi();
       const select = await test.loader.getHarness(
         MatSelectHarness.with({ selector: '.pedal mat-select' }),
       );
@@ -416,70 +411,52 @@ describe('StagePage', () => {
     patientSpecMs,
   );
 
-  it(
-    'keeps the input and footswitch a player chose in this browser',
-    async () => {
-      localStorage.removeItem(stageControlsKey);
-      try {
-        const pedal = standInInput('in-1', 'Foot controller');
-        const keys = standInInput('in-2', 'Key bed');
-        spyOn(navigator, 'requestMIDIAccess').and.returnValue(
-          Promise.resolve(standInAccess({ inputs: [keys, pedal] })),
-        );
-        await openStage(setlist('edit'));
-        buttonNamed('Connect MIDI')!.click();
-        await waitFor(
-          'MIDI to open',
-          () => !buttonNamed('Connect MIDI'),
-          () => test.settle(),
-        );
-        const select = await test.loader.getHarness(
-          MatSelectHarness.with({ selector: '.pedal mat-select' }),
-        );
+  describe('with a foot controller', () => {
+    beforeEach(() => localStorage.removeItem(stageControlsKey));
+    afterEach(() => localStorage.removeItem(stageControlsKey));
+
+    /** Opens the stage for an editor with a foot controller and a key bed connected. */
+    async function openWithPedal() {
+      const pedal = standInInput('in-1', 'Foot controller');
+      const keys = standInInput('in-2', 'Key bed');
+      spyOn(navigator, 'requestMIDIAccess').and.returnValue(
+        Promise.resolve(standInAccess({ inputs: [keys, pedal] })),
+      );
+      await openStage(setlist('edit'));
+      await connectMidi();
+      const select = await test.loader.getHarness(
+        MatSelectHarness.with({ selector: '.pedal mat-select' }),
+      );
+      const controller = await test.loader.getHarness(
+        MatInputHarness.with({ selector: '.controller input' }),
+      );
+      return { pedal, select, controller };
+    }
+
+    it(
+      'keeps the input and footswitch a player chose in this browser',
+      async () => {
+        const { select, controller } = await openWithPedal();
         await select.clickOptions({ text: 'Foot controller' });
-        const controller = await test.loader.getHarness(
-          MatInputHarness.with({ selector: '.controller input' }),
-        );
         await controller.setValue('67');
         await test.settle();
         expect(JSON.parse(localStorage.getItem(stageControlsKey)!)).toEqual({
           inputName: 'Foot controller',
           footswitch: 67,
         });
-      } finally {
-        localStorage.removeItem(stageControlsKey);
-      }
-    },
-    patientSpecMs,
-  );
+      },
+      patientSpecMs,
+    );
 
-  it(
-    'listens again to the input kept from an earlier visit, with its footswitch, once MIDI is connected',
-    async () => {
-      localStorage.setItem(
-        stageControlsKey,
-        JSON.stringify({ inputName: 'Foot controller', footswitch: 67 }),
-      );
-      try {
-        const pedal = standInInput('in-1', 'Foot controller');
-        const keys = standInInput('in-2', 'Key bed');
-        spyOn(navigator, 'requestMIDIAccess').and.returnValue(
-          Promise.resolve(standInAccess({ inputs: [keys, pedal] })),
+    it(
+      'listens again to the input kept from an earlier visit, with its footswitch, once MIDI is connected',
+      async () => {
+        localStorage.setItem(
+          stageControlsKey,
+          JSON.stringify({ inputName: 'Foot controller', footswitch: 67 }),
         );
-        await openStage(setlist('edit'));
-        buttonNamed('Connect MIDI')!.click();
-        await waitFor(
-          'MIDI to open',
-          () => !buttonNamed('Connect MIDI'),
-          () => test.settle(),
-        );
-        const select = await test.loader.getHarness(
-          MatSelectHarness.with({ selector: '.pedal mat-select' }),
-        );
+        const { pedal, select, controller } = await openWithPedal();
         expect(await select.getValueText()).toBe('Foot controller');
-        const controller = await test.loader.getHarness(
-          MatInputHarness.with({ selector: '.controller input' }),
-        );
         expect(await controller.getValue()).toBe('67');
         // MIDI 1.0 Detailed Specification: control change Bn cc vv; controller 67 at 127 is the kept pedal, pressed.
         pedal.receive([0xb0, 64, 127]);
@@ -492,12 +469,10 @@ describe('StagePage', () => {
         next.flush(setlist('edit', 1));
         await test.settle();
         test.http.expectOne('/api/presets/p2/revisions/1').flush({ document: nineteen });
-      } finally {
-        localStorage.removeItem(stageControlsKey);
-      }
-    },
-    patientSpecMs,
-  );
+      },
+      patientSpecMs,
+    );
+  });
 
   it(
     'backs up, when asked, what each instrument that can answer holds, and sends only after that',
@@ -528,12 +503,7 @@ describe('StagePage', () => {
         outcomes = await question.backUp();
       };
       await openStage(setlist('read'), [lead, organ]);
-      buttonNamed('Connect MIDI')!.click();
-      await waitFor(
-        'MIDI to open',
-        () => !buttonNamed('Connect MIDI'),
-        () => test.settle(),
-      );
+      await connectMidi();
       (test.page().querySelector('.follow button') as HTMLButtonElement).click();
       await test.settle();
       streams[0].open();
